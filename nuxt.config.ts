@@ -4,7 +4,11 @@ export default defineNuxtConfig({
   srcDir: '.',
   devtools: { enabled: false },
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', '@sidebase/nuxt-auth'],
-  css: ['~/assets/css/fonts.css', '~/assets/css/main.css'],
+  css: [
+    '@fontsource/ibm-plex-sans/400.css', '@fontsource/ibm-plex-sans/500.css', '@fontsource/ibm-plex-sans/600.css',
+    '@fontsource/jetbrains-mono/400.css', '@fontsource/jetbrains-mono/500.css',
+    '~/assets/css/main.css',
+  ],
   app: { head: { title: 'Dropwright', htmlAttrs: { lang: 'en' } } },
   runtimeConfig: {
     databaseUrl: '', // NUXT_DATABASE_URL or DATABASE_URL
@@ -14,9 +18,11 @@ export default defineNuxtConfig({
     isEnabled: true,
     originEnvKey: 'AUTH_ORIGIN',
     baseURL: '/api/auth',
-    globalAppMiddleware: false,
+    // Every page is guarded unless it opts out (sign-in does); see tests/browser/guard.test.ts.
+    globalAppMiddleware: { isEnabled: true, addDefaultCallbackUrl: true },
     provider: {
       type: 'local',
+      pages: { login: '/sign-in' },
       endpoints: {
         signIn: { path: '/login', method: 'post' },
         signOut: { path: '/logout', method: 'post' },
@@ -41,5 +47,6 @@ export default defineNuxtConfig({
   },
   experimental: { scanPageMeta: true, extraPageMetaExtractionKeys: ['auth'] },
   typescript: { strict: true },
+  tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
   nitro: { experimental: { tasks: false } },
 })

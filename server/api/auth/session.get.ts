@@ -1,0 +1,3 @@
+import { requireSession } from '../../utils/access'
+
+export default defineEventHandler(event => requireSession(event))

@@ -1,0 +1,17 @@
+import { z } from 'zod'
+import { elementId, point } from '../primitives'
+import { degrees } from '../units'
+
+/** Fields every parametric component has: where it sits and how it is turned (degrees, counter-clockwise). */
+export const componentBase = {
+  id: elementId,
+  name: z.string().optional(),
+  position: point,
+  rotation: degrees('Component rotation').default(0),
+  layerId: elementId,
+}
+
+/** Adds an issue on `field` when `ok` is false; used by the per-kind parameter checks. */
+export function require(ctx: z.core.$RefinementCtx, ok: boolean, field: string, message: string): void {
+  if (!ok) ctx.addIssue({ code: 'custom', path: [field], message })
+}

@@ -1,0 +1,18 @@
+import { z } from 'zod'
+import { point } from './primitives'
+import { positiveUm } from './units'
+
+/** The chip's outer edge (the diced or cut PDMS/glass piece), in µm. */
+export const outline = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('rectangle'),
+    corner: point, // lower-left corner
+    width: positiveUm('Chip outline width'),
+    height: positiveUm('Chip outline height'),
+  }),
+  z.object({
+    kind: z.literal('polygon'),
+    points: z.array(point).min(3, { error: 'Chip outline polygon needs at least 3 points' }),
+  }),
+])
+export type Outline = z.infer<typeof outline>
