@@ -12,6 +12,6 @@ export const componentBase = {
 }
 
 /** Adds an issue on `field` when `ok` is false; used by the per-kind parameter checks. */
-export function require(ctx: z.core.$RefinementCtx, ok: boolean, field: string, message: string): void {
+export function requireThat(ctx: z.core.$RefinementCtx, ok: boolean, field: string, message: string): void {
   if (!ok) ctx.addIssue({ code: 'custom', path: [field], message })
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { positiveUm } from '../units'
-import { componentBase, require } from './common'
+import { componentBase, requireThat } from './common'
 
 /**
  * Flow-focusing cross: the dispersed phase arrives along local +x, two continuous arms cross it at the origin
@@ -19,7 +19,7 @@ export const flowFocusing = z
   })
   .superRefine((c, ctx) => {
     const widest = Math.max(c.continuousWidth, c.dispersedWidth, c.outletWidth)
-    require(ctx, c.armLength >= widest, 'armLength',
+    requireThat(ctx, c.armLength >= widest, 'armLength',
       `Flow-focusing arm length must be ≥ the widest channel (${widest} µm)`)
   })
 export type FlowFocusing = z.infer<typeof flowFocusing>

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { positiveUm } from '../units'
-import { componentBase, require } from './common'
+import { componentBase, requireThat } from './common'
 
 /**
  * Serpentine resistor: `turns` U-turns joining `turns + 1` straight runs along local x, runs `pitch` µm apart
@@ -18,8 +18,8 @@ export const serpentine = z
     totalLength: positiveUm('Serpentine total length'),
   })
   .superRefine((c, ctx) => {
-    require(ctx, c.pitch > c.width, 'pitch', `Serpentine pitch must be > its width (${c.width} µm) or the runs touch`)
-    require(ctx, serpentineRunLength(c) > 0, 'totalLength',
+    requireThat(ctx, c.pitch > c.width, 'pitch', `Serpentine pitch must be > its width (${c.width} µm) or the runs touch`)
+    requireThat(ctx, serpentineRunLength(c) > 0, 'totalLength',
       `Serpentine total length must be > ${(c.turns * Math.PI * c.pitch / 2).toFixed(1)} µm (the turns alone)`)
   })
 export type Serpentine = z.infer<typeof serpentine>

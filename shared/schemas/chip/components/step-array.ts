@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { elementId } from '../primitives'
 import { positiveUm } from '../units'
-import { componentBase, require } from './common'
+import { componentBase, requireThat } from './common'
 
 /**
  * A row of `nozzleCount` step nozzles at `pitch`, fed from a supply channel (on `supplyLayerId`, local x < 0)
@@ -23,9 +23,9 @@ export const stepArray = z
     margin: positiveUm('Step array end margin'),
   })
   .superRefine((c, ctx) => {
-    require(ctx, c.pitch > c.nozzleWidth, 'pitch', `Step array pitch must be > the nozzle width (${c.nozzleWidth} µm)`)
-    require(ctx, c.margin >= c.nozzleWidth, 'margin', `Step array end margin must be ≥ the nozzle width (${c.nozzleWidth} µm)`)
-    require(ctx, c.reservoirLayerId !== c.layerId, 'reservoirLayerId',
+    requireThat(ctx, c.pitch > c.nozzleWidth, 'pitch', `Step array pitch must be > the nozzle width (${c.nozzleWidth} µm)`)
+    requireThat(ctx, c.margin >= c.nozzleWidth, 'margin', `Step array end margin must be ≥ the nozzle width (${c.nozzleWidth} µm)`)
+    requireThat(ctx, c.reservoirLayerId !== c.layerId, 'reservoirLayerId',
       'Step array reservoir must be on a different (deeper) layer than the nozzles')
   })
 export type StepArray = z.infer<typeof stepArray>

@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { elementId } from '../primitives'
 import { positiveUm } from '../units'
-import { componentBase, require } from './common'
+import { componentBase, requireThat } from './common'
 
 /**
  * Step-emulsification nozzle: a shallow nozzle (on `layerId`) from the origin along local +x opens at a step
@@ -19,9 +19,9 @@ export const stepNozzle = z
     reservoirLength: positiveUm('Step reservoir length'),
   })
   .superRefine((c, ctx) => {
-    require(ctx, c.reservoirLayerId !== c.layerId, 'reservoirLayerId',
+    requireThat(ctx, c.reservoirLayerId !== c.layerId, 'reservoirLayerId',
       'Step nozzle reservoir must be on a different (deeper) layer than the nozzle')
-    require(ctx, c.reservoirLength >= c.nozzleWidth, 'reservoirLength',
+    requireThat(ctx, c.reservoirLength >= c.nozzleWidth, 'reservoirLength',
       `Step reservoir length must be ≥ the nozzle width (${c.nozzleWidth} µm)`)
   })
 export type StepNozzle = z.infer<typeof stepNozzle>

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { positiveUm } from '../units'
-import { componentBase, require } from './common'
+import { componentBase, requireThat } from './common'
 
 /**
  * T-junction: a straight main channel (continuous phase, along local +x) and a perpendicular side inlet
@@ -16,7 +16,7 @@ export const tJunction = z
   })
   .superRefine((c, ctx) => {
     const widest = Math.max(c.mainWidth, c.inletWidth)
-    require(ctx, c.armLength >= widest, 'armLength',
+    requireThat(ctx, c.armLength >= widest, 'armLength',
       `T-junction arm length must be ≥ the widest channel (${widest} µm) so each arm leaves the junction`)
   })
 export type TJunction = z.infer<typeof tJunction>

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { positiveUm } from '../units'
-import { componentBase, require } from './common'
+import { componentBase, requireThat } from './common'
 
 /**
  * Y-junction: two inlet arms separated by `angle` degrees, symmetric about local −x, merge at the origin into
@@ -17,8 +17,8 @@ export const yJunction = z
     armLength: positiveUm('Y-junction arm length'),
   })
   .superRefine((c, ctx) => {
-    require(ctx, c.angle >= 10 && c.angle <= 170, 'angle', 'Y-junction angle must be between 10° and 170°')
+    requireThat(ctx, c.angle >= 10 && c.angle <= 170, 'angle', 'Y-junction angle must be between 10° and 170°')
     const widest = Math.max(c.continuousWidth, c.dispersedWidth, c.outletWidth)
-    require(ctx, c.armLength >= widest, 'armLength', `Y-junction arm length must be ≥ the widest channel (${widest} µm)`)
+    requireThat(ctx, c.armLength >= widest, 'armLength', `Y-junction arm length must be ≥ the widest channel (${widest} µm)`)
   })
 export type YJunction = z.infer<typeof yJunction>
