@@ -1,0 +1,57 @@
+import type { ChipOutlines } from '../outlines'
+import { collectEdges, indexEdges } from './edges'
+import { ElementLocator } from './locate'
+import { spacingAllPairs, spacingWithIndex } from './spacing'
+import type { SpacingHit } from './spacing'
+import type { FabricationProcess, Finding } from './types'
+import { findingId } from './types'
+
+/** Measurements at exactly the limit pass; this absorbs floating-point noise from rotation (µm). */
+const TOL = 1e-6
+const r1 = (x: number) => (Math.round(x * 10) / 10).toString()
+
+/**
+ * Minimum width, minimum gap and tall-thin-wall findings on the merged outlines of every layer.
+ * `naive` uses the all-pairs search (benchmark only); results are identical.
+ */
+export function spacingFindings(o: ChipOutlines, process: FabricationProcess, naive = false): Finding[] {
+  const best = new Map<string, Finding & { d: number }>()
+  for (const layer of o.layers) {
+    const wallGap = layer.depth / process.maxWallDepthToWidth
+    const limit = Math.max(process.minGap, process.minFeature, wallGap)
+    const edges = collectEdges(layer.polygons)
+    const hits: SpacingHit[] = naive ? spacingAllPairs(edges, limit) : spacingWithIndex(edges, indexEdges(edges), limit)
+    if (hits.length === 0) continue
+    const locator = new ElementLocator(o.elements.filter((e) => e.layerId === layer.layerId))
+    for (const h of hits) {
+      const finding = classify(h, layer.depth, layer.layerId, process, wallGap)
+      if (!finding) continue
+      const elements = [...new Set([...locator.elementsAt(h.p), ...locator.elementsAt(h.q)])].sort()
+      const id = `${findingId(finding.rule, elements)}@${layer.layerId}`
+      const prev = best.get(id)
+      if (prev && prev.d <= h.distance) continue
+      const location = { x: (h.p[0] + h.q[0]) / 2, y: (h.p[1] + h.q[1]) / 2 }
+      best.set(id, { id, ...finding, elements, location, d: h.distance })
+    }
+  }
+  return [...best.values()].map(({ d: _d, ...f }) => f)
+}
+
+function classify(h: SpacingHit, depth: number, layerId: string, p: FabricationProcess, wallGap: number):
+  Pick<Finding, 'rule' | 'severity' | 'message'> | null {
+  const d = r1(h.distance)
+  if (h.kind === 'width') {
+    if (h.distance >= p.minFeature - TOL) return null
+    return { rule: 'min-width', severity: 'error',
+      message: `Feature is ${d} µm wide on layer "${layerId}", below the process minimum of ${p.minFeature} µm: widen it to at least ${p.minFeature} µm` }
+  }
+  if (h.distance < p.minGap - TOL) {
+    return { rule: 'min-gap', severity: 'error',
+      message: `Gap of ${d} µm on layer "${layerId}", below the process minimum of ${p.minGap} µm: move the features at least ${p.minGap} µm apart` }
+  }
+  if (h.distance < wallGap - TOL) {
+    return { rule: 'tall-thin-wall', severity: 'warning',
+      message: `Wall of ${d} µm between features on the ${depth} µm deep layer "${layerId}" is taller than ${p.maxWallDepthToWidth}× its width and may lean or collapse: make it at least ${r1(wallGap)} µm thick` }
+  }
+  return null
+}
