@@ -10,10 +10,10 @@ export const CAPILLARY_DISPERSED: Method = {
   id: 'capillary-number-dispersed-nozzle',
   source: 'Ca = μd Ud / γ, Ud = Qd/(w h) mean dispersed-phase speed in the nozzle (step emulsification; Li et al. 2015, Lab Chip 15, 1023)',
 }
-export const REYNOLDS: Method = { id: 'reynolds-hydraulic-diameter', source: 'Re = ρc U Dh / μc, Dh = 2wh/(w + h) (Bruus 2008, Theoretical Microfluidics, sec. 4.5)' }
+export const REYNOLDS: Method = { id: 'reynolds-hydraulic-diameter', source: 'Re = ρ U Dh / μ of the phase filling the channel (continuous in the main channel or orifice, dispersed in a step nozzle), Dh = 2wh/(w + h) (Bruus 2008, Theoretical Microfluidics, ch. 4)' }
 export const WEBER: Method = {
   id: 'weber-dispersed-inlet',
-  source: 'We = ρd Ud² wd / γ, dispersed phase in its inlet (Utada et al. 2007, Phys. Rev. Lett. 99, 094502)',
+  source: 'We = ρd Ud² ℓ / γ, dispersed phase at its mean speed in its inlet (ℓ = inlet width) or nozzle (ℓ = depth) (Utada et al. 2007, Phys. Rev. Lett. 99, 094502)',
 }
 export const BOND: Method = { id: 'bond-number', source: 'Bo = Δρ g Dh² / γ (Christopher & Anna 2007, J. Phys. D 40, R319)' }
 export const CAPILLARY_LENGTH: Method = { id: 'capillary-length', source: 'ℓc = √(γ / (Δρ g)) (de Gennes, Brochard-Wyart & Quéré 2004, Capillarity and Wetting Phenomena, ch. 2)' }

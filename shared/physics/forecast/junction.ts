@@ -1,0 +1,97 @@
+// One junction's forecast from resolved SI inputs: dimensionless groups, pressures, regime and droplet train.
+import * as D from '../junction/dimensionless'
+import { ENTRY_BARRIER, entryBarrier, LAPLACE_PLUG, laplacePlug } from '../junction/laplace'
+import { DISPERSED_FRACTION, dispersedFraction, GENERATION_RATE, generationRate, PLUG_VOLUME, SPHERE_EQUIVALENT, sphereEquivalentDiameter, TRAIN_SPACING, trainSpacing } from '../junction/plugVolume'
+import { classifyRegime } from '../junction/regime'
+import { STEP_WETTING } from '../junction/step'
+import { INPUT, quantity, type Warning } from '../quantity'
+import { UNIT, type CubicMetres, type CubicMetresPerSecond, type KilogramsPerCubicMetre, type Metres, type NewtonsPerMetre, type PascalSeconds, type Radians } from '../units'
+import { estimateSize } from './size'
+import type { JunctionForecast, ResolvedJunction } from './types'
+
+/** Creeping-flow scaling laws assume inertia is small (Christopher & Anna 2007); flagged above this Re. */
+const REYNOLDS_LIMIT = 10
+/** Gravity negligible against tension below this Bond number. */
+const BOND_LIMIT = 0.1
+
+export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] = []): JunctionForecast {
+  const w = j.mainWidth as Metres
+  const win = j.inletWidth as Metres
+  const h = j.depth as Metres
+  const gamma = j.interfacialTension.value as NewtonsPerMetre
+  const muC = j.continuous.viscosity.value as PascalSeconds
+  const muD = j.dispersed.viscosity.value as PascalSeconds
+  const rhoC = j.continuous.density.value as KilogramsPerCubicMetre
+  const rhoD = j.dispersed.density.value as KilogramsPerCubicMetre
+  const qc = j.flowContinuous as CubicMetresPerSecond
+  const qd = j.flowDispersed as CubicMetresPerSecond
+  const step = j.kind === 'step'
+  const warnings: Warning[] = [...liquidWarnings]
+  const propertiesValid = [j.continuous.viscosity, j.continuous.density, j.dispersed.viscosity, j.dispersed.density, j.interfacialTension].every((q) => q.valid)
+
+  const dh = D.hydraulicDiameter(w, h)
+  const uc = D.meanSpeed(qc, w, h)
+  const ud = D.meanSpeed(qd, step ? w : win, h)
+  const ca = step ? D.capillaryNumber(muD, ud, gamma) : D.capillaryNumber(muC, uc, gamma)
+  const re = step ? D.reynoldsNumber(rhoD, ud, dh, muD) : D.reynoldsNumber(rhoC, uc, dh, muC)
+  const we = D.weberNumber(rhoD, ud, step ? h : win, gamma)
+  const bo = D.bondNumber(rhoD - rhoC, dh, gamma)
+  const oh = D.ohnesorgeNumber(muD, rhoD, gamma, Math.min(w, h) as Metres)
+  const regime = classifyRegime(j.kind, ca, we)
+
+  if (re > REYNOLDS_LIMIT) warnings.push({ code: 'inertia', message: `Re = ${re.toPrecision(3)} > ${REYNOLDS_LIMIT}: the creeping-flow size laws lose accuracy; lower the flow rates or use a smaller channel` })
+  if (bo > BOND_LIMIT) warnings.push({ code: 'gravity', message: `Bo = ${bo.toPrecision(3)} > ${BOND_LIMIT}: gravity is not negligible against interfacial tension at this size` })
+
+  let wets = false
+  let entryPressure
+  if (j.contactAngle !== undefined) {
+    const constriction = (j.kind === 't-junction' ? Math.min(win, w) : w) as Metres
+    entryPressure = quantity(entryBarrier(gamma, j.contactAngle as Radians, constriction, h), UNIT.pressure, ENTRY_BARRIER)
+    wets = j.contactAngle < Math.PI / 2
+    if (wets) {
+      warnings.push({ code: 'dispersed-wets-walls', message: `Contact angle ${((j.contactAngle * 180) / Math.PI).toFixed(0)}° < 90°: the dispersed phase wets the walls, so drops will not pinch off reliably; treat the walls (e.g. make them ${step ? 'wetted by the oil' : 'hydrophobic for water-in-oil'}) — ${STEP_WETTING.source}` })
+    }
+  }
+
+  const size = estimateSize(j, regime)
+  warnings.push(...size.warnings)
+  const sizeValid = size.valid && !wets && propertiesValid
+  if (!propertiesValid) warnings.push({ code: 'properties-out-of-range', message: 'A liquid property is outside its correlation\'s range (see inputs); every size is marked invalid' })
+  const volume = size.volume as CubicMetres
+  const frequency = generationRate(qd, volume)
+  const train = [size.method.id, GENERATION_RATE.id].join('+')
+
+  const forecast: JunctionForecast = {
+    inputs: {
+      junction: { kind: j.kind, mainWidth: quantity(w, UNIT.length, INPUT), inletWidth: quantity(win, UNIT.length, INPUT), depth: quantity(h, UNIT.length, INPUT) },
+      continuous: j.continuous,
+      dispersed: j.dispersed,
+      interfacialTension: j.interfacialTension,
+      temperature: quantity(j.temperature, UNIT.temperature, INPUT),
+      flow: { continuous: quantity(qc, UNIT.flow, INPUT), dispersed: quantity(qd, UNIT.flow, INPUT) },
+      model: j.alpha === undefined ? {} : { alpha: j.alpha },
+    },
+    capillaryNumber: quantity(ca, UNIT.none, step ? D.CAPILLARY_DISPERSED : D.CAPILLARY),
+    reynoldsNumber: quantity(re, UNIT.none, D.REYNOLDS),
+    weberNumber: quantity(we, UNIT.none, D.WEBER),
+    bondNumber: quantity(bo, UNIT.none, D.BOND),
+    ohnesorgeNumber: quantity(oh, UNIT.none, D.OHNESORGE),
+    viscosityRatio: quantity(muD / muC, UNIT.none, D.RATIO),
+    flowRateRatio: quantity(qd / qc, UNIT.none, D.RATIO),
+    laplacePressure: quantity(laplacePlug(gamma, w, h), UNIT.pressure, LAPLACE_PLUG),
+    regime,
+    dropletVolume: quantity(volume, UNIT.volume, size.length === undefined ? size.method : { id: `${size.method.id}+${PLUG_VOLUME.id}`, source: `${size.method.source}; ${PLUG_VOLUME.source}` }, sizeValid),
+    dropletDiameter: quantity(sphereEquivalentDiameter(volume), UNIT.length, { id: `${size.method.id}+${SPHERE_EQUIVALENT.id}`, source: `${size.method.source}; ${SPHERE_EQUIVALENT.source}` }, sizeValid),
+    frequency: quantity(frequency, UNIT.frequency, { id: train, source: `${size.method.source}; ${GENERATION_RATE.source}` }, sizeValid),
+    dispersedFraction: quantity(dispersedFraction(qc, qd), UNIT.none, DISPERSED_FRACTION),
+    warnings,
+  }
+  if (j.contactAngle !== undefined) forecast.inputs.contactAngle = quantity(j.contactAngle, UNIT.angle, INPUT)
+  if (entryPressure) forecast.entryPressure = entryPressure
+  if (rhoD !== rhoC) forecast.capillaryLength = quantity(D.capillaryLength(rhoD - rhoC, gamma), UNIT.length, D.CAPILLARY_LENGTH)
+  if (size.length !== undefined) {
+    forecast.dropletLength = quantity(size.length, UNIT.length, size.method, sizeValid)
+    forecast.spacing = quantity(trainSpacing(qc, qd, w, h, frequency), UNIT.length, { id: `${train}+${TRAIN_SPACING.id}`, source: `${size.method.source}; ${TRAIN_SPACING.source}` }, sizeValid)
+  }
+  return forecast
+}

@@ -1,0 +1,48 @@
+// Resolves the liquids and the interfacial tension of a request into properties with their sources.
+import { ForecastInputError } from '../errors'
+import { findLiquid, findPair, LIQUIDS, PAIRS, type LiquidProperties, type Surfactant } from '../liquids'
+import { INPUT, quantity, type Quantity, type Warning } from '../quantity'
+import { UNIT, type Kelvin } from '../units'
+
+export type LiquidSpec =
+  | { liquid: string; massFraction?: number }
+  | { name?: string; viscosity: number; density: number; surfaceTension?: number }
+
+export function resolveLiquid(spec: LiquidSpec, temperature: Kelvin, path: string): { liquid: LiquidProperties; warnings: Warning[] } {
+  if ('liquid' in spec) {
+    const entry = findLiquid(spec.liquid)
+    if (!entry) {
+      const known = LIQUIDS.map((liquid) => `"${liquid.id}"`).join(', ')
+      throw new ForecastInputError([{ path: `${path}.liquid`, message: `unknown liquid "${spec.liquid}"; use one of ${known} or give viscosity and density explicitly` }])
+    }
+    const needsFraction = entry.parameters.includes('massFraction')
+    if (needsFraction && spec.massFraction === undefined) {
+      throw new ForecastInputError([{ path: `${path}.massFraction`, message: `"${entry.id}" needs "massFraction", the glycerol mass fraction between 0 and 1 (e.g. 0.5)` }])
+    }
+    if (!needsFraction && spec.massFraction !== undefined) {
+      throw new ForecastInputError([{ path: `${path}.massFraction`, message: `"${entry.id}" takes no massFraction; remove it` }])
+    }
+    return entry.properties(temperature, spec.massFraction)
+  }
+  const liquid: LiquidProperties = {
+    name: spec.name ?? 'liquid given by its properties',
+    viscosity: quantity(spec.viscosity, UNIT.viscosity, INPUT),
+    density: quantity(spec.density, UNIT.density, INPUT),
+  }
+  if (spec.surfaceTension !== undefined) liquid.surfaceTension = quantity(spec.surfaceTension, UNIT.tension, INPUT)
+  return { liquid, warnings: [] }
+}
+
+/** The given tension, else the library pair's, else an error saying how to provide it. */
+export function resolveTension(given: number | undefined, continuous: LiquidProperties, dispersed: LiquidProperties, surfactant: Surfactant): Quantity {
+  if (given !== undefined) return quantity(given, UNIT.tension, INPUT)
+  const pair = continuous.id && dispersed.id ? findPair(continuous.id, dispersed.id, surfactant) : undefined
+  if (pair) return quantity(pair.interfacialTension, UNIT.tension, { id: 'library-pair', source: pair.source })
+  const known = PAIRS.map((p) => `${p.liquids[0]}/${p.liquids[1]} (${p.surfactant})`).join(', ')
+  throw new ForecastInputError([
+    {
+      path: 'interfacialTension',
+      message: `required: the pair ${dispersed.id ?? dispersed.name}/${continuous.id ?? continuous.name} with surfactant "${surfactant}" is not in the library; give it (e.g. "5 mN/m") or use a library pair: ${known}`,
+    },
+  ])
+}
