@@ -1,4 +1,5 @@
 import { fileURLToPath } from 'node:url'
+import vue from '@vitejs/plugin-vue'
 import { defineConfig } from 'vitest/config'
 
 // Three layers, each with what it promises:
@@ -19,7 +20,13 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], exclude: ['tests/unit/components/**'], environment: 'node' },
+      },
+      {
+        // Vue components mounted with @vue/test-utils in happy-dom.
+        plugins: [vue()],
+        resolve: { alias },
+        test: { name: 'components', include: ['tests/unit/components/**/*.test.ts'], environment: 'happy-dom' },
       },
       {
         resolve: { alias },

@@ -30,6 +30,6 @@ export async function resolveSession(token: string): Promise<SessionData | null>
   if (!row) return null
   const labsOfUser = await db.select({ labId: labs.id, slug: labs.slug, name: labs.name, kind: labs.kind, role: memberships.role })
     .from(memberships).innerJoin(labs, eq(labs.id, memberships.labId))
-    .where(eq(memberships.userId, row.id)).orderBy(labs.name)
+    .where(eq(memberships.userId, row.id)).orderBy(memberships.createdAt, labs.name)
   return { user: row, memberships: labsOfUser }
 }

@@ -1,0 +1,20 @@
+#!/usr/bin/env bash
+# `npm test`: everything the tests need on a fresh machine, then every test (unit, api, browser).
+# Extra arguments go to vitest: `npm test -- tests/unit/roles.test.ts`.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+bash scripts/ensure-deps.sh
+if [ -z "${DATABASE_URL:-}" ]; then
+  bash scripts/db.sh start
+  set -a; . .data/postgres.env; set +a
+fi
+export DATABASE_URL=${TEST_DATABASE_URL:-$DATABASE_URL}
+bash scripts/ensure-system.sh
+npx tsx scripts/migrate.ts --test
+npx tsx scripts/seed.ts --test
+if [ -z "${DW_SKIP_BUILD:-}" ]; then
+  echo "[build] nuxt build" >&2
+  npx nuxt build > .data/build.log 2>&1 || { tail -40 .data/build.log >&2; exit 1; }
+fi
+mkdir -p .data
+exec npx vitest run --reporter=default --reporter=json --outputFile.json=.data/vitest.json "$@"

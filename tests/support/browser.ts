@@ -1,0 +1,27 @@
+// Debian's chromium driven by playwright-core (never a downloaded browser).
+import { chromium, type Browser, type Page } from 'playwright-core'
+import { inject } from 'vitest'
+import { DEMO_PASSWORD } from '../../server/db/demo'
+
+export async function launch(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
+      '--disable-component-update', '--disable-sync'],
+    // playwright gives every launch a fresh, empty profile folder of its own.
+  })
+}
+
+export async function newPage(browser: Browser): Promise<Page> {
+  const context = await browser.newContext({ baseURL: inject('baseURL'), viewport: { width: 1280, height: 800 } })
+  return context.newPage()
+}
+
+export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
+  await page.goto('/sign-in')
+  await page.fill('#email', email)
+  await page.fill('#password', password)
+  await page.click('button[type=submit]')
+}
+
+export const shot = (page: Page, name: string) => page.screenshot({ path: `test-results/${name}.png`, fullPage: true })

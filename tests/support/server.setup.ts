@@ -1,0 +1,57 @@
+// Starts the built server (.output, from `nuxt build`) on a free port against the test database, once per
+// test project, and hands its address to the tests as `inject('baseURL')`.
+import { spawn, type ChildProcess } from 'node:child_process'
+import { createServer } from 'node:net'
+import type { TestProject } from 'vitest/node'
+import pg from 'pg'
+
+declare module 'vitest' {
+  export interface ProvidedContext { baseURL: string, databaseUrl: string }
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer().listen(0, '127.0.0.1', () => {
+      const port = (srv.address() as { port: number }).port
+      srv.close(() => resolve(port))
+    }).on('error', reject)
+  })
+}
+
+async function waitFor(url: string, child: ChildProcess, log: () => string) {
+  for (let i = 0; i < 200; i++) {
+    if (child.exitCode !== null) throw new Error(`server exited early:\n${log()}`)
+    try {
+      if ((await fetch(url)).ok) return
+    } catch { /* not up yet */ }
+    await new Promise(r => setTimeout(r, 100))
+  }
+  throw new Error(`server did not answer ${url} in 20 s:\n${log()}`)
+}
+
+export default async function setup(project: TestProject) {
+  const databaseUrl = process.env.DATABASE_URL
+  if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the tests with `npm test`')
+  // Throttling counts failures in the database: start each run from a clean slate.
+  const client = new pg.Client({ connectionString: databaseUrl })
+  await client.connect()
+  await client.query('delete from sign_in_failures')
+  await client.end()
+
+  const port = await freePort()
+  let output = ''
+  const child = spawn(process.execPath, ['.output/server/index.mjs'], {
+    env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: databaseUrl },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  })
+  child.stdout!.on('data', (d) => { output += d })
+  child.stderr!.on('data', (d) => { output += d })
+  const baseURL = `http://127.0.0.1:${port}`
+  await waitFor(`${baseURL}/api/health`, child, () => output)
+  project.provide('baseURL', baseURL)
+  project.provide('databaseUrl', databaseUrl)
+  return async () => {
+    child.kill('SIGTERM')
+    await new Promise(r => child.once('exit', r))
+  }
+}
