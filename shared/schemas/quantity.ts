@@ -42,6 +42,10 @@ function referenceUnit(dimension: Dimension): Unit {
 
 export type ParseResult = { ok: true; value: number } | { ok: false; message: string }
 
+/** Parsed strings per dimension: a chip repeats the same few sizes thousands of times. Bounded to stay small. */
+const parsedCache = new Map<string, ParseResult>()
+const CACHE_LIMIT = 4096
+
 /** Parses a number (taken as SI) or a unit string into the SI value of `dimension`. */
 export function parseQuantity(input: unknown, dimension: Dimension): ParseResult {
   const info = DIMENSIONS[dimension]
@@ -53,6 +57,16 @@ export function parseQuantity(input: unknown, dimension: Dimension): ParseResult
   if (typeof input !== 'string') {
     return { ok: false, message: `expected ${info.label}: a number in ${info.si} or a string such as "${info.example}"` }
   }
+  const key = `${dimension}|${input}`
+  const cached = parsedCache.get(key)
+  if (cached) return cached
+  const result = parseString(input, dimension, info)
+  if (parsedCache.size >= CACHE_LIMIT) parsedCache.clear()
+  parsedCache.set(key, result)
+  return result
+}
+
+function parseString(input: string, dimension: Dimension, info: DimensionInfo): ParseResult {
   const text = input.trim()
   if (/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(text)) {
     return { ok: false, message: `"${input}" has no unit; write it with one, e.g. "${info.example}"` }

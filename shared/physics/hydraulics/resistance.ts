@@ -23,7 +23,18 @@ export type ResistanceMethod = 'series' | 'approximate'
 const SERIES_TERMS = 200
 
 /** Correction factor [1 − Σ …]⁻¹ of the exact series for aspect h/w ≤ 1. */
+const factorCache = new Map<number, number>()
+
 export function seriesFactor(aspect: number): number {
+  const cached = factorCache.get(aspect)
+  if (cached !== undefined) return cached
+  if (factorCache.size > 1024) factorCache.clear()
+  const factor = computeSeriesFactor(aspect)
+  factorCache.set(aspect, factor)
+  return factor
+}
+
+function computeSeriesFactor(aspect: number): number {
   let sum = 0
   for (let k = 0; k < SERIES_TERMS; k++) {
     const n = 2 * k + 1

@@ -1,0 +1,112 @@
+// Benchmarks of the forecast core: median times and growth ratios, printed. Not a test.
+import { solveNetwork, solveNetworkDense, type NetworkProblem } from '../../shared/physics/network'
+import { runForecast } from '../../shared/physics/forecast'
+import { forecastJunction } from '../../shared/physics/forecast/junction'
+import { resolveJunctionRequest } from '../../shared/physics/forecast/junctionRequest'
+import { junctionRequest } from '../../shared/schemas/forecast'
+
+function median(run: () => void, repeats: number): number {
+  run() // warm-up
+  const times: number[] = []
+  for (let i = 0; i < repeats; i++) {
+    const start = performance.now()
+    run()
+    times.push(performance.now() - start)
+  }
+  times.sort((a, b) => a - b)
+  return times[Math.floor(times.length / 2)]!
+}
+
+/** Parallel-nozzle ladder with `channels` channels: feed rail, collector rail, nozzles between them. */
+function ladder(channels: number): NetworkProblem {
+  const rungs = Math.floor(channels / 3)
+  const list = []
+  for (let i = 0; i < rungs; i++) {
+    list.push({ id: `f${i}`, from: `A${i}`, to: `A${i + 1}`, resistance: 1e10 })
+    list.push({ id: `c${i}`, from: `B${i}`, to: `B${i + 1}`, resistance: 1e10 })
+    list.push({ id: `n${i}`, from: `A${i + 1}`, to: `B${i + 1}`, resistance: 1e13 })
+  }
+  return { channels: list, sources: [{ node: 'A0', flow: 1e-9 }, { node: `B${rungs}`, pressure: 0 }] }
+}
+
+/** Square grid with about `channels` channels (2n(n − 1) ≈ channels). */
+function grid(channels: number): NetworkProblem {
+  const n = Math.round(Math.sqrt(channels / 2)) + 1
+  const list = []
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < n; j++) {
+      if (i + 1 < n) list.push({ id: `h${i}.${j}`, from: `${i}.${j}`, to: `${i + 1}.${j}`, resistance: 1e9 * (1 + ((7 * i + 3 * j) % 5)) })
+      if (j + 1 < n) list.push({ id: `v${i}.${j}`, from: `${i}.${j}`, to: `${i}.${j + 1}`, resistance: 1e9 * (1 + ((3 * i + 5 * j) % 7)) })
+    }
+  return { channels: list, sources: [{ node: '0.0', pressure: 1000 }, { node: `${n - 1}.${n - 1}`, pressure: 0 }] }
+}
+
+/** 512-nozzle step-emulsification chip: oil and water feed rails, 512 nozzles into a collection channel. */
+function parallelChipRequest(nozzles: number) {
+  const channels = []
+  const um = (x: number) => `${x} um`
+  for (let i = 0; i < nozzles; i++) {
+    channels.push({ id: `water-rail-${i}`, from: `w${i}`, to: `w${i + 1}`, width: um(400), depth: um(50), length: um(100) })
+    channels.push({ id: `nozzle-${i}`, from: `w${i + 1}`, to: `out${i + 1}`, width: um(40), depth: um(10), length: um(300) })
+    channels.push({ id: `collector-${i}`, from: `out${i}`, to: `out${i + 1}`, width: um(1000), depth: um(200), length: um(100) })
+  }
+  return {
+    network: {
+      channels,
+      sources: [{ node: 'w0', flow: '20 uL/min' }, { node: `out${nozzles}`, pressure: 0 }],
+      liquid: { liquid: 'water' },
+      parallelSets: [channels.filter((c) => c.id.startsWith('nozzle-')).map((c) => c.id)],
+      limits: { bondPressure: '2 bar', pumpPressure: '1 bar' },
+    },
+  }
+}
+
+export async function run(): Promise<void> {
+  console.log('\n# physics — network solves (median ms)')
+  for (const [name, build] of [['ladder', ladder], ['square grid', grid]] as const) {
+    const times: number[] = []
+    for (const size of [1_000, 10_000, 100_000]) {
+      const problem = build(size)
+      const solution = solveNetwork(problem)
+      const t = median(() => solveNetwork(problem), size >= 100_000 ? 3 : 7)
+      times.push(t)
+      console.log(`${name.padEnd(12)} ${String(problem.channels.length).padStart(7)} channels  ${t.toFixed(1).padStart(8)} ms  ${solution.solver}, ${solution.iterations} iterations`)
+    }
+    console.log(`${name.padEnd(12)} growth per 10×: ${(times[1]! / times[0]!).toFixed(1)}× (1k→10k), ${(times[2]! / times[1]!).toFixed(1)}× (10k→100k)`)
+  }
+
+  // Dense Gaussian elimination needs n² doubles: 10k channels ≈ 6.7k unknowns ≈ 360 MB and ~10¹¹ flops,
+  // so it runs at sizes that fit and is extrapolated to 10k by n³.
+  const sparse10k = median(() => solveNetwork(ladder(10_000)), 7)
+  const denseSizes = [600, 1_200, 2_400]
+  let last = { unknowns: 0, ms: 0 }
+  for (const size of denseSizes) {
+    const problem = ladder(size)
+    const ms = median(() => solveNetworkDense(problem), 3)
+    last = { unknowns: (2 * Math.floor(size / 3)), ms }
+    console.log(`dense Gauss  ${String(problem.channels.length).padStart(7)} channels  ${ms.toFixed(1).padStart(8)} ms`)
+  }
+  const unknowns10k = 2 * Math.floor(10_000 / 3)
+  const extrapolated = last.ms * (unknowns10k / last.unknowns) ** 3
+  console.log(`dense at 10k channels (extrapolated by n³ from ${denseSizes.at(-1)}): ~${(extrapolated / 1000).toFixed(1)} s; sparse ${sparse10k.toFixed(1)} ms → dense/sparse ≈ ${Math.round(extrapolated / sparse10k)}×`)
+
+  console.log('\n# physics — 512-nozzle parallel chip (network built directly in the bench)')
+  const request = parallelChipRequest(512)
+  const junction = junctionRequest.parse({
+    junction: { kind: 'step', mainWidth: '40 um', depth: '10 um' },
+    continuous: { liquid: 'hydrofluoroether' },
+    dispersed: { liquid: 'water' },
+    surfactant: 'fluorinated-block-copolymer',
+    contactAngle: '150 deg',
+    flow: { continuous: '50 uL/min', dispersed: '20 uL/min' },
+  })
+  const full = () => {
+    const network = runForecast(request) as { channels: { id: string; flow: { value: number } }[] }
+    const { junction: base, warnings } = resolveJunctionRequest(junction)
+    for (const channel of network.channels) {
+      if (channel.id.startsWith('nozzle-')) forecastJunction({ ...base, flowDispersed: Math.abs(channel.flow.value) }, warnings)
+    }
+  }
+  const ms = median(full, 15)
+  console.log(`network (1536 channels) + 512 nozzle forecasts: ${ms.toFixed(2)} ms median (target < 20 ms)`)
+}
