@@ -24,14 +24,14 @@ export function bankElements(a: BankArgs): Elements {
   const y = (k: number) => a.y0 + k * a.pitch
   const lc = a.nozzleLength + a.manifoldWidth / 2
   const xr = a.x0 + lc + a.reservoirWidth / 2
-  const q = a.pitch / 4
+  const q = (3 * a.pitch) / 8 // half the reservoir length (3/4 of the pitch)
   const last = a.count - 1
   const out: Elements = { ports: [], components: [], channels: [], inlets: [] }
 
   for (let k = 0; k < a.count; k++) {
     out.components.push({
       id: nozzle(k), kind: 'step-nozzle', position: { x: a.x0, y: y(k) }, rotation: 0, layerId: 'nozzle', reservoirLayerId: 'deep',
-      nozzleWidth: a.nozzleWidth, nozzleLength: lc, reservoirWidth: a.reservoirWidth, reservoirLength: a.pitch / 2,
+      nozzleWidth: a.nozzleWidth, nozzleLength: lc, reservoirWidth: a.reservoirWidth, reservoirLength: (3 * a.pitch) / 4,
     })
     if (k === last) continue
     out.channels.push({

@@ -16,9 +16,12 @@ function unionAll(polys: Polygon[]): MultiPolygon {
   return polygonClipping.union(first!, ...rest)
 }
 
-/** Snaps coordinates to a 1 nm grid; used only to retry a union that failed on near-coincident edges. */
-const snap = (polys: Polygon[]): Polygon[] =>
-  polys.map((p) => p.map((r) => r.map(([x, y]) => [Math.round(x * 1000) / 1000, Math.round(y * 1000) / 1000])))
+/**
+ * Snaps coordinates to a grid (µm). Edges that should coincide but differ by rounding after a rotation
+ * (~1e-12 relative) would otherwise leave sliver notches in the union; 0.1 nm is far below any mask's resolution.
+ */
+const snap = (polys: Polygon[], grid: number): Polygon[] =>
+  polys.map((p) => p.map((r) => r.map(([x, y]) => [Math.round(x / grid) * grid, Math.round(y / grid) * grid])))
 
 /**
  * Union of all pieces of one layer with polygon-clipping (Martinez–Rueda sweep line; exterior rings
@@ -26,10 +29,10 @@ const snap = (polys: Polygon[]): Polygon[] =>
  */
 export function mergePieces(polys: Polygon[]): { merged: MultiPolygon; error?: string } {
   try {
-    return { merged: unionAll(polys) }
+    return { merged: unionAll(snap(polys, 1e-4)) }
   } catch (first) {
     try {
-      return { merged: unionAll(snap(polys)) }
+      return { merged: unionAll(snap(polys, 1e-3)) }
     } catch {
       return { merged: [], error: String((first as Error)?.message ?? first) }
     }
