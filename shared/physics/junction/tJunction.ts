@@ -18,7 +18,7 @@ export function garsteckiLength(width: Metres, alpha: number, flowRatio: number)
   return (width * (1 + alpha * flowRatio)) as Metres
 }
 
-/** Validity stated by van Steijn et al. 2010 for their experiments: h/w ≤ 1/2... their figures span h/w ≤ 0.5 and 1/3 ≤ win/w ≤ 3. */
+/** Geometry range of van Steijn et al. 2010 (their Figs. 2–3): h/w ≤ 0.5 and 1/3 ≤ win/w ≤ 3. */
 export function vanSteijnValid(width: Metres, inletWidth: Metres, depth: Metres): boolean {
   const hw = depth / width
   const ratio = inletWidth / width
