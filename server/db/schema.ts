@@ -1,7 +1,7 @@
 // Dropwright's tables. Migrations are generated from this file by drizzle-kit (`npm run db:generate`)
 // and committed with their snapshots in server/db/migrations; never hand-written.
 import { sql } from 'drizzle-orm'
-import { index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, varchar } from 'drizzle-orm/pg-core'
+import { bigint, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, varchar, type AnyPgColumn } from 'drizzle-orm/pg-core'
 import { ROLES } from '../../shared/utils/roles'
 
 export const roleEnum = pgEnum('role', ROLES)
@@ -48,7 +48,142 @@ export const signInFailures = pgTable('sign_in_failures', {
   at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [index('sign_in_failures_email_idx').on(t.email, t.at), index('sign_in_failures_ip_idx').on(t.ip, t.at)])
 
+export const revisionStatusEnum = pgEnum('revision_status', ['draft', 'in-review', 'changes-requested', 'approved', 'released'])
+export const verdictEnum = pgEnum('verdict', ['approve', 'request-changes'])
+export const fabStatusEnum = pgEnum('fab_status', ['released', 'in-fabrication', 'shipped', 'received', 'on-hold'])
+
+/** Where a duplicated design came from, as it read when it was duplicated (the origin may be in another lab). */
+export interface DesignOrigin { revisionId: string, designId: string, designName: string, revisionNumber: number, authorName: string, labName: string }
+
+export const designs = pgTable('designs', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  name: varchar('name', { length: 120 }).notNull(),
+  description: text('description').notNull().default(''),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  archivedAt: timestamp('archived_at', { withTimezone: true }),
+  latestRevisionId: uuid('latest_revision_id').references((): AnyPgColumn => revisions.id),
+  revisionCount: integer('revision_count').notNull().default(0),
+  origin: jsonb('origin').$type<DesignOrigin>(),
+}, t => [index('designs_lab_idx').on(t.labId, t.updatedAt)])
+
+/** Immutable: a database trigger refuses any change to a revision's content and any delete. */
+export const revisions = pgTable('revisions', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  designId: uuid('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  number: integer('number').notNull(),
+  parentId: uuid('parent_id').references((): AnyPgColumn => revisions.id),
+  authorId: uuid('author_id').notNull().references(() => users.id),
+  message: varchar('message', { length: 500 }).notNull(),
+  document: jsonb('document').notNull(),
+  summary: jsonb('summary').notNull(),
+  status: revisionStatusEnum('status').notNull().default('draft'),
+  statusChangedAt: timestamp('status_changed_at', { withTimezone: true }).notNull().defaultNow(),
+  statusChangedBy: uuid('status_changed_by').references(() => users.id),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('revisions_design_number_idx').on(t.designId, t.number), index('revisions_lab_status_idx').on(t.labId, t.status)])
+
+export const reviewRequests = pgTable('review_requests', {
+  revisionId: uuid('revision_id').notNull().references(() => revisions.id, { onDelete: 'cascade' }),
+  reviewerId: uuid('reviewer_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  requestedBy: uuid('requested_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+}, t => [primaryKey({ columns: [t.revisionId, t.reviewerId] })])
+
+export const verdicts = pgTable('verdicts', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  revisionId: uuid('revision_id').notNull().references(() => revisions.id, { onDelete: 'cascade' }),
+  reviewerId: uuid('reviewer_id').notNull().references(() => users.id),
+  verdict: verdictEnum('verdict').notNull(),
+  note: text('note').notNull().default(''),
+  createdAt: createdAt(),
+}, t => [index('verdicts_revision_idx').on(t.revisionId, t.createdAt)])
+
+/** A comment thread pinned to a point or an element of a revision's geometry (µm). */
+export interface CommentAnchor { x: number, y: number, elementId?: string }
+
+export const commentThreads = pgTable('comment_threads', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  revisionId: uuid('revision_id').notNull().references(() => revisions.id, { onDelete: 'cascade' }),
+  designId: uuid('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  anchor: jsonb('anchor').$type<CommentAnchor>().notNull(),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+  resolvedAt: timestamp('resolved_at', { withTimezone: true }),
+  resolvedBy: uuid('resolved_by').references(() => users.id),
+}, t => [index('comment_threads_revision_idx').on(t.revisionId)])
+
+export const comments = pgTable('comments', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  threadId: uuid('thread_id').notNull().references(() => commentThreads.id, { onDelete: 'cascade' }),
+  authorId: uuid('author_id').notNull().references(() => users.id),
+  body: text('body').notNull(),
+  createdAt: createdAt(),
+}, t => [index('comments_thread_idx').on(t.threadId, t.createdAt)])
+
+export const releases = pgTable('releases', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  revisionId: uuid('revision_id').notNull().unique().references(() => revisions.id, { onDelete: 'cascade' }),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  releasedBy: uuid('released_by').notNull().references(() => users.id),
+  releasedAt: timestamp('released_at', { withTimezone: true }).notNull().defaultNow(),
+  fabStatus: fabStatusEnum('fab_status').notNull().default('released'),
+  fabStatusAt: timestamp('fab_status_at', { withTimezone: true }).notNull().defaultNow(),
+  note: text('note').notNull().default(''),
+}, t => [index('releases_lab_idx').on(t.labId)])
+
+export const invitations = pgTable('invitations', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  email: varchar('email', { length: 254 }).notNull(),
+  role: roleEnum('role').notNull(),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+  invitedBy: uuid('invited_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+  acceptedBy: uuid('accepted_by').references(() => users.id),
+}, t => [index('invitations_lab_idx').on(t.labId)])
+
+/** Outgoing e-mail, written in the request's transaction and sent by a background worker with retries. */
+export const mailOutbox = pgTable('mail_outbox', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').references(() => labs.id, { onDelete: 'set null' }),
+  kind: varchar('kind', { length: 40 }).notNull(),
+  to: varchar('to', { length: 254 }).notNull(),
+  subject: varchar('subject', { length: 300 }).notNull(),
+  text: text('text').notNull(),
+  html: text('html'),
+  attempts: integer('attempts').notNull().default(0),
+  nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
+  sentAt: timestamp('sent_at', { withTimezone: true }),
+  lastError: text('last_error'),
+  createdAt: createdAt(),
+}, t => [index('mail_outbox_pending_idx').on(t.sentAt, t.nextAttemptAt)])
+
+/** The audit trail: who did what, when, per design. */
+export const activity = pgTable('activity', {
+  id: bigint('id', { mode: 'number' }).primaryKey().generatedAlwaysAsIdentity(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  designId: uuid('design_id').references(() => designs.id, { onDelete: 'cascade' }),
+  revisionId: uuid('revision_id').references(() => revisions.id, { onDelete: 'cascade' }),
+  actorId: uuid('actor_id').notNull().references(() => users.id),
+  action: varchar('action', { length: 40 }).notNull(),
+  detail: jsonb('detail').$type<Record<string, unknown>>().notNull().default({}),
+  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [index('activity_design_idx').on(t.designId, t.at), index('activity_lab_idx').on(t.labId, t.at)])
+
 export type User = typeof users.$inferSelect
 export type Lab = typeof labs.$inferSelect
 export type Membership = typeof memberships.$inferSelect
 export type Session = typeof sessions.$inferSelect
+export type Design = typeof designs.$inferSelect
+export type Revision = typeof revisions.$inferSelect
+export type CommentThread = typeof commentThreads.$inferSelect
+export type Comment = typeof comments.$inferSelect
+export type Invitation = typeof invitations.$inferSelect
+export type MailMessage = typeof mailOutbox.$inferSelect
