@@ -1,6 +1,18 @@
-// Placeholder until the chip-document compiler lands (phase 2).
-import { ForecastInputError } from '../errors'
-export type DocumentForecast = never
-export function runDocumentForecast(_request: unknown): DocumentForecast {
-  throw new ForecastInputError([{ path: 'document', message: 'document forecasts are not available yet; send a "network" or "junction" request' }])
+// The chip-document forecast: parse → operating point → network → every junction. See shared/physics/README.md.
+import { forecastDocument } from './forecast'
+import { parseDocumentRequest } from './request'
+import type { DocumentForecast } from './types'
+
+export { forecastDocument } from './forecast'
+export { summarizeForecast, type ForecastSummary } from './summary'
+export { compileDocument } from './compile'
+export { COINCIDENCE_UM } from './connect'
+export { SINGLE_PHASE } from './network'
+export { documentForecastRequest } from './request'
+export type { CompiledDocument, DocumentForecast, DocumentForecastOptions, DocumentJunction, DocumentJunctionKind, DocumentNetwork, DocumentWarning } from './types'
+
+/** `{ "document": <chip document>, "operatingPoint"?: id, "limits"?, "resistanceMethod"? }` → DocumentForecast. */
+export function runDocumentForecast(request: unknown): DocumentForecast {
+  const { document, operatingPoint, options } = parseDocumentRequest(request)
+  return forecastDocument(document, operatingPoint, options)
 }

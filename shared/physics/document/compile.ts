@@ -1,0 +1,102 @@
+// A chip document at one operating point → straight channels between named nodes, junctions and sources.
+// Channels: layer depth, drawn centre-line length, width. Ends: explicit terminal references, else whatever
+// lies within COINCIDENCE_UM. Components: see components.ts. Inlets per the operating point, outlets at 0 Pa.
+import type { ChipDocument } from '../../schemas/chip'
+import { componentTerminals } from '../../schemas/chip'
+import { ForecastInputError, type InputIssue } from '../errors'
+import { compileComponent } from './components'
+import { Connections, terminalKey } from './connect'
+import { inletInSi, type ResolvedOperatingPoint } from './operating-point'
+import { documentPath } from './paths'
+import type { CompiledChannel, CompiledDocument, CompiledJunction, DocumentSource, DocumentWarning } from './types'
+
+const UM = 1e-6
+
+function polylineLength(points: readonly { x: number; y: number }[]): number {
+  let length = 0
+  for (let i = 1; i < points.length; i++) length += Math.hypot(points[i]!.x - points[i - 1]!.x, points[i]!.y - points[i - 1]!.y)
+  return length
+}
+
+export function compileDocument(doc: ChipDocument, op: ResolvedOperatingPoint): CompiledDocument {
+  const depthUm = new Map(doc.layers.map((layer) => [layer.id, layer.depth]))
+  const depth = (layerId: string) => depthUm.get(layerId)!
+  const ports = new Set(doc.ports.map((p) => p.id))
+  const connections = new Connections()
+  for (const p of doc.ports) connections.add(p.id, p.position, 0)
+  for (const c of doc.components) for (const t of componentTerminals(c)) connections.add(terminalKey(c.id, t.name, false), t.position, 1)
+  const endKey = (channelId: string, ref: { element: string; terminal: string } | undefined, end: 'start' | 'end') =>
+    ref ? terminalKey(ref.element, ref.terminal, ports.has(ref.element)) : `${channelId}:${end}`
+  doc.channels.forEach((ch) => {
+    if (!ch.start) connections.add(`${ch.id}:start`, ch.points[0]!, 2)
+    if (!ch.end) connections.add(`${ch.id}:end`, ch.points[ch.points.length - 1]!, 2)
+  })
+  connections.joinCoincident()
+
+  const channels: CompiledChannel[] = []
+  const junctions: CompiledJunction[] = []
+  const warnings: DocumentWarning[] = []
+  const issues: InputIssue[] = []
+  doc.channels.forEach((ch, i) => {
+    const length = polylineLength(ch.points)
+    if (!(length > 0)) {
+      issues.push({ path: documentPath(['channels', i, 'points']), message: `Channel "${ch.id}" has zero length (all its points coincide): move its end or delete it` })
+      return
+    }
+    channels.push({
+      id: ch.id, element: ch.id,
+      from: connections.node(endKey(ch.id, ch.start, 'start')), to: connections.node(endKey(ch.id, ch.end, 'end')),
+      width: ch.width * UM, depth: depth(ch.layerId) * UM, length: length * UM,
+    })
+  })
+  if (issues.length) throw new ForecastInputError(issues)
+  for (const c of doc.components) {
+    compileComponent(c, { terminal: (name) => connections.node(terminalKey(c.id, name, false)), depth, channels, junctions })
+  }
+
+  // A channel whose two ends are one node carries no flow (a closed loop drawn onto itself): drop it, say so.
+  const kept = channels.filter((ch) => {
+    if (ch.from !== ch.to) return true
+    warnings.push({ code: 'channel-loop', element: ch.element, message: `Channel "${ch.id}" starts and ends at the same node "${ch.from}", so it carries no flow; attach one of its ends elsewhere` })
+    return false
+  })
+  if (kept.length !== channels.length) remapJunctions(junctions, channels, kept)
+
+  const used = new Set<string>()
+  for (const ch of kept) (used.add(ch.from), used.add(ch.to))
+  const sources: DocumentSource[] = []
+  const settings = new Map(op.point.inlets.map((s) => [s.portId, s]))
+  const inletsPath = documentPath(['operatingPoints', op.index, 'inlets'])
+  doc.ports.forEach((p, i) => {
+    const node = connections.node(p.id)
+    if (!used.has(node)) {
+      if (p.kind === 'inlet') issues.push({ path: documentPath(['ports', i]), message: `Inlet port "${p.id}" is not connected to any channel: end a channel on it ({ "element": "${p.id}", "terminal": "port" }) or delete the port` })
+      else warnings.push({ code: 'port-unconnected', element: p.id, message: `Outlet port "${p.id}" is not connected to any channel; it is left out of the network` })
+      return
+    }
+    if (p.kind === 'outlet') {
+      sources.push({ port: p.id, kind: 'outlet', node, mode: 'pressure', pressure: 0 })
+      return
+    }
+    const setting = settings.get(p.id)
+    if (!setting) {
+      const example = `{ "portId": "${p.id}", "mode": "flow", "value": 5, "unit": "uL/min" }`
+      issues.push({ path: inletsPath, message: `Inlet port "${p.id}" has no feed in operating point "${op.point.id}": add ${example} (or mode "pressure" with "mbar")` })
+      return
+    }
+    const si = inletInSi(setting)
+    sources.push('pressure' in si ? { port: p.id, kind: 'inlet', node, mode: 'pressure', pressure: si.pressure } : { port: p.id, kind: 'inlet', node, mode: 'flow', flow: si.flow })
+  })
+  if (issues.length) throw new ForecastInputError(issues)
+  return { channels: kept, junctions, sources, warnings }
+}
+
+/** Junctions refer to channels by index; re-point them after channels were dropped. */
+function remapJunctions(junctions: CompiledJunction[], before: CompiledChannel[], after: CompiledChannel[]): void {
+  const position = new Map(after.map((ch, k) => [ch, k]))
+  const to = (k: number) => position.get(before[k]!) ?? -1
+  for (const j of junctions) {
+    j.dispersed = to(j.dispersed)
+    j.continuous = j.continuous.map(to)
+  }
+}

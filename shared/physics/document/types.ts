@@ -1,0 +1,102 @@
+// Shapes of a chip-document forecast: the compiled network (SI) and the answer.
+import type { JunctionForecast } from '../forecast/types'
+import type { LiquidProperties } from '../liquids'
+import type { Margin, Uniformity } from '../network'
+import type { Method, Quantity, Warning } from '../quantity'
+
+/** The document kinds that break drops; every nozzle of a step array is its own junction. */
+export type DocumentJunctionKind = 't-junction' | 'flow-focusing' | 'step-nozzle' | 'step-array' | 'y-junction'
+
+/** One straight hydraulic element of the compiled chip, in SI. */
+export interface CompiledChannel {
+  /** Document channel id, or `<component id>/<part>` for a component's internals. */
+  id: string
+  /** The document element it belongs to (channel or component id). */
+  element: string
+  from: string
+  to: string
+  width: number
+  depth: number
+  length: number
+}
+
+/** A junction and the internal channels that carry its two phases towards it. */
+export interface CompiledJunction {
+  id: string
+  kind: DocumentJunctionKind
+  element: string
+  /** Nozzle index (0-based) within a step array. */
+  nozzle?: number
+  /** SI; mainWidth is the main channel, orifice or nozzle width. */
+  mainWidth: number
+  inletWidth: number
+  depth: number
+  /** Channel index whose positive flow is the dispersed phase entering the junction. */
+  dispersed: number
+  /** Channel indices of the continuous phase: summed flows into the junction, or the largest crossflow past a step. */
+  continuous: number[]
+  continuousRule: 'sum' | 'largest'
+  /** Junctions with equal keys are meant to carry equal flow (parallel nozzles). */
+  parallelKey: string
+}
+
+export type DocumentSource = { port: string; kind: 'inlet' | 'outlet'; node: string } & ({ mode: 'pressure'; pressure: number } | { mode: 'flow'; flow: number })
+
+export interface CompiledDocument {
+  channels: CompiledChannel[]
+  junctions: CompiledJunction[]
+  /** Inlets per the operating point, outlets at 0 Pa gauge. */
+  sources: DocumentSource[]
+  warnings: DocumentWarning[]
+}
+
+/** A warning located on a document element when it has one. */
+export interface DocumentWarning extends Warning {
+  element?: string
+}
+
+export interface DocumentJunction {
+  id: string
+  kind: DocumentJunctionKind
+  element: string
+  nozzle?: number
+  /** Null when the junction cannot be forecast (no dispersed flow, backflow, no tension); a warning says why. */
+  forecast: JunctionForecast | null
+}
+
+export interface DocumentUniformity extends Uniformity {
+  /** Nozzle (or dispersed-arm) channel ids and their junction ids. */
+  channels: string[]
+  junctions: string[]
+}
+
+export interface DocumentNetwork {
+  liquid: LiquidProperties
+  /** How the chip's two-phase flow is reduced to one liquid for the pressure budget. */
+  approximation: Method
+  nodes: { id: string; pressure: Quantity }[]
+  channels: { id: string; element: string; from: string; to: string; flow: Quantity; resistance: Quantity; pressureDrop: Quantity }[]
+  /** The pressure each inlet needs and the flow it supplies (gauge, Pa and m³/s). */
+  inlets: { port: string; node: string; mode: 'pressure' | 'flow'; pressure: Quantity; flow: Quantity }[]
+  outlets: { port: string; node: string; flow: Quantity }[]
+  uniformity: DocumentUniformity[]
+  margins?: { bondPressure?: Margin; pumpPressure?: Margin }
+  solver: { name: string; iterations: number; residual: number }
+  warnings: DocumentWarning[]
+}
+
+export interface DocumentForecast {
+  document: { name: string }
+  operatingPoint: { id: string; name: string }
+  network: DocumentNetwork
+  junctions: DocumentJunction[]
+  /** Every warning of the answer: the network's and the junctions' document-level ones. */
+  warnings: DocumentWarning[]
+}
+
+export interface DocumentForecastOptions {
+  /** Bond and pump limits, Pa gauge. */
+  limits?: { bondPressure?: number; pumpPressure?: number }
+  /** Exact series (default) or Bruus's approximation. */
+  resistanceMethod?: 'series' | 'approximate'
+}
