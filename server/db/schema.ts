@@ -60,6 +60,7 @@ export const designs = pgTable('designs', {
   labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
   name: varchar('name', { length: 120 }).notNull(),
   description: text('description').notNull().default(''),
+  processId: varchar('process_id', { length: 64 }).notNull().default('film-mask-soft-litho'),
   createdBy: uuid('created_by').notNull().references(() => users.id),
   createdAt: createdAt(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

@@ -1,5 +1,6 @@
 // Test data written straight to the test database, so tests that change things never touch the demo rows.
 import { randomUUID } from 'node:crypto'
+import { readFileSync } from 'node:fs'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import { inject } from 'vitest'
@@ -23,4 +24,8 @@ export async function makeLab(members: Role[]) {
   }
   await pool.end()
   return { lab: lab!, people }
+}
+
+export function fixtureDocument(name = 't-junction-basic'): Record<string, any> {
+  return JSON.parse(readFileSync(new URL(`../fixtures/documents/${name}.json`, import.meta.url), 'utf8'))
 }

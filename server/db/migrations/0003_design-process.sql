@@ -1,0 +1,1 @@
+ALTER TABLE "designs" ADD COLUMN "process_id" varchar(64) DEFAULT 'film-mask-soft-litho' NOT NULL;

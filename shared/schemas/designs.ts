@@ -1,0 +1,55 @@
+// Payloads of the designs and revisions API. One schema per payload, shared by forms and routes.
+import { z } from 'zod'
+import { labParams } from './labs'
+
+export const designParams = labParams.extend({ designId: z.uuid('Design id must be a UUID') })
+export const revisionParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID') })
+export const compareParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID'), otherId: z.uuid('Revision id must be a UUID') })
+
+const name = z.string().trim().min(1, 'Give the design a name').max(120, 'A name is at most 120 characters')
+const message = z.string().trim().min(1, 'Say what changed in this revision').max(500, 'A message is at most 500 characters')
+
+export const designCreate = z.object({
+  name,
+  description: z.string().max(2000, 'A description is at most 2000 characters').default(''),
+  processId: z.string().max(64).optional(),
+  /** A chip document (validated by the chip schema on the server); omitted → a starter document. */
+  document: z.unknown().optional(),
+  message: message.default('First revision'),
+})
+export type DesignCreate = z.input<typeof designCreate>
+
+export const designUpdate = z.object({
+  name: name.optional(),
+  description: z.string().max(2000).optional(),
+  archived: z.boolean().optional(),
+})
+
+export const designListQuery = z.object({
+  q: z.string().max(120).optional(),
+  status: z.enum(['draft', 'in-review', 'changes-requested', 'approved', 'released']).optional(),
+  kind: z.enum(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction']).optional(),
+  archived: z.enum(['true', 'false']).default('false'),
+  sort: z.enum(['updated', 'name', 'created']).default('updated'),
+  dir: z.enum(['asc', 'desc']).default('desc'),
+})
+
+export const revisionCreate = z.object({
+  /** The revision this one was edited from; must be the latest unless `branch` is set. */
+  parentId: z.uuid('parentId must be the id of the revision you edited'),
+  message,
+  document: z.unknown().refine(v => v !== undefined, 'A revision needs a chip document'),
+  branch: z.boolean().default(false),
+})
+export type RevisionCreate = z.input<typeof revisionCreate>
+
+export const duplicateBody = z.object({
+  targetLabId: z.uuid('Choose the lab to copy into'),
+  name,
+})
+
+export const dxfQuery = z.object({
+  mirror: z.enum(['true', 'false']).default('false'),
+  /** Comma-separated layer ids or DXF layer names; all layers when omitted. */
+  layers: z.string().max(500).optional(),
+})

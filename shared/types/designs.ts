@@ -1,0 +1,51 @@
+import type { Role } from '../utils/roles'
+
+export type RevisionStatus = 'draft' | 'in-review' | 'changes-requested' | 'approved' | 'released'
+
+export interface JunctionSummary { id: string, kind: string, regime: string | null, dropletDiameterUm: number | null, frequencyHz: number | null, valid: boolean }
+export interface RevisionSummary {
+  junctionKinds: string[]
+  counts: { channels: number, components: number, ports: number, layers: number }
+  operatingPoint: string | null
+  junctions: JunctionSummary[]
+  inlets: Array<{ portId: string, pressureMbar: number }>
+  forecastError: string | null
+  findings: { errors: number, warnings: number, infos: number }
+  processId: string
+}
+
+export interface DesignOriginView { revisionId: string, designId: string, designName: string, revisionNumber: number, authorName: string, labName: string }
+
+export interface DesignRow {
+  id: string, name: string, description: string, processId: string
+  junctionKinds: string[], latestRevisionId: string | null, latestNumber: number | null
+  status: RevisionStatus | null, updatedAt: string, authorName: string, archived: boolean
+  origin: DesignOriginView | null
+}
+
+export interface RevisionRow {
+  id: string, designId: string, number: number, parentId: string | null, message: string
+  authorName: string, createdAt: string, status: RevisionStatus, statusChangedAt: string, summary: RevisionSummary
+}
+
+export interface RevisionDetail extends RevisionRow {
+  designName: string, labId: string, document: unknown, latestRevisionId: string | null
+}
+
+export interface ActivityEntry { id: number, action: string, actorName: string, at: string, revisionNumber: number | null, detail: Record<string, unknown> }
+export interface ReviewerOption { userId: string, name: string, role: Role }
+
+export interface CommentView { id: string, authorName: string, body: string, createdAt: string }
+export interface ThreadView {
+  id: string, anchor: { x: number, y: number, elementId?: string }, createdBy: string, createdAt: string
+  resolvedAt: string | null, resolvedBy: string | null, comments: CommentView[]
+}
+export interface VerdictView { reviewerId: string, reviewerName: string, verdict: 'approve' | 'request-changes', note: string, at: string }
+export interface ReviewState {
+  status: RevisionStatus, statusChangedAt: string, statusChangedBy: string | null
+  requests: Array<{ reviewerId: string, name: string }>
+  verdicts: VerdictView[]
+  threads: ThreadView[]
+  reviewers: ReviewerOption[]
+  release: { releasedAt: string, releasedBy: string, fabStatus: string, fabStatusAt: string, note: string } | null
+}
