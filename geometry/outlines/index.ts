@@ -45,11 +45,13 @@ export function buildOutlines(doc: ChipDocument, options: OutlineOptions = {}): 
     const items = byLayer.get(layerId) ?? []
     const r = mergePieces(items.flatMap((e) => e.pieces))
     if (r.error) {
-      const first = items[0]
+      const at = r.failedAt
+      const culprit = (at && items.find((e) => e.pieces.some((piece) => piece[0]?.[0] === at))) ?? items[0]
+      const where = at ?? culprit?.pieces[0]?.[0]?.[0]
       problems.push({
-        rule: 'merge-failed', elementId: first?.elementId ?? layerId,
-        message: `Outlines on layer "${layerId}" could not be merged (${r.error}): move nearly touching edges apart or onto each other`,
-        location: { x: first?.pieces[0]?.[0]?.[0]?.[0] ?? 0, y: first?.pieces[0]?.[0]?.[0]?.[1] ?? 0 },
+        rule: 'merge-failed', elementId: culprit?.elementId ?? layerId,
+        message: `Outlines touching "${culprit?.elementId ?? layerId}" on layer "${layerId}" could not be merged (${r.error}) and are left out of the mask: move nearly touching edges apart or onto each other`,
+        location: { x: where?.[0] ?? 0, y: where?.[1] ?? 0 },
       })
     }
     return r.merged
@@ -60,6 +62,8 @@ export function buildOutlines(doc: ChipDocument, options: OutlineOptions = {}): 
 }
 
 export { MARKS_LAYER }
-export { mergePieces } from './merge'
+export { mergePieces, mergePiecesSingleSweep } from './merge'
+export type { MergeResult } from './merge'
+export { pieceClusters } from './clusters'
 export { strokePolyline, cleanPolyline, findSelfCrossing } from './polyline'
 export { circleSegments, circlePolygon } from './circle'
