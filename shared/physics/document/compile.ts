@@ -1,8 +1,10 @@
 // A chip document at one operating point → straight channels between named nodes, junctions and sources.
-// Channels: layer depth, drawn centre-line length, width. Ends: explicit terminal references, else whatever
-// lies within COINCIDENCE_UM. Components: see components.ts. Inlets per the operating point, outlets at 0 Pa.
+// Channels: layer depth, drawn centre-line length, width. Ends: an explicit terminal reference, else a free end
+// joined to whatever free end or terminal lies within COINCIDENCE_UM. Terminals do not join each other
+// directly: components connect through channels. Components: see components.ts. Inlets per the operating
+// point, outlets at 0 Pa gauge.
 import type { ChipDocument } from '../../schemas/chip'
-import { componentTerminals } from '../../schemas/chip'
+import { componentTerminals, terminalNames } from '../../schemas/chip'
 import { ForecastInputError, type InputIssue } from '../errors'
 import { compileComponent } from './components'
 import { Connections, terminalKey } from './connect'
@@ -23,15 +25,22 @@ export function compileDocument(doc: ChipDocument, op: ResolvedOperatingPoint): 
   const depth = (layerId: string) => depthUm.get(layerId)!
   const ports = new Set(doc.ports.map((p) => p.id))
   const connections = new Connections()
-  for (const p of doc.ports) connections.add(p.id, p.position, 0)
-  for (const c of doc.components) for (const t of componentTerminals(c)) connections.add(terminalKey(c.id, t.name, false), t.position, 1)
   const endKey = (channelId: string, ref: { element: string; terminal: string } | undefined, end: 'start' | 'end') =>
     ref ? terminalKey(ref.element, ref.terminal, ports.has(ref.element)) : `${channelId}:${end}`
+  let freeEnds = 0
   doc.channels.forEach((ch) => {
-    if (!ch.start) connections.add(`${ch.id}:start`, ch.points[0]!, 2)
-    if (!ch.end) connections.add(`${ch.id}:end`, ch.points[ch.points.length - 1]!, 2)
+    if (!ch.start) (connections.add(`${ch.id}:start`, ch.points[0]!, 2), freeEnds++)
+    if (!ch.end) (connections.add(`${ch.id}:end`, ch.points[ch.points.length - 1]!, 2), freeEnds++)
   })
-  connections.joinCoincident()
+  // Terminals join only through channels, so their positions matter only when some channel end is free.
+  const positions = freeEnds > 0
+  for (const p of doc.ports) connections.add(p.id, p.position, 0)
+  for (const c of doc.components) {
+    if (positions) for (const t of componentTerminals(c)) connections.add(terminalKey(c.id, t.name, false), t.position, 1)
+    else for (const name of terminalNames(c)) connections.add(terminalKey(c.id, name, false), c.position, 1)
+  }
+  if (positions) connections.joinCoincident(2)
+  else connections.keepApart()
 
   const channels: CompiledChannel[] = []
   const junctions: CompiledJunction[] = []

@@ -21,10 +21,13 @@ function pipe(ctx: ComponentContext, c: Component, part: string, from: string, t
   return ctx.channels.length - 1
 }
 
-/** Geometry key: identical parameters (position and rotation aside) mean "meant to carry equal flow". */
+/** Geometry key: identical parameters (position, rotation and names aside) mean "meant to carry equal flow". */
 function parallelKey(c: Component): string {
-  const { id: _id, name: _name, position: _position, rotation: _rotation, ...shape } = c
-  return JSON.stringify(shape)
+  let key = ''
+  for (const [field, value] of Object.entries(c)) {
+    if (field !== 'id' && field !== 'name' && field !== 'position' && field !== 'rotation') key += `${field}=${String(value)};`
+  }
+  return key
 }
 
 export function compileComponent(c: Component, ctx: ComponentContext): void {

@@ -1,6 +1,7 @@
 // Joins the document's connection points into network nodes. A channel end with an explicit reference
-// ({ element, terminal }) is that terminal; free channel ends and terminals within COINCIDENCE_UM of each
-// other are one node. Node names: a port's id, else "<component>:<terminal>", else "<channel>:start|end".
+// ({ element, terminal }) is that terminal; a free channel end within COINCIDENCE_UM of another free end or of
+// a terminal is one node with it (two terminals alone never join). Node names: a port's id, else
+// "<component>:<terminal>", else "<channel>:start|end".
 
 /** Two connection points closer than this (µm) are joined; a drawing-precision choice, not a physical one. */
 export const COINCIDENCE_UM = 0.5
@@ -32,29 +33,41 @@ export class Connections {
     return this.index.has(key)
   }
 
-  /** Unions every pair of points within COINCIDENCE_UM (spatial hash on a grid of that cell size). */
-  joinCoincident(): void {
+  /** Every point its own node. */
+  keepApart(): void {
+    this.parent = new Int32Array(this.entries.length)
+    for (let i = 0; i < this.parent.length; i++) this.parent[i] = i
+  }
+
+  /**
+   * Unions pairs within COINCIDENCE_UM (spatial hash on a grid of that cell size) when at least one of the two
+   * has rank ≥ `joiningRank` (free channel ends).
+   */
+  joinCoincident(joiningRank: number): void {
+    this.keepApart()
     const n = this.entries.length
-    this.parent = new Int32Array(n)
-    for (let i = 0; i < n; i++) this.parent[i] = i
-    const cell = COINCIDENCE_UM
-    const grid = new Map<string, number[]>()
-    const cellKey = (cx: number, cy: number) => `${cx},${cy}`
+    // Cells hash to numbers; two cells sharing a hash only cost a distance test, never a wrong join.
+    const grid = new Map<number, number[]>()
+    const hash = (cx: number, cy: number) => (Math.imul(cx, 73856093) ^ Math.imul(cy, 19349663)) | 0
     for (let i = 0; i < n; i++) {
-      const { x, y } = this.entries[i]!.position
-      const cx = Math.floor(x / cell)
-      const cy = Math.floor(y / cell)
+      const own = this.entries[i]!
+      const { x, y } = own.position
+      const cx = Math.floor(x / COINCIDENCE_UM)
+      const cy = Math.floor(y / COINCIDENCE_UM)
       for (let dx = -1; dx <= 1; dx++)
         for (let dy = -1; dy <= 1; dy++) {
-          for (const j of grid.get(cellKey(cx + dx, cy + dy)) ?? []) {
-            const q = this.entries[j]!.position
-            if (Math.hypot(q.x - x, q.y - y) <= COINCIDENCE_UM) this.union(i, j)
+          const list = grid.get(hash(cx + dx, cy + dy))
+          if (!list) continue
+          for (const j of list) {
+            const other = this.entries[j]!
+            if (own.rank < joiningRank && other.rank < joiningRank) continue
+            if (Math.hypot(other.position.x - x, other.position.y - y) <= COINCIDENCE_UM) this.union(i, j)
           }
         }
-      const own = cellKey(cx, cy)
-      const list = grid.get(own)
+      const cell = hash(cx, cy)
+      const list = grid.get(cell)
       if (list) list.push(i)
-      else grid.set(own, [i])
+      else grid.set(cell, [i])
     }
   }
 
