@@ -1,0 +1,93 @@
+// The drawable scene of one chip document, built once per document and memoised: per-layer rings with a
+// consistent winding (so one non-zero fill per layer draws the union of its pieces without seams), marks, text,
+// ports, the chip edge, the bounds and the hit-test index. Pure: no canvas, no Vue.
+import type { ChipDocument } from '#shared/schemas/chip'
+import { chipOutlineRing, documentPieces, MARKS_LAYER } from '~~/geometry/outlines/elements'
+import type { ElementKind, GeometryProblem, Pair, Polygon } from '~~/geometry/types'
+import { buildElementIndex, signedArea, type ElementIndex } from './hitTest'
+import { layerStyles, type LayerStyle } from './palette'
+import { emptyBounds, extend, isEmpty, type Bounds } from './viewport'
+
+export interface SceneLayer {
+  layerId: string
+  name: string
+  /** µm */
+  depth: number
+  style: LayerStyle
+  /** Rings as flat [x0, y0, x1, y1, …] µm: exteriors counter-clockwise, holes clockwise. */
+  rings: Float64Array[]
+}
+
+export interface ScenePort { id: string; kind: 'inlet' | 'outlet'; phase?: 'continuous' | 'dispersed'; x: number; y: number; radius: number }
+export interface SceneText { id: string; text: string; x: number; y: number; height: number }
+export interface SceneElement { elementId: string; kind: ElementKind; layerId: string; pieces: Polygon[] }
+
+export interface ChipScene {
+  /** Channel layers, deepest first (the drawing order: shallow features sit on top). */
+  layers: SceneLayer[]
+  /** Alignment marks (their own layer). */
+  marks: Float64Array[]
+  texts: SceneText[]
+  ports: ScenePort[]
+  chipOutline: Pair[] | null
+  elements: SceneElement[]
+  index: ElementIndex
+  bounds: Bounds
+  problems: GeometryProblem[]
+}
+
+/** Arc chord tolerance for the viewer (µm); the mask export uses 0.1 µm, the screen needs less. */
+const TOLERANCE = 0.5
+
+const cache = new WeakMap<ChipDocument, ChipScene>()
+
+/** The scene for a document, built once per document object. */
+export function sceneFor(doc: ChipDocument): ChipScene {
+  let s = cache.get(doc)
+  if (!s) { s = buildScene(doc); cache.set(doc, s) }
+  return s
+}
+
+export function buildScene(doc: ChipDocument): ChipScene {
+  // The per-element pieces of buildOutlines(doc).elements, without the per-layer union the mask needs.
+  const { elements, problems } = documentPieces(doc, TOLERANCE)
+  const styles = layerStyles(doc.layers)
+  const ringsByLayer = new Map<string, Float64Array[]>()
+  const bounds = emptyBounds()
+  for (const e of elements) {
+    const list = ringsByLayer.get(e.layerId) ?? []
+    for (const piece of e.pieces) piece.forEach((ring, i) => list.push(flatRing(ring, i === 0, bounds)))
+    ringsByLayer.set(e.layerId, list)
+  }
+  const chipOutline = chipOutlineRing(doc)
+  for (const [x, y] of chipOutline ?? []) extend(bounds, x, y)
+  const texts = doc.marks.flatMap((m) => (m.kind === 'text' ? [{ id: m.id, text: m.text, x: m.position.x, y: m.position.y, height: m.height }] : []))
+  for (const t of texts) { extend(bounds, t.x, t.y); extend(bounds, t.x + t.height * 0.6 * t.text.length, t.y + t.height) }
+  if (isEmpty(bounds)) Object.assign(bounds, { minX: 0, minY: 0, maxX: 1000, maxY: 1000 })
+
+  const layers = [...doc.layers]
+    .sort((a, b) => b.depth - a.depth)
+    .map((l) => ({ layerId: l.id, name: l.name, depth: l.depth, style: styles.get(l.id)!, rings: ringsByLayer.get(l.id) ?? [] }))
+  const ports = doc.ports.map((p) => ({ id: p.id, kind: p.kind, phase: p.feed?.phase, x: p.position.x, y: p.position.y, radius: p.punchDiameter / 2 }))
+  return {
+    layers, marks: ringsByLayer.get(MARKS_LAYER) ?? [], texts, ports, chipOutline,
+    elements, index: buildElementIndex(elements.filter((e) => e.layerId !== MARKS_LAYER)), bounds, problems,
+  }
+}
+
+/** A ring as a flat array, exteriors turned counter-clockwise and holes clockwise; grows `bounds`. */
+export function flatRing(ring: Pair[], exterior: boolean, bounds?: Bounds): Float64Array {
+  const ccw = signedArea(ring) >= 0
+  const n = ring.length > 1 && ring[0]![0] === ring[ring.length - 1]![0] && ring[0]![1] === ring[ring.length - 1]![1] ? ring.length - 1 : ring.length
+  const out = new Float64Array(n * 2)
+  const reverse = ccw !== exterior
+  for (let i = 0; i < n; i++) {
+    const [x, y] = ring[reverse ? n - 1 - i : i]!
+    out[2 * i] = x
+    out[2 * i + 1] = y
+    if (bounds) extend(bounds, x, y)
+  }
+  return out
+}
+
+export { MARKS_LAYER }
