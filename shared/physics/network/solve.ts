@@ -5,11 +5,17 @@ import { denseSolve } from './dense'
 import { envelopeCholesky, envelopeShape, envelopeSolve } from './envelope'
 import { indexNetwork, type IndexedNetwork } from './indexing'
 import { reverseCuthillMcKee } from './ordering'
+import { incompleteCholesky, incompleteSolve } from './incomplete'
 import { jacobi, pcg, type Preconditioner } from './pcg'
 import type { NetworkProblem, NetworkSolution, SolverName } from './types'
 
 /** Use the exact envelope factor as preconditioner while its cost stays within this many flops per unknown. */
 const ENVELOPE_COST_PER_UNKNOWN = 600
+/**
+ * Relaxation of the modified incomplete Cholesky: 0.99 took the fewest iterations on our benchmark grids
+ * (1k–100k channels; 1 and 0.95 within 25 %), measured here, not from a source.
+ */
+const MIC_RELAXATION = 0.99
 
 function preconditioner(system: ReducedSystem): { apply: Preconditioner; name: SolverName } {
   const { matrix } = system
@@ -20,6 +26,14 @@ function preconditioner(system: ReducedSystem): { apply: Preconditioner; name: S
     if (factor) {
       const work = new Float64Array(matrix.size)
       return { apply: (r, z) => envelopeSolve(factor, r, z, work), name: 'pcg-envelope-cholesky' }
+    }
+  }
+  // Wide networks (2-D grids): zero-fill incomplete Cholesky — modified first, plain IC(0) if a pivot collapses.
+  for (const omega of [MIC_RELAXATION, 0]) {
+    const factor = incompleteCholesky(matrix, order, omega)
+    if (factor) {
+      const work = new Float64Array(matrix.size)
+      return { apply: (r, z) => incompleteSolve(factor, r, z, work), name: omega === 0 ? 'pcg-incomplete-cholesky' : 'pcg-modified-incomplete-cholesky' }
     }
   }
   return { apply: jacobi(matrix), name: 'pcg-jacobi' }
@@ -54,7 +68,7 @@ function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, s
   return { nodeIds: net.nodeIds, pressure, flow, sources, solver, iterations, residual }
 }
 
-/** Sparse solve: PCG with an exact envelope-Cholesky preconditioner when the envelope is narrow, else Jacobi. */
+/** Sparse solve: PCG preconditioned by the exact envelope Cholesky factor when the envelope is narrow, else by a zero-fill (modified) incomplete Cholesky factor, Jacobi as the last resort. */
 export function solveNetwork(problem: NetworkProblem): NetworkSolution {
   const net = indexNetwork(problem)
   const system = assemble(net)

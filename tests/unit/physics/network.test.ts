@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest'
 import { NetworkError } from '#shared/physics/errors'
 import { flowUniformity, pressureMargin, solveNetwork, solveNetworkDense, type NetworkProblem } from '#shared/physics/network'
+import { assemble } from '#shared/physics/network/assemble'
+import { denseSolve } from '#shared/physics/network/dense'
+import { incompleteCholesky, incompleteSolve } from '#shared/physics/network/incomplete'
+import { indexNetwork } from '#shared/physics/network/indexing'
+import { reverseCuthillMcKee } from '#shared/physics/network/ordering'
+import { pcg } from '#shared/physics/network/pcg'
 
 function ladder(rungs: number): NetworkProblem {
   const channels = []
@@ -20,6 +26,16 @@ function grid(n: number): NetworkProblem {
       if (j + 1 < n) channels.push({ id: `v${i}.${j}`, from: `${i}.${j}`, to: `${i}.${j + 1}`, resistance: 1e9 * (1 + ((3 * i + 5 * j) % 7)) })
     }
   return { channels, sources: [{ node: '0.0', pressure: 1000 }, { node: `${n - 1}.${n - 1}`, pressure: 0 }] }
+}
+
+/** A grid whose every horizontal channel is doubled (parallel duplicates), with flow sources and two outlets. */
+function gridWithFlows(n: number): NetworkProblem {
+  const base = grid(n)
+  const doubled = base.channels.filter((c) => c.id.startsWith('h')).map((c) => ({ ...c, id: `${c.id}'`, resistance: 3 * c.resistance }))
+  return {
+    channels: [...base.channels, ...doubled],
+    sources: [{ node: '0.0', flow: 1e-9 }, { node: `${n >> 1}.${n >> 1}`, flow: 2e-9 }, { node: `${n - 1}.${n - 1}`, pressure: 0 }, { node: `0.${n - 1}`, pressure: 0 }],
+  }
 }
 
 const maxRelative = (a: Float64Array, b: Float64Array) => {
@@ -50,14 +66,39 @@ describe('network solver', () => {
     expect(s.sources[0]!.pressure).toBeCloseTo(600, 9)
   })
   it.each([
-    ['ladder (exact envelope preconditioner)', ladder(200)],
-    ['grid 12 × 12', grid(12)],
-    ['grid 40 × 40 (Jacobi preconditioner)', grid(40)],
-  ])('sparse PCG agrees with dense Gaussian elimination to 1e-9 relative: %s', (_, problem) => {
+    ['ladder (exact envelope preconditioner)', ladder(200), 'pcg-envelope-cholesky'],
+    ['grid 12 × 12', grid(12), 'pcg-envelope-cholesky'],
+    ['grid 40 × 40 (modified incomplete Cholesky)', grid(40), 'pcg-modified-incomplete-cholesky'],
+    ['grid 45 × 45 with flow sources and doubled channels', gridWithFlows(45), 'pcg-modified-incomplete-cholesky'],
+  ])('sparse PCG agrees with dense Gaussian elimination to 1e-9 relative: %s', (_, problem, solver) => {
     const sparse = solveNetwork(problem)
     const dense = solveNetworkDense(problem)
+    expect(sparse.solver).toBe(solver)
     expect(maxRelative(sparse.pressure, dense.pressure)).toBeLessThan(1e-9)
     expect(maxRelative(sparse.flow, dense.flow)).toBeLessThan(1e-9)
+  })
+  it('IC(0) and MIC(0) both reach the dense answer on a grid; MIC needs fewer iterations (Gustafsson 1978)', () => {
+    const { matrix, rhs } = assemble(indexNetwork(gridWithFlows(45)))
+    const order = reverseCuthillMcKee(matrix)
+    const exact = denseSolve(matrix, rhs)
+    const iterations = [0, 0.99].map((omega) => {
+      const factor = incompleteCholesky(matrix, order, omega)!
+      const work = new Float64Array(matrix.size)
+      const result = pcg(matrix, rhs, (r, z) => incompleteSolve(factor, r, z, work))
+      expect(result.converged).toBe(true)
+      expect(maxRelative(result.x, exact)).toBeLessThan(1e-9)
+      return result.iterations
+    })
+    expect(iterations[1]!).toBeLessThan(iterations[0]!)
+  })
+  it('a zero-fill factor of a tree is its exact Cholesky factor: PCG converges in one step', () => {
+    const channels = Array.from({ length: 300 }, (_, k) => ({ id: `t${k}`, from: `n${Math.floor(k / 2)}`, to: `n${k + 1}`, resistance: 1e10 * (1 + (k % 4)) }))
+    const { matrix, rhs } = assemble(indexNetwork({ channels, sources: [{ node: 'n0', pressure: 100 }, ...Array.from({ length: 10 }, (_, k) => ({ node: `n${290 + k}`, flow: -1e-12 }))] }))
+    const factor = incompleteCholesky(matrix, reverseCuthillMcKee(matrix), 0)!
+    const work = new Float64Array(matrix.size)
+    const result = pcg(matrix, rhs, (r, z) => incompleteSolve(factor, r, z, work))
+    expect(result.iterations).toBe(1)
+    expect(maxRelative(result.x, denseSolve(matrix, rhs))).toBeLessThan(1e-12)
   })
   it('conserves flow at every free node', () => {
     const problem = ladder(50)
