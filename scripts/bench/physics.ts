@@ -1,5 +1,11 @@
 // Benchmarks of the forecast core: median times and growth ratios, printed. Not a test.
+import { generateParallelChip } from '../../geometry/arrays'
+import { parseChipDocument, type ChipDocument } from '../../shared/schemas/chip'
+import { forecastDocument } from '../../shared/physics/document'
 import { solveNetwork, solveNetworkDense, type NetworkProblem } from '../../shared/physics/network'
+import { assemble } from '../../shared/physics/network/assemble'
+import { indexNetwork } from '../../shared/physics/network/indexing'
+import { jacobi, pcg } from '../../shared/physics/network/pcg'
 import { runForecast } from '../../shared/physics/forecast'
 import { forecastJunction } from '../../shared/physics/forecast/junction'
 import { resolveJunctionRequest } from '../../shared/physics/forecast/junctionRequest'
@@ -74,6 +80,13 @@ export async function run(): Promise<void> {
     }
     console.log(`${name.padEnd(12)} growth per 10×: ${(times[1]! / times[0]!).toFixed(1)}× (1k→10k), ${(times[2]! / times[1]!).toFixed(1)}× (10k→100k)`)
   }
+  // The grid's previous preconditioner, for comparison (100k skipped: ~4.5 s per solve).
+  for (const size of [1_000, 10_000]) {
+    const { matrix, rhs } = assemble(indexNetwork(grid(size)))
+    let iterations = 0
+    const t = median(() => (iterations = pcg(matrix, rhs, jacobi(matrix)).iterations), 3)
+    console.log(`grid, Jacobi ${String(size).padStart(7)} channels  ${t.toFixed(1).padStart(8)} ms  (PCG iterations only, ${iterations} iterations)`)
+  }
 
   // Dense Gaussian elimination needs n² doubles: 10k channels ≈ 6.7k unknowns ≈ 360 MB and ~10¹¹ flops,
   // so it runs at sizes that fit and is extrapolated to 10k by n³.
@@ -90,7 +103,21 @@ export async function run(): Promise<void> {
   const extrapolated = last.ms * (unknowns10k / last.unknowns) ** 3
   console.log(`dense at 10k channels (extrapolated by n³ from ${denseSizes.at(-1)}): ~${(extrapolated / 1000).toFixed(1)} s; sparse ${sparse10k.toFixed(1)} ms → dense/sparse ≈ ${Math.round(extrapolated / sparse10k)}×`)
 
-  console.log('\n# physics — 512-nozzle parallel chip (network built directly in the bench)')
+  console.log('\n# physics — 512-nozzle generated chip document (geometry/arrays), forecastDocument')
+  const generated = generateParallelChip({ nozzles: 512 })
+  // The generator's operating point has no interfacial tension (its oil is given by properties, so the library
+  // has no pair): give one, or every junction would be skipped with a warning and the figure would flatter us.
+  const chip: ChipDocument = { ...generated, operatingPoints: generated.operatingPoints.map((op) => ({ ...op, interfacialTensionMNPerM: 3, contactAngleDeg: 150 })) }
+  const answer = forecastDocument(chip)
+  const forecast = answer.junctions.filter((j) => j.forecast).length
+  const docMs = median(() => forecastDocument(chip), 21)
+  const json = JSON.parse(JSON.stringify(chip))
+  const parseMs = median(() => parseChipDocument(json), 7)
+  console.log(`forecastDocument: ${answer.network.channels.length} channels, ${answer.junctions.length} junctions (${forecast} forecast), ${answer.network.solver.name}: ${docMs.toFixed(2)} ms median (target < 20 ms)`)
+  console.log(`uniformity across ${answer.network.uniformity[0]?.count} nozzles: cv ${(answer.network.uniformity[0]?.cv ?? 0).toExponential(2)}, max/min ${(answer.network.uniformity[0]?.maxOverMin ?? 1).toFixed(4)}`)
+  console.log(`(parsing the same document from JSON, as runDocumentForecast does first: ${parseMs.toFixed(2)} ms median)`)
+
+  console.log('\n# physics — 512-nozzle network built by hand (network request + 512 junction forecasts), for comparison')
   const request = parallelChipRequest(512)
   const junction = junctionRequest.parse({
     junction: { kind: 'step', mainWidth: '40 um', depth: '10 um' },
