@@ -15,7 +15,11 @@ export interface Box { x: number; y: number; w: number; h: number }
 /** Callout text metrics: JetBrains Mono advances 0.6 em per character. */
 export const CALLOUT = { fontPx: 11, charPx: 6.6, linePx: 14, padX: 6, padY: 4, gap: 10 } as const
 export const PIN = { radius: 10, lift: 16 } as const
-export const FINDING = { size: 8 } as const
+export const FINDING = { size: 9 } as const
+/** A callout keeps this far (px) from every other junction it could hide. */
+export const ANCHOR_CLEARANCE_PX = 5
+/** Junctions closer than this on screen (px) are too crowded to label one by one: zoom in to read them. */
+export const CROWD_PX = 20
 
 export interface PlacedCallout { key: string; ax: number; ay: number; box: Box; lines: string[]; tone: Tone }
 export interface PlacedPin { pin: ViewerPin; x: number; y: number; cx: number; cy: number }
@@ -46,12 +50,13 @@ export function placeFindings(findings: ViewerFinding[], view: View): PlacedFind
 
 /**
  * Places each callout beside its junction (right-above, right-below, left-above, left-below, first that fits),
- * skipping it when every spot would cover another callout, a pin or a finding, or leave the viewport.
+ * skipping it when its junction has another within CROWD_PX, or when every spot would cover another callout, another junction, a pin or a finding, or leave the
+ * viewport — so where junctions crowd (a nozzle array seen whole) the callouts give way to the geometry.
  * Labels are taken in the order given; `hidden` counts the ones on screen that found no room.
  */
 export function layoutCallouts(labels: ViewerLabel[], view: View, size: ViewportSize, blocked: Box[] = []): { placed: PlacedCallout[]; hidden: number } {
   const cell = 64
-  const grid = new Map<string, Box[]>()
+  const grid = new Map<string, Array<{ box: Box; owner: number }>>()
   const cellsOf = (b: Box) => {
     const keys: string[] = []
     for (let i = Math.floor(b.x / cell); i <= Math.floor((b.x + b.w) / cell); i++) {
@@ -59,27 +64,56 @@ export function layoutCallouts(labels: ViewerLabel[], view: View, size: Viewport
     }
     return keys
   }
-  const free = (b: Box) => cellsOf(b).every((k) => !(grid.get(k) ?? []).some((o) => overlaps(o, b)))
-  const take = (b: Box) => { for (const k of cellsOf(b)) grid.set(k, [...(grid.get(k) ?? []), b]) }
-  blocked.forEach(take)
+  const free = (b: Box, self: number) => cellsOf(b).every((k) => !(grid.get(k) ?? []).some((o) => o.owner !== self && overlaps(o.box, b)))
+  const take = (box: Box, owner = -1) => { for (const k of cellsOf(box)) grid.set(k, [...(grid.get(k) ?? []), { box, owner }]) }
+  blocked.forEach((b) => take(b))
+
+  const r = ANCHOR_CLEARANCE_PX
+  const anchors = labels.map((l) => worldToScreen(view, worldPoint(l.x, l.y)))
+  const onScreen = anchors.map((a) => a.x >= 0 && a.y >= 0 && a.x <= size.width && a.y <= size.height)
+  anchors.forEach((a, i) => { if (onScreen[i]) take({ x: a.x - r, y: a.y - r, w: 2 * r, h: 2 * r }, i) })
+  const crowded = crowdedAnchors(anchors, onScreen)
 
   const placed: PlacedCallout[] = []
   let hidden = 0
-  for (const l of labels) {
-    const a = worldToScreen(view, worldPoint(l.x, l.y))
-    if (a.x < 0 || a.y < 0 || a.x > size.width || a.y > size.height) continue
+  labels.forEach((l, i) => {
+    const a = anchors[i]!
+    if (!onScreen[i]) return
+    if (crowded[i]) { hidden++; return }
     const { w, h } = calloutSize(l.lines)
     const g = CALLOUT.gap
     const spots: Box[] = [
       { x: a.x + g, y: a.y - g - h, w, h }, { x: a.x + g, y: a.y + g, w, h },
       { x: a.x - g - w, y: a.y - g - h, w, h }, { x: a.x - g - w, y: a.y + g, w, h },
     ]
-    const box = spots.find((b) => inside(b, size) && free(b))
-    if (!box) { hidden++; continue }
-    take(box)
+    const box = spots.find((b) => inside(b, size) && free(b, i))
+    if (!box) { hidden++; return }
+    take(box, i)
     placed.push({ key: l.elementId, ax: a.x, ay: a.y, box, lines: l.lines, tone: l.tone })
-  }
+  })
   return { placed, hidden }
+}
+
+/** True for each anchor that has another within CROWD_PX: a callout there could not say which junction it means. */
+function crowdedAnchors(anchors: Array<{ x: number; y: number }>, onScreen: boolean[]): boolean[] {
+  const c = CROWD_PX
+  const cells = new Map<string, number[]>()
+  anchors.forEach((a, i) => {
+    if (!onScreen[i]) return
+    const k = `${Math.floor(a.x / c)},${Math.floor(a.y / c)}`
+    cells.set(k, [...(cells.get(k) ?? []), i])
+  })
+  return anchors.map((a, i) => {
+    if (!onScreen[i]) return false
+    const cx = Math.floor(a.x / c)
+    const cy = Math.floor(a.y / c)
+    for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) {
+      for (const j of cells.get(`${cx + dx},${cy + dy}`) ?? []) {
+        if (j !== i && Math.hypot(anchors[j]!.x - a.x, anchors[j]!.y - a.y) < c) return true
+      }
+    }
+    return false
+  })
 }
 
 export const pinBox = (p: PlacedPin): Box => ({ x: p.cx - PIN.radius, y: p.cy - PIN.radius, w: 2 * PIN.radius, h: PIN.radius * 2 + PIN.lift })

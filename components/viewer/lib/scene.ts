@@ -34,6 +34,8 @@ export interface ChipScene {
   index: ElementIndex
   bounds: Bounds
   problems: GeometryProblem[]
+  /** A short description per element id for hover text: `tj-1 · T-junction`. */
+  titles: Map<string, string>
 }
 
 /** Arc chord tolerance for the viewer (µm); the mask export uses 0.1 µm, the screen needs less. */
@@ -71,8 +73,21 @@ export function buildScene(doc: ChipDocument): ChipScene {
   const ports = doc.ports.map((p) => ({ id: p.id, kind: p.kind, phase: p.feed?.phase, x: p.position.x, y: p.position.y, radius: p.punchDiameter / 2 }))
   return {
     layers, marks: ringsByLayer.get(MARKS_LAYER) ?? [], texts, ports, chipOutline,
-    elements, index: buildElementIndex(elements.filter((e) => e.layerId !== MARKS_LAYER)), bounds, problems,
+    elements, index: buildElementIndex(elements.filter((e) => e.layerId !== MARKS_LAYER)), bounds, problems, titles: titles(doc),
   }
+}
+
+const KIND_NAMES: Record<string, string> = {
+  't-junction': 'T-junction', 'flow-focusing': 'flow-focusing cross', 'step-nozzle': 'step nozzle', 'step-array': 'step nozzle array',
+  'y-junction': 'Y-junction', 'serpentine': 'serpentine',
+}
+
+function titles(doc: ChipDocument): Map<string, string> {
+  const m = new Map<string, string>()
+  for (const c of doc.components) m.set(c.id, `${c.id} · ${KIND_NAMES[c.kind] ?? c.kind}`)
+  for (const c of doc.channels) m.set(c.id, `${c.id} · channel, ${c.width} µm wide`)
+  for (const p of doc.ports) m.set(p.id, `${p.id} · ${p.kind}${p.feed ? ` (${p.feed.phase} phase)` : ''}, ${p.punchDiameter} µm punch`)
+  return m
 }
 
 /** A ring as a flat array, exteriors turned counter-clockwise and holes clockwise; grows `bounds`. */
@@ -91,3 +106,18 @@ export function flatRing(ring: Pair[], exterior: boolean, bounds?: Bounds): Floa
 }
 
 export { MARKS_LAYER }
+
+const elementRingCache = new WeakMap<ChipScene, Map<string, Float64Array[]>>()
+
+/** The rings of one element on every layer it draws on (for hover and selection outlines), memoised. */
+export function elementRings(scene: ChipScene, elementId: string): Float64Array[] {
+  let m = elementRingCache.get(scene)
+  if (!m) { m = new Map(); elementRingCache.set(scene, m) }
+  let r = m.get(elementId)
+  if (!r) {
+    r = scene.elements.filter((e) => e.elementId === elementId && e.layerId !== MARKS_LAYER)
+      .flatMap((e) => e.pieces.flatMap((poly) => poly.map((ring, i) => flatRing(ring, i === 0))))
+    m.set(elementId, r)
+  }
+  return r
+}

@@ -20,11 +20,22 @@ describe('callout layout', () => {
     expect(placed[0]!.box.y + placed[0]!.box.h).toBeLessThan(300)
   })
   it('never overlaps two callouts; the ones with no room are counted as hidden', () => {
-    const many = Array.from({ length: 200 }, (_, i) => label(`n${i}`, 3000 + (i % 20) * 60, 2000 + Math.floor(i / 20) * 60))
+    const many = Array.from({ length: 200 }, (_, i) => label(`n${i}`, 300 + (i % 20) * 300, 600 + Math.floor(i / 20) * 300))
     const { placed, hidden } = layoutCallouts(many, view, size)
     expect(placed.length + hidden).toBe(200)
     expect(hidden).toBeGreaterThan(150)
     for (let i = 0; i < placed.length; i++) for (let j = i + 1; j < placed.length; j++) expect(overlaps(placed[i]!.box, placed[j]!.box)).toBe(false)
+  })
+  it('gives way to the geometry: a callout never covers another junction', () => {
+    const row = Array.from({ length: 50 }, (_, i) => label(`n${i}`, 3000, 1000 + i * 20)) // junctions 2 px apart
+    expect(layoutCallouts(row, view, size)).toMatchObject({ placed: [], hidden: 50 })
+    const sparse = Array.from({ length: 10 }, (_, i) => label(`n${i}`, 3000, 500 + i * 450)) // 45 px apart
+    const { placed } = layoutCallouts(sparse, view, size)
+    expect(placed.length).toBeGreaterThan(5)
+    for (const c of placed) for (const l of sparse) {
+      const a = { x: l.x * 0.1, y: 600 - l.y * 0.1 }
+      if (a.x !== c.ax || a.y !== c.ay) expect(a.x > c.box.x - 5 && a.x < c.box.x + c.box.w + 5 && a.y > c.box.y - 5 && a.y < c.box.y + c.box.h + 5).toBe(false)
+    }
   })
   it('keeps callouts off pins and skips junctions outside the viewport', () => {
     const pins = placePins([{ id: 'p', x: 2200, y: 3300, index: 1, resolved: false }], view)
