@@ -1,10 +1,4 @@
-import type { ChipDocumentInput } from '#shared/schemas/chip'
-
-type In = ChipDocumentInput
-type Elements = {
-  ports: NonNullable<In['ports']>; components: NonNullable<In['components']>; channels: NonNullable<In['channels']>
-  inlets: NonNullable<In['operatingPoints']>[number]['inlets']
-}
+import type { Elements } from './elements'
 
 interface BankArgs {
   bank: number; x0: number; y0: number; count: number

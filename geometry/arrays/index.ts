@@ -1,3 +1,7 @@
 export { generateParallelChip, planParallelChip } from './parallel-chip'
 export type { ParallelChipOptions, ParallelChipPlan } from './parallel-chip'
+export { generateTJunctionChip, planTJunctionChip } from './t-junction-chip'
+export type { ManifoldSizing, TJunctionChipOptions, TJunctionChipPlan } from './t-junction-chip'
 export { ladderNonUniformity, rectResistancePerViscosity, sizeManifold } from './resistance'
+export { waferFor, WAFER_DIAMETERS_MM, WAFER_EDGE_EXCLUSION_MM } from './wafer'
+export type { WaferFit } from './wafer'

@@ -2,11 +2,13 @@ import type { ChipDocument } from '#shared/schemas/chip'
 import { requireChipDocument } from '#shared/schemas/chip'
 import { rectResistancePerViscosity, sizeManifold } from './resistance'
 import { bankElements } from './bank'
+import { frameChip, gridBanks, waferNote } from './layout'
+import type { WaferFit } from './wafer'
 
 export interface ParallelChipOptions {
   /** Total number of step nozzles. */
   nozzles: number
-  /** Nozzles per ladder (bank); banks sit side by side, each with its own three ports. Default 128. */
+  /** Nozzles per ladder (bank); banks sit on a grid of rows and columns, each with its own three ports. Default 128. */
   nozzlesPerBank?: number
   name?: string
   /** Nozzle pitch, width, effective (shallow) length and depth, µm. */
@@ -26,6 +28,9 @@ export interface ParallelChipPlan {
   document: ChipDocument
   banks: number
   manifold: { width: number; nonUniformity: number; target: number }
+  /** Chip size (µm), bank grid and the smallest wafer it fits (see wafer.ts). */
+  chip: { width: number; height: number; columns: number; rows: number; wafer: WaferFit }
+  warnings: string[]
 }
 
 /** Plans a chip of parallel step nozzles on ladder manifolds and sizes the supply manifold (see resistance.ts). */
@@ -45,37 +50,25 @@ export function planParallelChip(opts: ParallelChipOptions): ParallelChipPlan {
     minWidth: Math.max(100, 2 * p.nozzleWidth), maxWidth: opts.maxManifoldWidth ?? 1500,
   })
   const banks = Math.ceil(n / perBank)
-  const bankSpan = p.nozzleLength + manifold.width / 2 + p.reservoirWidth / 2 + 4000
-  const parts = Array.from({ length: banks }, (_, b) =>
-    bankElements({ ...p, bank: b, x0: 3000 + b * bankSpan, y0: 3000, count: Math.min(perBank, n - b * perBank), manifoldWidth: manifold.width }))
-
-  const ports = parts.flatMap((x) => x.ports)
-  const xs = ports.map((q) => q.position.x)
-  const ys = ports.map((q) => q.position.y)
-  const margin = 2000
-  const x0 = Math.min(...xs) - margin
-  const y0 = Math.min(...ys) - margin
-  const width = Math.max(...xs) + margin - x0
-  const height = Math.max(...ys) + margin - y0
-  const mark = (id: string, x: number, y: number) =>
-    ({ id, kind: 'cross' as const, position: { x, y }, size: 400, lineWidth: 40, layerIds: ['nozzle', 'deep'] })
+  const grid = gridBanks(Array.from({ length: banks }, (_, b) =>
+    bankElements({ ...p, bank: b, x0: 0, y0: 0, count: Math.min(perBank, n - b * perBank), manifoldWidth: manifold.width })), 0)
+  const parts = grid.banks
+  const frame = frameChip(parts, 0, `DW step array ${n}`, ['nozzle', 'deep'])
+  const { name, warnings } = waferNote(opts.name ?? `Parallel step emulsifier, ${n} nozzles`, frame)
 
   const document = requireChipDocument({
     version: 1,
-    name: opts.name ?? `Parallel step emulsifier, ${n} nozzles`,
+    name,
     units: 'um',
     layers: [
       { id: 'nozzle', name: 'Nozzles (shallow)', depth: p.nozzleDepth },
       { id: 'deep', name: 'Manifolds and reservoirs (deep)', depth: p.deepDepth },
     ],
-    ports,
+    ports: parts.flatMap((x) => x.ports),
     components: parts.flatMap((x) => x.components),
     channels: parts.flatMap((x) => x.channels),
-    outline: { kind: 'rectangle', corner: { x: x0, y: y0 }, width, height },
-    marks: [
-      mark('align-a', x0 + 700, y0 + 700), mark('align-b', x0 + width - 700, y0 + height - 700),
-      { id: 'label', kind: 'text', position: { x: x0 + 1500, y: y0 + 500 }, text: `DW step array ${n}`, height: 300, layerIds: [] },
-    ],
+    outline: frame.outline,
+    marks: frame.marks,
     operatingPoints: [{
       id: 'op-1', name: 'Design point', temperatureC: 20,
       continuousLiquid: { name: 'hydrofluoroether oil', viscosityMPaS: 1.2, densityKgPerM3: 1600 },
@@ -84,7 +77,10 @@ export function planParallelChip(opts: ParallelChipOptions): ParallelChipPlan {
     }],
     activeOperatingPoint: 'op-1',
   })
-  return { document, banks, manifold: { ...manifold, target } }
+  return {
+    document, banks, manifold: { ...manifold, target },
+    chip: { width: frame.width, height: frame.height, columns: grid.columns, rows: grid.rows, wafer: frame.wafer }, warnings,
+  }
 }
 
 /** A valid chip document with `nozzles` parallel step nozzles on sized ladder manifolds. */

@@ -64,5 +64,5 @@ describe('clustered union', () => {
     const deep = o.layers.find((l) => l.layerId === 'deep')!
     expect(deep.polygons).toHaveLength(4) // the ladder (manifold, nozzles' reservoirs, feeds) and three punches
     expect(o.layers.find((l) => l.layerId === 'nozzle')!.polygons).toHaveLength(4096 + 2) // + 2 alignment crosses
-  })
+  }, 30_000)
 })
