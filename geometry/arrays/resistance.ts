@@ -1,7 +1,9 @@
 /**
  * Hydraulic resistance of a rectangular channel per unit viscosity, R/μ = 12 L / (w h³ (1 − 0.63 h/w)) with
- * h the smaller and w the larger side (Bruus 2008, Theoretical Microfluidics, OUP, §4.4 — from memory; about
- * 13 % error at a square section, better for flat ones). Lengths in µm, result in µm⁻³. Only ratios of these
+ * h the smaller and w the larger side (Bruus 2008, Theoretical Microfluidics, OUP — the book is
+ * the source; the section number §4.4 is from memory and NOT verified, the error, checked here against the exact
+ * Fourier-series solution for a rectangular duct, is +14 % at a square section and falls for flatter ones
+ * (tests/unit/geometry/arrays.test.ts)). Lengths in µm, result in µm⁻³. Only ratios of these
  * values are used here, so the units cancel; the forecast's exact series lives in shared/physics.
  */
 export function rectResistancePerViscosity(width: number, depth: number, length: number): number {

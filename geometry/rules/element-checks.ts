@@ -3,7 +3,9 @@ import { componentTerminals, portTerminals } from '#shared/schemas/chip'
 import type { FabricationProcess, Finding } from './types'
 import { findingId } from './types'
 
-const STEP_ASPECT = 3 // Kobayashi et al. 2004, Langmuir 20, 9868: critical nozzle width/depth ≈ 3–3.5 (from memory)
+// Kobayashi et al. 2004, Langmuir 20, 9868: critical nozzle width/depth ≈ 3–3.5 — from memory, NOT verified: a search of
+// published sources found neither the paper's text nor this value; treat 3 as a screening value until checked.
+const STEP_ASPECT = 3
 const STEP_DEPTH_RATIO = 4 // reservoir ≥ ~4 nozzle depths so the drop (≈ 4 nozzle depths across) is unconfined — common practice, no source
 
 /** Widths a component draws, with the layer each sits on (for the roof-sag check). */

@@ -15,7 +15,7 @@ const FACING = Math.SQRT1_2 // the closest-point vector must lie within 45° of 
  * points decides: pointing into the interior from both edges → a feature width; out of both → a gap (a notch);
  * otherwise the two edges meet around a corner and measure nothing. Design-rule checking of layouts by
  * edge-pair distance is the classic approach (e.g. Baird 1978, Proc. 15th Design Automation Conf., 37–43 —
- * from memory); the 45° facing window is our own choice.
+ * from memory, NOT verified: a search of published sources did not find it); the 45° facing window is our own choice.
  */
 export function classifyPair(e: EdgeSet, i: number, j: number, limit: number): SpacingHit | null {
   if (adjacent(e, i, j)) return null

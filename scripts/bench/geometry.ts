@@ -1,8 +1,10 @@
 // Geometry benchmark (part of `npm run bench`): outline + merge, design rules and DXF for the generated
-// 512- and 4,096-nozzle chips; the spatial-index rule check against the naive all-pairs check; growth per 8×.
-import { generateParallelChip } from '~~/geometry/arrays'
+// 512- and 4,096-nozzle chips; the clustered merge against one polygon-clipping sweep per layer; the
+// spatial-index rule check against the naive all-pairs check; growth per 8×; chip sizes and wafers.
+import { multiPolygonArea } from '~~/geometry/area'
+import { planParallelChip, planTJunctionChip } from '~~/geometry/arrays'
 import { exportDxf } from '~~/geometry/dxf'
-import { buildOutlines } from '~~/geometry/outlines'
+import { buildOutlines, mergePiecesSingleSweep } from '~~/geometry/outlines'
 import { BUILT_IN_PROCESSES, checkDesignRules } from '~~/geometry/rules'
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!
@@ -18,23 +20,48 @@ function time<T>(fn: () => T, runs: number): { ms: number; value: T } {
   return { ms: median(ms), value }
 }
 
+const mm = (um: number) => (um / 1000).toFixed(1)
+
 export async function run(): Promise<void> {
   const process = BUILT_IN_PROCESSES[0]!
   const rows: { n: number; outline: number; rules: number; dxf: number }[] = []
   console.log('geometry: parallel step-nozzle chips (median of runs, ms)')
+  // Warm-up pass so the 512 figures are not the JIT's first compile (that would flatter the growth ratio).
+  for (let i = 0; i < 3; i++) {
+    const w = planParallelChip({ nozzles: 512 }).document
+    const wo = buildOutlines(w)
+    checkDesignRules(w, process, { outlines: wo })
+    exportDxf(w, { outlines: wo, date: '2026-01-01' })
+  }
   for (const n of [512, 4096]) {
-    const runs = n <= 512 ? 5 : 2
-    const doc = generateParallelChip({ nozzles: n })
+    const runs = n <= 512 ? 9 : 5
+    const plan = planParallelChip({ nozzles: n })
+    const doc = plan.document
     const outline = time(() => buildOutlines(doc), runs)
     const rules = time(() => checkDesignRules(doc, process, { outlines: outline.value }), runs)
     const dxf = time(() => exportDxf(doc, { outlines: outline.value, date: '2026-01-01' }), runs)
     rows.push({ n, outline: outline.ms, rules: rules.ms, dxf: dxf.ms })
     const total = outline.ms + rules.ms + dxf.ms
+    const errors = rules.value.filter((f) => f.severity === 'error').length
     console.log(`  ${n} nozzles: outline+merge ${outline.ms.toFixed(1)}, rules ${rules.ms.toFixed(1)}, DXF ${dxf.ms.toFixed(1)}` +
       ` → total ${total.toFixed(1)} ms${n === 512 ? ` (target < 1000: ${total < 1000 ? 'met' : 'MISSED'})` : ''}` +
-      `; ${rules.value.length} findings, ${(dxf.value.length / 1e6).toFixed(2)} MB DXF`)
+      `; ${rules.value.length} findings (${errors} errors), ${(dxf.value.length / 1e6).toFixed(2)} MB DXF`)
+    console.log(`    chip ${mm(plan.chip.width)} × ${mm(plan.chip.height)} mm, ${plan.chip.columns} × ${plan.chip.rows} banks,` +
+      ` diagonal ${plan.chip.wafer.diagonalMm.toFixed(1)} mm → ${plan.chip.wafer.diameterMm ?? '> 300'} mm wafer`)
+    // The plain way for comparison: one sweep per layer over every piece (one run; it is the slow one).
+    let sweepMs = 0
+    let same = true
+    for (const l of outline.value.layers) {
+      const pieces = outline.value.elements.filter((e) => e.layerId === l.layerId).flatMap((e) => e.pieces)
+      const t = performance.now()
+      const single = mergePiecesSingleSweep(pieces)
+      sweepMs += performance.now() - t
+      const a = multiPolygonArea(l.polygons)
+      same &&= Math.abs(a - multiPolygonArea(single)) <= 1e-9 * a && single.length === l.polygons.length
+    }
+    console.log(`    merge alone: one sweep per layer ${sweepMs.toFixed(1)} ms (same area and parts as clustered: ${same})`)
   }
-  const doc = generateParallelChip({ nozzles: 512 })
+  const doc = planParallelChip({ nozzles: 512 }).document
   const o = buildOutlines(doc)
   const indexed = time(() => checkDesignRules(doc, process, { outlines: o }), 3)
   const naive = time(() => checkDesignRules(doc, process, { outlines: o, naive: true }), 1)
@@ -44,8 +71,14 @@ export async function run(): Promise<void> {
   if (a && b) {
     const nlogn = (8 * Math.log(b.n)) / Math.log(a.n)
     const g = (x: number, y: number) => (y / x).toFixed(1)
-    console.log(`  growth per 8× nozzles: outline ${g(a.outline, b.outline)}×, rules ${g(a.rules, b.rules)}×, DXF ${g(a.dxf, b.dxf)}× (n log n would be ${nlogn.toFixed(1)}×)`)
+    console.log(`  growth per 8× nozzles (512 → 4,096): outline+merge ${g(a.outline, b.outline)}×, rules ${g(a.rules, b.rules)}×, DXF ${g(a.dxf, b.dxf)}×,` +
+      ` total ${g(a.outline + a.rules + a.dxf, b.outline + b.rules + b.dxf)}× (n log n would be ${nlogn.toFixed(1)}×)`)
   }
+  const tj = planTJunctionChip({ junctions: 64 })
+  const tjRules = time(() => checkDesignRules(tj.document, process), 3)
+  console.log(`  64 T-junctions: outline+rules ${tjRules.ms.toFixed(1)} ms, ${tjRules.value.filter((f) => f.severity !== 'info').length} errors/warnings;` +
+    ` chip ${mm(tj.chip.width)} × ${mm(tj.chip.height)} mm (${tj.chip.wafer.diameterMm ?? '> 300'} mm wafer);` +
+    ` manifolds ${tj.continuous.width}/${tj.dispersed.width} µm, non-uniformity ${(100 * tj.continuous.nonUniformity).toFixed(2)}/${(100 * tj.dispersed.nonUniformity).toFixed(2)} %`)
 }
 
 if (import.meta.url === `file://${globalThis.process.argv[1]}`) await run()
