@@ -1,0 +1,17 @@
+import { defineStore } from 'pinia'
+import type { RevisionDetail } from '~~/shared/types/designs'
+
+/** Two revisions side by side: `older` is drawn as the base, `newer` on top. */
+export const useCompareStore = defineStore('compare', () => {
+  const newer = ref<RevisionDetail | null>(null)
+  const older = ref<RevisionDetail | null>(null)
+  const { busy, problem, run } = useApiCall()
+  async function load(labId: string, a: string, b: string) {
+    const headers = useRequestHeaders(['cookie'])
+    await run(async () => {
+      const [x, y] = await Promise.all([a, b].map(id => $fetch<RevisionDetail>(`/api/labs/${labId}/revisions/${id}`, { headers })))
+      ;[older.value, newer.value] = x!.number <= y!.number ? [x!, y!] : [y!, x!]
+    })
+  }
+  return { newer, older, busy, problem, load }
+})

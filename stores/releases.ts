@@ -1,0 +1,12 @@
+import { defineStore } from 'pinia'
+
+export interface ReleasedRow { revisionId: string, number: number, designName: string, releasedAt: string, fabStatus: string, fabStatusAt: string }
+
+export const useReleasesStore = defineStore('releases', () => {
+  const rows = ref<ReleasedRow[]>([])
+  const { busy, problem, run } = useApiCall()
+  async function load(labId: string) {
+    await run(async () => { rows.value = await $fetch<ReleasedRow[]>(`/api/labs/${labId}/releases`, { headers: useRequestHeaders(['cookie']) }) })
+  }
+  return { rows, busy, problem, load }
+})
