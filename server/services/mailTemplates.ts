@@ -14,7 +14,7 @@ const SIGNATURE = '— Dropwright, chip design for droplet labs'
 interface Message { subject: string, lines: string[], action: { label: string, link: string }, footnote?: string }
 
 function render({ subject, lines, action, footnote }: Message): MailContent {
-  const text = [...lines, '', `${action.label}: ${action.link}`, ...(footnote ? ['', footnote] : []), '', SIGNATURE, ''].join('\n')
+  const text = [...lines.filter(Boolean), `${action.label}: ${action.link}`, ...(footnote ? [footnote] : []), SIGNATURE].join('\n\n') + '\n'
   const href = safeHref(action.link)
   const paragraphs = lines.filter(Boolean).map(l => `<p style="margin:0 0 12px">${escapeHtml(l)}</p>`)
   const button = href
@@ -54,7 +54,7 @@ export function newCommentMail(p: { designName: string, revisionNumber: number, 
   const excerpt = p.excerpt.length > 280 ? `${p.excerpt.slice(0, 279)}…` : p.excerpt
   return render({
     subject: `New comment on ${revisionLabel(p.designName, p.revisionNumber)}`,
-    lines: [`${p.commenterName} commented on ${revisionLabel(p.designName, p.revisionNumber)}:`, '', excerpt],
+    lines: [`${p.commenterName} commented on ${revisionLabel(p.designName, p.revisionNumber)}:`, excerpt],
     action: { label: 'Open the comment', link: p.link },
   })
 }
@@ -63,7 +63,7 @@ export function verdictMail(p: { designName: string, revisionNumber: number, rev
   const what = p.verdict === 'approve' ? 'approved' : 'asked for changes to'
   return render({
     subject: `${p.verdict === 'approve' ? 'Approved' : 'Changes requested'}: ${revisionLabel(p.designName, p.revisionNumber)}`,
-    lines: [`${p.reviewerName} ${what} ${revisionLabel(p.designName, p.revisionNumber)}.`, ...(p.note ? ['', p.note] : [])],
+    lines: [`${p.reviewerName} ${what} ${revisionLabel(p.designName, p.revisionNumber)}.`, ...(p.note ? [p.note] : [])],
     action: { label: 'Open the revision', link: p.link },
   })
 }
