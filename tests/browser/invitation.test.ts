@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launch, newPage, shot, signInAs } from '../support/browser'
+import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
 import { makeLab, TEST_PASSWORD } from '../support/factory'
 import { invitationLink, waitForMail } from '../support/mail'
 
@@ -18,6 +18,7 @@ describe('invitations in Chromium', () => {
     await signInAs(page, admin!.email, TEST_PASSWORD)
     await page.waitForURL(/\/labs\//)
     await page.goto(`/labs/${lab.id}/members`)
+    await hydrated(page)
     await page.fill('#invite-email', 'not an address')
     await page.click('[data-test="invite-submit"]')
     await expect.poll(() => page.textContent('[data-test="invite-form"]')).toContain('Enter an e-mail address')
@@ -33,6 +34,7 @@ describe('invitations in Chromium', () => {
 
     const guest = await newPage(browser) // a fresh context: nobody signed in
     await guest.goto(path)
+    await hydrated(guest)
     await expect.poll(() => guest.textContent('[data-test="invitation-lab"]')).toBe(lab.name)
     expect(await guest.textContent('[data-test="invitation-role"]')).toBe('Reviewer')
     expect(await guest.inputValue('#account-email')).toBe(email)
@@ -71,18 +73,23 @@ describe('invitations in Chromium', () => {
     await signInAs(page, admin!.email, TEST_PASSWORD)
     await page.waitForURL(/\/labs\//)
     await page.goto(`/labs/${lab.id}/members`)
+    await hydrated(page)
     await page.fill('#invite-email', existing!.email)
     await page.click('[data-test="invite-submit"]')
+    await expect.poll(() => page.textContent('[data-test="invite-sent"]').catch(() => null)).toContain(existing!.email)
     const { path } = invitationLink(await waitForMail(existing!.email))
 
     const guest = await newPage(browser)
     await guest.goto(path)
+    await hydrated(guest)
     await guest.click('[data-test="accept-sign-in"]')
     await guest.waitForURL(/\/sign-in\?redirect=/)
+    await hydrated(guest)
     await guest.fill('#email', existing!.email)
     await guest.fill('#password', TEST_PASSWORD)
     await guest.click('button[type=submit]')
     await guest.waitForURL(new RegExp(`${path}$`))
+    await guest.waitForSelector('[data-test="accept-join"]')
     await guest.click('[data-test="accept-join"]')
     await guest.waitForURL(new RegExp(`/labs/${lab.id}$`))
     await expect.poll(() => guest.textContent('[data-test="lab-role"]')).toBe('Designer')
@@ -92,7 +99,7 @@ describe('invitations in Chromium', () => {
     const page = await newPage(browser)
     await signInAs(page, 'designer@quillmere.example')
     await page.waitForURL(/\/labs\//)
+    await page.waitForSelector('[data-test="nav-members"]')
     expect(await page.$('[data-test="nav-outbox"]')).toBeNull()
-    expect(await page.$('[data-test="nav-members"]')).not.toBeNull()
   })
 })

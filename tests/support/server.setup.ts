@@ -1,7 +1,7 @@
 // Starts the built server (.output, from `nuxt build`) on a free port against the test database, once per
 // test project, and hands its address to the tests as `inject('baseURL')`.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { existsSync, readFileSync } from 'node:fs'
+import { createWriteStream, existsSync, mkdirSync, readFileSync } from 'node:fs'
 import { createServer } from 'node:net'
 import type { TestProject } from 'vitest/node'
 import pg from 'pg'
@@ -66,8 +66,11 @@ export default async function setup(project: TestProject) {
     env: { ...process.env, ...mailEnv(), HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: databaseUrl },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
-  child.stdout!.on('data', (d) => { output += d })
-  child.stderr!.on('data', (d) => { output += d })
+  // Also kept in .data/test-server-<project>.log, for a server that dies in the middle of a run.
+  mkdirSync('.data', { recursive: true })
+  const logFile = createWriteStream(`.data/test-server-${project.name}.log`)
+  child.stdout!.on('data', (d) => { output += d; logFile.write(d) })
+  child.stderr!.on('data', (d) => { output += d; logFile.write(d) })
   const baseURL = `http://127.0.0.1:${port}`
   await waitFor(`${baseURL}/api/health`, child, () => output)
   project.provide('baseURL', baseURL)
