@@ -8,7 +8,7 @@ import { useDb } from '../utils/db'
 import { hashPassword } from '../utils/password'
 import { parseOr400 } from '../utils/validate'
 import type { LabCaller } from '../utils/access'
-import { INVITATION_DAYS, newAccount, type InvitationAccept, type InvitationCreate } from '../../shared/schemas/invitations'
+import { INVITATION_DAYS, newAccount, type InvitationAccept, type InvitationCreate, type NewAccount } from '../../shared/schemas/invitations'
 import type { InvitationInfo, PendingInvitation } from '../../shared/types/invitations'
 import type { SessionData } from '../../shared/types/session'
 import type { Role } from '../../shared/utils/roles'
@@ -117,7 +117,7 @@ export async function acceptInvitation(session: SessionData | null, token: strin
   const { invitation, labName } = await byToken(token)
   assertOpen(invitation, labName)
   let passwordHash: string | null = null
-  let account: { name: string } | null = null
+  let account: NewAccount | null = null
   if (session) {
     if (session.user.email.toLowerCase() !== invitation.email.toLowerCase()) {
       throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: `This invitation is for ${invitation.email}, and you are signed in as ${session.user.email}. Sign out, then open the link again.` })
