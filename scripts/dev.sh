@@ -7,6 +7,10 @@ if [ -z "${DATABASE_URL:-}" ]; then
   bash scripts/db.sh start
   set -a; . .data/postgres.env; set +a
 fi
+if [ -z "${SMTP_URL:-}" ]; then
+  bash scripts/smtp.sh start
+  set -a; . .data/smtp.env; set +a
+fi
 npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
 npx tsx scripts/print-demo.ts "http://127.0.0.1:${PORT:-3000}"

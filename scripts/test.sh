@@ -8,6 +8,9 @@ if [ -z "${DATABASE_URL:-}" ]; then
   bash scripts/db.sh start
   set -a; . .data/postgres.env; set +a
 fi
+# The tests read the mail that arrived, so they always send to the local fake SMTP, whatever SMTP_URL says.
+SMTP_URL= bash scripts/smtp.sh start
+set -a; . .data/smtp.env; set +a
 export DATABASE_URL=${TEST_DATABASE_URL:-$DATABASE_URL}
 bash scripts/ensure-system.sh
 npx tsx scripts/migrate.ts --test

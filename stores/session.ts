@@ -32,8 +32,8 @@ export const useSessionStore = defineStore('session', () => {
     await auth.signIn({ email, password }, { callbackUrl: redirect })
   }
 
-  async function signOut() {
-    await auth.signOut({ callbackUrl: '/sign-in' })
+  async function signOut(callbackUrl = '/sign-in') {
+    await auth.signOut({ callbackUrl })
   }
 
   return { user, memberships, activeLab, can, homeLab, rememberLab, signIn, signOut }

@@ -25,3 +25,11 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
 }
 
 export const shot = (page: Page, name: string) => page.screenshot({ path: `test-results/${name}.png`, fullPage: true })
+
+/** Resolves once Nuxt has hydrated the page, so a click reaches Vue and not the browser's own form submission. */
+export async function hydrated(page: Page) {
+  await page.waitForFunction(() => {
+    const app = (document.querySelector('#__nuxt') as (Element & { __vue_app__?: { config: { globalProperties: { $nuxt?: { isHydrating?: boolean } } } } }) | null)?.__vue_app__
+    return app?.config.globalProperties.$nuxt?.isHydrating === false
+  })
+}

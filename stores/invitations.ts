@@ -1,0 +1,50 @@
+import { defineStore } from 'pinia'
+import type { InvitationCreate } from '~~/shared/schemas/invitations'
+import type { PendingInvitation } from '~~/shared/types/invitations'
+
+/** A lab's open invitations, for its admins. */
+export const useInvitationsStore = defineStore('invitations', () => {
+  const pending = ref<PendingInvitation[]>([])
+  const labId = ref<string | null>(null)
+  const problem = ref<ApiProblem | null>(null)
+  const busy = ref(false)
+  const lastSentTo = ref<string | null>(null)
+
+  async function run<T>(work: () => Promise<T>): Promise<T | undefined> {
+    busy.value = true
+    problem.value = null
+    try {
+      return await work()
+    } catch (error) {
+      problem.value = toApiProblem(error)
+    } finally {
+      busy.value = false
+    }
+  }
+
+  async function load(lab: string) {
+    labId.value = lab
+    lastSentTo.value = null
+    await run(async () => {
+      pending.value = await $fetch<PendingInvitation[]>(`/api/labs/${lab}/invitations`, { headers: useRequestHeaders(['cookie']) })
+    })
+  }
+
+  async function invite(body: InvitationCreate): Promise<boolean> {
+    const created = await run(() => $fetch<PendingInvitation>(`/api/labs/${labId.value}/invitations`, { method: 'POST', body }))
+    if (!created) return false
+    pending.value = [created, ...pending.value.filter(i => i.email !== created.email)]
+    lastSentTo.value = created.email
+    return true
+  }
+
+  async function revoke(id: string) {
+    const done = await run(async () => {
+      await $fetch(`/api/labs/${labId.value}/invitations/${id}`, { method: 'DELETE' })
+      return true
+    })
+    if (done) pending.value = pending.value.filter(i => i.id !== id)
+  }
+
+  return { pending, problem, busy, lastSentTo, load, invite, revoke }
+})

@@ -1,0 +1,35 @@
+import { defineStore } from 'pinia'
+import type { LabOutbox } from '~~/shared/types/outbox'
+
+/** The development outbox: whether this server has one, and a lab's kept and waiting messages. */
+export const useOutboxStore = defineStore('outbox', () => {
+  const available = ref<boolean | null>(null)
+  const box = ref<LabOutbox>({ messages: [], waiting: [] })
+  const problem = ref<ApiProblem | null>(null)
+  const busy = ref(false)
+
+  async function checkAvailable() {
+    if (available.value !== null) return
+    try {
+      await $fetch('/api/dev/outbox', { headers: useRequestHeaders(['cookie']) })
+      available.value = true
+    } catch (error) {
+      // 404: no outbox on this server. Anything else (signed out, offline): ask again later.
+      if (toApiProblem(error).status === 404) available.value = false
+    }
+  }
+
+  async function load(labId: string) {
+    busy.value = true
+    problem.value = null
+    try {
+      box.value = await $fetch<LabOutbox>(`/api/labs/${labId}/outbox`, { headers: useRequestHeaders(['cookie']) })
+    } catch (error) {
+      problem.value = toApiProblem(error)
+    } finally {
+      busy.value = false
+    }
+  }
+
+  return { available, box, problem, busy, checkAvailable, load }
+})
