@@ -6,21 +6,22 @@ export const useRevisionStore = defineStore('revision', () => {
   const revision = ref<RevisionDetail | null>(null)
   const review = ref<ReviewState | null>(null)
   const { busy, problem, run } = useApiCall()
-  let base = ''
+  // Derived from state (not a local variable) so actions work after hydration, when load() ran on the server.
+  const base = computed(() => (revision.value ? `/api/labs/${revision.value.labId}/revisions/${revision.value.id}` : ''))
 
   async function load(labId: string, revisionId: string) {
-    base = `/api/labs/${labId}/revisions/${revisionId}`
+    const url = `/api/labs/${labId}/revisions/${revisionId}`
     const headers = useRequestHeaders(['cookie'])
     await run(async () => {
-      const [r, s] = await Promise.all([$fetch<RevisionDetail>(base, { headers }), $fetch<ReviewState>(`${base}/review`, { headers })])
+      const [r, s] = await Promise.all([$fetch<RevisionDetail>(url, { headers }), $fetch<ReviewState>(`${url}/review`, { headers })])
       revision.value = r
       review.value = s
     })
   }
 
   async function act(path: string, method: 'POST' | 'PATCH', body: Record<string, unknown>) {
-    const done = await run(() => $fetch(`${base}${path}`, { method, body }))
-    if (done !== undefined) review.value = await $fetch<ReviewState>(`${base}/review`)
+    const done = await run(() => $fetch(`${base.value}${path}`, { method, body }))
+    if (done !== undefined) review.value = await $fetch<ReviewState>(`${base.value}/review`)
     return done !== undefined
   }
 

@@ -5,8 +5,9 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launch, newPage, shot, signInAs } from '../support/browser'
+import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
 import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
+import { invitationLink, waitForMail } from '../support/mail'
 
 let browser: Browser
 let lab: Awaited<ReturnType<typeof makeLab>>
@@ -17,10 +18,15 @@ beforeAll(async () => {
 })
 afterAll(async () => { await browser?.close() })
 
+// The reviewer of this story joins by an e-mail invitation (first test); everyone else was made by the factory.
+const invited = { email: `story-reviewer-${Date.now()}@invited.example`, name: 'Priya Story-Reviewer', password: 'review-pass-2026' }
+
 async function as(role: string): Promise<Page> {
   const page = await newPage(browser)
-  await signInAs(page, who(role).email, TEST_PASSWORD)
+  if (role === 'reviewer') await signInAs(page, invited.email, invited.password)
+  else await signInAs(page, who(role).email, TEST_PASSWORD)
   await page.waitForURL(/\/labs\//)
+  await hydrated(page)
   return page
 }
 
@@ -39,17 +45,36 @@ async function uploadRevision(page: Page, mainWidth: number, message: string) {
   await expect.poll(() => page.locator('[data-test="revisions-table"]').textContent()).toContain(message)
 }
 
-async function pinComment(page: Page, fx: number, fy: number, text: string) {
+async function pinComment(page: Page, fx: number, fy: number, text: string, shown: string) {
   await page.click('[data-test="pin-mode"]')
   const box = (await page.locator('canvas').first().boundingBox())!
   await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy)
   await page.fill('[data-test="pin-form"] textarea', text)
   await page.click('[data-test="pin-form"] button:has-text("Pin comment")')
-  await expect.poll(() => page.locator('[data-test^="thread-"]').allTextContents()).toEqual(expect.arrayContaining([expect.stringContaining(text)]))
+  await expect.poll(() => page.locator('[data-test^="thread-"]').allTextContents()).toEqual(expect.arrayContaining([expect.stringContaining(shown)]))
 }
 
 describe('review story in Chromium', () => {
   let designUrl = ''
+
+  it('the admin invites the reviewer by e-mail, who joins through the link', async () => {
+    const admin = await as('admin')
+    await admin.goto(`/labs/${lab.lab.id}/members`)
+    await hydrated(admin)
+    await admin.fill('#invite-email', invited.email)
+    await admin.selectOption('#invite-role', 'reviewer')
+    await admin.click('[data-test="invite-submit"]')
+    await expect.poll(() => admin.textContent('[data-test="invite-sent"]').catch(() => null)).toContain(invited.email)
+    const { path } = invitationLink(await waitForMail(invited.email))
+    const guest = await newPage(browser)
+    await guest.goto(path)
+    await hydrated(guest)
+    await guest.fill('#account-name', invited.name)
+    await guest.fill('#account-password', invited.password)
+    await guest.click('[data-test="accept-submit"]')
+    await guest.waitForURL(new RegExp(`/labs/${lab.lab.id}$`))
+    await expect.poll(() => guest.textContent('[data-test="lab-role"]')).toBe('Reviewer')
+  })
 
   it('a designer creates a design and saves three revisions', async () => {
     const page = await as('designer')
@@ -64,7 +89,7 @@ describe('review story in Chromium', () => {
     expect(await page.locator('[data-test^="revision-r"]').count()).toBe(3)
     await page.click('[data-test="revision-r3"]')
     await page.waitForSelector('[data-test="request-review"]')
-    await page.check(`[data-test="request-review"] label:has-text("${who('reviewer').name}") input`)
+    await page.check(`[data-test="request-review"] label:has-text("${invited.name}") input`)
     await page.click('[data-test="request-review"] button')
     await expect.poll(() => page.textContent('[data-test="review-panel"]')).toContain('In review')
     await shot(page, 'story-1-designer-r3')
@@ -73,10 +98,12 @@ describe('review story in Chromium', () => {
   it('the reviewer pins two comments on the geometry and requests changes', async () => {
     const page = await as('reviewer')
     await page.goto(designUrl)
+    await hydrated(page)
     await page.click('[data-test="revision-r3"]')
-    await page.waitForSelector('canvas', { timeout: 8000 }).catch(async (e) => { await shot(page, 'debug-story'); console.log(page.url(), await page.innerText('main')); throw e })
-    await pinComment(page, 0.5, 0.45, 'This junction, **narrower**')
-    await pinComment(page, 0.2, 0.45, 'Move this punch <script>window.hacked=1</script> inward')
+    await page.waitForSelector('canvas')
+    await hydrated(page)
+    await pinComment(page, 0.5, 0.45, 'This junction, **narrower**', 'This junction, narrower')
+    await pinComment(page, 0.2, 0.45, 'Move this punch <script>window.hacked=1</script> inward', 'Move this punch')
     expect(await page.evaluate(() => (window as unknown as { hacked?: number }).hacked)).toBeUndefined()
     expect(await page.locator('[data-test="comment-body"] strong').first().textContent()).toBe('narrower')
     await page.click('[data-test="request-changes"]')
@@ -87,6 +114,7 @@ describe('review story in Chromium', () => {
   it('the designer resolves both, saves a fix and asks again; the reviewer approves', async () => {
     const page = await as('designer')
     await page.goto(designUrl)
+    await hydrated(page)
     await page.click('[data-test="revision-r3"]')
     await page.waitForSelector('[data-test="thread-2"]')
     for (const i of [1, 2]) {
@@ -94,14 +122,16 @@ describe('review story in Chromium', () => {
       await page.waitForSelector(`[data-test="thread-${i}"] [data-test="reopen"]`)
     }
     await page.goto(designUrl)
+    await hydrated(page)
     await uploadRevision(page, 70, 'Narrower junction, punch moved, per review')
     await page.click('[data-test="revision-r4"]')
-    await page.check(`[data-test="request-review"] label:has-text("${who('reviewer').name}") input`)
+    await page.check(`[data-test="request-review"] label:has-text("${invited.name}") input`)
     await page.click('[data-test="request-review"] button')
     await expect.poll(() => page.textContent('[data-test="review-panel"]')).toContain('In review')
 
     const reviewer = await as('reviewer')
     await reviewer.goto(page.url())
+    await hydrated(reviewer)
     await reviewer.click('[data-test="approve"]')
     await expect.poll(() => reviewer.textContent('[data-test="review-panel"]')).toContain('Approved')
   })
@@ -109,6 +139,7 @@ describe('review story in Chromium', () => {
   it('the admin releases; the fabricator downloads the mask and sees nothing else', async () => {
     const admin = await as('admin')
     await admin.goto(designUrl)
+    await hydrated(admin)
     await admin.click('[data-test="revision-r4"]')
     await admin.click('[data-test="release"]')
     await admin.waitForSelector('[data-test="release-info"]')
@@ -122,16 +153,18 @@ describe('review story in Chromium', () => {
     expect(download.suggestedFilename()).toBe('story-chip_r4_all-layers.dxf')
     await shot(fab, 'story-3-fabricator-release')
     await fab.goto(designUrl)
+    await hydrated(fab)
     await expect.poll(() => fab.textContent('[data-test="error-page"]')).toContain('Not allowed')
   })
 
   it('a lab member duplicates the approved design and the copy shows its origin', async () => {
     const page = await as('experimenter')
     await page.goto(designUrl)
+    await hydrated(page)
     await page.fill('[data-test="duplicate-form"] input', 'Story chip, bench copy')
     await page.click('[data-test="duplicate-form"] button')
     await page.waitForSelector('[data-test="design-origin"]')
-    expect(await page.textContent('[data-test="design-origin"]')).toMatch(/Story chip.*r4/)
+    expect(await page.textContent('[data-test="design-origin"]')).toMatch(/Story chip[\s\S]*r4/)
     await shot(page, 'story-4-duplicate-origin')
   })
 })
