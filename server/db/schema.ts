@@ -67,6 +67,8 @@ export const designs = pgTable('designs', {
   archivedAt: timestamp('archived_at', { withTimezone: true }),
   latestRevisionId: uuid('latest_revision_id').references((): AnyPgColumn => revisions.id),
   revisionCount: integer('revision_count').notNull().default(0),
+  /** Junction kinds of the latest revision, kept here so the design list never reads revision summaries. */
+  junctionKinds: text('junction_kinds').array().notNull().default(sql`'{}'::text[]`),
   origin: jsonb('origin').$type<DesignOrigin>(),
 }, t => [index('designs_lab_idx').on(t.labId, t.updatedAt)])
 

@@ -48,7 +48,8 @@ export async function seedDemoDesigns(db: Db, labId: string, people: People) {
           await log(people.admin, 'revision.released')
         }
       }
-      await tx.update(designs).set({ latestRevisionId: parentId, revisionCount: demo.revisions.length }).where(eq(designs.id, design!.id))
+      const kinds = [...new Set(requireChipDocument(demo.revisions.at(-1)!.document).components.map(c => c.kind).filter(k => k !== 'serpentine'))].sort()
+      await tx.update(designs).set({ latestRevisionId: parentId, revisionCount: demo.revisions.length, junctionKinds: kinds }).where(eq(designs.id, design!.id))
     })
   }
 }

@@ -15,8 +15,16 @@ export async function findDesign(db: Db, caller: LabCaller, designId: string) {
 }
 
 /** A revision the caller may open: the lab's designs for most roles; only released ones for a fabricator. */
-export async function findVisibleRevision(db: Db, caller: LabCaller, revisionId: string) {
-  const [revision] = await db.select().from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.labId, caller.lab.labId)))
+/** A revision's light columns: everything but the document and summary, which are large. */
+export const revisionHead = {
+  id: revisions.id, designId: revisions.designId, labId: revisions.labId, number: revisions.number, parentId: revisions.parentId,
+  authorId: revisions.authorId, message: revisions.message, status: revisions.status, statusChangedAt: revisions.statusChangedAt,
+  statusChangedBy: revisions.statusChangedBy, createdAt: revisions.createdAt,
+}
+export type RevisionHead = { [K in keyof typeof revisionHead]: (typeof revisions.$inferSelect)[K] }
+
+export async function findVisibleRevision(db: Db, caller: LabCaller, revisionId: string): Promise<RevisionHead> {
+  const [revision] = await db.select(revisionHead).from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.labId, caller.lab.labId)))
   if (!revision) throw notFound('revision')
   if (!can(caller.lab.role, 'designs:view') && revision.status !== 'released') throw notFound('revision')
   return revision

@@ -16,7 +16,7 @@ import { starterDocument } from './starterDocument'
 export async function listDesigns(caller: LabCaller, query: z.infer<typeof designListQuery>): Promise<DesignRow[]> {
   const order = { updated: designs.updatedAt, name: designs.name, created: designs.createdAt }[query.sort]
   const rows = await useDb().select({
-    design: designs, authorName: users.name, number: revisions.number, status: revisions.status, summary: revisions.summary,
+    design: designs, authorName: users.name, number: revisions.number, status: revisions.status,
   }).from(designs)
     .leftJoin(revisions, eq(revisions.id, designs.latestRevisionId))
     .leftJoin(users, eq(users.id, revisions.authorId))
@@ -25,13 +25,13 @@ export async function listDesigns(caller: LabCaller, query: z.infer<typeof desig
       query.archived === 'true' ? isNotNull(designs.archivedAt) : isNull(designs.archivedAt),
       query.q ? ilike(designs.name, `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%`) : undefined,
       query.status ? eq(revisions.status, query.status) : undefined,
-      query.kind ? sql`${revisions.summary}->'junctionKinds' ? ${query.kind}` : undefined,
+      query.kind ? sql`${query.kind} = any(${designs.junctionKinds})` : undefined,
     ))
     .orderBy(query.dir === 'asc' ? asc(order) : desc(order), asc(designs.id))
     .limit(500)
-  return rows.map(({ design, authorName, number, status, summary }) => ({
+  return rows.map(({ design, authorName, number, status }) => ({
     id: design.id, name: design.name, description: design.description, processId: design.processId,
-    junctionKinds: (summary as { junctionKinds?: string[] } | null)?.junctionKinds ?? [],
+    junctionKinds: design.junctionKinds,
     latestRevisionId: design.latestRevisionId, latestNumber: number, status,
     updatedAt: design.updatedAt.toISOString(), authorName: authorName ?? '', archived: design.archivedAt !== null,
     origin: design.origin ?? null,
@@ -45,6 +45,7 @@ export async function createDesign(caller: LabCaller, body: z.infer<typeof desig
   return useDb().transaction(async (tx) => {
     const [design] = await tx.insert(designs).values({
       labId: caller.lab.labId, name: body.name, description: body.description, processId, createdBy: caller.userId, revisionCount: 1,
+      junctionKinds: summary.junctionKinds,
     }).returning()
     const [revision] = await tx.insert(revisions).values({
       designId: design!.id, labId: caller.lab.labId, number: 1, authorId: caller.userId, message: body.message, document, summary,

@@ -1,7 +1,8 @@
 // Notification e-mails for the review flow, queued in the caller's transaction (pass `tx`) so a message exists
 // exactly when the change it reports was committed. `link` is an absolute address (see `appOrigin`).
 import { and, eq, inArray } from 'drizzle-orm'
-import { designs, memberships, users, type Revision } from '../db/schema'
+import { designs, memberships, users } from '../db/schema'
+import type { RevisionHead as Revision } from './designGuards'
 import type { Db } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { queueMail, type DbOrTx } from './mail'

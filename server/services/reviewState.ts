@@ -11,6 +11,8 @@ import { findVisibleRevision } from './designGuards'
 export async function getReviewState(caller: LabCaller, revisionId: string): Promise<ReviewState> {
   const db = useDb()
   const revision = await findVisibleRevision(db, caller, revisionId)
+  // A fabrication partner sees a released revision's status and release, not the lab's internal review.
+  const insider = can(caller.lab.role, 'designs:view')
   const changer = revision.statusChangedBy ? (await db.select({ name: users.name }).from(users).where(eq(users.id, revision.statusChangedBy)))[0]?.name ?? null : null
   const requests = await db.select({ reviewerId: reviewRequests.reviewerId, name: users.name }).from(reviewRequests)
     .innerJoin(users, eq(users.id, reviewRequests.reviewerId)).where(eq(reviewRequests.revisionId, revisionId))
@@ -25,9 +27,9 @@ export async function getReviewState(caller: LabCaller, revisionId: string): Pro
     .from(releases).innerJoin(releasedBy, eq(releasedBy.id, releases.releasedBy)).where(eq(releases.revisionId, revisionId))
   return {
     status: revision.status, statusChangedAt: revision.statusChangedAt.toISOString(), statusChangedBy: changer,
-    requests, verdicts: [...latest.values()],
-    threads: await listThreads(revisionId),
-    reviewers: members.filter(m => can(m.role, 'review:verdict')),
+    requests: insider ? requests : [], verdicts: insider ? [...latest.values()] : [],
+    threads: insider ? await listThreads(revisionId) : [],
+    reviewers: insider ? members.filter(m => can(m.role, 'review:verdict')) : [],
     release: release ? { ...release, releasedAt: release.releasedAt.toISOString(), fabStatusAt: release.fabStatusAt.toISOString() } : null,
   }
 }

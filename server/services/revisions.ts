@@ -62,7 +62,7 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
     const [revision] = await tx.insert(revisions).values({
       designId, labId: caller.lab.labId, number, parentId: parent.id, authorId: caller.userId, message: body.message, document, summary,
     }).returning({ id: revisions.id })
-    await tx.update(designs).set({ latestRevisionId: revision!.id, revisionCount: number, updatedAt: new Date() }).where(eq(designs.id, designId))
+    await tx.update(designs).set({ latestRevisionId: revision!.id, revisionCount: number, updatedAt: new Date(), junctionKinds: summary.junctionKinds }).where(eq(designs.id, designId))
     await logActivity(tx, { labId: caller.lab.labId, designId, revisionId: revision!.id, actorId: caller.userId, action: body.branch ? 'revision.branched' : 'revision.saved', detail: { number, parent: parent.number, message: body.message } })
     return { revisionId: revision!.id, number }
   })

@@ -1,7 +1,7 @@
 // Server-side sessions in PostgreSQL: sign-out and expiry end them for every server instance.
 import { createHash, randomBytes } from 'node:crypto'
-import { and, eq, gt, lt } from 'drizzle-orm'
-import { memberships, labs, sessions, users } from '../db/schema'
+import { eq, lt } from 'drizzle-orm'
+import { sessions } from '../db/schema'
 import { useDb } from '../utils/db'
 import type { SessionData } from '../../shared/types/session'
 
@@ -22,14 +22,16 @@ export async function endSession(token: string): Promise<void> {
   await useDb().delete(sessions).where(eq(sessions.tokenHash, digest(token)))
 }
 
+/** One round trip: the live session's person and all their labs. */
 export async function resolveSession(token: string): Promise<SessionData | null> {
-  const db = useDb()
-  const [row] = await db.select({ id: users.id, email: users.email, name: users.name })
-    .from(sessions).innerJoin(users, eq(users.id, sessions.userId))
-    .where(and(eq(sessions.tokenHash, digest(token)), gt(sessions.expiresAt, new Date())))
-  if (!row) return null
-  const labsOfUser = await db.select({ labId: labs.id, slug: labs.slug, name: labs.name, kind: labs.kind, role: memberships.role })
-    .from(memberships).innerJoin(labs, eq(labs.id, memberships.labId))
-    .where(eq(memberships.userId, row.id)).orderBy(memberships.createdAt, labs.name)
-  return { user: row, memberships: labsOfUser }
+  const { rows } = await useDb().$client.query<{ id: string, email: string, name: string, memberships: SessionData['memberships'] }>(
+    `select u.id, u.email, u.name,
+            coalesce(json_agg(json_build_object('labId', l.id, 'slug', l.slug, 'name', l.name, 'kind', l.kind, 'role', m.role)
+                              order by m.created_at, l.name) filter (where l.id is not null), '[]') as memberships
+       from sessions s join users u on u.id = s.user_id
+       left join memberships m on m.user_id = u.id left join labs l on l.id = m.lab_id
+      where s.token_hash = $1 and s.expires_at > now()
+      group by u.id`, [digest(token)])
+  const row = rows[0]
+  return row ? { user: { id: row.id, email: row.email, name: row.name }, memberships: row.memberships } : null
 }

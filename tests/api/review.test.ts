@@ -48,6 +48,8 @@ describe('review, release and the fabricator\'s view (real server, real PostgreS
     const released = await as.fabricator.get(`/api/labs/${lab.id}/releases`)
     expect(released.json.map((r: { revisionId: string }) => r.revisionId)).toEqual([revisionId])
     expect((await as.fabricator.get(base)).status).toBe(200)
+    const seen = (await as.fabricator.get(`${base}/review`)).json
+    expect(seen).toMatchObject({ status: 'released', threads: [], verdicts: [], reviewers: [] })
     const dxf = await as.fabricator.get(`${base}/dxf?mirror=true`)
     expect(dxf.status).toBe(200)
     expect(dxf.headers.get('content-disposition')).toMatch(/cell-drops-t-junction_r1_all-layers_mirrored\.dxf/)

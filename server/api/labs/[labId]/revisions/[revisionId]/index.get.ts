@@ -1,10 +1,11 @@
 import { revisionParams } from '../../../../../../shared/schemas/designs'
-import { getRevision } from '../../../../../services/revisions'
+import { revisionJson } from '../../../../../services/revisionJson'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validParams } from '../../../../../utils/validate'
 
 export default defineEventHandler(async (event) => {
   const { labId, revisionId } = validParams(event, revisionParams)
   const caller = requireLabPermission(event, labId, 'released:view')
-  return getRevision(caller, revisionId)
+  setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
+  return revisionJson(caller, revisionId)
 })

@@ -1,0 +1,1 @@
+ALTER TABLE "designs" ADD COLUMN "junction_kinds" text[] DEFAULT '{}'::text[] NOT NULL;
