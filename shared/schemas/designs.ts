@@ -1,5 +1,6 @@
 // Payloads of the designs and revisions API. One schema per payload, shared by forms and routes.
 import { z } from 'zod'
+import { BUILT_IN_PROCESSES } from '../../geometry/rules/processes'
 import { labParams } from './labs'
 
 export const designParams = labParams.extend({ designId: z.uuid('Design id must be a UUID') })
@@ -12,7 +13,7 @@ const message = z.string().trim().min(1, 'Say what changed in this revision').ma
 export const designCreate = z.object({
   name,
   description: z.string().max(2000, 'A description is at most 2000 characters').default(''),
-  processId: z.string().max(64).optional(),
+  processId: z.string().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id), 'Choose one of the fabrication processes').optional(),
   /** A chip document (validated by the chip schema on the server); omitted → a starter document. */
   document: z.unknown().optional(),
   message: message.default('First revision'),
