@@ -9,7 +9,7 @@ export default defineNuxtConfig({
     '@fontsource/jetbrains-mono/400.css', '@fontsource/jetbrains-mono/500.css',
     '~/assets/css/main.css',
   ],
-  app: { head: { title: 'Dropwright', htmlAttrs: { lang: 'en' } } },
+  app: { head: { title: 'Dropwright', htmlAttrs: { lang: 'en' }, link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }] } },
   runtimeConfig: {
     databaseUrl: '', // NUXT_DATABASE_URL or DATABASE_URL
     sessionTtlHours: 24 * 7,

@@ -11,11 +11,9 @@ export const useOutboxStore = defineStore('outbox', () => {
   async function checkAvailable() {
     if (available.value !== null) return
     try {
-      await $fetch('/api/dev/outbox', { headers: useRequestHeaders(['cookie']) })
-      available.value = true
-    } catch (error) {
-      // 404: no outbox on this server. Anything else (signed out, offline): ask again later.
-      if (toApiProblem(error).status === 404) available.value = false
+      available.value = (await $fetch<{ available: boolean }>('/api/dev/outbox', { headers: useRequestHeaders(['cookie']) })).available
+    } catch {
+      // signed out or offline: ask again later
     }
   }
 
