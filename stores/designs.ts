@@ -29,7 +29,8 @@ export const useDesignsStore = defineStore('designs', () => {
     run(() => $fetch<{ designId: string, revisionId: string }>(`/api/labs/${labId}/designs`, { method: 'POST', body }))
 
   async function setArchived(labId: string, designId: string, archived: boolean) {
-    const ok = await run(() => $fetch(`/api/labs/${labId}/designs/${designId}`, { method: 'PATCH', body: { archived } }))
+    const url: string = `/api/labs/${labId}/designs/${designId}`
+    const ok = await run(() => $fetch<{ ok: boolean }>(url, { method: 'PATCH', body: { archived } }))
     if (ok) await loadDetail(labId, designId)
   }
 

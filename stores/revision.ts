@@ -20,7 +20,8 @@ export const useRevisionStore = defineStore('revision', () => {
   }
 
   async function act(path: string, method: 'POST' | 'PATCH', body: Record<string, unknown>) {
-    const done = await run(() => $fetch(`${base.value}${path}`, { method, body }))
+    const url: string = `${base.value}${path}`
+    const done = await run(() => $fetch<unknown>(url, { method, body }))
     if (done !== undefined) review.value = await $fetch<ReviewState>(`${base.value}/review`)
     return done !== undefined
   }

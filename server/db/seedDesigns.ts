@@ -23,7 +23,7 @@ export async function seedDemoDesigns(db: Db, labId: string, people: People) {
       for (const [n, rev] of demo.revisions.entries()) {
         const document = requireChipDocument(rev.document)
         const status = HISTORY[i]![n]!
-        const [row] = await tx.insert(revisions).values({
+        const [row]: Array<{ id: string }> = await tx.insert(revisions).values({
           designId: design!.id, labId, number: n + 1, parentId, authorId: people.designer, message: rev.message, document,
           summary: summarizeRevision(document, design!.processId), status, statusChangedBy: status === 'released' ? people.admin : status === 'draft' ? null : people.reviewer,
         }).returning()

@@ -1,6 +1,6 @@
 // Server-side sessions in PostgreSQL: sign-out and expiry end them for every server instance.
 import { createHash, randomBytes } from 'node:crypto'
-import { eq, lt } from 'drizzle-orm'
+import { eq, lt, sql } from 'drizzle-orm'
 import { sessions } from '../db/schema'
 import { useDb } from '../utils/db'
 import type { SessionData } from '../../shared/types/session'
@@ -24,14 +24,14 @@ export async function endSession(token: string): Promise<void> {
 
 /** One round trip: the live session's person and all their labs. */
 export async function resolveSession(token: string): Promise<SessionData | null> {
-  const { rows } = await useDb().$client.query<{ id: string, email: string, name: string, memberships: SessionData['memberships'] }>(
-    `select u.id, u.email, u.name,
+  const { rows } = await useDb().execute<{ id: string, email: string, name: string, memberships: SessionData['memberships'] }>(sql`
+     select u.id, u.email, u.name,
             coalesce(json_agg(json_build_object('labId', l.id, 'slug', l.slug, 'name', l.name, 'kind', l.kind, 'role', m.role)
                               order by m.created_at, l.name) filter (where l.id is not null), '[]') as memberships
        from sessions s join users u on u.id = s.user_id
        left join memberships m on m.user_id = u.id left join labs l on l.id = m.lab_id
-      where s.token_hash = $1 and s.expires_at > now()
-      group by u.id`, [digest(token)])
+      where s.token_hash = ${digest(token)} and s.expires_at > now()
+      group by u.id`)
   const row = rows[0]
   return row ? { user: { id: row.id, email: row.email, name: row.name }, memberships: row.memberships } : null
 }
