@@ -1,8 +1,8 @@
 // Server-side sessions in PostgreSQL: sign-out and expiry end them for every server instance.
 import { createHash, randomBytes } from 'node:crypto'
-import { eq, lt, sql } from 'drizzle-orm'
+import { eq, lt } from 'drizzle-orm'
 import { sessions } from '../db/schema'
-import { useDb } from '../utils/db'
+import { useDb, usePool } from '../utils/db'
 import type { SessionData } from '../../shared/types/session'
 
 const TTL_MS = Number(process.env.DW_SESSION_TTL_HOURS ?? 24 * 7) * 3600_000
@@ -22,16 +22,18 @@ export async function endSession(token: string): Promise<void> {
   await useDb().delete(sessions).where(eq(sessions.tokenHash, digest(token)))
 }
 
-/** One round trip: the live session's person and all their labs. */
+/** One round trip, prepared once per connection: the live session's person and all their labs. */
+const SESSION_QUERY = `
+  select u.id, u.email, u.name,
+         coalesce(json_agg(json_build_object('labId', l.id, 'slug', l.slug, 'name', l.name, 'kind', l.kind, 'role', m.role)
+                           order by m.created_at, l.name) filter (where l.id is not null), '[]') as memberships
+    from sessions s join users u on u.id = s.user_id
+    left join memberships m on m.user_id = u.id left join labs l on l.id = m.lab_id
+   where s.token_hash = $1 and s.expires_at > now()
+   group by u.id`
+
 export async function resolveSession(token: string): Promise<SessionData | null> {
-  const { rows } = await useDb().execute<{ id: string, email: string, name: string, memberships: SessionData['memberships'] }>(sql`
-     select u.id, u.email, u.name,
-            coalesce(json_agg(json_build_object('labId', l.id, 'slug', l.slug, 'name', l.name, 'kind', l.kind, 'role', m.role)
-                              order by m.created_at, l.name) filter (where l.id is not null), '[]') as memberships
-       from sessions s join users u on u.id = s.user_id
-       left join memberships m on m.user_id = u.id left join labs l on l.id = m.lab_id
-      where s.token_hash = ${digest(token)} and s.expires_at > now()
-      group by u.id`)
+  const { rows } = await usePool().query<{ id: string, email: string, name: string, memberships: SessionData['memberships'] }>({ name: 'dw-session', text: SESSION_QUERY, values: [digest(token)] })
   const row = rows[0]
   return row ? { user: { id: row.id, email: row.email, name: row.name }, memberships: row.memberships } : null
 }

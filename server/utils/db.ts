@@ -22,6 +22,12 @@ export function useDb(): Db {
   return db
 }
 
+/** The pg pool, for the few hot queries kept as named prepared statements (planned once per connection). */
+export function usePool(): pg.Pool {
+  useDb()
+  return pool!
+}
+
 export async function closeDb(): Promise<void> {
   await pool?.end()
   pool = undefined
