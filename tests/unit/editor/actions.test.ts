@@ -138,3 +138,22 @@ describe('snapping and exchange', () => {
     if (!bad.ok) expect(bad.message).toMatch(/at least one layer/)
   })
 })
+
+describe('sweeps for the plots', async () => {
+  const { forecastDocument } = await import('../../../shared/physics/document')
+  const { sweepFlowRatio, sweepCapillary, regimeMap } = await import('../../../shared/editor/sweep')
+  const f = forecastDocument(doc()).junctions.find((j) => j.element === 'tj-1')!.forecast!
+
+  it('droplet size grows with the flow-rate ratio (squeezing: L/w = 1 + α·φ, Garstecki et al. 2006)', () => {
+    const s = sweepFlowRatio(f, 12)
+    expect(s.length).toBe(12)
+    expect(s.at(-1)!.diameterUm).toBeGreaterThan(s[0]!.diameterUm)
+    expect(s[0]!.x).toBeLessThan(s.at(-1)!.x)
+  })
+
+  it('the capillary sweep holds the ratio and spans two decades of Ca; the map covers its grid', () => {
+    const s = sweepCapillary(f, 10)
+    expect(s.at(-1)!.x / s[0]!.x).toBeCloseTo(400, 0)
+    expect(regimeMap(f, 6).length).toBe(36)
+  })
+})
