@@ -39,14 +39,12 @@ try {
     return { x: r.left + r.width / 2 + 2, y: r.top + r.height / 2 }
   })
   await page.waitForTimeout(300)
-  await page.evaluate(() => {
-    const w = window as any
-    w.__frames = []
-    let last = performance.now()
-    const tick = (t: number) => { w.__frames.push(t - last); last = t; if (w.__recording) requestAnimationFrame(tick) }
-    w.__recording = true
+  // A string, so the bundler adds no helpers to code that runs in the page.
+  await page.evaluate(`(() => {
+    window.__frames = []; let last = performance.now(); window.__recording = true
+    function tick(t) { window.__frames.push(t - last); last = t; if (window.__recording) requestAnimationFrame(tick) }
     requestAnimationFrame(tick)
-  })
+  })()`)
   await page.mouse.move(target.x, target.y)
   await page.mouse.down()
   const t0 = Date.now()
