@@ -1,0 +1,68 @@
+// The live forecast of the working document: forecast + summary after every committed edit (debounced), rule
+// findings a moment later (they cost more on a large chip), and the canvas labels built from both.
+import { onBeforeUnmount, shallowRef, watch, type Ref } from 'vue'
+import type { ChipDocument } from '#shared/schemas/chip'
+import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
+import { BUILT_IN_PROCESSES, checkDesignRules, type Finding } from '~~/geometry/rules'
+import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
+
+export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
+
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number } = {}) {
+  const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
+  const findings = shallowRef<Finding[]>([])
+  let timer: ReturnType<typeof setTimeout> | undefined
+  let rulesTimer: ReturnType<typeof setTimeout> | undefined
+  const run = (d: ChipDocument) => {
+    try {
+      const { doc: connected, left } = withoutLoose(d)
+      const forecast = forecastDocument(connected)
+      const note = left.length ? `Not yet connected, so not forecast: ${left.join(', ')}` : null
+      live.value = { forecast, summary: summarizeForecast(forecast), error: note, at: performance.now() }
+    } catch (error) {
+      live.value = { forecast: null, summary: null, error: error instanceof Error ? error.message : String(error), at: performance.now() }
+    }
+    clearTimeout(rulesTimer)
+    rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, BUILT_IN_PROCESSES[0]!) }, 120)
+  }
+  watch(doc, (d) => {
+    clearTimeout(timer)
+    if (d) timer = setTimeout(() => run(d), opts.delayMs ?? 50)
+  }, { immediate: true })
+  onBeforeUnmount(() => { clearTimeout(timer); clearTimeout(rulesTimer) })
+  return { live, findings }
+}
+
+const sig = (v: number, n = 2) => Number(v.toPrecision(n))
+
+/** Junction callouts (regime, Ø µm, caution when outside validity) and inlet callouts (pressure needed, mbar). */
+export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null): ViewerLabel[] {
+  if (!summary) return []
+  const comps = new Map(doc.components.map(c => [c.id, c]))
+  const labels: ViewerLabel[] = []
+  for (const j of summary.junctions) {
+    const c = comps.get(j.id)
+    if (!c) continue
+    const lines = [`${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`, j.dropletDiameterUm != null ? `Ø ${sig(j.dropletDiameterUm)} µm` : 'Ø —']
+    labels.push({ elementId: j.id, x: c.position.x, y: c.position.y, lines, tone: j.valid ? 'ok' : 'caution' })
+  }
+  const ports = new Map(doc.ports.map(p => [p.id, p]))
+  for (const i of summary.inlets) {
+    const p = ports.get(i.port)
+    if (p) labels.push({ elementId: p.id, x: p.position.x, y: p.position.y, lines: [`${sig(i.pressureMbar, 3)} mbar`], tone: 'ok' })
+  }
+  return labels
+}
+
+export const viewerFindings = (fs: Finding[]): ViewerFinding[] =>
+  fs.map(f => ({ id: f.id, severity: f.severity, x: f.location.x, y: f.location.y, message: f.message }))
+
+/**
+ * A part just placed has no channel attached yet, and the network cannot give it a pressure; the rest of the chip
+ * is still forecast. Leaves out components no channel attaches to, and reports them.
+ */
+export function withoutLoose(d: ChipDocument): { doc: ChipDocument; left: string[] } {
+  const attached = new Set(d.channels.flatMap(c => [c.start?.element, c.end?.element]).filter(Boolean) as string[])
+  const left = d.components.filter(c => !attached.has(c.id)).map(c => c.id)
+  return left.length ? { doc: { ...d, components: d.components.filter(c => attached.has(c.id)) }, left } : { doc: d, left }
+}

@@ -1,0 +1,154 @@
+// The chip editor as a designer uses it, in Chromium: place a T-junction by mouse, set sizes and a flow rate,
+// read the forecast, undo and redo, save with a message, reopen; and a save that lost a race to another tab.
+import type { Browser, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { ApiClient } from '../support/api'
+import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
+import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
+
+let browser: Browser
+let email = ''
+let labId = ''
+let designId = ''
+beforeAll(async () => {
+  browser = await launch()
+  const { lab, people } = await makeLab(['designer'])
+  labId = lab.id
+  email = people[0]!.email
+  const api = await new ApiClient().signIn(email, TEST_PASSWORD)
+  const created = await api.post(`/api/labs/${labId}/designs`, { name: 'Editor story chip', document: fixtureDocument() })
+  designId = created.json.designId
+})
+afterAll(async () => { await browser?.close() })
+
+async function openEditor(page: Page) {
+  await page.goto(`/labs/${labId}/designs/${designId}/edit`)
+  await hydrated(page)
+  await page.waitForSelector('[data-test="editor-canvas"] canvas')
+}
+
+/** Screen point of a world point (µm) on the fixture chip, fitted into the canvas with a 24 px margin. */
+async function at(page: Page, x: number, y: number) {
+  const b = (await page.locator('[data-test="editor-canvas"]').boundingBox())!
+  const s = Math.min((b.width - 48) / 10000, (b.height - 48) / 7000)
+  return { x: b.x + b.width / 2 + (x - 5000) * s, y: b.y + b.height / 2 - (y - 3500) * s }
+}
+const diameter = (page: Page) => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()
+
+describe('chip editor in Chromium', () => {
+  let page: Page
+
+  it('a designer opens the editor from the design page and places a T-junction by mouse', async () => {
+    page = await newPage(browser)
+    await signInAs(page, email, TEST_PASSWORD)
+    await page.waitForURL(/\/labs\//)
+    await page.goto(`/labs/${labId}/designs/${designId}`)
+    await hydrated(page)
+    await page.click('[data-test="edit-design"]')
+    await page.waitForSelector('[data-test="editor-canvas"] canvas')
+    await hydrated(page)
+    await page.click('[data-test="tool-place:t-junction"]')
+    const p = await at(page, 2500, 1500)
+    await page.mouse.click(p.x, p.y)
+    await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('tj-2')
+    await expect.poll(() => page.inputValue('[data-test="field-position.x"]')).toBe('2500')
+  })
+
+  it('sets widths in the inspector; a bad value shows the schema message and stays in the box', async () => {
+    await page.fill('[data-test="field-mainWidth"]', '80')
+    await page.press('[data-test="field-mainWidth"]', 'Enter')
+    await page.fill('[data-test="field-inletWidth"]', '40')
+    await page.press('[data-test="field-inletWidth"]', 'Enter')
+    await page.fill('[data-test="field-armLength"]', '-5')
+    await page.press('[data-test="field-armLength"]', 'Enter')
+    await expect.poll(() => page.locator('[data-test="error-armLength"]').textContent()).toContain('must be > 0 µm')
+    expect(await page.inputValue('[data-test="field-armLength"]')).toBe('-5')
+    const doc = await page.evaluate(() => (window as any).__dwEditor.store.doc.components.find((c: any) => c.id === 'tj-2'))
+    expect(doc).toMatchObject({ mainWidth: 80, inletWidth: 40, armLength: 300 })
+  })
+
+  it('selects the connected junction on the canvas, reads its diameter, changes a flow rate, undoes and redoes', async () => {
+    const p = await at(page, 5000, 3000)
+    await page.mouse.click(p.x, p.y)
+    await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('tj-1')
+    await expect.poll(() => diameter(page)).toMatch(/µm$/)
+    const before = await diameter(page)
+    await shot(page, 'editor-junction-selected')
+    await page.fill('[data-test="inlet-value-water-in"]', '1')
+    await page.press('[data-test="inlet-value-water-in"]', 'Tab')
+    await expect.poll(() => diameter(page)).not.toBe(before)
+    await page.waitForSelector('[data-test="plot-ratio"] [data-test="plot-current"]')
+    await shot(page, 'editor-plots')
+    const after = await diameter(page)
+    await page.click('[data-test="cmd-undo"]')
+    await expect.poll(() => diameter(page)).toBe(before)
+    await page.keyboard.press('Control+Shift+Z')
+    await expect.poll(() => diameter(page)).toBe(after)
+  })
+
+  it('saves with a message; reopening shows the same design', async () => {
+    await page.fill('[data-test="save-message"]', 'Second T-junction, slower water')
+    await page.click('[data-test="save"]')
+    await expect.poll(() => page.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
+    await page.reload()
+    await hydrated(page)
+    await page.waitForSelector('[data-test="editor-canvas"] canvas')
+    const doc = await page.evaluate(() => (window as any).__dwEditor.store.doc)
+    expect(doc.components.map((c: any) => c.id)).toEqual(['tj-1', 'tj-2'])
+    expect(doc.operatingPoints[0].inlets.find((i: any) => i.portId === 'water-in').value).toBe(1)
+    await page.goto(`/labs/${labId}/designs/${designId}`)
+    await expect.poll(() => page.locator('[data-test="revisions-table"]').textContent()).toContain('Second T-junction, slower water')
+  })
+
+  it('a save that lost the race to a second tab offers reload or a branch, and keeps the edits', async () => {
+    const second = await page.context().newPage()
+    await openEditor(page)
+    await openEditor(second)
+    await hydrated(second)
+    // The second tab saves first.
+    await second.click('[data-test="tool-place:y-junction"]')
+    const q = await at(second, 8000, 1500)
+    await second.mouse.click(q.x, q.y)
+    await second.fill('[data-test="save-message"]', 'Y-junction from the other tab')
+    await second.click('[data-test="save"]')
+    await expect.poll(() => second.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
+    // This tab's save now conflicts.
+    await page.click('[data-test="tool-place:flow-focusing"]')
+    const p = await at(page, 2500, 5500)
+    await page.mouse.click(p.x, p.y)
+    await page.fill('[data-test="save-message"]', 'Flow-focusing cross')
+    await page.click('[data-test="save"]')
+    await page.waitForSelector('[data-test="save-conflict"]')
+    expect(await page.locator('[data-test="save-conflict"]').textContent()).toMatch(/no longer the latest/)
+    expect(await page.inputValue('[data-test="save-message"]')).toBe('Flow-focusing cross')
+    await shot(page, 'editor-conflict')
+    await page.click('[data-test="conflict-branch"]')
+    await expect.poll(() => page.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
+    // Now the second tab is behind: it reloads the latest, its edits kept in a local copy and offered back.
+    await second.click('[data-test="tool-place:step-nozzle"]')
+    const r = await at(second, 8000, 5500)
+    await second.mouse.click(r.x, r.y)
+    await second.fill('[data-test="save-message"]', 'Step nozzle')
+    await second.click('[data-test="save"]')
+    await second.waitForSelector('[data-test="save-conflict"]')
+    await second.click('[data-test="conflict-reload"]')
+    await second.waitForSelector('[data-test="restore-prompt"]')
+    const latest = await second.evaluate(() => (window as any).__dwEditor.store.doc.components.map((c: any) => c.id))
+    expect(latest).toContain('ff-1')
+    await second.click('[data-test="restore-take"]')
+    const restored = await second.evaluate(() => (window as any).__dwEditor.store.doc.components.map((c: any) => c.id))
+    expect(restored).toContain('step-1')
+    await second.click('[data-test="save"]')
+    await expect.poll(() => second.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
+    await second.close()
+  })
+
+  it('the keys overlay opens with ? and lists the tools', async () => {
+    await page.locator('[data-test="editor-canvas"]').focus()
+    await page.keyboard.press('?')
+    await page.waitForSelector('[data-test="editor-help"]')
+    expect(await page.locator('[data-test="editor-help"]').textContent()).toContain('Flow-focusing cross')
+    await page.keyboard.press('Escape')
+    await expect.poll(() => page.locator('[data-test="editor-help"]').count()).toBe(0)
+  })
+})
