@@ -20,4 +20,9 @@ if [ -z "${DW_SKIP_BUILD:-}" ]; then
   npx nuxt build > .data/build.log 2>&1 || { tail -40 .data/build.log >&2; exit 1; }
 fi
 mkdir -p .data
+# A full run (no arguments) also type-checks the whole project, as CI does.
+if [ $# -eq 0 ]; then
+  echo "[typecheck] nuxt typecheck" >&2
+  npx nuxt typecheck > .data/typecheck.log 2>&1 || { grep -E 'error TS' .data/typecheck.log >&2 || tail -20 .data/typecheck.log >&2; exit 1; }
+fi
 exec npx vitest run --reporter=default --reporter=json --outputFile.json=.data/vitest.json "$@"

@@ -34,7 +34,7 @@ try {
     const { store, canvas } = (window as any).__dwEditor
     const c = store.doc.components[Math.floor(store.doc.components.length / 2)]
     const v = canvas.value.view
-    const r = document.querySelector('[data-test="editor-canvas"]')!.getBoundingClientRect()
+    const r = window.document.querySelector('[data-test="editor-canvas"]')!.getBoundingClientRect()
     canvas.value.setView({ scale: v.scale * 8, tx: r.width / 2 - v.scale * 8 * c.position.x, ty: r.height / 2 + v.scale * 8 * c.position.y })
     return { x: r.left + r.width / 2 + 2, y: r.top + r.height / 2 }
   })

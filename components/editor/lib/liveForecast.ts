@@ -1,4 +1,4 @@
-// The live forecast of the working document: forecast + summary after every committed edit (debounced), rule
+// The live forecast of the working document: forecast + summary right after every committed edit (a drag commits once, on release), rule
 // findings a moment later (they cost more on a large chip), and the canvas labels built from both.
 import { onBeforeUnmount, shallowRef, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
@@ -27,7 +27,7 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   }
   watch(doc, (d) => {
     clearTimeout(timer)
-    if (d) timer = setTimeout(() => run(d), opts.delayMs ?? 50)
+    if (d) timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true })
   onBeforeUnmount(() => { clearTimeout(timer); clearTimeout(rulesTimer) })
   return { live, findings }
