@@ -48,5 +48,9 @@ export default defineNuxtConfig({
   experimental: { scanPageMeta: true, extraPageMetaExtractionKeys: ['auth'] },
   typescript: { strict: true },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },
-  nitro: { experimental: { tasks: false } },
+  nitro: {
+    experimental: { tasks: false },
+    // Worker threads (server/workers) are bundled beside the built server once Nitro has compiled it.
+    hooks: { async compiled(nitro) { await (await import('./scripts/build-workers.mjs')).buildWorkers(nitro.options.output.serverDir) } },
+  },
 })

@@ -1,1 +1,3 @@
-export default defineEventHandler(() => ({ ok: true }))
+import { summaryWorkerRunning } from '../utils/summaryWorker'
+
+export default defineEventHandler(() => ({ ok: true, summaryWorker: summaryWorkerRunning() }))

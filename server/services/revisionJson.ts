@@ -1,10 +1,12 @@
 // The revision read path, built as a JSON string: a revision's document and summary never change, so their JSON
-// text is kept in a small in-memory cache and never parsed on the way out. Status and names are read fresh.
+// text is kept in a small in-memory cache and never parsed on the way out. Status and names are read fresh, in one
+// prepared query.
 import { eq, sql } from 'drizzle-orm'
-import { designs, revisions, users } from '../db/schema'
-import { useDb } from '../utils/db'
+import { revisions } from '../db/schema'
+import { useDb, usePool } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { findVisibleRevision } from './designGuards'
+import { can } from '../../shared/utils/roles'
+import { notFound } from './designGuards'
 
 const MAX_ENTRIES = Number(process.env.DW_REVISION_CACHE ?? 64)
 const content = new Map<string, { document: string, summary: string }>()
@@ -23,16 +25,23 @@ async function contentOf(revisionId: string) {
   return row!
 }
 
+const HEAD_SQL = `
+  select r.id, r.design_id, r.number, r.parent_id, r.message, r.created_at, r.status, r.status_changed_at,
+         u.name as author_name, d.name as design_name, d.latest_revision_id
+    from revisions r join designs d on d.id = r.design_id join users u on u.id = r.author_id
+   where r.id = $1 and r.lab_id = $2`
+
+interface Head { id: string, design_id: string, number: number, parent_id: string | null, message: string, created_at: Date, status: string, status_changed_at: Date, author_name: string, design_name: string, latest_revision_id: string | null }
+
 export async function revisionJson(caller: LabCaller, revisionId: string): Promise<string> {
-  const db = useDb()
-  const head = await findVisibleRevision(db, caller, revisionId)
-  const [names] = await db.select({ authorName: users.name, designName: designs.name, latestRevisionId: designs.latestRevisionId })
-    .from(designs).innerJoin(users, eq(users.id, head.authorId)).where(eq(designs.id, head.designId))
+  const { rows: [head] } = await usePool().query<Head>({ name: 'dw-revision-head', text: HEAD_SQL, values: [revisionId, caller.lab.labId] })
+  // Same rule as findVisibleRevision: a fabricator sees released revisions only.
+  if (!head || (!can(caller.lab.role, 'designs:view') && head.status !== 'released')) throw notFound('revision')
   const { document, summary } = await contentOf(head.id)
   const fields = {
-    id: head.id, designId: head.designId, number: head.number, parentId: head.parentId, message: head.message,
-    authorName: names!.authorName, createdAt: head.createdAt.toISOString(), status: head.status,
-    statusChangedAt: head.statusChangedAt.toISOString(), designName: names!.designName, labId: caller.lab.labId, latestRevisionId: names!.latestRevisionId,
+    id: head.id, designId: head.design_id, number: head.number, parentId: head.parent_id, message: head.message,
+    authorName: head.author_name, createdAt: head.created_at.toISOString(), status: head.status,
+    statusChangedAt: head.status_changed_at.toISOString(), designName: head.design_name, labId: caller.lab.labId, latestRevisionId: head.latest_revision_id,
   }
   return `${JSON.stringify(fields).slice(0, -1)},"summary":${summary},"document":${document}}`
 }

@@ -3,15 +3,14 @@
 import { and, asc, eq, gt } from 'drizzle-orm'
 import { createError } from 'h3'
 import { designs, revisions, users } from '../db/schema'
-import { useDb } from '../utils/db'
+import { useDb, usePool } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { RevisionDetail, RevisionRow, RevisionSummary } from '../../shared/types/designs'
 import type { revisionCreate } from '../../shared/schemas/designs'
 import type { z } from 'zod'
-import { logActivity } from './activity'
 import { findDesign, findVisibleRevision, notFound } from './designGuards'
 import { validDocument } from './documents'
-import { summarizeRevision } from './revisionSummary'
+import { summarizeOffThread } from '../utils/summaryWorker'
 
 const rowColumns = {
   id: revisions.id, designId: revisions.designId, number: revisions.number, parentId: revisions.parentId, message: revisions.message,
@@ -43,27 +42,55 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
   const design = await findDesign(db, caller, designId)
   if (design.archivedAt) throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This design is archived: restore it before saving' })
   const document = validDocument(body.document)
-  const summary = summarizeRevision(document, design.processId)
-  return db.transaction(async (tx) => {
-    const [locked] = await tx.select().from(designs).where(eq(designs.id, designId)).for('update')
-    const [parent] = await tx.select({ id: revisions.id, number: revisions.number }).from(revisions)
-      .where(and(eq(revisions.id, body.parentId), eq(revisions.designId, designId)))
-    if (!parent) throw notFound('parent revision for this design')
-    if (!body.branch && locked!.latestRevisionId !== parent.id) {
-      const since = await tx.select(rowColumns).from(revisions).innerJoin(users, eq(users.id, revisions.authorId))
-        .where(and(eq(revisions.designId, designId), gt(revisions.number, parent.number))).orderBy(asc(revisions.number))
+  const summary = await summarizeOffThread(document, design.processId)
+  const client = await usePool().connect()
+  try {
+    await client.query('begin')
+    // Lock the design row: concurrent saves on one design queue here, and the parent check below sees the truth.
+    const { rows: [locked] } = await client.query<{ latest: string | null, count: number, parent: number | null }>({
+      name: 'dw-save-lock', text: LOCK_SQL, values: [designId, body.parentId],
+    })
+    if (!locked) throw notFound('design')
+    if (locked.parent === null) throw notFound('parent revision for this design')
+    if (!body.branch && locked!.latest !== body.parentId) {
+      const since = await db.select(rowColumns).from(revisions).innerJoin(users, eq(users.id, revisions.authorId))
+        .where(and(eq(revisions.designId, designId), gt(revisions.number, locked!.parent))).orderBy(asc(revisions.number))
       throw createError({
         statusCode: 409, statusMessage: 'Conflict',
-        message: `Revision ${parent.number} is no longer the latest: ${since.map(r => `r${r.number} by ${r.authorName} ("${r.message}")`).join(', ')} came after it. Reload, or save yours as a branch.`,
-        data: { latestRevisionId: locked!.latestRevisionId, since: since.map(toRow) },
+        message: `Revision ${locked!.parent} is no longer the latest: ${since.map(r => `r${r.number} by ${r.authorName} ("${r.message}")`).join(', ')} came after it. Reload, or save yours as a branch.`,
+        data: { latestRevisionId: locked!.latest, since: since.map(toRow) },
       })
     }
-    const number = locked!.revisionCount + 1
-    const [revision] = await tx.insert(revisions).values({
-      designId, labId: caller.lab.labId, number, parentId: parent.id, authorId: caller.userId, message: body.message, document, summary,
-    }).returning({ id: revisions.id })
-    await tx.update(designs).set({ latestRevisionId: revision!.id, revisionCount: number, updatedAt: new Date(), junctionKinds: summary.junctionKinds }).where(eq(designs.id, designId))
-    await logActivity(tx, { labId: caller.lab.labId, designId, revisionId: revision!.id, actorId: caller.userId, action: body.branch ? 'revision.branched' : 'revision.saved', detail: { number, parent: parent.number, message: body.message } })
+    const number = locked!.count + 1
+    const action = body.branch ? 'revision.branched' : 'revision.saved'
+    const { rows: [revision] } = await client.query<{ id: string }>({
+      name: 'dw-save-insert', text: INSERT_SQL,
+      values: [designId, caller.lab.labId, number, body.parentId, caller.userId, body.message, JSON.stringify(document), JSON.stringify(summary),
+        summary.junctionKinds, action, JSON.stringify({ number, parent: locked!.parent, message: body.message })],
+    })
+    await client.query('commit')
     return { revisionId: revision!.id, number }
-  })
+  } catch (error) {
+    await client.query('rollback')
+    throw error
+  } finally {
+    client.release()
+  }
 }
+
+// One round trip each (the save is the busiest write): lock + parent check, then revision + design + activity.
+const LOCK_SQL = `
+  select d.latest_revision_id as latest, d.revision_count as count,
+         (select p.number from revisions p where p.id = $2 and p.design_id = d.id) as parent
+    from designs d where d.id = $1 for update`
+const INSERT_SQL = `
+  with rev as (
+    insert into revisions (design_id, lab_id, number, parent_id, author_id, message, document, summary)
+    values ($1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb) returning id),
+  upd as (
+    update designs set latest_revision_id = (select id from rev), revision_count = $3, updated_at = now(), junction_kinds = $9
+     where id = $1),
+  act as (
+    insert into activity (lab_id, design_id, revision_id, actor_id, action, detail)
+    select $2, $1, id, $5, $10, $11::jsonb from rev)
+  select id from rev`

@@ -1,0 +1,17 @@
+// Bundles the server's worker threads next to the built server (called from Nitro's `compiled` hook).
+import { build } from 'esbuild'
+import { join } from 'node:path'
+import { fileURLToPath } from 'node:url'
+
+const root = fileURLToPath(new URL('..', import.meta.url))
+
+export async function buildWorkers(serverDir) {
+  await build({
+    entryPoints: { summary: join(root, 'server/workers/summary.ts') },
+    outdir: join(serverDir, 'workers'),
+    outExtension: { '.js': '.mjs' },
+    bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning',
+    // some bundled CommonJS packages call require(); give the ES module one
+    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
+  })
+}
