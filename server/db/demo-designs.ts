@@ -2,452 +2,55 @@
 // droplets of about 40 µm. Each design lists its revisions oldest first.
 import { generateParallelChip } from '../../geometry/arrays'
 import type { ChipDocumentInput } from '../../shared/schemas/chip'
+import { starterDocument } from '../services/starterDocument'
 
-const tJunction = (mainWidth: number, inletWidth: number, qc: number, qd: number): ChipDocumentInput => ({
-  "version": 1,
-  "name": "Cell encapsulation T-junction",
-  "units": "um",
-  "layers": [
-    {
-      "id": "ch25",
-      "name": "Channels",
-      "depth": 25
-    }
-  ],
-  "ports": [
-    {
-      "id": "oil-in",
-      "kind": "inlet",
-      "position": {
-        "x": 1500,
-        "y": 3000
-      },
-      "punchDiameter": 750,
-      "layerId": "ch25",
-      "feed": {
-        "phase": "continuous"
-      }
-    },
-    {
-      "id": "water-in",
-      "kind": "inlet",
-      "position": {
-        "x": 6500,
-        "y": 5500
-      },
-      "punchDiameter": 750,
-      "layerId": "ch25",
-      "feed": {
-        "phase": "dispersed"
-      }
-    },
-    {
-      "id": "out",
-      "kind": "outlet",
-      "position": {
-        "x": 8500,
-        "y": 3000
-      },
-      "punchDiameter": 1000,
-      "layerId": "ch25"
-    }
-  ],
-  "components": [
-    {
-      "id": "tj-1",
-      "kind": "t-junction",
-      "position": {
-        "x": 5000,
-        "y": 3000
-      },
-      "rotation": 0,
-      "layerId": "ch25",
-      mainWidth,
-      inletWidth,
-      armLength: Math.max(200, mainWidth)
-    }
-  ],
-  "channels": [
-    {
-      "id": "oil-feed",
-      "layerId": "ch25",
-      "width": mainWidth,
-      "points": [
-        {
-          "x": 1500,
-          "y": 3000
-        },
-        {
-          "x": 4800,
-          "y": 3000
-        }
-      ],
-      "start": {
-        "element": "oil-in",
-        "terminal": "port"
-      },
-      "end": {
-        "element": "tj-1",
-        "terminal": "continuous"
-      }
-    },
-    {
-      "id": "water-feed",
-      "layerId": "ch25",
-      "width": inletWidth,
-      "points": [
-        {
-          "x": 6500,
-          "y": 5500
-        },
-        {
-          "x": 5000,
-          "y": 5500
-        },
-        {
-          "x": 5000,
-          "y": 3200
-        }
-      ],
-      "start": {
-        "element": "water-in",
-        "terminal": "port"
-      },
-      "end": {
-        "element": "tj-1",
-        "terminal": "dispersed"
-      }
-    },
-    {
-      "id": "drops-out",
-      "layerId": "ch25",
-      "width": mainWidth,
-      "points": [
-        {
-          "x": 5200,
-          "y": 3000
-        },
-        {
-          "x": 8500,
-          "y": 3000
-        }
-      ],
-      "start": {
-        "element": "tj-1",
-        "terminal": "outlet"
-      },
-      "end": {
-        "element": "out",
-        "terminal": "port"
-      }
-    }
-  ],
-  "outline": {
-    "kind": "rectangle",
-    "corner": {
-      "x": 0,
-      "y": 0
-    },
-    "width": 10000,
-    "height": 7000
-  },
-  "marks": [
-    {
-      "id": "align-1",
-      "kind": "cross",
-      "position": {
-        "x": 600,
-        "y": 600
-      },
-      "size": 400,
-      "lineWidth": 40,
-      "layerIds": []
-    },
-    {
-      "id": "label",
-      "kind": "text",
-      "position": {
-        "x": 6500,
-        "y": 500
-      },
-      "text": "QSC TJ",
-      "height": 300,
-      "layerIds": []
-    }
-  ],
-  "operatingPoints": [
-    {
-      "id": "op-1",
-      "name": "Cells in 40 um drops",
-      "temperatureC": 22,
-      "continuousLiquid": {
-        "liquid": "n-hexadecane"
-      },
-      "dispersedLiquid": {
-        "liquid": "water"
-      },
-      "surfactant": "sorbitan-monooleate",
-      "inlets": [
-        {
-          "portId": "oil-in",
-          "mode": "flow",
-          "value": qc,
-          "unit": "uL/min"
-        },
-        {
-          "portId": "water-in",
-          "mode": "flow",
-          "value": qd,
-          "unit": "uL/min"
-        }
-      ]
-    }
-  ],
-  "activeOperatingPoint": "op-1"
-}) as unknown as ChipDocumentInput
+// The starter T-junction, on a 25 µm deep layer, with the given widths (µm) and flows (µL/min).
+function tJunction(mainWidth: number, inletWidth: number, qc: number, qd: number): ChipDocumentInput {
+  const d = structuredClone(starterDocument('Cell encapsulation T-junction')) as unknown as Record<string, any>
+  d.layers = [{ id: 'ch25', name: 'Channels', depth: 25 }]
+  for (const port of d.ports) port.layerId = 'ch25'
+  Object.assign(d.components[0], { layerId: 'ch25', mainWidth, inletWidth, armLength: Math.max(200, mainWidth) })
+  for (const c of d.channels) Object.assign(c, { layerId: 'ch25', width: c.id === 'water-feed' ? inletWidth : mainWidth })
+  d.operatingPoints[0].name = 'Cells in 40 um drops'
+  d.operatingPoints[0].inlets = [
+    { portId: 'oil-in', mode: 'flow', value: qc, unit: 'uL/min' },
+    { portId: 'water-in', mode: 'flow', value: qd, unit: 'uL/min' },
+  ]
+  d.marks[1].text = 'QSC TJ'
+  return d as ChipDocumentInput
+}
 
 const flowFocusing = (orificeWidth: number): ChipDocumentInput => ({
   "version": 1,
   "name": "Hydrogel bead flow-focuser",
   "units": "um",
   "layers": [
-    {
-      "id": "ch50",
-      "name": "Channels",
-      "depth": 50
-    }
+    {"id": "ch50", "name": "Channels", "depth": 50},
   ],
   "ports": [
-    {
-      "id": "gel-in",
-      "kind": "inlet",
-      "position": {
-        "x": 1500,
-        "y": 4500
-      },
-      "punchDiameter": 750,
-      "layerId": "ch50",
-      "feed": {
-        "phase": "dispersed"
-      }
-    },
-    {
-      "id": "oil-a",
-      "kind": "inlet",
-      "position": {
-        "x": 6000,
-        "y": 7500
-      },
-      "punchDiameter": 750,
-      "layerId": "ch50",
-      "feed": {
-        "phase": "continuous"
-      }
-    },
-    {
-      "id": "oil-b",
-      "kind": "inlet",
-      "position": {
-        "x": 6000,
-        "y": 1500
-      },
-      "punchDiameter": 750,
-      "layerId": "ch50",
-      "feed": {
-        "phase": "continuous"
-      }
-    },
-    {
-      "id": "out",
-      "kind": "outlet",
-      "position": {
-        "x": 10500,
-        "y": 4500
-      },
-      "punchDiameter": 1000,
-      "layerId": "ch50"
-    }
+    {"id": "gel-in", "kind": "inlet", "position": {"x": 1500, "y": 4500}, "punchDiameter": 750, "layerId": "ch50", "feed": {"phase": "dispersed"}},
+    {"id": "oil-a", "kind": "inlet", "position": {"x": 6000, "y": 7500}, "punchDiameter": 750, "layerId": "ch50", "feed": {"phase": "continuous"}},
+    {"id": "oil-b", "kind": "inlet", "position": {"x": 6000, "y": 1500}, "punchDiameter": 750, "layerId": "ch50", "feed": {"phase": "continuous"}},
+    {"id": "out", "kind": "outlet", "position": {"x": 10500, "y": 4500}, "punchDiameter": 1000, "layerId": "ch50"},
   ],
   "components": [
-    {
-      "id": "ff-1",
-      "kind": "flow-focusing",
-      "position": {
-        "x": 6000,
-        "y": 4500
-      },
-      "rotation": 0,
-      "layerId": "ch50",
-      "orificeWidth": orificeWidth,
-      "orificeLength": 60,
-      "continuousWidth": 80,
-      "dispersedWidth": 60,
-      "outletWidth": 150,
-      "armLength": 200
-    }
+    {"id": "ff-1", "kind": "flow-focusing", "position": {"x": 6000, "y": 4500}, "rotation": 0, "layerId": "ch50", "orificeWidth": orificeWidth, "orificeLength": 60, "continuousWidth": 80, "dispersedWidth": 60, "outletWidth": 150, "armLength": 200},
   ],
   "channels": [
-    {
-      "id": "gel-feed",
-      "layerId": "ch50",
-      "width": 60,
-      "points": [
-        {
-          "x": 1500,
-          "y": 4500
-        },
-        {
-          "x": 5800,
-          "y": 4500
-        }
-      ],
-      "start": {
-        "element": "gel-in",
-        "terminal": "port"
-      },
-      "end": {
-        "element": "ff-1",
-        "terminal": "dispersed"
-      }
-    },
-    {
-      "id": "oil-feed-a",
-      "layerId": "ch50",
-      "width": 80,
-      "points": [
-        {
-          "x": 6000,
-          "y": 7500
-        },
-        {
-          "x": 6000,
-          "y": 4700
-        }
-      ],
-      "start": {
-        "element": "oil-a",
-        "terminal": "port"
-      },
-      "end": {
-        "element": "ff-1",
-        "terminal": "continuous-a"
-      }
-    },
-    {
-      "id": "oil-feed-b",
-      "layerId": "ch50",
-      "width": 80,
-      "points": [
-        {
-          "x": 6000,
-          "y": 1500
-        },
-        {
-          "x": 6000,
-          "y": 4300
-        }
-      ],
-      "start": {
-        "element": "oil-b",
-        "terminal": "port"
-      },
-      "end": {
-        "element": "ff-1",
-        "terminal": "continuous-b"
-      }
-    },
-    {
-      "id": "beads-out",
-      "layerId": "ch50",
-      "width": 150,
-      "points": [
-        {
-          "x": 6300,
-          "y": 4500
-        },
-        {
-          "x": 10500,
-          "y": 4500
-        }
-      ],
-      "start": {
-        "element": "ff-1",
-        "terminal": "outlet"
-      },
-      "end": {
-        "element": "out",
-        "terminal": "port"
-      }
-    }
+    {"id": "gel-feed", "layerId": "ch50", "width": 60, "points": [{"x": 1500, "y": 4500}, {"x": 5800, "y": 4500}], "start": {"element": "gel-in", "terminal": "port"}, "end": {"element": "ff-1", "terminal": "dispersed"}},
+    {"id": "oil-feed-a", "layerId": "ch50", "width": 80, "points": [{"x": 6000, "y": 7500}, {"x": 6000, "y": 4700}], "start": {"element": "oil-a", "terminal": "port"}, "end": {"element": "ff-1", "terminal": "continuous-a"}},
+    {"id": "oil-feed-b", "layerId": "ch50", "width": 80, "points": [{"x": 6000, "y": 1500}, {"x": 6000, "y": 4300}], "start": {"element": "oil-b", "terminal": "port"}, "end": {"element": "ff-1", "terminal": "continuous-b"}},
+    {"id": "beads-out", "layerId": "ch50", "width": 150, "points": [{"x": 6300, "y": 4500}, {"x": 10500, "y": 4500}], "start": {"element": "ff-1", "terminal": "outlet"}, "end": {"element": "out", "terminal": "port"}},
   ],
-  "outline": {
-    "kind": "rectangle",
-    "corner": {
-      "x": 0,
-      "y": 0
-    },
-    "width": 12000,
-    "height": 9000
-  },
+  "outline": {"kind": "rectangle", "corner": {"x": 0, "y": 0}, "width": 12000, "height": 9000},
   "marks": [
-    {
-      "id": "align-1",
-      "kind": "cross",
-      "position": {
-        "x": 600,
-        "y": 600
-      },
-      "size": 400,
-      "lineWidth": 40,
-      "layerIds": []
-    },
-    {
-      "id": "label",
-      "kind": "text",
-      "position": {
-        "x": 8500,
-        "y": 800
-      },
-      "text": "QSC FF",
-      "height": 300,
-      "layerIds": []
-    }
+    {"id": "align-1", "kind": "cross", "position": {"x": 600, "y": 600}, "size": 400, "lineWidth": 40, "layerIds": []},
+    {"id": "label", "kind": "text", "position": {"x": 8500, "y": 800}, "text": "QSC FF", "height": 300, "layerIds": []},
   ],
   "operatingPoints": [
-    {
-      "id": "op-1",
-      "name": "Beads at 4:1 oil",
-      "temperatureC": 22,
-      "continuousLiquid": {
-        "liquid": "light-mineral-oil"
-      },
-      "dispersedLiquid": {
-        "liquid": "water"
-      },
-      "surfactant": "sorbitan-monooleate",
-      "inlets": [
-        {
-          "portId": "gel-in",
-          "mode": "flow",
-          "value": 1,
-          "unit": "uL/min"
-        },
-        {
-          "portId": "oil-a",
-          "mode": "flow",
-          "value": 2,
-          "unit": "uL/min"
-        },
-        {
-          "portId": "oil-b",
-          "mode": "flow",
-          "value": 2,
-          "unit": "uL/min"
-        }
-      ]
-    }
+    {"id": "op-1", "name": "Beads at 4:1 oil", "temperatureC": 22, "continuousLiquid": {"liquid": "light-mineral-oil"}, "dispersedLiquid": {"liquid": "water"}, "surfactant": "sorbitan-monooleate", "inlets": [{"portId": "gel-in", "mode": "flow", "value": 1, "unit": "uL/min"}, {"portId": "oil-a", "mode": "flow", "value": 2, "unit": "uL/min"}, {"portId": "oil-b", "mode": "flow", "value": 2, "unit": "uL/min"}]},
   ],
-  "activeOperatingPoint": "op-1"
+  "activeOperatingPoint": "op-1",
 }) as unknown as ChipDocumentInput
 
 // The generated ladder runs a fluorinated oil; its tension with water, with a fluorinated surfactant, is set
