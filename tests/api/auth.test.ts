@@ -49,6 +49,21 @@ describe('sign-in and sessions (real server, real PostgreSQL)', () => {
     expect((await replay.get('/api/auth/session')).status).toBe(401)
   })
 
+  it('ends an expired session on the server, whatever the cookie says', async () => {
+    const api = await signedIn('reviewer@quillmere.example')
+    expect((await api.get('/api/auth/session')).status).toBe(200)
+    const token = api.cookies.get('dw_session')!
+    const { createHash } = await import('node:crypto')
+    const pg = await import('pg')
+    const { inject } = await import('vitest')
+    const client = new pg.default.Client({ connectionString: inject('databaseUrl') })
+    await client.connect()
+    await client.query(`update sessions set expires_at = now() - interval '1 second' where token_hash = $1`, [createHash('sha256').update(token).digest('hex')])
+    await client.end()
+    expect((await api.get('/api/auth/session')).status).toBe(401)
+    expect((await api.get('/api/labs')).status).toBe(401)
+  })
+
   it('answers 400 with the zod issues for a malformed body, never 500', async () => {
     const api = new ApiClient()
     const res = await api.post('/api/auth/login', { email: 42 })
