@@ -11,6 +11,8 @@ export const useEditorStore = defineStore('editor', () => {
   const labId = ref('')
   const designId = ref('')
   const designName = ref('')
+  /** The design's fabrication process (rule checks use it), from the opened revision's summary. */
+  const processId = ref<string | null>(null)
   /** The revision edits are based on: the one opened, then the one last saved. */
   const base = ref<{ id: string, number: number } | null>(null)
   const history = shallowRef<History | null>(null)
@@ -30,6 +32,7 @@ export const useEditorStore = defineStore('editor', () => {
   function open(revision: RevisionDetail, document: ChipDocument) {
     labId.value = revision.labId
     designName.value = revision.designName
+    processId.value = revision.summary?.processId ?? null
     base.value = { id: revision.id, number: revision.number }
     history.value = startHistory(document)
     saved.value = document
@@ -120,7 +123,7 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   return {
-    labId, designId, designName, base, history, doc, saved, selection, gridPitch, refusal, conflict, busy, problem, dirty, undoable, redoable,
+    labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, refusal, conflict, busy, problem, dirty, undoable, redoable,
     load, open, apply, replace, undo, redo, select, copySelection, pasteClip, duplicateSelection, deleteSelection, rotateSelection, save,
     hasClip: computed(() => !!clip.value),
   }

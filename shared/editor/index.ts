@@ -1,4 +1,6 @@
 // The editor core: named actions on a chip document, history, snapping, clipboard and exchange. Pure TypeScript.
+import { placeArray } from './arrays'
+import { clearOutline, placeMark, setOutline } from './frame'
 import { addChannel, addChannelPoint, placeComponent, placePort } from './draw'
 import { setDocumentField, setField, setInlet, setOperatingPointField } from './fields'
 import { duplicate, paste, remove } from './structure'
@@ -8,7 +10,8 @@ import { move, rotate } from './transform'
 export const actions = {
   move, rotate, duplicate, paste, delete: remove,
   setField, setDocumentField, setOperatingPointField, setInlet,
-  addChannel, addChannelPoint, placeComponent, placePort,
+  addChannel, addChannelPoint, placeComponent, placePort, placeArray,
+  setOutline, clearOutline, placeMark,
 }
 export type ActionName = keyof typeof actions
 export type ActionArgs<N extends ActionName> = Parameters<(typeof actions)[N]>[1]
@@ -22,4 +25,5 @@ export { findElement, SELECTABLE } from './elements'
 export { PLACEABLE, type PlaceableKind } from './templates'
 export { exportDocument, importDocument, exportFileName } from './exchange'
 export { terminalPosition } from './attach'
+export { ARRAY_LIMIT, type ArrayKind } from './arrays'
 export type { ActionResult, EditRefusal, HistoryPolicy, PointUm, ElementCollection } from './types'

@@ -1,9 +1,12 @@
 // The chip editor as a designer uses it, in Chromium: place a T-junction by mouse, set sizes and a flow rate,
-// read the forecast, undo and redo, save with a message, reopen; and a save that lost a race to another tab.
+// read the forecast, undo and redo, save with a message, reopen; a save that lost a race to another tab; arrays,
+// outline and marks; and a demo-like design edited, saved as a new revision, exported and imported back.
 import type { Browser, Page } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { readFile } from 'node:fs/promises'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient } from '../support/api'
 import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
+import { labWithDesign } from '../support/designs'
 import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
@@ -150,5 +153,84 @@ describe('chip editor in Chromium', () => {
     expect(await page.locator('[data-test="editor-help"]').textContent()).toContain('Flow-focusing cross')
     await page.keyboard.press('Escape')
     await expect.poll(() => page.locator('[data-test="editor-help"]').count()).toBe(0)
+  })
+
+  it('builds 8 step nozzles on a manifold beside the chip from the array form, and one undo takes them away', async () => {
+    const count = () => page.evaluate(() => (window as any).__dwEditor.store.doc.components.filter((c: any) => c.kind === 'step-nozzle').length)
+    const before = await count()
+    await page.click('[data-test="cmd-array"]')
+    await page.fill('[data-test="array-count"]', '8')
+    await page.fill('[data-test="array-pitch"]', '80')
+    await page.click('[data-test="array-build"]')
+    await expect.poll(count).toBe(before + 8)
+    await expect.poll(() => page.locator('[data-test="array-form"]').count()).toBe(0)
+    await shot(page, 'editor-array')
+    await page.click('[data-test="cmd-undo"]')
+    await expect.poll(count).toBe(before)
+  })
+
+  it('sets the chip outline in the inspector with nothing selected, and places an alignment cross by mouse', async () => {
+    await page.keyboard.press('Escape')
+    await page.waitForSelector('[data-test="outline-inspector"]')
+    await page.fill('[data-test="field-outline.width"]', '12000')
+    await page.press('[data-test="field-outline.width"]', 'Enter')
+    await expect.poll(() => page.evaluate(() => (window as any).__dwEditor.store.doc.outline?.width)).toBe(12000)
+    await page.fill('[data-test="field-outline.height"]', '0')
+    await page.press('[data-test="field-outline.height"]', 'Enter')
+    await expect.poll(() => page.locator('[data-test="error-outline.height"]').textContent()).toContain('must be > 0 µm')
+    await page.click('[data-test="tool-mark"]')
+    const p = await at(page, 500, 500)
+    await page.mouse.click(p.x, p.y)
+    await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('mark-1')
+    const mark = await page.evaluate(() => (window as any).__dwEditor.store.doc.marks.find((m: any) => m.id === 'mark-1'))
+    expect(mark).toMatchObject({ kind: 'cross', size: 500, lineWidth: 50 })
+  })
+})
+
+describe('a demo-like design in the editor', () => {
+  let page: Page
+  let lab: Awaited<ReturnType<typeof labWithDesign>>
+
+  beforeAll(async () => {
+    lab = await labWithDesign()
+    const context = await browser.newContext({ baseURL: inject('baseURL'), viewport: { width: 1280, height: 800 }, acceptDownloads: true })
+    await context.addCookies([...lab.as.designer.cookies].map(([name, value]) => ({ name, value, url: inject('baseURL') })))
+    page = await context.newPage()
+    await page.goto(`/labs/${lab.lab.id}/designs/${lab.designId}/edit`)
+    await hydrated(page)
+    await page.waitForSelector('[data-test="editor-canvas"] canvas')
+  })
+  afterAll(async () => { await page?.context().close() })
+
+  it('opens, takes a new main-channel width in the inspector and saves it as revision 2', async () => {
+    const p = await at(page, 5000, 3000)
+    await page.mouse.click(p.x, p.y)
+    await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('tj-1')
+    await page.fill('[data-test="field-mainWidth"]', '90')
+    await page.press('[data-test="field-mainWidth"]', 'Enter')
+    await expect.poll(() => page.locator('[data-test="dirty-state"]').textContent()).toBe('unsaved changes')
+    await page.fill('[data-test="save-message"]', 'Main channel 90 µm')
+    await page.click('[data-test="save"]')
+    await expect.poll(() => page.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
+    expect(await page.locator('text=Editing from revision').textContent()).toContain('r2')
+    const design = await lab.as.designer.get(`/api/labs/${lab.lab.id}/designs/${lab.designId}`)
+    const latest = await lab.as.designer.get(`/api/labs/${lab.lab.id}/revisions/${design.json.design.latestRevisionId}`)
+    expect(latest.json.number).toBe(2)
+    expect(latest.json.document.components.find((c: any) => c.id === 'tj-1').mainWidth).toBe(90)
+  })
+
+  it('exports the document as JSON and, after another edit, imports the file back to the same document', async () => {
+    const exported = await page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('[data-test="export-json"]')])
+    expect(download.suggestedFilename()).toMatch(/\.chip\.json$/)
+    const path = await download.path()
+    const text = await readFile(path, 'utf8')
+    expect(JSON.parse(text)).toEqual(exported)
+    await page.click('[data-test="tool-place:y-junction"]')
+    const q = await at(page, 8000, 1500)
+    await page.mouse.click(q.x, q.y)
+    await expect.poll(() => page.evaluate(() => (window as any).__dwEditor.store.doc.components.length)).toBe(exported.components.length + 1)
+    await page.setInputFiles('[data-test="import-json"]', path)
+    await expect.poll(() => page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))).toEqual(exported)
   })
 })

@@ -1,14 +1,18 @@
 // The live forecast of the working document: forecast + summary right after every committed edit (a drag commits once, on release), rule
 // findings a moment later (they cost more on a large chip), and the canvas labels built from both.
-import { onBeforeUnmount, shallowRef, watch, type Ref } from 'vue'
+import { onScopeDispose, shallowRef, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
 import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
-import { BUILT_IN_PROCESSES, checkDesignRules, type Finding } from '~~/geometry/rules'
+import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProcess, type Finding } from '~~/geometry/rules'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
 
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number } = {}) {
+/** The design's own process for rule checks; the first built-in one only when the design names none we know. */
+export const designProcess = (processId: string | null | undefined): FabricationProcess =>
+  (processId ? findProcess(processId) : undefined) ?? BUILT_IN_PROCESSES[0]!
+
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null> } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
   let timer: ReturnType<typeof setTimeout> | undefined
@@ -23,13 +27,14 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
       live.value = { forecast: null, summary: null, error: error instanceof Error ? error.message : String(error), at: performance.now() }
     }
     clearTimeout(rulesTimer)
-    rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, BUILT_IN_PROCESSES[0]!) }, 120)
+    rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value)) }, 120)
   }
   watch(doc, (d) => {
     clearTimeout(timer)
     if (d) timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true })
-  onBeforeUnmount(() => { clearTimeout(timer); clearTimeout(rulesTimer) })
+  if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
+  onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer) })
   return { live, findings }
 }
 

@@ -2,9 +2,9 @@
 import type { PlaceableKind } from '~~/shared/editor'
 
 export type PortTool = 'port:continuous' | 'port:dispersed' | 'port:outlet'
-export type Tool = 'select' | 'channel' | 'measure' | `place:${PlaceableKind}` | PortTool
+export type Tool = 'select' | 'channel' | 'measure' | 'mark' | `place:${PlaceableKind}` | PortTool
 
-export interface ToolEntry { tool: Tool; label: string; key: string; group: 'edit' | 'parts' | 'ports' }
+export interface ToolEntry { tool: Tool; label: string; key: string; group: 'edit' | 'parts' | 'ports' | 'frame' }
 
 export const TOOLS: ToolEntry[] = [
   { tool: 'select', label: 'Select and move', key: 's', group: 'edit' },
@@ -18,9 +18,10 @@ export const TOOLS: ToolEntry[] = [
   { tool: 'port:continuous', label: 'Inlet, continuous phase', key: 'i', group: 'ports' },
   { tool: 'port:dispersed', label: 'Inlet, dispersed phase', key: 'd', group: 'ports' },
   { tool: 'port:outlet', label: 'Outlet', key: 'o', group: 'ports' },
+  { tool: 'mark', label: 'Alignment cross', key: 'x', group: 'frame' },
 ]
 
-export type Command = 'undo' | 'redo' | 'delete' | 'duplicate' | 'rotate' | 'copy' | 'paste' | 'escape' | 'help' | 'save' | 'select-all'
+export type Command = 'array' | 'undo' | 'redo' | 'delete' | 'duplicate' | 'rotate' | 'copy' | 'paste' | 'escape' | 'help' | 'save' | 'select-all'
 
 /** Commands with their keys as shown in the help overlay (Ctrl stands for ⌘ on a Mac). */
 export const COMMANDS: Array<{ command: Command; label: string; keys: string }> = [

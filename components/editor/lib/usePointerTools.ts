@@ -15,6 +15,7 @@ export interface CanvasIntents {
   channel: (points: PointUm[], start?: TerminalRef, end?: TerminalRef) => void
   place: (kind: PlaceableKind, at: PointUm) => void
   port: (kind: 'inlet' | 'outlet', phase: 'continuous' | 'dispersed' | undefined, at: PointUm) => void
+  mark: (at: PointUm) => void
 }
 
 interface Ctx {
@@ -65,6 +66,8 @@ export function usePointerTools(c: Ctx) {
       measure.value = !measure.value || measure.value.b ? { a: point, b: null } : { a: measure.value.a, b: point }
     } else if (tool.startsWith('place:')) {
       c.emit.place(tool.slice(6) as PlaceableKind, snapToGrid(p, c.pitch()))
+    } else if (tool === 'mark') {
+      c.emit.mark(snapToGrid(p, c.pitch()))
     } else if (tool.startsWith('port:')) {
       const which = tool.slice(5)
       c.emit.port(which === 'outlet' ? 'outlet' : 'inlet', which === 'outlet' ? undefined : (which as 'continuous' | 'dispersed'), snapToGrid(p, c.pitch()))
