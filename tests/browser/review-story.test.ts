@@ -92,6 +92,7 @@ describe('review story in Chromium', () => {
     await page.check(`[data-test="request-review"] label:has-text("${invited.name}") input`)
     await page.click('[data-test="request-review"] button')
     await expect.poll(() => page.textContent('[data-test="review-panel"]')).toContain('In review')
+    expect(await page.textContent('[data-test="bond-margin"]')).toMatch(/Bond limit 2000 mbar: margin \d/)
     await shot(page, 'story-1-designer-r3')
   })
 
