@@ -19,6 +19,7 @@ export async function newPage(browser: Browser): Promise<Page> {
 
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.goto('/sign-in')
+  await hydrated(page)
   await page.fill('#email', email)
   await page.fill('#password', password)
   await page.click('button[type=submit]')
