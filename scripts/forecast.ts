@@ -1,12 +1,7 @@
 // `npm run --silent forecast < request.json`: prints the forecast answer as JSON.
 // Exit code 2 with one line on stderr naming the bad field when the request is invalid.
 import { ForecastInputError, runForecast } from '../shared/physics/forecast'
-
-async function readStdin(): Promise<string> {
-  const chunks: Buffer[] = []
-  for await (const chunk of process.stdin) chunks.push(chunk as Buffer)
-  return Buffer.concat(chunks).toString('utf8')
-}
+import { readStdin } from './lib/cli'
 
 const text = await readStdin()
 let request: unknown

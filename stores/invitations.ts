@@ -6,21 +6,8 @@ import type { PendingInvitation } from '~~/shared/types/invitations'
 export const useInvitationsStore = defineStore('invitations', () => {
   const pending = ref<PendingInvitation[]>([])
   const labId = ref<string | null>(null)
-  const problem = ref<ApiProblem | null>(null)
-  const busy = ref(false)
+  const { busy, problem, run } = useApiCall()
   const lastSentTo = ref<string | null>(null)
-
-  async function run<T>(work: () => Promise<T>): Promise<T | undefined> {
-    busy.value = true
-    problem.value = null
-    try {
-      return await work()
-    } catch (error) {
-      problem.value = toApiProblem(error)
-    } finally {
-      busy.value = false
-    }
-  }
 
   async function load(lab: string) {
     labId.value = lab

@@ -24,16 +24,23 @@ export function onMailQueued(listener: (() => void) | null) {
 const oneLine = (value: string, max: number) => value.replace(/[\r\n\t]+/g, ' ').trim().slice(0, max)
 
 export async function queueMail(db: DbOrTx, mail: QueuedMail): Promise<string> {
-  const [row] = await db.insert(mailOutbox).values({
+  const [id] = await queueMailTo(db, [mail.to], mail)
+  return id!
+}
+
+/** One message to each recipient, queued in a single statement. */
+export async function queueMailTo(db: DbOrTx, recipients: string[], mail: Omit<QueuedMail, 'to'>): Promise<string[]> {
+  if (!recipients.length) return []
+  const rows = await db.insert(mailOutbox).values(recipients.map(to => ({
     labId: mail.labId ?? null,
     kind: mail.kind,
-    to: oneLine(mail.to, 254),
+    to: oneLine(to, 254),
     subject: oneLine(mail.subject, 300),
     text: mail.text,
     html: mail.html ?? null,
-  }).returning({ id: mailOutbox.id })
+  }))).returning({ id: mailOutbox.id })
   onQueued?.()
-  return row!.id
+  return rows.map(r => r.id)
 }
 
 /** The Message-ID a queued row is sent with; the outbox page matches kept messages to rows by it. */

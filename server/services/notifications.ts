@@ -5,22 +5,23 @@ import { designs, memberships, users } from '../db/schema'
 import type { RevisionHead as Revision } from './designGuards'
 import type { Db } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { queueMail, type DbOrTx } from './mail'
+import { queueMailTo, type DbOrTx } from './mail'
 import { newCommentMail, releasedMail, reviewRequestedMail, verdictMail } from './mailTemplates'
 
-interface Base { labId: string, to: string, designName: string, revisionNumber: number, link: string }
+/** `to`: one address or several (each gets its own message, queued in one statement). */
+interface Base { labId: string, to: string | string[], designName: string, revisionNumber: number, link: string }
 
 export const mailReviewRequested = (db: DbOrTx, p: Base & { requesterName: string }) =>
-  queueMail(db, { labId: p.labId, kind: 'review-requested', to: p.to, ...reviewRequestedMail(p) })
+  queueMailTo(db, [p.to].flat(), { labId: p.labId, kind: 'review-requested', ...reviewRequestedMail(p) })
 
 export const mailNewComment = (db: DbOrTx, p: Base & { commenterName: string, excerpt: string }) =>
-  queueMail(db, { labId: p.labId, kind: 'new-comment', to: p.to, ...newCommentMail(p) })
+  queueMailTo(db, [p.to].flat(), { labId: p.labId, kind: 'new-comment', ...newCommentMail(p) })
 
 export const mailVerdict = (db: DbOrTx, p: Base & { reviewerName: string, verdict: 'approve' | 'request-changes', note?: string }) =>
-  queueMail(db, { labId: p.labId, kind: 'verdict', to: p.to, ...verdictMail(p) })
+  queueMailTo(db, [p.to].flat(), { labId: p.labId, kind: 'verdict', ...verdictMail(p) })
 
 export const mailReleased = (db: DbOrTx, p: Base & { releasedByName: string, labName: string }) =>
-  queueMail(db, { labId: p.labId, kind: 'released', to: p.to, ...releasedMail(p) })
+  queueMailTo(db, [p.to].flat(), { labId: p.labId, kind: 'released', ...releasedMail(p) })
 
 // Who hears about review events. Called by the review services inside their transaction.
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
@@ -46,23 +47,23 @@ async function emailsOf(tx: Tx, ids: Array<string | undefined>, except: string) 
 
 export async function notifyReviewRequested(tx: Tx, caller: LabCaller, revision: Revision, reviewerIds: string[]) {
   const c = await context(tx, caller, revision)
-  for (const to of await emailsOf(tx, reviewerIds, caller.userId)) await mailReviewRequested(tx, { ...c, to, requesterName: c.actorName })
+  await mailReviewRequested(tx, { ...c, to: await emailsOf(tx, reviewerIds, caller.userId), requesterName: c.actorName })
 }
 
 export async function notifyComment(tx: Tx, caller: LabCaller, revision: Revision, body: string) {
   const c = await context(tx, caller, revision)
   const excerpt = body.length > 400 ? `${body.slice(0, 400)}…` : body
-  for (const to of await emailsOf(tx, [revision.authorId, c.createdBy], caller.userId)) await mailNewComment(tx, { ...c, to, commenterName: c.actorName, excerpt })
+  await mailNewComment(tx, { ...c, to: await emailsOf(tx, [revision.authorId, c.createdBy], caller.userId), commenterName: c.actorName, excerpt })
 }
 
 export async function notifyVerdict(tx: Tx, caller: LabCaller, revision: Revision, verdict: 'approve' | 'request-changes', note: string) {
   const c = await context(tx, caller, revision)
-  for (const to of await emailsOf(tx, [revision.authorId], caller.userId)) await mailVerdict(tx, { ...c, to, reviewerName: c.actorName, verdict, note })
+  await mailVerdict(tx, { ...c, to: await emailsOf(tx, [revision.authorId], caller.userId), reviewerName: c.actorName, verdict, note })
 }
 
 export async function notifyReleased(tx: Tx, caller: LabCaller, revision: Revision) {
   const c = await context(tx, caller, revision)
   const fabricators = await tx.select({ userId: memberships.userId }).from(memberships)
     .where(and(eq(memberships.labId, caller.lab.labId), eq(memberships.role, 'fabricator')))
-  for (const to of await emailsOf(tx, fabricators.map(f => f.userId), caller.userId)) await mailReleased(tx, { ...c, to, releasedByName: c.actorName, labName: caller.lab.name })
+  await mailReleased(tx, { ...c, to: await emailsOf(tx, fabricators.map(f => f.userId), caller.userId), releasedByName: c.actorName, labName: caller.lab.name })
 }

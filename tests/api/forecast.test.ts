@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { ApiClient, signedIn } from '../support/api'
+import example from '../fixtures/forecast/t-junction-request.json'  // the example of docs/forecast-api.md
 
-const example = {
-  junction: { kind: 't-junction', mainWidth: '100 um', inletWidth: '50 um', depth: '50 um' },
-  continuous: { viscosity: '3 mPa*s', density: '800 kg/m^3' },
-  dispersed: { liquid: 'water' },
-  interfacialTension: '5 mN/m',
-  contactAngle: '150 deg',
-  temperature: '20 degC',
-  flow: { continuous: '10 uL/min', dispersed: '5 uL/min' },
-  model: { alpha: 1 },
-}
 
 describe('POST /api/v1/forecast and GET /api/v1/liquids (real server)', () => {
   it('answers the documented junction example with cited quantities', async () => {

@@ -19,8 +19,9 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   let rulesTimer: ReturnType<typeof setTimeout> | undefined
   const run = (d: ChipDocument) => {
     try {
-      const { doc: connected, left } = withoutLoose(d)
-      const forecast = forecastDocument(connected)
+      const forecast = forecastDocument(d)
+      // Parts not wired yet are left out by the forecast itself (warning "component-unconnected").
+      const left = forecast.warnings.filter(w => w.code === 'component-unconnected').map(w => (w as { element?: string }).element)
       const note = left.length ? `Not yet connected, so not forecast: ${left.join(', ')}` : null
       live.value = { forecast, summary: summarizeForecast(forecast), error: note, at: performance.now() }
     } catch (error) {
@@ -61,13 +62,3 @@ export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null)
 
 export const viewerFindings = (fs: Finding[]): ViewerFinding[] =>
   fs.map(f => ({ id: f.id, severity: f.severity, x: f.location.x, y: f.location.y, message: f.message }))
-
-/**
- * A part just placed has no channel attached yet, and the network cannot give it a pressure; the rest of the chip
- * is still forecast. Leaves out components no channel attaches to, and reports them.
- */
-export function withoutLoose(d: ChipDocument): { doc: ChipDocument; left: string[] } {
-  const attached = new Set(d.channels.flatMap(c => [c.start?.element, c.end?.element]).filter(Boolean) as string[])
-  const left = d.components.filter(c => !attached.has(c.id)).map(c => c.id)
-  return left.length ? { doc: { ...d, components: d.components.filter(c => attached.has(c.id)) }, left } : { doc: d, left }
-}

@@ -59,7 +59,15 @@ export function compileDocument(doc: ChipDocument, op: ResolvedOperatingPoint): 
     })
   })
   if (issues.length) throw new ForecastInputError(issues)
+  // A component no channel reaches (just placed, not yet wired) cannot carry flow: leave it out and say so, as
+  // for an unconnected outlet, rather than fail the whole chip's forecast.
+  const reached = new Set<string>()
+  for (const ch of channels) (reached.add(ch.from), reached.add(ch.to))
   for (const c of doc.components) {
+    if (!terminalNames(c).some((name) => reached.has(connections.node(terminalKey(c.id, name, false))))) {
+      warnings.push({ code: 'component-unconnected', element: c.id, message: `Component "${c.id}" is not connected to any channel, so it is not forecast: end a channel on one of its terminals (${terminalNames(c).join(', ')})` })
+      continue
+    }
     compileComponent(c, { terminal: (name) => connections.node(terminalKey(c.id, name, false)), depth, channels, junctions })
   }
 

@@ -2,17 +2,8 @@ import { describe, expect, it } from 'vitest'
 import { fitSqueezingAlpha, fitThroughOrigin, tQuantile975 } from '#shared/physics/calibration'
 import { ForecastInputError, runForecast } from '#shared/physics/forecast'
 import type { Metres } from '#shared/physics/units'
+import example from '../../fixtures/forecast/t-junction-request.json'  // the example of docs/forecast-api.md
 
-const example = {
-  junction: { kind: 't-junction', mainWidth: '100 um', inletWidth: '50 um', depth: '50 um' },
-  continuous: { viscosity: '3 mPa*s', density: '800 kg/m^3' },
-  dispersed: { liquid: 'water' },
-  interfacialTension: '5 mN/m',
-  contactAngle: '150 deg',
-  temperature: '20 degC',
-  flow: { continuous: '10 uL/min', dispersed: '5 uL/min' },
-  model: { alpha: 1 },
-}
 const withFields = (patch: Record<string, unknown>) => JSON.parse(JSON.stringify({ ...example, ...patch }))
 
 function issuesOf(request: unknown) {
