@@ -1,0 +1,79 @@
+// ECharts options for the forecast plots of one junction, built from the sweeps in shared/editor/sweep.ts. Pure:
+// the same numbers give the same option, so a test can read what a plot will show without a browser.
+import type { EChartsOption } from 'echarts'
+import type { RegimeCell, SweepPoint } from '#shared/editor/sweep'
+
+/** Dropwright's palette (tailwind.config.ts) for the plots. */
+export const PLOT_COLOURS = {
+  line: '#1f6f8b', current: '#de9a25', outside: '#b86e00', ink: '#3e4a56', grid: '#d3dae0', frame: '#b0bcc6',
+  regimes: { 'squeezing': '#a9d2e1', 'transition': '#f2d28a', 'dripping': '#3f90b0', 'jetting': '#b3372b', 'step-emulsification': '#74b4cc' } as Record<string, string>,
+}
+
+const FONT = { fontFamily: 'JetBrains Mono, ui-monospace, monospace', fontSize: 10, color: PLOT_COLOURS.ink }
+const sig = (v: number) => (v >= 1e-2 && v < 1e4 ? String(Number(v.toPrecision(3))) : v.toExponential(1))
+
+function logAxis(name: string, gap: number) {
+  return {
+    type: 'log' as const, name, nameLocation: 'middle' as const, nameGap: gap, logBase: 10,
+    // Hug the data (a flat curve over three empty decades reads as "nothing changes").
+    min: (v: { min: number }) => v.min / 1.3, max: (v: { max: number }) => v.max * 1.3,
+    nameTextStyle: { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif', fontSize: 11 },
+    axisLabel: { ...FONT, formatter: (v: number) => sig(v), showMinLabel: false, showMaxLabel: false }, axisLine: { lineStyle: { color: PLOT_COLOURS.frame } },
+    splitLine: { lineStyle: { color: PLOT_COLOURS.grid } }, minorTick: { show: false },
+  }
+}
+
+/** Diameter axis: linear while the sizes stay within a decade (a log axis would show one tick), log beyond. */
+function diameterAxis(values: number[]) {
+  const v = values.filter(x => x > 0 && Number.isFinite(x))
+  const log = v.length > 0 && Math.max(...v) / Math.min(...v) > 10
+  const axis = logAxis('droplet diameter, µm', 36)
+  return log ? axis : { ...axis, type: 'value' as const, logBase: undefined, scale: true, min: undefined, max: undefined, splitNumber: 4 }
+}
+
+const base = (): EChartsOption => ({
+  animation: false, textStyle: FONT,
+  grid: { left: 48, right: 12, top: 14, bottom: 42 },
+  tooltip: { trigger: 'item', confine: true, textStyle: { ...FONT, fontSize: 11 } },
+})
+
+export interface SizePlotInput { points: SweepPoint[]; current: { x: number; diameterUm: number }; xName: string; xSymbol: string }
+
+/** Droplet diameter (µm) against a swept quantity (log); points outside a method's validity in amber; the current point marked. */
+export function sizePlotOption({ points, current, xName, xSymbol }: SizePlotInput): EChartsOption {
+  const tip = (x: number, d: number) => `${xSymbol} = ${sig(x)}<br>Ø ${sig(d)} µm`
+  return {
+    ...base(),
+    xAxis: logAxis(xName, 26),
+    yAxis: diameterAxis(points.map(p => p.diameterUm).concat(current.diameterUm)),
+    series: [
+      { name: 'forecast', type: 'line', showSymbol: false, data: points.map(p => [p.x, p.diameterUm]), lineStyle: { color: PLOT_COLOURS.line, width: 1.8 }, itemStyle: { color: PLOT_COLOURS.line }, tooltip: { formatter: (p: { value: number[] }) => tip(p.value[0]!, p.value[1]!) } },
+      { name: 'outside validity', type: 'scatter', symbolSize: 5, data: points.filter(p => !p.valid).map(p => [p.x, p.diameterUm]), itemStyle: { color: PLOT_COLOURS.outside }, tooltip: { formatter: (p: { value: number[] }) => `${tip(p.value[0]!, p.value[1]!)}<br>outside the method's validity` } },
+      { name: 'operating point', type: 'scatter', symbolSize: 10, z: 5, data: [[current.x, current.diameterUm]], itemStyle: { color: PLOT_COLOURS.current, borderColor: '#0f1317', borderWidth: 1.5 }, tooltip: { formatter: (p: { value: number[] }) => `operating point<br>${tip(p.value[0]!, p.value[1]!)}` } },
+    ],
+  }
+}
+
+export interface RegimeMapInput { cells: RegimeCell[]; current: { ca: number; phi: number } }
+
+/** Breakup regime over capillary number × flow-rate ratio (both log), one series per regime, the current point ringed. */
+export function regimeMapOption({ cells, current }: RegimeMapInput): EChartsOption {
+  const regimes = [...new Set(cells.map(c => c.regime))]
+  return {
+    ...base(),
+    grid: { left: 48, right: 12, top: 30, bottom: 42 },
+    legend: { top: 0, left: 'center', itemWidth: 10, itemHeight: 10, textStyle: { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif', fontSize: 11 }, data: regimes },
+    xAxis: logAxis('capillary number Ca', 26),
+    yAxis: logAxis('flow-rate ratio φ', 36),
+    series: [
+      ...regimes.map(r => ({
+        name: r, type: 'scatter' as const, symbol: 'rect', symbolSize: 11, data: cells.filter(c => c.regime === r).map(c => [c.ca, c.phi]),
+        itemStyle: { color: PLOT_COLOURS.regimes[r] ?? PLOT_COLOURS.frame, opacity: 0.9 },
+        tooltip: { formatter: (p: { value: number[] }) => `${r}<br>Ca = ${sig(p.value[0]!)}<br>φ = ${sig(p.value[1]!)}` },
+      })),
+      { name: 'operating point', type: 'scatter' as const, symbol: 'circle', symbolSize: 13, z: 5, data: [[current.ca, current.phi]], itemStyle: { color: 'rgba(0,0,0,0)', borderColor: '#0f1317', borderWidth: 2.5 }, tooltip: { formatter: (p: { value: number[] }) => `operating point<br>Ca = ${sig(p.value[0]!)}<br>φ = ${sig(p.value[1]!)}` } },
+    ],
+  }
+}
+
+export const shortNumber = sig
