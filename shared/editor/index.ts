@@ -5,13 +5,16 @@ import { addChannel, addChannelPoint, placeComponent, placePort } from './draw'
 import { setDocumentField, setField, setInlet, setOperatingPointField } from './fields'
 import { duplicate, paste, remove } from './structure'
 import { move, rotate } from './transform'
+import { insertChannelPoint, moveChannelPoint, removeChannelPoint } from './channelPoints'
+import { addLayer, addOperatingPoint, removeLayer, removeOperatingPoint, setLayerField } from './setup'
 
 /** Every edit the editor can make, by name. */
 export const actions = {
   move, rotate, duplicate, paste, delete: remove,
   setField, setDocumentField, setOperatingPointField, setInlet,
-  addChannel, addChannelPoint, placeComponent, placePort, placeArray,
+  addChannel, addChannelPoint, insertChannelPoint, moveChannelPoint, removeChannelPoint, placeComponent, placePort, placeArray,
   setOutline, clearOutline, placeMark,
+  addLayer, setLayerField, removeLayer, addOperatingPoint, removeOperatingPoint,
 }
 export type ActionName = keyof typeof actions
 export type ActionArgs<N extends ActionName> = Parameters<(typeof actions)[N]>[1]
@@ -25,5 +28,6 @@ export { findElement, SELECTABLE } from './elements'
 export { PLACEABLE, type PlaceableKind } from './templates'
 export { exportDocument, importDocument, exportFileName } from './exchange'
 export { terminalPosition } from './attach'
+export { elementsOnLayer } from './setup'
 export { ARRAY_LIMIT, type ArrayKind } from './arrays'
 export type { ActionResult, EditRefusal, HistoryPolicy, PointUm, ElementCollection } from './types'
