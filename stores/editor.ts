@@ -19,6 +19,8 @@ export const useEditorStore = defineStore('editor', () => {
   const saved = shallowRef<ChipDocument | null>(null)
   const selection = ref<string[]>([])
   const gridPitch = ref(50)
+  /** The layer new channels, parts and ports are drawn on (the first layer until the person picks another). */
+  const drawLayer = ref('')
   const refusal = ref<string | null>(null)
   const conflict = ref<SaveConflict | null>(null)
   const clip = shallowRef<Clip | null>(null)
@@ -37,6 +39,7 @@ export const useEditorStore = defineStore('editor', () => {
     history.value = startHistory(document)
     saved.value = document
     selection.value = []
+    drawLayer.value = document.layers[0]!.id
     refusal.value = null
     conflict.value = null
   }
@@ -66,6 +69,7 @@ export const useEditorStore = defineStore('editor', () => {
     refusal.value = null
     history.value = commit(history.value, result.doc, result.history)
     selection.value = selection.value.filter(id => elementExists(result.doc, id))
+    keepDrawLayer()
     return true
   }
 
@@ -73,11 +77,13 @@ export const useEditorStore = defineStore('editor', () => {
   function replace(document: ChipDocument) {
     if (history.value) history.value = commit(history.value, document, 'record')
     selection.value = []
+    keepDrawLayer()
   }
 
   const undo = () => { if (history.value) { history.value = undoH(history.value); prune() } }
   const redo = () => { if (history.value) { history.value = redoH(history.value); prune() } }
-  const prune = () => { selection.value = selection.value.filter(id => doc.value && elementExists(doc.value, id)) }
+  const prune = () => { selection.value = selection.value.filter(id => doc.value && elementExists(doc.value, id)); keepDrawLayer() }
+  const keepDrawLayer = () => { if (doc.value && !doc.value.layers.some(l => l.id === drawLayer.value)) drawLayer.value = doc.value.layers[0]!.id }
 
   function select(ids: string[], mode: 'replace' | 'toggle' | 'add' = 'replace') {
     if (mode === 'replace') selection.value = [...ids]
@@ -123,7 +129,7 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   return {
-    labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, refusal, conflict, busy, problem, dirty, undoable, redoable,
+    labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, drawLayer, refusal, conflict, busy, problem, dirty, undoable, redoable,
     load, open, apply, replace, undo, redo, select, copySelection, pasteClip, duplicateSelection, deleteSelection, rotateSelection, save,
     hasClip: computed(() => !!clip.value),
   }

@@ -27,7 +27,7 @@ export function setOutline(doc: ChipDocument, args: { width?: number; height?: n
 }
 
 /** Remove the outline (the chip is then cut around its parts by whoever makes it). */
-export function clearOutline(doc: ChipDocument): ActionOutcome {
+export function clearOutline(doc: ChipDocument, _args: Record<string, never> = {}): ActionOutcome {
   const { outline: _gone, ...rest } = doc
   return { doc: rest as ChipDocument, history: 'record' }
 }

@@ -3,10 +3,11 @@
 // outline and marks; and a demo-like design edited, saved as a new revision, exported and imported back.
 import type { Browser, Page } from 'playwright-core'
 import { readFile } from 'node:fs/promises'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient } from '../support/api'
 import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
 import { labWithDesign } from '../support/designs'
+import { at, editorPage } from '../support/editor'
 import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
@@ -30,12 +31,6 @@ async function openEditor(page: Page) {
   await page.waitForSelector('[data-test="editor-canvas"] canvas')
 }
 
-/** Screen point of a world point (µm) on the fixture chip, fitted into the canvas with a 24 px margin. */
-async function at(page: Page, x: number, y: number) {
-  const b = (await page.locator('[data-test="editor-canvas"]').boundingBox())!
-  const s = Math.min((b.width - 48) / 10000, (b.height - 48) / 7000)
-  return { x: b.x + b.width / 2 + (x - 5000) * s, y: b.y + b.height / 2 - (y - 3500) * s }
-}
 const diameter = (page: Page) => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()
 
 describe('chip editor in Chromium', () => {
@@ -197,12 +192,7 @@ describe('a demo-like design in the editor', () => {
 
   beforeAll(async () => {
     lab = await labWithDesign()
-    const context = await browser.newContext({ baseURL: inject('baseURL'), viewport: { width: 1280, height: 800 }, acceptDownloads: true })
-    await context.addCookies([...lab.as.designer.cookies].map(([name, value]) => ({ name, value, url: inject('baseURL') })))
-    page = await context.newPage()
-    await page.goto(`/labs/${lab.lab.id}/designs/${lab.designId}/edit`)
-    await hydrated(page)
-    await page.waitForSelector('[data-test="editor-canvas"] canvas')
+    page = await editorPage(browser, lab.as.designer, lab.lab.id, lab.designId)
   })
   afterAll(async () => { await page?.context().close() })
 

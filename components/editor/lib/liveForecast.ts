@@ -20,8 +20,8 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   const run = (d: ChipDocument) => {
     try {
       const forecast = forecastDocument(d)
-      // Parts not wired yet are left out by the forecast itself (warning "component-unconnected").
-      const left = forecast.warnings.filter(w => w.code === 'component-unconnected').map(w => (w as { element?: string }).element)
+      // Parts and channels not wired yet are left out by the forecast itself, with a warning naming each.
+      const left = forecast.warnings.filter(w => w.code === 'component-unconnected' || w.code === 'channels-unconnected').map(w => (w as { element?: string }).element)
       const note = left.length ? `Not yet connected, so not forecast: ${left.join(', ')}` : null
       live.value = { forecast, summary: summarizeForecast(forecast), error: note, at: performance.now() }
     } catch (error) {

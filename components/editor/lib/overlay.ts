@@ -93,3 +93,24 @@ export function drawBox(ctx: CanvasRenderingContext2D, a: { x: number; y: number
   ctx.fillRect(x, y, w, h); ctx.strokeRect(x + 0.5, y + 0.5, w, h)
   ctx.restore()
 }
+
+/**
+ * Handles on the points of a selected channel (squares for bends, circles for ends); while one is dragged, the
+ * channel's centre line with that point moved, at true width.
+ */
+export function drawChannelHandles(ctx: CanvasRenderingContext2D, view: View, points: PointUm[], widthUm: number, moving: { index: number; point: PointUm } | null) {
+  const pts = moving ? points.map((p, i) => (i === moving.index ? moving.point : p)) : points
+  if (moving) drawDraft(ctx, view, pts, null, widthUm, null)
+  ctx.save()
+  ctx.lineWidth = 1.5
+  pts.forEach((p, i) => {
+    const s = worldToScreen(view, worldPoint(p.x, p.y))
+    ctx.fillStyle = moving?.index === i ? colors.oil[300] : '#fff'
+    ctx.strokeStyle = colors.aqueous[700]
+    ctx.beginPath()
+    if (i === 0 || i === pts.length - 1) ctx.arc(s.x, s.y, 5, 0, Math.PI * 2)
+    else ctx.rect(s.x - 4.5, s.y - 4.5, 9, 9)
+    ctx.fill(); ctx.stroke()
+  })
+  ctx.restore()
+}

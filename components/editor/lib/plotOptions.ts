@@ -1,6 +1,6 @@
 // ECharts options for the forecast plots of one junction, built from the sweeps in shared/editor/sweep.ts. Pure:
 // the same numbers give the same option, so a test can read what a plot will show without a browser.
-import type { EChartsOption } from 'echarts'
+import type { EChartsOption, TooltipComponentFormatterCallbackParams } from 'echarts'
 import type { RegimeCell, SweepPoint } from '#shared/editor/sweep'
 
 /** Dropwright's palette (tailwind.config.ts) for the plots. */
@@ -10,6 +10,11 @@ export const PLOT_COLOURS = {
 }
 
 const FONT = { fontFamily: 'JetBrains Mono, ui-monospace, monospace', fontSize: 10, color: PLOT_COLOURS.ink }
+/** A tooltip formatter from the point's (x, y). */
+const tipOf = (f: (x: number, y: number) => string) => (p: TooltipComponentFormatterCallbackParams) => {
+  const v = (Array.isArray(p) ? p[0] : p)?.value as number[]
+  return f(v[0]!, v[1]!)
+}
 const sig = (v: number) => (v >= 1e-2 && v < 1e4 ? String(Number(v.toPrecision(3))) : v.toExponential(1))
 
 function logAxis(name: string, gap: number) {
@@ -47,9 +52,9 @@ export function sizePlotOption({ points, current, xName, xSymbol }: SizePlotInpu
     xAxis: logAxis(xName, 26),
     yAxis: diameterAxis(points.map(p => p.diameterUm).concat(current.diameterUm)),
     series: [
-      { name: 'forecast', type: 'line', showSymbol: false, data: points.map(p => [p.x, p.diameterUm]), lineStyle: { color: PLOT_COLOURS.line, width: 1.8 }, itemStyle: { color: PLOT_COLOURS.line }, tooltip: { formatter: (p: { value: number[] }) => tip(p.value[0]!, p.value[1]!) } },
-      { name: 'outside validity', type: 'scatter', symbolSize: 5, data: points.filter(p => !p.valid).map(p => [p.x, p.diameterUm]), itemStyle: { color: PLOT_COLOURS.outside }, tooltip: { formatter: (p: { value: number[] }) => `${tip(p.value[0]!, p.value[1]!)}<br>outside the method's validity` } },
-      { name: 'operating point', type: 'scatter', symbolSize: 10, z: 5, data: [[current.x, current.diameterUm]], itemStyle: { color: PLOT_COLOURS.current, borderColor: '#0f1317', borderWidth: 1.5 }, tooltip: { formatter: (p: { value: number[] }) => `operating point<br>${tip(p.value[0]!, p.value[1]!)}` } },
+      { name: 'forecast', type: 'line', showSymbol: false, data: points.map(p => [p.x, p.diameterUm]), lineStyle: { color: PLOT_COLOURS.line, width: 1.8 }, itemStyle: { color: PLOT_COLOURS.line }, tooltip: { formatter: tipOf((x, y) => tip(x, y)) } },
+      { name: 'outside validity', type: 'scatter', symbolSize: 5, data: points.filter(p => !p.valid).map(p => [p.x, p.diameterUm]), itemStyle: { color: PLOT_COLOURS.outside }, tooltip: { formatter: tipOf((x, y) => `${tip(x, y)}<br>outside the method's validity`) } },
+      { name: 'operating point', type: 'scatter', symbolSize: 10, z: 5, data: [[current.x, current.diameterUm]], itemStyle: { color: PLOT_COLOURS.current, borderColor: '#0f1317', borderWidth: 1.5 }, tooltip: { formatter: tipOf((x, y) => `operating point<br>${tip(x, y)}`) } },
     ],
   }
 }
@@ -69,9 +74,9 @@ export function regimeMapOption({ cells, current }: RegimeMapInput): EChartsOpti
       ...regimes.map(r => ({
         name: r, type: 'scatter' as const, symbol: 'rect', symbolSize: 11, data: cells.filter(c => c.regime === r).map(c => [c.ca, c.phi]),
         itemStyle: { color: PLOT_COLOURS.regimes[r] ?? PLOT_COLOURS.frame, opacity: 0.9 },
-        tooltip: { formatter: (p: { value: number[] }) => `${r}<br>Ca = ${sig(p.value[0]!)}<br>φ = ${sig(p.value[1]!)}` },
+        tooltip: { formatter: tipOf((x, y) => `${r}<br>Ca = ${sig(x)}<br>φ = ${sig(y)}`) },
       })),
-      { name: 'operating point', type: 'scatter' as const, symbol: 'circle', symbolSize: 13, z: 5, data: [[current.ca, current.phi]], itemStyle: { color: 'rgba(0,0,0,0)', borderColor: '#0f1317', borderWidth: 2.5 }, tooltip: { formatter: (p: { value: number[] }) => `operating point<br>Ca = ${sig(p.value[0]!)}<br>φ = ${sig(p.value[1]!)}` } },
+      { name: 'operating point', type: 'scatter' as const, symbol: 'circle', symbolSize: 13, z: 5, data: [[current.ca, current.phi]], itemStyle: { color: 'rgba(0,0,0,0)', borderColor: '#0f1317', borderWidth: 2.5 }, tooltip: { formatter: tipOf((x, y) => `operating point<br>Ca = ${sig(x)}<br>φ = ${sig(y)}`) } },
     ],
   }
 }

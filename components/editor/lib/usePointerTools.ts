@@ -1,5 +1,6 @@
 // Pointer handling for the editor canvas: select (click, shift-click, box), drag to move with snapping, draw a
-// channel point by point (snapping to terminals, then the grid), place parts and ports, measure. Emits intents;
+// channel point by point (snapping to terminals, then the grid), reshape a selected channel (drag its handles,
+// double-click to add or remove a bend), place parts and ports, measure. Emits intents;
 // the store turns them into named actions. Nothing here changes the document.
 import { ref, shallowRef, type Ref, type ShallowRef } from 'vue'
 import type { ChipDocument, TerminalRef } from '~~/shared/schemas/chip'
@@ -16,6 +17,10 @@ export interface CanvasIntents {
   place: (kind: PlaceableKind, at: PointUm) => void
   port: (kind: 'inlet' | 'outlet', phase: 'continuous' | 'dispersed' | undefined, at: PointUm) => void
   mark: (at: PointUm) => void
+  /** A bend inserted into a channel, a point of it moved (an end dropped on a terminal attaches), a bend removed. */
+  bend: (id: string, at: PointUm) => void
+  vertex: (id: string, index: number, at: PointUm, attach?: TerminalRef) => void
+  unbend: (id: string, index: number) => void
 }
 
 interface Ctx {
@@ -31,6 +36,8 @@ interface Ctx {
 
 const DRAG_PX = 3
 const SNAP_PX = 14
+/** How near (px) a press must be to a channel point to take its handle. */
+export const HANDLE_PX = 7
 
 export function usePointerTools(c: Ctx) {
   const drag = shallowRef<{ ids: string[]; delta: PointUm } | null>(null)
@@ -40,16 +47,31 @@ export function usePointerTools(c: Ctx) {
   const snapped = shallowRef<PointUm | null>(null)
   const measure = shallowRef<{ a: PointUm; b: PointUm | null } | null>(null)
   const hoverId: Ref<string | null> = ref(null)
+  const vertex = shallowRef<{ id: string; index: number; point: PointUm; attach?: TerminalRef } | null>(null)
+  let vertexPress: { id: string; index: number; screen: { x: number; y: number } } | null = null
   let press: { screen: { x: number; y: number }; world: PointUm; anchor: PointUm; ids: string[] } | null = null
 
   const world = (s: { x: number; y: number }) => screenToWorld(c.view.value, screenPoint(s.x, s.y))
   const hit = (p: PointUm) => hitTest(c.scene().index, p.x, p.y, { toleranceUm: 4 / c.view.value.scale, layerIds: c.visibleLayers() })
   const snap = (p: PointUm) => snapPoint(c.doc(), p, { pitch: c.pitch(), terminalRadius: SNAP_PX / c.view.value.scale })
 
+  /** The selected channel (only one selected) and the index of its point under screen point s, if any. */
+  function handleAt(s: { x: number; y: number }): { id: string; index: number } | null {
+    const sel = c.selection()
+    if (sel.length !== 1) return null
+    const ch = c.doc().channels.find((x) => x.id === sel[0])
+    if (!ch) return null
+    const v = c.view.value
+    const index = ch.points.findIndex((q) => Math.hypot(v.tx + q.x * v.scale - s.x, v.ty - q.y * v.scale - s.y) <= HANDLE_PX)
+    return index >= 0 ? { id: ch.id, index } : null
+  }
+
   function down(s: { x: number; y: number }, shift: boolean) {
     const p = world(s)
     const tool = c.tool()
     if (tool === 'select') {
+      const handle = shift ? null : handleAt(s)
+      if (handle) { vertexPress = { ...handle, screen: s }; return }
       const id = hit(p)
       if (!id) { box.value = { a: s, b: s, mode: shift ? 'add' : 'replace' }; return }
       if (shift) { c.emit.select([id], 'toggle'); return }
@@ -76,6 +98,16 @@ export function usePointerTools(c: Ctx) {
 
   function moveTo(s: { x: number; y: number }) {
     const p = world(s)
+    if (vertexPress) {
+      if (vertex.value || Math.hypot(s.x - vertexPress.screen.x, s.y - vertexPress.screen.y) >= DRAG_PX) {
+        const ch = c.doc().channels.find((x) => x.id === vertexPress!.id)
+        const end = !!ch && (vertexPress.index === 0 || vertexPress.index === ch.points.length - 1)
+        const r = end ? snap(p) : { point: snapToGrid(p, c.pitch()), terminal: null }
+        vertex.value = { id: vertexPress.id, index: vertexPress.index, point: r.point, ...(r.terminal ? { attach: r.terminal.ref } : {}) }
+        snapped.value = r.terminal ? r.point : null
+      }
+      return
+    }
     if (press) {
       const far = Math.hypot(s.x - press.screen.x, s.y - press.screen.y) >= DRAG_PX
       if (far || drag.value) drag.value = { ids: press.ids, delta: snapDelta(press.anchor, p.x - press.world.x, p.y - press.world.y, c.pitch()) }
@@ -96,6 +128,14 @@ export function usePointerTools(c: Ctx) {
   const rubber = shallowRef<PointUm | null>(null)
 
   function up() {
+    if (vertexPress) {
+      const v = vertex.value
+      vertexPress = null
+      vertex.value = null
+      snapped.value = null
+      if (v) c.emit.vertex(v.id, v.index, v.point, v.attach)
+      return
+    }
     if (press) {
       const d = drag.value
       press = null
@@ -111,6 +151,21 @@ export function usePointerTools(c: Ctx) {
     }
   }
 
+  /** Double-click: finish a channel being drawn; with the select tool, remove the bend under a handle or add one on a channel. */
+  function doubleClick(s: { x: number; y: number }) {
+    if (c.tool() === 'channel') { finishChannel(); return }
+    if (c.tool() !== 'select') return
+    const handle = handleAt(s)
+    const ch = handle && c.doc().channels.find((x) => x.id === handle.id)
+    if (handle && ch) {
+      if (handle.index > 0 && handle.index < ch.points.length - 1) c.emit.unbend(handle.id, handle.index)
+      return
+    }
+    const p = world(s)
+    const id = hit(p)
+    if (id && c.doc().channels.some((x) => x.id === id)) c.emit.bend(id, snapToGrid(p, c.pitch()))
+  }
+
   function finishChannel(end?: TerminalRef) {
     const pts = draft.value
     if (pts.length >= 2) c.emit.channel(pts, draftStart, end)
@@ -122,11 +177,12 @@ export function usePointerTools(c: Ctx) {
     if (draft.value.length) { finishChannel(); return true }
     if (measure.value) { measure.value = null; return true }
     if (press || drag.value) { press = null; drag.value = null; return true }
+    if (vertexPress || vertex.value) { vertexPress = null; vertex.value = null; return true }
     return false
   }
   const reset = () => { draft.value = []; draftStart = undefined; measure.value = null; snapped.value = null; rubber.value = null }
 
-  return { drag, box, draft, snapped, measure, hoverId, rubber, down, moveTo, up, escape, finishChannel, reset }
+  return { drag, box, draft, snapped, measure, hoverId, rubber, vertex, down, moveTo, up, escape, finishChannel, doubleClick, reset }
 }
 
 /** Ids of elements lying wholly inside the box spanned by two world points. */

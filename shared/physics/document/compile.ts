@@ -105,7 +105,34 @@ export function compileDocument(doc: ChipDocument, op: ResolvedOperatingPoint): 
     sources.push('pressure' in si ? { port: p.id, kind: 'inlet', node, mode: 'pressure', pressure: si.pressure } : { port: p.id, kind: 'inlet', node, mode: 'flow', flow: si.flow })
   })
   if (issues.length) throw new ForecastInputError(issues)
-  return { channels: kept, junctions, sources, warnings }
+  const wired = dropIslands(kept, sources, warnings)
+  if (wired.length !== kept.length) remapJunctions(junctions, kept, wired)
+  return { channels: wired, junctions, sources, warnings }
+}
+
+/**
+ * A group of channels that touches no inlet and no outlet (a channel just drawn, not yet wired) carries no flow
+ * and has no pressure to solve for: leave it out with a warning naming its elements, as for an unwired part,
+ * rather than fail the whole chip. A group that has a feed but no way out still fails the solve, as it should.
+ */
+function dropIslands(channels: CompiledChannel[], sources: DocumentSource[], warnings: DocumentWarning[]): CompiledChannel[] {
+  const parent = new Map<string, string>()
+  const root = (n: string): string => { let r = n; while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!; parent.set(n, r); return r }
+  for (const ch of channels) {
+    const a = root(ch.from), b = root(ch.to)
+    if (a !== b) parent.set(a, b)
+  }
+  const fed = new Set(sources.map((s) => root(s.node)))
+  const left: string[] = []
+  const kept = channels.filter((ch) => {
+    if (fed.has(root(ch.from))) return true
+    if (!left.includes(ch.element)) left.push(ch.element)
+    return false
+  })
+  for (const element of left) {
+    warnings.push({ code: 'channels-unconnected', element, message: `"${element}" is not connected to any inlet or outlet, so it carries no flow and is not forecast: connect it to the chip or delete it` })
+  }
+  return kept
 }
 
 /** Junctions refer to channels by index; re-point them after channels were dropped. */

@@ -100,11 +100,24 @@ describe('document forecast: errors name the element and the fix', () => {
     expect(issues[0]!.message).toMatch(/> 0 µm/)
   })
 
-  it('a floating sub-network', () => {
+  it('a stray channel touching no inlet or outlet is left out with a warning, and no other number changes', () => {
     const stray = { id: 'stray', layerId: 'ch50', width: 80, points: [{ x: 100, y: 6000 }, { x: 900, y: 6000 }] }
-    const issues = issuesOf(() => forecastDocument(requireChipDocument(edit(doc, (d) => d.channels.push(stray)))))
-    expect(issues[0]!.path).toBe('document.channels[3]')
-    expect(issues[0]!.message).toMatch(/channel "stray"/)
+    const answer = forecastDocument(requireChipDocument(edit(doc, (d) => d.channels.push(stray))))
+    const warning = answer.warnings.find((w) => w.code === 'channels-unconnected')!
+    expect(warning).toMatchObject({ element: 'stray' })
+    expect(warning.message).toMatch(/"stray" is not connected to any inlet or outlet, so it carries no flow/)
+    const plain = forecastDocument(doc)
+    expect(answer.junctions[0]!.forecast!.dropletDiameter.value).toBe(plain.junctions[0]!.forecast!.dropletDiameter.value)
+    expect(answer.network.inlets.map((i) => i.pressure.value)).toEqual(plain.network.inlets.map((i) => i.pressure.value))
+  })
+
+  it('a fed sub-network with no way out still fails, naming its elements', () => {
+    const issues = issuesOf(() => forecastDocument(requireChipDocument(edit(doc, (d) => {
+      d.ports.push({ id: 'extra-in', kind: 'inlet', position: { x: 100, y: 6000 }, punchDiameter: 750, layerId: 'ch50', feed: { phase: 'continuous' } })
+      d.channels.push({ id: 'dead-end', layerId: 'ch50', width: 80, points: [{ x: 100, y: 6000 }, { x: 900, y: 6000 }], start: { element: 'extra-in', terminal: 'port' } })
+      d.operatingPoints[0]!.inlets.push({ portId: 'extra-in', mode: 'flow', value: 1, unit: 'uL/min' })
+    }))))
+    expect(issues[0]!.message).toMatch(/channel "dead-end"/)
     expect(issues[0]!.message).toMatch(/not connected to any outlet/i)
   })
 

@@ -1,0 +1,91 @@
+// The editor's set-up panels: layers, operating points, a channel's points and the outline's clear button.
+import { mount } from '@vue/test-utils'
+import { describe, expect, it } from 'vitest'
+import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/chip'
+import EditorInspector from '../../../components/editor/EditorInspector.vue'
+import EditorLayers from '../../../components/editor/EditorLayers.vue'
+import EditorOperatingPoint from '../../../components/editor/EditorOperatingPoint.vue'
+import fixture from '../../fixtures/documents/t-junction-basic.json'
+
+const doc = (): ChipDocument => { const r = parseChipDocument(structuredClone(fixture)); if (!r.ok) throw new Error('fixture'); return r.document }
+const withLayer = (): ChipDocument => ({ ...doc(), layers: [...doc().layers, { id: 'deep', name: 'Reservoirs', depth: 150 }] })
+
+describe('EditorLayers', () => {
+  it('lists each layer with its depth and what it holds; a layer in use cannot be removed, an empty one can', async () => {
+    const w = mount(EditorLayers, { props: { document: withLayer(), active: 'ch50' } })
+    expect(w.get('[data-test="layer-row-ch50"]').text()).toContain('drawing here · 7 elements')
+    expect((w.get('[data-test="field-layer-depth-deep"]').element as HTMLInputElement).value).toBe('150')
+    expect(w.get('[data-test="layer-remove-ch50"]').attributes('disabled')).toBeDefined()
+    await w.get('[data-test="layer-remove-deep"]').trigger('click')
+    expect(w.emitted('remove')![0]).toEqual(['deep'])
+  })
+
+  it('emits a new depth, a new name, the layer to draw on and a new layer; refuses a zero depth with the schema message', async () => {
+    const w = mount(EditorLayers, { props: { document: withLayer(), active: 'ch50' } })
+    await w.get('[data-test="field-layer-depth-deep"]').setValue('0')
+    await w.get('[data-test="field-layer-depth-deep"]').trigger('change')
+    expect(w.emitted('set')).toBeUndefined()
+    expect(w.get('[data-test="error-layer-depth-deep"]').text()).toContain('Layer depth must be > 0 µm')
+    // setValue fires input and change, as typing then leaving the box does.
+    await w.get('[data-test="field-layer-depth-deep"]').setValue('120')
+    await w.get('[data-test="layer-name-deep"]').setValue('Drop reservoir')
+    expect(w.emitted('set')).toEqual([['deep', 'depth', 120], ['deep', 'name', 'Drop reservoir']])
+    await w.get('[data-test="layer-active-deep"]').setValue(true)
+    expect(w.emitted('active')![0]).toEqual(['deep'])
+    await w.get('[data-test="field-layer-new-depth"]').setValue('25')
+    await w.get('[data-test="field-layer-new-depth"]').trigger('change')
+    expect(w.emitted('add')![0]).toEqual([25])
+  })
+})
+
+describe('EditorOperatingPoint: several named points', () => {
+  it('adds a point from the active one, renames it, and cannot remove the only one', async () => {
+    const w = mount(EditorOperatingPoint, { props: { document: doc() } })
+    expect(w.get('[data-test="op-remove"]').attributes('disabled')).toBeDefined()
+    await w.get('[data-test="op-add"]').trigger('click')
+    expect(w.emitted('add')![0]).toEqual(['op-1'])
+    await w.get('[data-test="op-name"]').setValue('Slow start')
+    await w.get('[data-test="op-name"]').trigger('change')
+    expect(w.emitted('field')![0]).toEqual(['op-1', 'name', 'Slow start'])
+  })
+
+  it('with two points, shows the active one, switches and removes', async () => {
+    const d = doc()
+    const two = { ...d, operatingPoints: [...d.operatingPoints, { ...d.operatingPoints[0]!, id: 'op-2', name: 'Fast' }], activeOperatingPoint: 'op-2' }
+    const w = mount(EditorOperatingPoint, { props: { document: two } })
+    expect((w.get('[data-test="op-name"]').element as HTMLInputElement).value).toBe('Fast')
+    await w.get('[data-test="op-active"]').setValue('op-1')
+    expect(w.emitted('active')![0]).toEqual(['op-1'])
+    await w.get('[data-test="op-remove"]').trigger('click')
+    expect(w.emitted('remove')![0]).toEqual(['op-2'])
+  })
+})
+
+describe('EditorInspector: channels and the outline', () => {
+  it('shows a channel\'s points: ends on terminals named, bends as exact numbers; emits a moved bend and a removal', async () => {
+    const w = mount(EditorInspector, { props: { document: doc(), selection: ['water-feed'] } })
+    expect(w.get('[data-test="point-0-on"]').text()).toContain('on water-in · port')
+    expect(w.get('[data-test="point-2-on"]').text()).toContain('on tj-1 · dispersed')
+    expect((w.get('[data-test="field-points.1.x"]').element as HTMLInputElement).value).toBe('5000')
+    await w.get('[data-test="field-points.1.y"]').setValue('5200')
+    await w.get('[data-test="field-points.1.y"]').trigger('change')
+    expect(w.emitted('set')![0]).toEqual(['water-feed', 'points.1.y', 5200])
+    await w.get('[data-test="point-remove-1"]').trigger('click')
+    expect(w.emitted('removePoint')![0]).toEqual(['water-feed', 1])
+  })
+
+  it('a two-point channel offers no removal', () => {
+    const w = mount(EditorInspector, { props: { document: doc(), selection: ['oil-feed'] } })
+    expect(w.get('[data-test="point-remove-0"]').attributes('disabled')).toBeDefined()
+    expect(w.get('[data-test="point-remove-1"]').attributes('disabled')).toBeDefined()
+  })
+
+  it('with nothing selected and an outline drawn, offers to clear it', async () => {
+    const w = mount(EditorInspector, { props: { document: doc(), selection: [] } })
+    await w.get('[data-test="outline-clear"]').trigger('click')
+    expect(w.emitted('clearOutline')).toHaveLength(1)
+    const none = { ...doc() }
+    delete (none as Partial<ChipDocument>).outline
+    expect(mount(EditorInspector, { props: { document: none, selection: [] } }).find('[data-test="outline-clear"]').exists()).toBe(false)
+  })
+})
