@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import { computed, ref, shallowRef } from 'vue'
-import { parseChipDocument, type ChipDocument } from '~~/shared/schemas/chip'
+import { parseChipDocument, rememberParsed, type ChipDocument } from '~~/shared/schemas/chip'
 import { actions, canRedo, canUndo, commit, copy, redo as redoH, runAction, startHistory, undo as undoH, type ActionArgs, type ActionName, type Clip, type History } from '~~/shared/editor'
 import type { RevisionDetail, RevisionRow } from '~~/shared/types/designs'
 
@@ -36,6 +36,7 @@ export const useEditorStore = defineStore('editor', () => {
     designName.value = revision.designName
     processId.value = revision.summary?.processId ?? null
     base.value = { id: revision.id, number: revision.number }
+    rememberParsed(document)
     history.value = startHistory(document)
     saved.value = document
     selection.value = []
@@ -71,6 +72,17 @@ export const useEditorStore = defineStore('editor', () => {
     selection.value = selection.value.filter(id => elementExists(result.doc, id))
     keepDrawLayer()
     return true
+  }
+
+  /**
+   * On the client, after the page came from the server: check the working document once and, when it reads back
+   * unchanged, remember its parts as valid, so each edit re-checks only what it changed.
+   */
+  function adoptHydrated() {
+    const d = doc.value
+    if (!d) return
+    const r = parseChipDocument(d)
+    if (r.ok && JSON.stringify(r.document) === JSON.stringify(d)) rememberParsed(d)
   }
 
   /** Replace the whole working document (import, restore of a local copy): one undo step. */
@@ -130,7 +142,7 @@ export const useEditorStore = defineStore('editor', () => {
 
   return {
     labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, drawLayer, refusal, conflict, busy, problem, dirty, undoable, redoable,
-    load, open, apply, replace, undo, redo, select, copySelection, pasteClip, duplicateSelection, deleteSelection, rotateSelection, save,
+    load, open, adoptHydrated, apply, replace, undo, redo, select, copySelection, pasteClip, duplicateSelection, deleteSelection, rotateSelection, save,
     hasClip: computed(() => !!clip.value),
   }
 })

@@ -1,6 +1,7 @@
 // Editor speed on the 512-nozzle chip in headless Chromium: time until the canvas is interactive, frame times
 // while a junction is dragged for 2 s, and the time from releasing the drag to updated forecast labels.
-// Targets (issue): interactive < 2 s, p95 frame < 20 ms, labels < 100 ms. Prints figures; not a test.
+// Targets (issue): interactive < 2 s, p95 frame < 20 ms, labels < 100 ms (the first drag; four more give the spread).
+// Prints figures; not a test.
 import { spawn } from 'node:child_process'
 import { createServer } from 'node:net'
 import { chromium } from 'playwright-core'
@@ -56,12 +57,27 @@ try {
   await page.waitForFunction((b) => (window as any).__dwEditor.live.value.at > b, before, { timeout: 10_000 })
   const release = await page.evaluate(() => (window as any).__dwEditor.live.value.at - (window as any).__release)
   const frames: number[] = await page.evaluate(() => { (window as any).__recording = false; return (window as any).__frames.slice(2) })
+  const moves = i
+  // Four more drags of half a second, each released and timed the same way, for the spread.
+  const releases = [release]
+  for (let k = 0; k < 4; k++) {
+    await page.mouse.move(target.x, target.y)
+    await page.mouse.down()
+    const t1 = Date.now()
+    while (Date.now() - t1 < 500) { i++; await page.mouse.move(target.x + 60 * Math.sin(i / 10), target.y + 40 * Math.cos(i / 13)) }
+    const b = await page.evaluate(() => (window as any).__dwEditor.live.value.at)
+    await page.evaluate(() => { (window as any).__release = performance.now() })
+    await page.mouse.up()
+    await page.waitForFunction((x) => (window as any).__dwEditor.live.value.at > x, b, { timeout: 10_000 })
+    releases.push(await page.evaluate(() => (window as any).__dwEditor.live.value.at - (window as any).__release))
+    await page.waitForTimeout(200)
+  }
   const med = pct(frames, 0.5)
   const p95 = pct(frames, 0.95)
-  console.log(`512-nozzle chip (${document.components.length} components, ${document.channels.length} channels), Chromium headless, ${i} pointer moves in 2 s`)
+  console.log(`512-nozzle chip (${document.components.length} components, ${document.channels.length} channels), Chromium headless, ${moves} pointer moves in 2 s`)
   console.log(`time to interactive:          ${tti.toFixed(0)} ms   (target < 2000: ${tti < 2000 ? 'met' : 'MISSED'})`)
   console.log(`drag frame time median / p95: ${med.toFixed(1)} / ${p95.toFixed(1)} ms over ${frames.length} frames   (target p95 < 20: ${p95 < 20 ? 'met' : 'MISSED'})`)
-  console.log(`release → forecast labels:    ${release.toFixed(0)} ms   (target < 100: ${release < 100 ? 'met' : 'MISSED'})`)
+  console.log(`release → forecast labels:    ${release.toFixed(0)} ms first drag   (target < 100: ${release < 100 ? 'met' : 'MISSED'}); median of ${releases.length} drags ${pct(releases, 0.5).toFixed(0)} ms, slowest ${Math.max(...releases).toFixed(0)} ms`)
 } finally {
   await browser.close()
   server.kill('SIGTERM')

@@ -1,10 +1,12 @@
-// The live forecast of the working document: forecast + summary right after every committed edit (a drag commits once, on release), rule
-// findings a moment later (they cost more on a large chip), and the canvas labels built from both.
-import { onScopeDispose, shallowRef, watch, type Ref } from 'vue'
+// The live forecast of the working document: forecast + summary right after every committed edit (a drag commits
+// once, on release), computed in a Web Worker (lib/forecast.worker.ts) so the canvas keeps its frames; rule
+// findings a moment later (they cost more on a large chip); and the canvas labels built from both.
+import { onScopeDispose, shallowRef, toRaw, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
-import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
+import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
 import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProcess, type Finding } from '~~/geometry/rules'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
+import { runLiveForecast, type LiveAnswer } from './liveRun'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
 
@@ -12,28 +14,55 @@ export interface LiveForecast { forecast: DocumentForecast | null; summary: Fore
 export const designProcess = (processId: string | null | undefined): FabricationProcess =>
   (processId ? findProcess(processId) : undefined) ?? BUILT_IN_PROCESSES[0]!
 
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null> } = {}) {
+/** Runs one forecast: in a Web Worker in the browser, in the calling thread where there is none (tests, old browsers). */
+export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAnswer>
+
+function workerRunner(): ForecastRunner | null {
+  if (typeof Worker === 'undefined') return null
+  let worker: Worker
+  try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
+  const waiting = new Map<number, { doc: ChipDocument; done: (a: LiveAnswer) => void }>()
+  worker.onmessage = (e: MessageEvent<LiveAnswer>) => { waiting.get(e.data.seq)?.done(e.data); waiting.delete(e.data.seq) }
+  // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
+  let broken = false
+  worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq)); waiting.clear() }
+  return (doc, seq) => new Promise((done) => {
+    if (broken) { done(runLiveForecast(doc, seq)); return }
+    waiting.set(seq, { doc, done })
+    worker.postMessage({ seq, doc: toRaw(doc) })
+  })
+}
+const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
+
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
+  const worker = opts.runner ? null : workerRunner()
+  const runner = opts.runner ?? worker ?? inThread
+  let seq = 0
+  let busy = false
+  let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
   let rulesTimer: ReturnType<typeof setTimeout> | undefined
-  const run = (d: ChipDocument) => {
-    try {
-      const forecast = forecastDocument(d)
-      // Parts and channels not wired yet are left out by the forecast itself, with a warning naming each.
-      const left = forecast.warnings.filter(w => w.code === 'component-unconnected' || w.code === 'channels-unconnected').map(w => (w as { element?: string }).element)
-      const note = left.length ? `Not yet connected, so not forecast: ${left.join(', ')}` : null
-      live.value = { forecast, summary: summarizeForecast(forecast), error: note, at: performance.now() }
-    } catch (error) {
-      live.value = { forecast: null, summary: null, error: error instanceof Error ? error.message : String(error), at: performance.now() }
-    }
+  // One run at a time; edits made meanwhile are folded into one run of the newest document when it ends.
+  const run = async (d: ChipDocument) => {
+    if (busy) { pending = d; return }
+    busy = true
     clearTimeout(rulesTimer)
     rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value)) }, 120)
+    const a = await runner(d, ++seq)
+    busy = false
+    live.value = { forecast: a.forecast, summary: a.summary, error: a.error, at: performance.now() }
+    if (pending) { const next = pending; pending = null; run(next) }
   }
+  // With a worker the document is sent at once, so the forecast runs while the page redraws the chip; in the
+  // page itself it waits for the redraw.
   watch(doc, (d) => {
     clearTimeout(timer)
-    if (d) timer = setTimeout(() => run(d), opts.delayMs ?? 0)
-  }, { immediate: true })
+    if (!d) return
+    if (worker && !opts.delayMs) run(d)
+    else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
+  }, { immediate: true, flush: worker ? 'sync' : 'pre' })
   if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
   onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer) })
   return { live, findings }

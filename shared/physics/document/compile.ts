@@ -117,7 +117,13 @@ export function compileDocument(doc: ChipDocument, op: ResolvedOperatingPoint): 
  */
 function dropIslands(channels: CompiledChannel[], sources: DocumentSource[], warnings: DocumentWarning[]): CompiledChannel[] {
   const parent = new Map<string, string>()
-  const root = (n: string): string => { let r = n; while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!; parent.set(n, r); return r }
+  // Union–find with full path compression (Tarjan 1975), so a long manifold stays near-linear.
+  const root = (n: string): string => {
+    let r = n
+    while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!
+    for (let x = n; x !== r;) { const next = parent.get(x)!; parent.set(x, r); x = next }
+    return r
+  }
   for (const ch of channels) {
     const a = root(ch.from), b = root(ch.to)
     if (a !== b) parent.set(a, b)

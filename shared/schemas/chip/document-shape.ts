@@ -11,18 +11,32 @@ import { elementId } from './primitives'
 /** The current document version. Bump it together with a new `upgrades/vN-to-vN+1.ts`. */
 export const CHIP_DOCUMENT_VERSION = 1 as const
 
-/** The document's fields, before the cross-reference checks. */
-export const chipDocumentShape = z.object({
+export const LAYERS_REQUIRED = 'A chip needs at least one layer (one per channel depth)'
+
+/** The document's single-valued fields. */
+export const documentFields = z.object({
   version: z.literal(CHIP_DOCUMENT_VERSION, { error: `Document version must be ${CHIP_DOCUMENT_VERSION} after upgrade` }),
   name: z.string().min(1, { error: 'Design name must not be empty' }).max(200),
   units: z.literal('um', { error: 'Document units must be "um" (all lengths in micrometres)' }),
-  layers: z.array(layer).min(1, { error: 'A chip needs at least one layer (one per channel depth)' }),
+  outline: outline.optional(),
+  activeOperatingPoint: elementId.optional(),
+})
+
+/** The schema of one element of each list of the document. */
+export const ELEMENT_SCHEMAS = { layers: layer, ports: port, channels: channel, components: component, marks: mark, operatingPoints: operatingPoint } as const
+
+/** The document's fields, before the cross-reference checks. */
+export const chipDocumentShape = z.object({
+  version: documentFields.shape.version,
+  name: documentFields.shape.name,
+  units: documentFields.shape.units,
+  layers: z.array(layer).min(1, { error: LAYERS_REQUIRED }),
   ports: z.array(port).default([]),
   channels: z.array(channel).default([]),
   components: z.array(component).default([]),
-  outline: outline.optional(),
+  outline: documentFields.shape.outline,
   marks: z.array(mark).default([]),
   operatingPoints: z.array(operatingPoint).default([]),
-  activeOperatingPoint: elementId.optional(),
+  activeOperatingPoint: documentFields.shape.activeOperatingPoint,
 })
 export type ChipDocumentShape = z.infer<typeof chipDocumentShape>

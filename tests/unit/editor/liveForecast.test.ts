@@ -31,3 +31,33 @@ describe('live design-rule findings', () => {
     scope.stop()
   })
 })
+
+describe('live forecast runs', () => {
+  it('the editor\'s lean answer keeps what the editor shows: same summary, inlets and junctions as the full forecast', async () => {
+    const { forecastDocument, summarizeForecast } = await import('../../../shared/physics/document')
+    const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
+    const full = forecastDocument(doc())
+    const lean = runLiveForecast(doc(), 1)
+    expect(lean.summary).toEqual(summarizeForecast(full))
+    expect(lean.forecast!.junctions).toEqual(full.junctions)
+    expect(lean.forecast!.network.inlets).toEqual(full.network.inlets)
+    expect(lean.forecast!.network.channels).toEqual([])
+  })
+
+  it('edits made while a run is under way are folded into one run of the newest document, which the panel ends on', async () => {
+    const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
+    // The first run answers late, as a worker busy with a big chip would.
+    const runner = (d: ChipDocument, seq: number) => new Promise<ReturnType<typeof runLiveForecast>>(r => setTimeout(() => r(runLiveForecast(d, seq)), seq === 1 ? 80 : 5))
+    const d = ref(doc())
+    const scope = effectScope()
+    const { live } = scope.run(() => useLiveForecast(d, { runner }))!
+    await wait(10)
+    const faster = { ...d.value, operatingPoints: d.value.operatingPoints.map(o => ({ ...o, inlets: o.inlets.map(i => (i.portId === 'oil-in' ? { ...i, value: i.value * 3 } : i)) })) }
+    d.value = faster
+    await wait(150)
+    const expected = runLiveForecast(faster, 0).summary!.junctions[0]!.dropletDiameterUm
+    expect(live.value.summary!.junctions[0]!.dropletDiameterUm).toBe(expected)
+    expect(expected).not.toBe(runLiveForecast(doc(), 0).summary!.junctions[0]!.dropletDiameterUm)
+    scope.stop()
+  })
+})

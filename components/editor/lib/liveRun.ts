@@ -1,0 +1,23 @@
+// One live-forecast run, the same in the worker and (where there is no worker) on the main thread.
+import type { ChipDocument } from '#shared/schemas/chip'
+import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
+
+export interface LiveRequest { seq: number; doc: ChipDocument }
+export interface LiveAnswer { seq: number; forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null }
+
+/** The forecast with the network's node and channel lists left empty (kept: inlets, outlets, uniformity, margins). */
+export function leanForecast(f: DocumentForecast): DocumentForecast {
+  return { ...f, network: { ...f.network, nodes: [], channels: [] } }
+}
+
+export function runLiveForecast(doc: ChipDocument, seq: number): LiveAnswer {
+  try {
+    const forecast = forecastDocument(doc)
+    // Parts and channels not wired yet are left out by the forecast itself, with a warning naming each.
+    const left = forecast.warnings.filter(w => w.code === 'component-unconnected' || w.code === 'channels-unconnected').map(w => (w as { element?: string }).element)
+    const note = left.length ? `Not yet connected, so not forecast: ${left.join(', ')}` : null
+    return { seq, forecast: leanForecast(forecast), summary: summarizeForecast(forecast), error: note }
+  } catch (error) {
+    return { seq, forecast: null, summary: null, error: error instanceof Error ? error.message : String(error) }
+  }
+}
