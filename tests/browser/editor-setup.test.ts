@@ -1,5 +1,5 @@
 // The editor's set-up as a designer uses it in Chromium: reshape a channel on the canvas (double-click adds a
-// bend, a handle drags it, a double-click on it takes it away), layers (add one, draw on it, give it a depth),
+// bend, a handle drags it, a double-click on it takes it away), fix a design-rule finding from the list, layers (add one, draw on it, give it a depth),
 // several operating points (add one, change a flow, switch back and see the forecast follow), select all and
 // clear the outline; then save and find it all in the new revision.
 import type { Browser, Page } from 'playwright-core'
@@ -40,6 +40,25 @@ describe('editor set-up in Chromium', () => {
     expect((await waterFeed()).start).toEqual({ element: 'water-in', terminal: 'port' })
     await page.mouse.dblclick(to.x, to.y)
     await expect.poll(async () => (await waterFeed()).points.length).toBe(3)
+  })
+
+  it('fixes a rule finding: a 10 µm channel is listed against the film mask, the list selects it, a wider one clears it', async () => {
+    await page.fill('[data-test="field-width"]', '10')
+    await page.press('[data-test="field-width"]', 'Enter')
+    // The finding on the channel alone (another one names the junction it meets as well).
+    const finding = page.locator('[data-test="findings-panel"] button').filter({ hasText: 'water-feed · at' }).filter({ hasNotText: 'tj-1' })
+    await expect.poll(() => finding.count()).toBeGreaterThan(0)
+    expect(await page.locator('[data-test="findings-panel"]').textContent()).toMatch(/film-mask/i)
+    await page.locator('[data-test="editor-canvas"]').focus()
+    await page.keyboard.press('Escape')
+    await expect.poll(() => page.locator('[data-test="outline-inspector"]').count()).toBe(1)
+    await finding.first().click()
+    await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('water-feed')
+    await shot(page, 'editor-rule-finding')
+    await page.fill('[data-test="field-width"]', '50')
+    await page.press('[data-test="field-width"]', 'Enter')
+    await expect.poll(() => finding.count()).toBe(0)
+    await page.click('[data-test="zoom-fit"]')
   })
 
   it('adds a 120 µm layer, draws a channel on it and reads the element count per layer', async () => {
