@@ -47,6 +47,10 @@ describe('EditorOperatingPoint: several named points', () => {
     await w.get('[data-test="op-name"]').setValue('Slow start')
     await w.get('[data-test="op-name"]').trigger('change')
     expect(w.emitted('field')![0]).toEqual(['op-1', 'name', 'Slow start'])
+    const sent = w.emitted('field')!.length
+    await w.get('[data-test="op-name"]').setValue('  ')
+    expect(w.emitted('field')).toHaveLength(sent)
+    expect(w.get('[data-test="op-name-error"]').text()).toBe('Operating point name must not be empty')
   })
 
   it('with two points, shows the active one, switches and removes', async () => {
