@@ -9,6 +9,7 @@ import { hitTest } from '../../viewer/lib/hitTest'
 import type { ChipScene } from '../../viewer/lib/scene'
 import { screenPoint, screenToWorld, type View } from '../../viewer/lib/viewport'
 import type { Tool } from './tools'
+import { useChannelHandles } from './channelHandles'
 
 export interface CanvasIntents {
   select: (ids: string[], mode: 'replace' | 'toggle' | 'add') => void
@@ -36,8 +37,6 @@ interface Ctx {
 
 const DRAG_PX = 3
 const SNAP_PX = 14
-/** How near (px) a press must be to a channel point to take its handle. */
-export const HANDLE_PX = 7
 
 export function usePointerTools(c: Ctx) {
   const drag = shallowRef<{ ids: string[]; delta: PointUm } | null>(null)
@@ -47,31 +46,18 @@ export function usePointerTools(c: Ctx) {
   const snapped = shallowRef<PointUm | null>(null)
   const measure = shallowRef<{ a: PointUm; b: PointUm | null } | null>(null)
   const hoverId: Ref<string | null> = ref(null)
-  const vertex = shallowRef<{ id: string; index: number; point: PointUm; attach?: TerminalRef } | null>(null)
-  let vertexPress: { id: string; index: number; screen: { x: number; y: number } } | null = null
   let press: { screen: { x: number; y: number }; world: PointUm; anchor: PointUm; ids: string[] } | null = null
 
   const world = (s: { x: number; y: number }) => screenToWorld(c.view.value, screenPoint(s.x, s.y))
   const hit = (p: PointUm) => hitTest(c.scene().index, p.x, p.y, { toleranceUm: 4 / c.view.value.scale, layerIds: c.visibleLayers() })
   const snap = (p: PointUm) => snapPoint(c.doc(), p, { pitch: c.pitch(), terminalRadius: SNAP_PX / c.view.value.scale })
-
-  /** The selected channel (only one selected) and the index of its point under screen point s, if any. */
-  function handleAt(s: { x: number; y: number }): { id: string; index: number } | null {
-    const sel = c.selection()
-    if (sel.length !== 1) return null
-    const ch = c.doc().channels.find((x) => x.id === sel[0])
-    if (!ch) return null
-    const v = c.view.value
-    const index = ch.points.findIndex((q) => Math.hypot(v.tx + q.x * v.scale - s.x, v.ty - q.y * v.scale - s.y) <= HANDLE_PX)
-    return index >= 0 ? { id: ch.id, index } : null
-  }
+  const handles = useChannelHandles({ doc: c.doc, view: c.view, selection: c.selection, pitch: c.pitch, snap, dragPx: DRAG_PX })
 
   function down(s: { x: number; y: number }, shift: boolean) {
     const p = world(s)
     const tool = c.tool()
     if (tool === 'select') {
-      const handle = shift ? null : handleAt(s)
-      if (handle) { vertexPress = { ...handle, screen: s }; return }
+      if (!shift && handles.take(s)) return
       const id = hit(p)
       if (!id) { box.value = { a: s, b: s, mode: shift ? 'add' : 'replace' }; return }
       if (shift) { c.emit.select([id], 'toggle'); return }
@@ -98,16 +84,8 @@ export function usePointerTools(c: Ctx) {
 
   function moveTo(s: { x: number; y: number }) {
     const p = world(s)
-    if (vertexPress) {
-      if (vertex.value || Math.hypot(s.x - vertexPress.screen.x, s.y - vertexPress.screen.y) >= DRAG_PX) {
-        const ch = c.doc().channels.find((x) => x.id === vertexPress!.id)
-        const end = !!ch && (vertexPress.index === 0 || vertexPress.index === ch.points.length - 1)
-        const r = end ? snap(p) : { point: snapToGrid(p, c.pitch()), terminal: null }
-        vertex.value = { id: vertexPress.id, index: vertexPress.index, point: r.point, ...(r.terminal ? { attach: r.terminal.ref } : {}) }
-        snapped.value = r.terminal ? r.point : null
-      }
-      return
-    }
+    const held = handles.drag(s, p)
+    if (held.holding) { snapped.value = held.snapped; return }
     if (press) {
       const far = Math.hypot(s.x - press.screen.x, s.y - press.screen.y) >= DRAG_PX
       if (far || drag.value) drag.value = { ids: press.ids, delta: snapDelta(press.anchor, p.x - press.world.x, p.y - press.world.y, c.pitch()) }
@@ -128,12 +106,10 @@ export function usePointerTools(c: Ctx) {
   const rubber = shallowRef<PointUm | null>(null)
 
   function up() {
-    if (vertexPress) {
-      const v = vertex.value
-      vertexPress = null
-      vertex.value = null
+    const h = handles.release()
+    if (h.held) {
       snapped.value = null
-      if (v) c.emit.vertex(v.id, v.index, v.point, v.attach)
+      if (h.moved) c.emit.vertex(h.moved.id, h.moved.index, h.moved.point, h.moved.attach)
       return
     }
     if (press) {
@@ -155,7 +131,7 @@ export function usePointerTools(c: Ctx) {
   function doubleClick(s: { x: number; y: number }) {
     if (c.tool() === 'channel') { finishChannel(); return }
     if (c.tool() !== 'select') return
-    const handle = handleAt(s)
+    const handle = handles.handleAt(s)
     const ch = handle && c.doc().channels.find((x) => x.id === handle.id)
     if (handle && ch) {
       if (handle.index > 0 && handle.index < ch.points.length - 1) c.emit.unbend(handle.id, handle.index)
@@ -177,12 +153,12 @@ export function usePointerTools(c: Ctx) {
     if (draft.value.length) { finishChannel(); return true }
     if (measure.value) { measure.value = null; return true }
     if (press || drag.value) { press = null; drag.value = null; return true }
-    if (vertexPress || vertex.value) { vertexPress = null; vertex.value = null; return true }
+    if (handles.cancel()) return true
     return false
   }
   const reset = () => { draft.value = []; draftStart = undefined; measure.value = null; snapped.value = null; rubber.value = null }
 
-  return { drag, box, draft, snapped, measure, hoverId, rubber, vertex, down, moveTo, up, escape, finishChannel, doubleClick, reset }
+  return { drag, box, draft, snapped, measure, hoverId, rubber, vertex: handles.vertex, down, moveTo, up, escape, finishChannel, doubleClick, reset }
 }
 
 /** Ids of elements lying wholly inside the box spanned by two world points. */
