@@ -34,9 +34,15 @@ function workerRunner(): ForecastRunner | null {
 }
 const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
 
+/** A run taking longer than this shows "updating" (a shorter one would only flicker). */
+const SLOW_MS = 150
+
 export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
+  /** True while a run has taken longer than SLOW_MS, so the panel can say the numbers are being updated. */
+  const slow = shallowRef(false)
+  let slowTimer: ReturnType<typeof setTimeout> | undefined
   const worker = opts.runner ? null : workerRunner()
   const runner = opts.runner ?? worker ?? inThread
   let seq = 0
@@ -48,10 +54,13 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   const run = async (d: ChipDocument) => {
     if (busy) { pending = d; return }
     busy = true
+    slowTimer = setTimeout(() => { slow.value = true }, SLOW_MS)
     clearTimeout(rulesTimer)
     rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value)) }, 120)
     const a = await runner(d, ++seq)
     busy = false
+    clearTimeout(slowTimer)
+    slow.value = false
     live.value = { forecast: a.forecast, summary: a.summary, error: a.error, at: performance.now() }
     if (pending) { const next = pending; pending = null; run(next) }
   }
@@ -64,8 +73,8 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true, flush: worker ? 'sync' : 'pre' })
   if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
-  onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer) })
-  return { live, findings }
+  onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer); clearTimeout(slowTimer) })
+  return { live, findings, slow }
 }
 
 const sig = (v: number, n = 2) => Number(v.toPrecision(n))

@@ -61,3 +61,20 @@ describe('live forecast runs', () => {
     scope.stop()
   })
 })
+
+describe('progress of a slow run', () => {
+  it('says "updating" only while a run takes longer than 150 ms', async () => {
+    const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
+    const runner = (d: ChipDocument, seq: number) => new Promise<ReturnType<typeof runLiveForecast>>(r => setTimeout(() => r(runLiveForecast(d, seq)), 300))
+    const scope = effectScope()
+    const { slow, live } = scope.run(() => useLiveForecast(ref(doc()), { runner }))!
+    await wait(50)
+    expect(slow.value).toBe(false)
+    await wait(150)
+    expect(slow.value).toBe(true)
+    await wait(200)
+    expect(slow.value).toBe(false)
+    expect(live.value.summary).not.toBeNull()
+    scope.stop()
+  })
+})
