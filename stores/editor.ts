@@ -1,7 +1,7 @@
 import { defineStore } from 'pinia'
 import { computed, ref, shallowRef } from 'vue'
 import { parseChipDocument, rememberParsed, type ChipDocument } from '~~/shared/schemas/chip'
-import { actions, canRedo, canUndo, commit, copy, redo as redoH, runAction, startHistory, undo as undoH, type ActionArgs, type ActionName, type Clip, type History } from '~~/shared/editor'
+import { actionLabel, actions, canRedo, canUndo, commit, copy, redo as redoH, redoLabel, runAction, undoLabel, startHistory, undo as undoH, type ActionArgs, type ActionName, type Clip, type History } from '~~/shared/editor'
 import type { RevisionDetail, RevisionRow } from '~~/shared/types/designs'
 
 export interface SaveConflict { message: string, latestRevisionId: string, since: RevisionRow[] }
@@ -30,6 +30,9 @@ export const useEditorStore = defineStore('editor', () => {
   const dirty = computed(() => !!doc.value && doc.value !== saved.value)
   const undoable = computed(() => !!history.value && canUndo(history.value))
   const redoable = computed(() => !!history.value && canRedo(history.value))
+  /** What undo and redo would do, in words, for the buttons' titles. */
+  const undoing = computed(() => (history.value ? undoLabel(history.value) : null))
+  const redoing = computed(() => (history.value ? redoLabel(history.value) : null))
 
   function open(revision: RevisionDetail, document: ChipDocument) {
     labId.value = revision.labId
@@ -68,7 +71,7 @@ export const useEditorStore = defineStore('editor', () => {
     const result = runAction(history.value.present, actions[name] as (d: ChipDocument, a: ActionArgs<N>) => ReturnType<typeof actions.move>, args)
     if (!result.ok) { refusal.value = result.refusal.message; return false }
     refusal.value = null
-    history.value = commit(history.value, result.doc, result.history)
+    history.value = commit(history.value, result.doc, result.history, actionLabel(name, args))
     selection.value = selection.value.filter(id => elementExists(result.doc, id))
     keepDrawLayer()
     return true
@@ -87,7 +90,7 @@ export const useEditorStore = defineStore('editor', () => {
 
   /** Replace the whole working document (import, restore of a local copy): one undo step. */
   function replace(document: ChipDocument) {
-    if (history.value) history.value = commit(history.value, document, 'record')
+    if (history.value) history.value = commit(history.value, document, 'record', 'import')
     selection.value = []
     keepDrawLayer()
   }
@@ -141,7 +144,7 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   return {
-    labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, drawLayer, refusal, conflict, busy, problem, dirty, undoable, redoable,
+    labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, drawLayer, refusal, conflict, busy, problem, dirty, undoable, redoable, undoing, redoing,
     load, open, adoptHydrated, apply, replace, undo, redo, select, copySelection, pasteClip, duplicateSelection, deleteSelection, rotateSelection, save,
     hasClip: computed(() => !!clip.value),
   }

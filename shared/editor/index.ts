@@ -20,6 +20,7 @@ export type ActionName = keyof typeof actions
 export type ActionArgs<N extends ActionName> = Parameters<(typeof actions)[N]>[1]
 
 export { runAction } from './validate'
+export { actionLabel } from './labels'
 export * from './history'
 export { snapToGrid, snapDelta, snapPoint, nearestTerminal, type TerminalHit } from './snap'
 export { copy, type Clip } from './structure'

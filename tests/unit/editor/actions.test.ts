@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { parseChipDocument, componentTerminals, type ChipDocument } from '../../../shared/schemas/chip'
-import { actions, runAction, startHistory, commit, undo, redo, canUndo, snapToGrid, snapDelta, snapPoint, copy, importDocument, exportDocument } from '../../../shared/editor'
+import { actionLabel, actions, runAction, startHistory, commit, undo, redo, canUndo, undoLabel, redoLabel, type ActionArgs, type ActionName, snapToGrid, snapDelta, snapPoint, copy, importDocument, exportDocument } from '../../../shared/editor'
 import { fixtureDocument } from '../../support/factory'
 
 const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
@@ -105,6 +105,26 @@ describe('history', () => {
     h = commit(h, b.doc, b.history)
     expect(h.future.length).toBe(0)
     expect(h.past.length).toBe(1)
+  })
+
+  it('each step keeps its action in words, for the undo and redo buttons', () => {
+    let h = startHistory(doc())
+    const steps: Array<[ActionName, ActionArgs<ActionName>]> = [
+      ['move', { ids: ['tj-1'], dx: 50, dy: 0 }],
+      ['setField', { id: 'tj-1', path: 'mainWidth', value: 90 }],
+      ['placeComponent', { kind: 'y-junction', position: { x: 500, y: 500 }, layerId: 'ch50' }],
+    ]
+    for (const [name, args] of steps) {
+      const r = runAction(h.present, actions[name] as (d: ChipDocument, a: unknown) => ReturnType<typeof actions.move>, args)
+      if (!r.ok) throw new Error(r.refusal.message)
+      h = commit(h, r.doc, r.history, actionLabel(name, args))
+    }
+    expect(undoLabel(h)).toBe('place y-junction')
+    h = undo(undo(h))
+    expect(undoLabel(h)).toBe('move')
+    expect(redoLabel(h)).toBe('set mainWidth')
+    h = redo(h)
+    expect([undoLabel(h), redoLabel(h)]).toEqual(['set mainWidth', 'place y-junction'])
   })
 })
 
