@@ -106,6 +106,21 @@ describe('editor set-up in Chromium', () => {
     await expect.poll(diameter).toBe(first)
   })
 
+  it('arrow keys nudge the selected junction by the grid step, Shift by ten; each is one undo step', async () => {
+    const pos = async () => (await editorDoc(page)).components.find((c: any) => c.id === 'tj-1').position
+    expect(await page.locator('[data-test="inspector-id"]').textContent()).toBe('tj-1')
+    const start = await pos()
+    await page.locator('[data-test="editor-canvas"]').focus()
+    await page.keyboard.press('ArrowRight')
+    await expect.poll(pos).toEqual({ x: start.x + 50, y: start.y })
+    await page.keyboard.press('Shift+ArrowUp')
+    await expect.poll(pos).toEqual({ x: start.x + 50, y: start.y + 500 })
+    expect(await page.getAttribute('[data-test="cmd-undo"]', 'title')).toBe('Undo move (Ctrl Z)')
+    await page.keyboard.press('Control+Z')
+    await page.keyboard.press('Control+Z')
+    await expect.poll(pos).toEqual(start)
+  })
+
   it('Ctrl+A selects everything, marks included; with nothing selected the outline can be cleared; the save keeps it all', async () => {
     await page.locator('[data-test="editor-canvas"]').focus()
     await page.keyboard.press('Control+A')

@@ -38,6 +38,19 @@ export const COMMANDS: Array<{ command: Command; label: string; keys: string }> 
   { command: 'help', label: 'This list', keys: '?' },
 ]
 
+const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, 1], ArrowDown: [0, -1] }
+
+/**
+ * How far an arrow key moves the selection, µm (y up, as on the chip): one grid step, ten with Shift; 10 µm a step
+ * with the grid off. Null for any other key, or with Ctrl, ⌘ or Alt held.
+ */
+export function nudgeOf(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>, gridPitch: number): { dx: number; dy: number } | null {
+  const dir = ARROWS[e.key]
+  if (!dir || e.ctrlKey || e.metaKey || e.altKey) return null
+  const step = (gridPitch > 0 ? gridPitch : 10) * (e.shiftKey ? 10 : 1)
+  return { dx: dir[0] * step, dy: dir[1] * step }
+}
+
 /** The command or tool a key press means, or null. */
 export function keyAction(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>): { command: Command } | { tool: Tool } | null {
   const mod = e.ctrlKey || e.metaKey
