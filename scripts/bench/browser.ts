@@ -28,7 +28,8 @@ try {
   // Time to interactive: navigation start → canvas mounted with the chip drawn and the first forecast in.
   await page.goto(`/labs/${labId}/designs/${created.designId}/edit`)
   await page.waitForFunction(() => (window as any).__dwEditor?.live.value.summary, null, { timeout: 30_000 })
-  const tti = await page.evaluate(() => Math.max(performance.getEntriesByName('editor-canvas:mounted')[0]?.startTime ?? 0, (window as any).__dwEditor.live.value.at))
+  const [mounted, firstForecast] = await page.evaluate(() => [performance.getEntriesByName('editor-canvas:mounted')[0]?.startTime ?? 0, (window as any).__dwEditor.live.value.at])
+  const tti = Math.max(mounted, firstForecast)
 
   // Drag one nozzle for two seconds, recording every animation frame.
   const target = await page.evaluate(() => {
@@ -75,7 +76,7 @@ try {
   const med = pct(frames, 0.5)
   const p95 = pct(frames, 0.95)
   console.log(`512-nozzle chip (${document.components.length} components, ${document.channels.length} channels), Chromium headless, ${moves} pointer moves in 2 s`)
-  console.log(`time to interactive:          ${tti.toFixed(0)} ms   (target < 2000: ${tti < 2000 ? 'met' : 'MISSED'})`)
+  console.log(`time to interactive:          ${tti.toFixed(0)} ms   (target < 2000: ${tti < 2000 ? 'met' : 'MISSED'}; canvas drawn ${mounted.toFixed(0)} ms, first forecast ${firstForecast.toFixed(0)} ms)`)
   console.log(`drag frame time median / p95: ${med.toFixed(1)} / ${p95.toFixed(1)} ms over ${frames.length} frames   (target p95 < 20: ${p95 < 20 ? 'met' : 'MISSED'})`)
   console.log(`release → forecast labels:    ${release.toFixed(0)} ms first drag   (target < 100: ${release < 100 ? 'met' : 'MISSED'}); median of ${releases.length} drags ${pct(releases, 0.5).toFixed(0)} ms, slowest ${Math.max(...releases).toFixed(0)} ms`)
 } finally {

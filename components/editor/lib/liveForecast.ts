@@ -6,7 +6,7 @@ import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
 import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProcess, type Finding } from '~~/geometry/rules'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
-import { runLiveForecast, type LiveAnswer } from './liveRun'
+import { runLiveForecast, type LiveAnswer, type LiveRequest } from './liveRun'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
 
@@ -17,7 +17,10 @@ export const designProcess = (processId: string | null | undefined): Fabrication
 /** Runs one forecast: in a Web Worker in the browser, in the calling thread where there is none (tests, old browsers). */
 export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAnswer>
 
-function workerRunner(): ForecastRunner | null {
+/** A runner in a Web Worker that can also be asked to warm up on a document (run it a few times, answer nothing). */
+type WorkerRunner = ForecastRunner & { warm: (doc: ChipDocument) => void }
+
+function workerRunner(): WorkerRunner | null {
   if (typeof Worker === 'undefined') return null
   let worker: Worker
   try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
@@ -26,11 +29,12 @@ function workerRunner(): ForecastRunner | null {
   // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
   let broken = false
   worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq)); waiting.clear() }
-  return (doc, seq) => new Promise((done) => {
+  const run: ForecastRunner = (doc, seq) => new Promise((done) => {
     if (broken) { done(runLiveForecast(doc, seq)); return }
     waiting.set(seq, { doc, done })
-    worker.postMessage({ seq, doc: toRaw(doc) })
+    worker.postMessage({ seq, doc: toRaw(doc) } satisfies LiveRequest)
   })
+  return Object.assign(run, { warm: (doc: ChipDocument) => { if (!broken) worker.postMessage({ seq: 0, doc: toRaw(doc), warm: true } satisfies LiveRequest) } })
 }
 const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
 
@@ -46,6 +50,9 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   const worker = opts.runner ? null : workerRunner()
   const runner = opts.runner ?? worker ?? inThread
   let seq = 0
+  // The first forecast runs in the page, right after the chip is drawn, while the worker loads and warms up on
+  // the same document; every later one runs in the worker.
+  let first = !!worker
   let busy = false
   let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
@@ -57,7 +64,10 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     slowTimer = setTimeout(() => { slow.value = true }, SLOW_MS)
     clearTimeout(rulesTimer)
     rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value)) }, 120)
-    const a = await runner(d, ++seq)
+    const here = first
+    if (here) worker!.warm(d)
+    first = false
+    const a = await (here ? inThread : runner)(d, ++seq)
     busy = false
     clearTimeout(slowTimer)
     slow.value = false
@@ -69,7 +79,7 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   watch(doc, (d) => {
     clearTimeout(timer)
     if (!d) return
-    if (worker && !opts.delayMs) run(d)
+    if (worker && !opts.delayMs && !first) run(d)
     else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true, flush: worker ? 'sync' : 'pre' })
   if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })

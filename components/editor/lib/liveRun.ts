@@ -2,7 +2,8 @@
 import type { ChipDocument } from '#shared/schemas/chip'
 import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
 
-export interface LiveRequest { seq: number; doc: ChipDocument }
+/** `warm`: run the document a few times to let the engine compile the forecast code, answer nothing. */
+export interface LiveRequest { seq: number; doc: ChipDocument; warm?: boolean }
 export interface LiveAnswer { seq: number; forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null }
 
 /** The forecast with the network's node and channel lists left empty (kept: inlets, outlets, uniformity, margins). */

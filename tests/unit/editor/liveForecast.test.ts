@@ -78,3 +78,37 @@ describe('progress of a slow run', () => {
     scope.stop()
   })
 })
+
+describe('with a worker', () => {
+  it('the first forecast runs in the page while the worker warms up on the same chip; later edits go to the worker', async () => {
+    const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
+    const sent: Array<{ seq: number; warm?: boolean }> = []
+    // A stand-in for the browser's Worker: records what it is sent and answers runs as the real one does.
+    class FakeWorker {
+      onmessage: ((e: { data: unknown }) => void) | null = null
+      onerror: (() => void) | null = null
+      postMessage(m: { seq: number; doc: ChipDocument; warm?: boolean }) {
+        sent.push({ seq: m.seq, warm: m.warm })
+        if (!m.warm) setTimeout(() => this.onmessage?.({ data: runLiveForecast(m.doc, m.seq) }), 5)
+      }
+    }
+    const g = globalThis as { Worker?: unknown }
+    const before = g.Worker
+    g.Worker = FakeWorker
+    try {
+      const d = ref(doc())
+      const scope = effectScope()
+      const { live } = scope.run(() => useLiveForecast(d))!
+      await wait(30)
+      expect(live.value.summary).not.toBeNull()
+      expect(sent).toEqual([{ seq: 0, warm: true }])
+      d.value = { ...d.value, name: 'Renamed' }
+      await wait(30)
+      expect(sent.at(-1)).toEqual({ seq: 2, warm: undefined })
+      expect(live.value.forecast!.document.name).toBe('Renamed')
+      scope.stop()
+    } finally {
+      g.Worker = before
+    }
+  })
+})
