@@ -1,4 +1,4 @@
-// Drawing junctions by mouse, as a designer would: a flow-focusing cross and a Y-junction placed from the palette,
+// Drawing junctions by mouse, as a designer would: a flow-focusing cross, a Y-junction and a step nozzle placed from the palette,
 // fed by new ports through channels drawn point by point onto their terminals, each read back with its own
 // forecast on the panel; to scale (the part's arms are the template's 300 µm on the saved document).
 import type { Browser, Page } from 'playwright-core'
@@ -80,5 +80,22 @@ describe('drawing junctions by mouse', () => {
     expect(Math.hypot(out.x - 6500, out.y - 1600)).toBeCloseTo(300, 6)
     await expect.poll(() => page.locator('[data-test="forecast-error"]').count()).toBe(0)
     expect(await forecastOf(3000, 1600)).toMatch(/squeezing|transition|dripping|jetting/)
+  })
+
+  it('a step nozzle: its reservoir goes on a new deeper layer, and fed the same way it forecasts step emulsification', async () => {
+    // On the right, clear of the layer list that sits over the top-left of the canvas.
+    const step = await place('place:step-nozzle', 7200, 5200)
+    const doc = await editorDoc(page)
+    const part = doc.components.find((x: Component) => x.id === step)
+    const reservoir = doc.layers.find((l: any) => l.id === part.reservoirLayerId)
+    expect(reservoir.depth).toBeGreaterThanOrEqual(150)
+    await place('port:dispersed', 7200, 4300)
+    await place('port:continuous', 9300, 3700)
+    await place('port:outlet', 9300, 6700)
+    await channel([{ x: 7200, y: 4300 }, await terminal(step, 'dispersed')])
+    await channel([{ x: 9300, y: 3700 }, await terminal(step, 'continuous')])
+    await channel([await terminal(step, 'outlet'), { x: 9300, y: 6700 }])
+    expect(await forecastOf(7350, 5200)).toMatch(/step-emulsification/)
+    await shot(page, 'editor-draw-step-nozzle')
   })
 })
