@@ -37,3 +37,16 @@ export function shiftElements(e: Elements, dx: number, dy: number): Elements {
     inlets: e.inlets,
   }
 }
+
+/**
+ * The one operating point a generated chip starts with: water drops in the library's hydrofluoroether oil at 20 °C
+ * (its properties and their sources live in shared/physics/liquids); the designer sets the real liquids in the editor.
+ */
+export function designPoint(inlets: Elements['inlets']): NonNullable<In['operatingPoints']>[number] {
+  return {
+    id: 'op-1', name: 'Design point', temperatureC: 20,
+    continuousLiquid: { liquid: 'hydrofluoroether' },
+    dispersedLiquid: { liquid: 'water' },
+    inlets,
+  }
+}

@@ -2,6 +2,7 @@ import type { ChipDocument } from '#shared/schemas/chip'
 import { requireChipDocument } from '#shared/schemas/chip'
 import { rectResistancePerViscosity, sizeManifold } from './resistance'
 import { bankElements } from './bank'
+import { designPoint } from './elements'
 import { frameChip, gridBanks, waferNote } from './layout'
 import type { WaferFit } from './wafer'
 
@@ -69,12 +70,7 @@ export function planParallelChip(opts: ParallelChipOptions): ParallelChipPlan {
     channels: parts.flatMap((x) => x.channels),
     outline: frame.outline,
     marks: frame.marks,
-    operatingPoints: [{
-      id: 'op-1', name: 'Design point', temperatureC: 20,
-      continuousLiquid: { name: 'hydrofluoroether oil', viscosityMPaS: 1.2, densityKgPerM3: 1600 },
-      dispersedLiquid: { liquid: 'water' },
-      inlets: parts.flatMap((x) => x.inlets),
-    }],
+    operatingPoints: [designPoint(parts.flatMap((x) => x.inlets))],
     activeOperatingPoint: 'op-1',
   })
   return {

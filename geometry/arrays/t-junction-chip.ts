@@ -1,5 +1,6 @@
 import type { ChipDocument } from '#shared/schemas/chip'
 import { requireChipDocument } from '#shared/schemas/chip'
+import { designPoint } from './elements'
 import { frameChip, gridBanks, waferNote } from './layout'
 import { rectResistancePerViscosity, sizeManifold } from './resistance'
 import { tJunctionBankElements } from './t-junction-bank'
@@ -124,18 +125,13 @@ export function planTJunctionChip(opts: TJunctionChipOptions): TJunctionChipPlan
     channels: grid.banks.flatMap((x) => x.channels),
     outline: frame.outline,
     marks: frame.marks,
-    operatingPoints: [{
-      id: 'op-1', name: 'Design point', temperatureC: 20,
-      continuousLiquid: { name: 'hydrofluoroether oil', viscosityMPaS: 1.2, densityKgPerM3: 1600 },
-      dispersedLiquid: { liquid: 'water' },
-      inlets: Array.from({ length: banks }, (_, b) => {
-        const count = Math.min(perBank, n - b * perBank)
-        return [
-          { portId: `b${b}-cont-in`, mode: 'flow' as const, value: flow.continuous * count, unit: 'uL/min' as const },
-          { portId: `b${b}-disp-in`, mode: 'flow' as const, value: flow.dispersed * count, unit: 'uL/min' as const },
-        ]
-      }).flat(),
-    }],
+    operatingPoints: [designPoint(Array.from({ length: banks }, (_, b) => {
+      const count = Math.min(perBank, n - b * perBank)
+      return [
+        { portId: `b${b}-cont-in`, mode: 'flow' as const, value: flow.continuous * count, unit: 'uL/min' as const },
+        { portId: `b${b}-disp-in`, mode: 'flow' as const, value: flow.dispersed * count, unit: 'uL/min' as const },
+      ]
+    }).flat())],
     activeOperatingPoint: 'op-1',
   })
   return {

@@ -30,11 +30,11 @@ export function nearestSegment(points: PointUm[], p: PointUm): number {
   return best
 }
 
-/** Insert a bend at `point` into the channel's segment nearest to it. */
-export function insertChannelPoint(doc: ChipDocument, args: { id: string; point: PointUm; inserted?: number[] }): ActionOutcome {
+/** Insert a bend at `point`: before point `index` when given (points.length appends), else into the segment nearest to it. */
+export function insertChannelPoint(doc: ChipDocument, args: { id: string; point: PointUm; index?: number; inserted?: number[] }): ActionOutcome {
   return {
     doc: withChannel(doc, args.id, (c) => {
-      const i = nearestSegment(c.points, args.point) + 1
+      const i = args.index !== undefined ? Math.max(0, Math.min(c.points.length, args.index)) : nearestSegment(c.points, args.point) + 1
       args.inserted?.push(i)
       return { ...c, points: [...c.points.slice(0, i), { x: args.point.x, y: args.point.y }, ...c.points.slice(i)] }
     }),

@@ -1,4 +1,4 @@
-// Drawing new things: a channel from clicked points, a point added to a channel, a part or a port placed.
+// Drawing new things: a channel from clicked points, a part or a port placed (bends: channelPoints.ts).
 import type { ChipDocument, InletSetting, TerminalRef } from '../schemas/chip'
 import { freshId, usedIds } from './elements'
 import { componentTemplate, deeperLayer, type PlaceableKind } from './templates'
@@ -11,15 +11,6 @@ export function addChannel(doc: ChipDocument, args: NewChannel): ActionOutcome {
   args.created?.push(id)
   const channel = { id, layerId: args.layerId, width: args.width, points: args.points.map((p) => ({ x: p.x, y: p.y })), ...(args.start ? { start: args.start } : {}), ...(args.end ? { end: args.end } : {}) }
   return { doc: { ...doc, channels: [...doc.channels, channel] }, history: 'record' }
-}
-
-/** Insert a point into a channel's polyline before `index` (index = points.length appends). */
-export function addChannelPoint(doc: ChipDocument, args: { id: string; index: number; point: PointUm }): ActionOutcome {
-  const ch = doc.channels.find((c) => c.id === args.id)
-  if (!ch) throw new Error(`No channel "${args.id}" in this design`)
-  const points = [...ch.points]
-  points.splice(Math.max(0, Math.min(points.length, args.index)), 0, { x: args.point.x, y: args.point.y })
-  return { doc: { ...doc, channels: doc.channels.map((c) => (c === ch ? { ...c, points } : c)) }, history: 'record' }
 }
 
 /** Place a part from the palette. A step nozzle's reservoir goes on a deeper layer, added when there is none. */

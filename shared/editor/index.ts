@@ -1,7 +1,7 @@
 // The editor core: named actions on a chip document, history, snapping, clipboard and exchange. Pure TypeScript.
 import { placeArray } from './arrays'
 import { clearOutline, placeMark, setOutline } from './frame'
-import { addChannel, addChannelPoint, placeComponent, placePort } from './draw'
+import { addChannel, placeComponent, placePort } from './draw'
 import { setDocumentField, setField, setInlet, setOperatingPointField } from './fields'
 import { duplicate, paste, remove } from './structure'
 import { move, rotate } from './transform'
@@ -12,7 +12,7 @@ import { addLayer, addOperatingPoint, removeLayer, removeOperatingPoint, setLaye
 export const actions = {
   move, rotate, duplicate, paste, delete: remove,
   setField, setDocumentField, setOperatingPointField, setInlet,
-  addChannel, addChannelPoint, insertChannelPoint, moveChannelPoint, removeChannelPoint, placeComponent, placePort, placeArray,
+  addChannel, insertChannelPoint, moveChannelPoint, removeChannelPoint, placeComponent, placePort, placeArray,
   setOutline, clearOutline, placeMark,
   addLayer, setLayerField, removeLayer, addOperatingPoint, removeOperatingPoint,
 }

@@ -3,7 +3,7 @@ import type { ActionArgs, ActionName } from './index'
 
 const FIXED: Partial<Record<ActionName, string>> = {
   move: 'move', rotate: 'turn', duplicate: 'duplicate', paste: 'paste', delete: 'delete', setInlet: 'inlet setting',
-  addChannel: 'draw channel', addChannelPoint: 'add bend', insertChannelPoint: 'add bend', moveChannelPoint: 'move channel point',
+  addChannel: 'draw channel', insertChannelPoint: 'add bend', moveChannelPoint: 'move channel point',
   removeChannelPoint: 'remove bend', placePort: 'place port', placeArray: 'nozzle array', setOutline: 'outline size',
   clearOutline: 'clear outline', placeMark: 'alignment cross', addLayer: 'add layer', removeLayer: 'remove layer',
   addOperatingPoint: 'new operating point', removeOperatingPoint: 'remove operating point',

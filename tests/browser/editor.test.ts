@@ -31,6 +31,14 @@ async function openEditor(page: Page) {
   await page.waitForSelector('[data-test="editor-canvas"] canvas')
 }
 
+/** Place a part by mouse at (x, y) µm and save with a message. */
+async function placeAndSave(p: Page, tool: string, x: number, y: number, message: string) {
+  await p.click(`[data-test="tool-${tool}"]`)
+  const s = await at(p, x, y)
+  await p.mouse.click(s.x, s.y)
+  await p.fill('[data-test="save-message"]', message)
+  await p.click('[data-test="save"]')
+}
 const diameter = (page: Page) => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()
 
 describe('chip editor in Chromium', () => {
@@ -110,18 +118,10 @@ describe('chip editor in Chromium', () => {
     await openEditor(second)
     await hydrated(second)
     // The second tab saves first.
-    await second.click('[data-test="tool-place:y-junction"]')
-    const q = await at(second, 8000, 1500)
-    await second.mouse.click(q.x, q.y)
-    await second.fill('[data-test="save-message"]', 'Y-junction from the other tab')
-    await second.click('[data-test="save"]')
+    await placeAndSave(second, 'place:y-junction', 8000, 1500, 'Y-junction from the other tab')
     await expect.poll(() => second.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
     // This tab's save now conflicts.
-    await page.click('[data-test="tool-place:flow-focusing"]')
-    const p = await at(page, 2500, 5500)
-    await page.mouse.click(p.x, p.y)
-    await page.fill('[data-test="save-message"]', 'Flow-focusing cross')
-    await page.click('[data-test="save"]')
+    await placeAndSave(page, 'place:flow-focusing', 2500, 5500, 'Flow-focusing cross')
     await page.waitForSelector('[data-test="save-conflict"]')
     expect(await page.locator('[data-test="save-conflict"]').textContent()).toMatch(/no longer the latest/)
     expect(await page.inputValue('[data-test="save-message"]')).toBe('Flow-focusing cross')
@@ -129,11 +129,7 @@ describe('chip editor in Chromium', () => {
     await page.click('[data-test="conflict-branch"]')
     await expect.poll(() => page.locator('[data-test="dirty-state"]').textContent()).toBe('saved')
     // Now the second tab is behind: it reloads the latest, its edits kept in a local copy and offered back.
-    await second.click('[data-test="tool-place:step-nozzle"]')
-    const r = await at(second, 8000, 5500)
-    await second.mouse.click(r.x, r.y)
-    await second.fill('[data-test="save-message"]', 'Step nozzle')
-    await second.click('[data-test="save"]')
+    await placeAndSave(second, 'place:step-nozzle', 8000, 5500, 'Step nozzle')
     await second.waitForSelector('[data-test="save-conflict"]')
     await second.click('[data-test="conflict-reload"]')
     await second.waitForSelector('[data-test="restore-prompt"]')

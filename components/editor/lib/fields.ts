@@ -1,5 +1,6 @@
 // Which numbers the inspector shows for each kind of element, with their units, and the schema check of one
 // edited field (the same zod schema the document uses, so the form and the document never disagree).
+import type { z } from 'zod'
 import { channel, component, mark, port } from '#shared/schemas/chip'
 import { setPath } from '#shared/editor/fields'
 import type { ElementCollection } from '#shared/editor'
@@ -36,11 +37,15 @@ export function readPath(el: unknown, path: string): unknown {
 
 const SCHEMA = { components: component, ports: port, channels: channel, marks: mark }
 
-/** The schema's message for this element with one field changed, or null when it is valid. */
+/** A schema's message for `el` with one field changed (the issue at that field first), or null when it is valid. */
+export function fieldError(schema: z.ZodType, el: object, path: string, value: unknown): string | null {
+  const r = schema.safeParse(setPath(el, path, value))
+  if (r.success) return null
+  return (r.error.issues.find(i => i.path.join('.') === path) ?? r.error.issues[0]!).message
+}
+
+/** The chip schema's message for this element with one number changed, or null when it is valid. */
 export function checkField(collection: ElementCollection, el: object, path: string, value: unknown): string | null {
   if (typeof value !== 'number' || !Number.isFinite(value)) return 'Enter a number'
-  const r = SCHEMA[collection].safeParse(setPath(el, path, value))
-  if (r.success) return null
-  const issue = r.error.issues.find(i => i.path.join('.') === path) ?? r.error.issues[0]!
-  return issue.message
+  return fieldError(SCHEMA[collection], el, path, value)
 }

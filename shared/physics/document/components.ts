@@ -35,22 +35,21 @@ export function compileComponent(c: Component, ctx: ComponentContext): void {
   const arm = (terminal: string, widthUm: number, lengthUm: number, layerId = c.layerId) =>
     pipe(ctx, c, terminal, ctx.terminal(terminal), centre, widthUm, lengthUm, layerId)
   const depthUm = ctx.depth(c.layerId)
+  /** Three arms meeting at the centre; the junction's forecast widths are its main (outlet) and dispersed inlet. */
+  const threeArms = (kind: 't-junction' | 'y-junction', armLength: number, widths: { continuous: number; dispersed: number; outlet: number }) => {
+    const continuous = arm('continuous', widths.continuous, armLength)
+    const dispersed = arm('dispersed', widths.dispersed, armLength)
+    arm('outlet', widths.outlet, armLength)
+    ctx.junctions.push({ id: c.id, kind, element: c.id, mainWidth: widths.outlet * UM, inletWidth: widths.dispersed * UM, depth: depthUm * UM, dispersed, continuous: [continuous], continuousRule: 'sum', parallelKey: parallelKey(c) })
+  }
   switch (c.kind) {
-    case 't-junction': {
-      const continuous = arm('continuous', c.mainWidth, c.armLength)
-      const dispersed = arm('dispersed', c.inletWidth, c.armLength)
-      arm('outlet', c.mainWidth, c.armLength)
-      ctx.junctions.push({ id: c.id, kind: c.kind, element: c.id, mainWidth: c.mainWidth * UM, inletWidth: c.inletWidth * UM, depth: depthUm * UM, dispersed, continuous: [continuous], continuousRule: 'sum', parallelKey: parallelKey(c) })
+    case 't-junction':
+      threeArms(c.kind, c.armLength, { continuous: c.mainWidth, dispersed: c.inletWidth, outlet: c.mainWidth })
       return
-    }
-    case 'y-junction': {
-      const continuous = arm('continuous', c.continuousWidth, c.armLength)
-      const dispersed = arm('dispersed', c.dispersedWidth, c.armLength)
-      arm('outlet', c.outletWidth, c.armLength)
+    case 'y-junction':
       // Forecast as a T-junction whose main channel is the outlet (see document/junctions.ts).
-      ctx.junctions.push({ id: c.id, kind: c.kind, element: c.id, mainWidth: c.outletWidth * UM, inletWidth: c.dispersedWidth * UM, depth: depthUm * UM, dispersed, continuous: [continuous], continuousRule: 'sum', parallelKey: parallelKey(c) })
+      threeArms(c.kind, c.armLength, { continuous: c.continuousWidth, dispersed: c.dispersedWidth, outlet: c.outletWidth })
       return
-    }
     case 'flow-focusing': {
       const dispersed = arm('dispersed', c.dispersedWidth, c.armLength)
       const a = arm('continuous-a', c.continuousWidth, c.armLength)

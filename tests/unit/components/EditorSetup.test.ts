@@ -92,4 +92,13 @@ describe('EditorInspector: channels and the outline', () => {
     delete (none as Partial<ChipDocument>).outline
     expect(mount(EditorInspector, { props: { document: none, selection: [] } }).find('[data-test="outline-clear"]').exists()).toBe(false)
   })
+
+  it('checks an outline size with the outline schema: a zero height is refused with its message, a new width is sent', async () => {
+    const w = mount(EditorInspector, { props: { document: doc(), selection: [] } })
+    await w.get('[data-test="field-outline.height"]').setValue('0')
+    expect(w.get('[data-test="error-outline.height"]').text()).toContain('Chip outline height must be > 0 µm')
+    expect(w.emitted('outline')).toBeUndefined()
+    await w.get('[data-test="field-outline.width"]').setValue('12000')
+    expect(w.emitted('outline')![0]).toEqual([{ width: 12000 }])
+  })
 })

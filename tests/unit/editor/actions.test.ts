@@ -62,7 +62,7 @@ describe('editor actions', () => {
     const step = <A>(a: (doc: ChipDocument, args: A) => any, args: A) => { const r = runAction(d, a, args); if (!r.ok) throw new Error(r.refusal.message); d = r.doc }
     step(actions.setField, { id: 'tj-1', path: 'inletWidth', value: 60 })
     step(actions.setInlet, { opId: 'op-1', setting: { portId: 'water-in', mode: 'flow', value: 3, unit: 'uL/min' } })
-    step(actions.addChannelPoint, { id: 'oil-feed', index: 1, point: { x: 3000, y: 3000 } })
+    step(actions.insertChannelPoint, { id: 'oil-feed', index: 1, point: { x: 3000, y: 3000 } })
     const created: string[] = []
     step(actions.placeComponent, { kind: 'step-nozzle', position: { x: 2000, y: 1000 }, layerId: 'ch50', created })
     step(actions.placePort, { kind: 'inlet', phase: 'dispersed', position: { x: 500, y: 5000 }, layerId: 'ch50', created })
