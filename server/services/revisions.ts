@@ -1,9 +1,9 @@
 // Revisions are immutable: a save always inserts a new one. Optimistic concurrency: a save whose parent is no
 // longer the design's latest revision gets 409 with what changed since, unless it asks to branch.
-import { and, asc, eq, gt } from 'drizzle-orm'
+import { and, asc, eq } from 'drizzle-orm'
 import { createError } from 'h3'
 import { designs, revisions, users } from '../db/schema'
-import { useDb, usePool } from '../utils/db'
+import { useDb, withClient } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { RevisionDetail, RevisionRow, RevisionSummary } from '../../shared/types/designs'
 import type { revisionCreate } from '../../shared/schemas/designs'
@@ -38,51 +38,52 @@ export async function getRevision(caller: LabCaller, revisionId: string): Promis
 }
 
 export async function createRevision(caller: LabCaller, designId: string, body: z.infer<typeof revisionCreate>) {
-  const db = useDb()
-  const design = await findDesign(db, caller, designId)
-  if (design.archivedAt) throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This design is archived: restore it before saving' })
+  const design = await findDesign(useDb(), caller, designId)
+  if (design.archivedAt) throw archived()
   const document = validDocument(body.document)
   const summary = await summarizeOffThread(document, design.processId)
-  const client = await usePool().connect()
-  try {
-    await client.query('begin')
+  // One connection from begin to commit (DEVELOPERS.md, "Database work"): the loser of a race reads what came
+  // after its parent on the connection that holds the lock, never through a second checkout.
+  return withClient(async (client) => {
     // Lock the design row: concurrent saves on one design queue here, and the parent check below sees the truth.
-    const { rows: [locked] } = await client.query<{ latest: string | null, count: number, parent: number | null }>({
+    const { rows: [locked] } = await client.query<{ latest: string | null, count: number, parent: number | null, archived: boolean }>({
       name: 'dw-save-lock', text: LOCK_SQL, values: [designId, body.parentId],
     })
     if (!locked) throw notFound('design')
+    if (locked.archived) throw archived()
     if (locked.parent === null) throw notFound('parent revision for this design')
-    if (!body.branch && locked!.latest !== body.parentId) {
-      const since = await db.select(rowColumns).from(revisions).innerJoin(users, eq(users.id, revisions.authorId))
-        .where(and(eq(revisions.designId, designId), gt(revisions.number, locked!.parent))).orderBy(asc(revisions.number))
+    if (!body.branch && locked.latest !== body.parentId) {
+      const { rows } = await client.query<RawRow>({ name: 'dw-save-since', text: SINCE_SQL, values: [designId, locked.parent] })
+      const since = rows.map(toRow)
       throw createError({
         statusCode: 409, statusMessage: 'Conflict',
-        message: `Revision ${locked!.parent} is no longer the latest: ${since.map(r => `r${r.number} by ${r.authorName} ("${r.message}")`).join(', ')} came after it. Reload, or save yours as a branch.`,
-        data: { latestRevisionId: locked!.latest, since: since.map(toRow) },
+        message: `Revision ${locked.parent} is no longer the latest: ${since.map(r => `r${r.number} by ${r.authorName} ("${r.message}")`).join(', ')} came after it. Reload, or save yours as a branch.`,
+        data: { latestRevisionId: locked.latest, since },
       })
     }
-    const number = locked!.count + 1
+    const number = locked.count + 1
     const action = body.branch ? 'revision.branched' : 'revision.saved'
     const { rows: [revision] } = await client.query<{ id: string }>({
       name: 'dw-save-insert', text: INSERT_SQL,
       values: [designId, caller.lab.labId, number, body.parentId, caller.userId, body.message, JSON.stringify(document), JSON.stringify(summary),
-        summary.junctionKinds, action, JSON.stringify({ number, parent: locked!.parent, message: body.message })],
+        summary.junctionKinds, action, JSON.stringify({ number, parent: locked.parent, message: body.message })],
     })
-    await client.query('commit')
     return { revisionId: revision!.id, number }
-  } catch (error) {
-    await client.query('rollback')
-    throw error
-  } finally {
-    client.release()
-  }
+  })
 }
+
+const archived = () => createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This design is archived: restore it before saving' })
 
 // One round trip each (the save is the busiest write): lock + parent check, then revision + design + activity.
 const LOCK_SQL = `
-  select d.latest_revision_id as latest, d.revision_count as count,
+  select d.latest_revision_id as latest, d.revision_count as count, d.archived_at is not null as archived,
          (select p.number from revisions p where p.id = $2 and p.design_id = d.id) as parent
     from designs d where d.id = $1 for update`
+const SINCE_SQL = `
+  select r.id, r.design_id as "designId", r.number, r.parent_id as "parentId", r.message, u.name as "authorName",
+         r.created_at as "createdAt", r.status, r.status_changed_at as "statusChangedAt", r.summary
+    from revisions r join users u on u.id = r.author_id
+   where r.design_id = $1 and r.number > $2 order by r.number`
 const INSERT_SQL = `
   with rev as (
     insert into revisions (design_id, lab_id, number, parent_id, author_id, message, document, summary)

@@ -3,6 +3,7 @@ import pg from 'pg'
 import * as schema from '../db/schema'
 
 export type Db = NodePgDatabase<typeof schema>
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
 
 let db: Db | undefined
 let pool: pg.Pool | undefined
@@ -14,9 +15,33 @@ export function databaseUrl(): string {
   return url
 }
 
+const ms = (name: string, fallback: number) => Number(process.env[name] ?? fallback)
+
+/**
+ * The pool and its time-outs (DEVELOPERS.md, "Database work"). A request path checks out at most one connection
+ * at a time; these bound how long anything can wait, so a fault costs one request, never the server:
+ * - acquire: a request waits at most DW_DB_ACQUIRE_MS (5 s) for a free connection, then answers 503;
+ * - statement_timeout (DW_DB_STATEMENT_MS, 10 s) and lock_timeout (DW_DB_LOCK_MS, 5 s) end a stuck statement;
+ * - idle_in_transaction_session_timeout (DW_DB_IDLE_TX_MS, 10 s) ends a transaction its holder forgot.
+ */
+export function poolConfig(): pg.PoolConfig {
+  return {
+    connectionString: databaseUrl(),
+    max: ms('DW_DB_POOL', 10),
+    connectionTimeoutMillis: ms('DW_DB_ACQUIRE_MS', 5000),
+    idleTimeoutMillis: 30_000,
+    statement_timeout: ms('DW_DB_STATEMENT_MS', 10_000),
+    idle_in_transaction_session_timeout: ms('DW_DB_IDLE_TX_MS', 10_000),
+    options: `-c lock_timeout=${ms('DW_DB_LOCK_MS', 5000)}`,
+    application_name: 'dropwright',
+  }
+}
+
 export function useDb(): Db {
   if (!db) {
-    pool = new pg.Pool({ connectionString: databaseUrl(), max: Number(process.env.DW_DB_POOL ?? 10) })
+    pool = new pg.Pool(poolConfig())
+    // An idle connection that the server drops (restart, fail-over) must not take the process down with it.
+    pool.on('error', error => console.error('[db] idle connection lost:', error.message))
     db = drizzle(pool, { schema })
   }
   return db
@@ -26,6 +51,26 @@ export function useDb(): Db {
 export function usePool(): pg.Pool {
   useDb()
   return pool!
+}
+
+/**
+ * One connection, one transaction, for the hot paths written as plain SQL: everything between begin and commit
+ * goes through `client`, never a second checkout (a second checkout while holding a lock is how pools wedge).
+ */
+export async function withClient<T>(work: (client: pg.PoolClient) => Promise<T>): Promise<T> {
+  const client = await usePool().connect()
+  let broken: Error | undefined
+  try {
+    await client.query('begin')
+    const result = await work(client)
+    await client.query('commit')
+    return result
+  } catch (error) {
+    await client.query('rollback').catch((e: Error) => { broken = e })
+    throw error
+  } finally {
+    client.release(broken) // a connection that cannot even roll back is destroyed, not reused
+  }
 }
 
 export async function closeDb(): Promise<void> {

@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launch, newPage, shot, signInAs } from '../support/browser'
+import { launch, newPage, shot, signInAs, labOptionValue } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -19,7 +19,7 @@ describe('page guards and role menus in Chromium', () => {
     const page = await newPage(browser)
     await signInAs(page, 'admin@quillmere.example')
     await page.waitForURL(/\/labs\//)
-    const quillmere = await page.$$eval('[data-test="lab-switcher"] option', os => (os as HTMLOptionElement[]).find(o => o.textContent!.includes('Quillmere'))!.value)
+    const quillmere = await labOptionValue(page, 'Quillmere')
     await page.selectOption('[data-test="lab-switcher"]', quillmere)
     await page.waitForURL(new RegExp(`/labs/${quillmere}$`))
     await page.click('[data-test="nav-members"]')
@@ -32,7 +32,7 @@ describe('page guards and role menus in Chromium', () => {
     const page = await newPage(browser)
     await signInAs(page, 'designer@quillmere.example')
     await page.waitForURL(/\/labs\//)
-    const quillmere = await page.$$eval('[data-test="lab-switcher"] option', os => (os as HTMLOptionElement[]).find(o => o.textContent!.includes('Quillmere'))!.value)
+    const quillmere = await labOptionValue(page, 'Quillmere')
     await page.goto(`/labs/${quillmere}/members`)
     await page.waitForSelector('[data-test="members-table"]')
     expect(await page.locator('[data-test="members-table"] select').count()).toBe(0)
@@ -43,7 +43,7 @@ describe('page guards and role menus in Chromium', () => {
     const page = await newPage(browser)
     await signInAs(page, 'fabricator@brackenfold.example')
     await page.waitForURL(/\/labs\//)
-    const quillmere = await page.$$eval('[data-test="lab-switcher"] option', os => (os as HTMLOptionElement[]).find(o => o.textContent!.includes('Quillmere'))!.value)
+    const quillmere = await labOptionValue(page, 'Quillmere')
     await page.goto(`/labs/${quillmere}`)
     await expect.poll(() => page.textContent('[data-test="lab-role"]')).toBe('Fabricator')
     expect(await page.locator('[data-test="nav-members"]').count()).toBe(0)

@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launch, newPage, shot, signInAs } from '../support/browser'
+import { launch, newPage, shot, signInAs, labOptionValue } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -31,10 +31,9 @@ describe('sign-in in Chromium', () => {
     const page = await newPage(browser)
     await signInAs(page, 'designer@quillmere.example')
     await page.waitForURL(/\/labs\//)
-    const options = await page.$$eval('[data-test="lab-switcher"] option', os => os.map(o => ({ value: (o as HTMLOptionElement).value, text: o.textContent ?? '' })))
-    const orrin = options.find(o => o.text.includes('Orrin Valley'))!
-    await page.selectOption('[data-test="lab-switcher"]', orrin.value)
-    await page.waitForURL(new RegExp(`/labs/${orrin.value}$`))
+    const orrin = await labOptionValue(page, 'Orrin Valley')
+    await page.selectOption('[data-test="lab-switcher"]', orrin)
+    await page.waitForURL(new RegExp(`/labs/${orrin}$`))
     await expect.poll(() => page.textContent('[data-test="lab-role"]')).toBe('Reviewer')
   })
 

@@ -34,3 +34,10 @@ export async function hydrated(page: Page) {
     return app?.config.globalProperties.$nuxt?.isHydrating === false
   })
 }
+
+/** The lab switcher's value for the lab whose name contains `name`, once the switcher lists it. */
+export async function labOptionValue(page: Page, name: string): Promise<string> {
+  const option = page.locator('[data-test="lab-switcher"] option', { hasText: name }).first()
+  await option.waitFor({ state: 'attached' })
+  return (await option.getAttribute('value'))!
+}
