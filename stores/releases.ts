@@ -1,6 +1,7 @@
+import type { FabStatus } from '~~/shared/utils/fabStatus'
 import { defineStore } from 'pinia'
 
-export interface ReleasedRow { revisionId: string, number: number, designName: string, releasedAt: string, fabStatus: string, fabStatusAt: string }
+export interface ReleasedRow { revisionId: string, number: number, designName: string, releasedAt: string, fabStatus: FabStatus, fabStatusAt: string }
 
 export const useReleasesStore = defineStore('releases', () => {
   const rows = ref<ReleasedRow[]>([])

@@ -12,6 +12,7 @@ import { INVITATION_DAYS, newAccount, type InvitationAccept, type InvitationCrea
 import type { InvitationInfo, PendingInvitation } from '../../shared/types/invitations'
 import type { SessionData } from '../../shared/types/session'
 import type { Role } from '../../shared/utils/roles'
+import { lockLab } from './locks'
 import { queueMail } from './mail'
 import { invitationMail } from './mailTemplates'
 
@@ -27,6 +28,8 @@ function view(row: Invitation, invitedByName: string): PendingInvitation {
 
 export async function inviteToLab(caller: LabCaller, body: InvitationCreate, origin: string): Promise<PendingInvitation> {
   return useDb().transaction(async (tx) => {
+    // One invitation change at a time per lab: the replace below then sees every link committed before it.
+    await lockLab(tx, caller.lab.labId)
     const [member] = await tx.select({ id: users.id }).from(memberships).innerJoin(users, eq(users.id, memberships.userId))
       .where(and(eq(memberships.labId, caller.lab.labId), sameEmail(users.email, body.email)))
     if (member) {

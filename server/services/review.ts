@@ -9,9 +9,10 @@ import type { RevisionStatus } from '../../shared/types/designs'
 import { can } from '../../shared/utils/roles'
 import { logActivity } from './activity'
 import { findVisibleRevision } from './designGuards'
+import { conflict, lockRevision } from './locks'
 import { notifyReviewRequested, notifyVerdict } from './notifications'
 
-const conflict = (message: string) => createError({ statusCode: 409, statusMessage: 'Conflict', message })
+const archivedDesign = () => conflict('This design is archived: restore it first')
 
 export async function requestReview(caller: LabCaller, revisionId: string, reviewerIds: string[]) {
   const db = useDb()
@@ -23,8 +24,12 @@ export async function requestReview(caller: LabCaller, revisionId: string, revie
   const bad = reviewerIds.filter(id => !ok.has(id))
   if (bad.length) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: 'Every reviewer must be a member of this lab who may approve', data: { issues: [{ path: 'reviewerIds', message: `not a reviewer here: ${bad.join(', ')}` }] } })
   await db.transaction(async (tx) => {
+    // Re-read under the row lock: a release or verdict that committed meanwhile decides what happens here.
+    const locked = await lockRevision(tx, caller, revisionId)
+    if (locked.archived) throw archivedDesign()
+    if (locked.status === 'released') throw conflict('A released revision is final: save a new revision to review changes')
     await tx.insert(reviewRequests).values(reviewerIds.map(reviewerId => ({ revisionId, reviewerId, requestedBy: caller.userId }))).onConflictDoNothing()
-    if (revision.status === 'draft') {
+    if (locked.status === 'draft') {
       await tx.update(revisions).set({ status: 'in-review', statusChangedAt: new Date(), statusChangedBy: caller.userId }).where(eq(revisions.id, revisionId))
     }
     await logActivity(tx, { labId: caller.lab.labId, designId: revision.designId, revisionId, actorId: caller.userId, action: 'review.requested', detail: { reviewers: reviewerIds.length } })
@@ -34,11 +39,12 @@ export async function requestReview(caller: LabCaller, revisionId: string, revie
 }
 
 export async function giveVerdict(caller: LabCaller, revisionId: string, verdict: 'approve' | 'request-changes', note: string) {
-  const db = useDb()
-  const revision = await findVisibleRevision(db, caller, revisionId)
-  if (revision.status === 'draft') throw conflict('Nobody asked for a review of this revision yet')
-  if (revision.status === 'released') throw conflict('A released revision is final')
-  return db.transaction(async (tx) => {
+  return useDb().transaction(async (tx) => {
+    // The revision row lock orders verdicts and releases: each sees the status the other committed.
+    const revision = await lockRevision(tx, caller, revisionId)
+    if (revision.archived) throw archivedDesign()
+    if (revision.status === 'draft') throw conflict('Nobody asked for a review of this revision yet')
+    if (revision.status === 'released') throw conflict('This revision was released to fabrication meanwhile: a released revision is final', { status: 'released' })
     await tx.insert(verdicts).values({ revisionId, reviewerId: caller.userId, verdict, note })
     const all = await tx.select({ reviewerId: verdicts.reviewerId, verdict: verdicts.verdict }).from(verdicts)
       .where(eq(verdicts.revisionId, revisionId)).orderBy(desc(verdicts.createdAt))

@@ -1,5 +1,6 @@
 // Payloads of review: requests, comment threads pinned to the geometry, verdicts and the release.
 import { z } from 'zod'
+import { FAB_STATUSES } from '../utils/fabStatus'
 import { labParams } from './labs'
 
 export const threadParams = labParams.extend({ revisionId: z.uuid(), threadId: z.uuid('Thread id must be a UUID') })
@@ -16,4 +17,4 @@ export const commentCreate = z.object({ body })
 export const threadUpdate = z.object({ resolved: z.boolean() })
 export const verdictBody = z.object({ verdict: z.enum(['approve', 'request-changes']), note: z.string().max(2000).default('') })
 export const releaseBody = z.object({ note: z.string().max(2000).default('') })
-export const fabStatusBody = z.object({ fabStatus: z.enum(['released', 'in-fabrication', 'shipped', 'received', 'on-hold']), note: z.string().max(2000).default('') })
+export const fabStatusBody = z.object({ fabStatus: z.enum(FAB_STATUSES), note: z.string().max(2000).default('') })

@@ -1,3 +1,4 @@
+import type { FabStatus } from '../utils/fabStatus'
 import type { Role } from '../utils/roles'
 
 export type RevisionStatus = 'draft' | 'in-review' | 'changes-requested' | 'approved' | 'released'
@@ -47,5 +48,5 @@ export interface ReviewState {
   verdicts: VerdictView[]
   threads: ThreadView[]
   reviewers: ReviewerOption[]
-  release: { releasedAt: string, releasedBy: string, fabStatus: string, fabStatusAt: string, note: string } | null
+  release: { releasedAt: string, releasedBy: string, fabStatus: FabStatus, fabStatusAt: string, note: string } | null
 }
