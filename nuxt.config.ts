@@ -1,4 +1,6 @@
 // Dropwright — Nuxt configuration. The repository root is the source folder (no app/ folder).
+import { fileURLToPath } from 'node:url'
+
 export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   srcDir: '.',
@@ -44,6 +46,12 @@ export default defineNuxtConfig({
       refresh: { isEnabled: false },
     },
     sessionRefresh: { enablePeriodically: false, enableOnWindowFocus: false },
+  },
+  hooks: {
+    // Our error handlers run before Nuxt's own (which renders the error page): a database that cannot answer is 503.
+    'nitro:config'(config) {
+      config.errorHandler = [fileURLToPath(new URL('./server/errors/database.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
+    },
   },
   experimental: { scanPageMeta: true, extraPageMetaExtractionKeys: ['auth'] },
   typescript: { strict: true },

@@ -6,7 +6,7 @@ describe('the built server', () => {
   it('answers the liveness probe without a session and runs revision summaries in its worker thread', async () => {
     const res = await new ApiClient().get('/api/health')
     expect(res.status).toBe(200)
-    expect(res.json).toEqual({ ok: true, summaryWorker: true })
+    expect(res.json).toEqual({ ok: true, database: 'ok', summaryWorker: true })
   })
 
   it('stores the worker\'s summary with a saved revision (forecast and rule counts)', async () => {
