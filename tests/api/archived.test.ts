@@ -50,10 +50,14 @@ describe('an archived design is read-only', () => {
     expect(state.threads[0].resolvedAt).toBeNull()
   })
 
-  it('can still be read: the design, the revision and its review', async () => {
+  it('can still be read (the design, the revision, its review) and duplicated into a new design', async () => {
     expect((await ctx.as.designer.get(design)).json.design.archived).toBe(true)
     expect((await ctx.as.designer.get(rev)).status).toBe(200)
     expect((await ctx.as.reviewer.get(`${rev}/review`)).status).toBe(200)
+    // A duplicate changes nothing on the archived design: reviving an old design that worked is what it is for.
+    const copy = await ctx.as.experimenter.post(`${rev}/duplicate`, { targetLabId: ctx.lab.id, name: 'Revived copy' })
+    expect(copy.status, JSON.stringify(copy.json)).toBeLessThan(300)
+    expect((await ctx.as.experimenter.get(`/api/labs/${ctx.lab.id}/designs/${copy.json.designId}`)).json.design.archived).toBe(false)
   })
 
   it('takes comments and serves its DXF again once restored', async () => {
