@@ -4,7 +4,7 @@ import type { DesignCreate } from '~~/shared/schemas/designs'
 
 export interface DesignListQuery { q?: string, status?: string, kind?: string, archived?: 'true' | 'false', sort?: 'updated' | 'name' | 'created', dir?: 'asc' | 'desc' }
 export interface DesignDetail {
-  design: { id: string, name: string, description: string, processId: string, createdBy: string, createdAt: string, updatedAt: string, archived: boolean, latestRevisionId: string | null, origin: DesignOriginView | null }
+  design: { id: string, name: string, description: string, processId: string, createdBy: string, createdById: string, createdAt: string, updatedAt: string, archived: boolean, latestRevisionId: string | null, origin: DesignOriginView | null }
   revisions: RevisionRow[]
   activity: ActivityEntry[]
 }

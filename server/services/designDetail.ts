@@ -13,7 +13,7 @@ export async function getDesignDetail(caller: LabCaller, designId: string) {
   return {
     design: {
       id: design.id, name: design.name, description: design.description, processId: design.processId,
-      createdBy: creator?.name ?? '', createdAt: design.createdAt.toISOString(), updatedAt: design.updatedAt.toISOString(),
+      createdBy: creator?.name ?? '', createdById: design.createdBy, createdAt: design.createdAt.toISOString(), updatedAt: design.updatedAt.toISOString(),
       archived: design.archivedAt !== null, latestRevisionId: design.latestRevisionId, origin: design.origin ?? null,
     },
     revisions: await listRevisions(caller, designId),

@@ -1,13 +1,16 @@
-// A lab's designs: list, create (with its first revision), rename or archive. Every query is scoped to the lab.
+// A lab's designs: list, create (with its first revision), rename or archive (who may: `canArchive`). Every query
+// is scoped to the lab.
 import { eq } from 'drizzle-orm'
+import { createError } from 'h3'
 import { designs, revisions } from '../db/schema'
 import { useDb, usePool } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { DesignRow } from '../../shared/types/designs'
+import { canArchive } from '../../shared/utils/roles'
 import type { designCreate, designListQuery, designUpdate } from '../../shared/schemas/designs'
 import type { z } from 'zod'
 import { logActivity } from './activity'
-import { findDesign } from './designGuards'
+import { assertNotArchived, findDesign } from './designGuards'
 import { validDocument } from './documents'
 import { summarizeOffThread } from '../utils/summaryWorker'
 import { starterDocument } from './starterDocument'
@@ -63,6 +66,11 @@ export async function createDesign(caller: LabCaller, body: z.infer<typeof desig
 export async function updateDesign(caller: LabCaller, designId: string, body: z.infer<typeof designUpdate>) {
   const db = useDb()
   const design = await findDesign(db, caller, designId)
+  if (body.archived !== undefined && !canArchive(caller.lab.role, caller.userId, design.createdBy)) {
+    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: `Your role (${caller.lab.role}) may archive or restore only designs you created` })
+  }
+  // Archived is read-only: a rename or new description waits until the design is restored (in the same call is fine).
+  if (body.archived !== false && (body.name !== undefined || body.description !== undefined)) assertNotArchived(design)
   return db.transaction(async (tx) => {
     const set: Partial<typeof designs.$inferInsert> = { updatedAt: new Date() }
     if (body.name !== undefined) set.name = body.name

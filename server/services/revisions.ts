@@ -1,6 +1,7 @@
 // Revisions are immutable: a save always inserts a new one. Optimistic concurrency: a save whose parent is no
 // longer the design's latest revision gets 409 with what changed since, unless it asks to branch.
 import { and, asc, eq } from 'drizzle-orm'
+import { alias } from 'drizzle-orm/pg-core'
 import { createError } from 'h3'
 import { designs, revisions, users } from '../db/schema'
 import { useDb, withClient } from '../utils/db'
@@ -8,7 +9,7 @@ import type { LabCaller } from '../utils/access'
 import type { RevisionDetail, RevisionRow, RevisionSummary } from '../../shared/types/designs'
 import type { revisionCreate } from '../../shared/schemas/designs'
 import type { z } from 'zod'
-import { findDesign, findVisibleRevision, notFound } from './designGuards'
+import { assertNotArchived, findDesign, findVisibleRevision, notFound, seenRevisionId } from './designGuards'
 import { validDocument } from './documents'
 import { summarizeOffThread } from '../utils/summaryWorker'
 
@@ -28,13 +29,22 @@ export async function listRevisions(caller: LabCaller, designId: string): Promis
   return rows.map(toRow)
 }
 
-export async function getRevision(caller: LabCaller, revisionId: string): Promise<RevisionDetail> {
+/** A revision with its document; `{ open: true }` (mask export) refuses one on an archived design. */
+export async function getRevision(caller: LabCaller, revisionId: string, options: { open?: boolean } = {}): Promise<RevisionDetail> {
   const db = useDb()
   const visible = await findVisibleRevision(db, caller, revisionId)
-  const [row] = await db.select({ ...rowColumns, document: revisions.document, designName: designs.name, latestRevisionId: designs.latestRevisionId })
+  if (options.open) assertNotArchived(visible)
+  const parent = alias(revisions, 'parent')
+  const latest = alias(revisions, 'latest')
+  const [row] = await db.select({ ...rowColumns, document: revisions.document, designName: designs.name, latestRevisionId: designs.latestRevisionId, parentStatus: parent.status, latestStatus: latest.status })
     .from(revisions).innerJoin(users, eq(users.id, revisions.authorId)).innerJoin(designs, eq(designs.id, revisions.designId))
+    .leftJoin(parent, eq(parent.id, revisions.parentId)).leftJoin(latest, eq(latest.id, designs.latestRevisionId))
     .where(eq(revisions.id, visible.id))
-  return { ...toRow(row!), designName: row!.designName, labId: caller.lab.labId, document: row!.document, latestRevisionId: row!.latestRevisionId }
+  const { parentStatus, latestStatus, designName, document, latestRevisionId, ...rest } = row!
+  return {
+    ...toRow(rest), parentId: seenRevisionId(caller, rest.parentId, parentStatus), designName, labId: caller.lab.labId, document,
+    latestRevisionId: seenRevisionId(caller, latestRevisionId, latestStatus),
+  }
 }
 
 export async function createRevision(caller: LabCaller, designId: string, body: z.infer<typeof revisionCreate>) {

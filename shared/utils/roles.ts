@@ -18,6 +18,7 @@ export const PERMISSIONS = [
   'members:manage', // change roles, remove members, invite
   'designs:view', // open the lab's designs and all their revisions
   'designs:edit', // create designs and save revisions
+  'designs:archive', // archive or restore any of the lab's designs (everyone who edits may do it to their own)
   'review:comment', // comment on revisions
   'review:verdict', // approve or request changes
   'release:manage', // release an approved revision to fabrication
@@ -32,8 +33,8 @@ export type Permission = (typeof PERMISSIONS)[number]
 const everyoneInLab: Permission[] = ['lab:view', 'members:view', 'designs:view', 'released:view', 'forecast:run']
 
 export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
-  admin: [...everyoneInLab, 'members:manage', 'designs:edit', 'review:comment', 'review:verdict', 'release:manage', 'measurements:record', 'libraries:manage'],
-  designer: [...everyoneInLab, 'designs:edit', 'review:comment', 'measurements:record'],
+  admin: [...everyoneInLab, 'members:manage', 'designs:edit', 'designs:archive', 'review:comment', 'review:verdict', 'release:manage', 'measurements:record', 'libraries:manage'],
+  designer: [...everyoneInLab, 'designs:edit', 'designs:archive', 'review:comment', 'measurements:record'],
   reviewer: [...everyoneInLab, 'review:comment', 'review:verdict'],
   experimenter: [...everyoneInLab, 'designs:edit', 'measurements:record'],
   // A fabrication partner sees released work only, and reports back on it.
@@ -42,6 +43,11 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
 
 export function can(role: Role | null | undefined, permission: Permission): boolean {
   return role != null && ROLE_PERMISSIONS[role].includes(permission)
+}
+
+/** Archive or restore a design: with 'designs:archive' any of the lab's, with 'designs:edit' only one you created. */
+export function canArchive(role: Role | null | undefined, userId: string | null | undefined, createdBy: string): boolean {
+  return can(role, 'designs:archive') || (can(role, 'designs:edit') && userId != null && userId === createdBy)
 }
 
 export function isRole(value: unknown): value is Role {
@@ -54,6 +60,7 @@ export const PERMISSION_LABELS: Record<Permission, string> = {
   'members:manage': 'Invite people, change roles, remove members',
   'designs:view': 'Open the lab\'s designs and revisions',
   'designs:edit': 'Create designs and save revisions',
+  'designs:archive': 'Archive or restore any of the lab\'s designs',
   'review:comment': 'Comment on revisions',
   'review:verdict': 'Approve revisions or request changes',
   'release:manage': 'Release approved revisions to fabrication',

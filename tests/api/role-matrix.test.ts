@@ -14,6 +14,9 @@ const ROUTES: Route[] = [
   { name: 'list designs', method: 'GET', path: c => `/api/labs/${c.lab.id}/designs`, permission: 'designs:view' },
   { name: 'create a design', method: 'POST', path: c => `/api/labs/${c.lab.id}/designs`, permission: 'designs:edit', body: () => ({ name: 'matrix', document: fixtureDocument() }) },
   { name: 'open a design', method: 'GET', path: c => `/api/labs/${c.lab.id}/designs/${c.designId}`, permission: 'designs:view' },
+  // Restoring a design that is not archived changes nothing, but asks the same permission as archiving it. The
+  // design was created by the designer: an experimenter (who may archive only their own) is refused.
+  { name: 'archive or restore a design', method: 'PATCH', path: c => `/api/labs/${c.lab.id}/designs/${c.designId}`, permission: 'designs:archive', body: () => ({ archived: false }) },
   { name: 'rename a design', method: 'PATCH', path: c => `/api/labs/${c.lab.id}/designs/${c.designId}`, permission: 'designs:edit', body: () => ({ name: 'Cell drops T-junction' }) },
   { name: 'list revisions', method: 'GET', path: c => `/api/labs/${c.lab.id}/designs/${c.designId}/revisions`, permission: 'designs:view' },
   { name: 'save a revision', method: 'POST', path: c => `/api/labs/${c.lab.id}/designs/${c.designId}/revisions`, permission: 'designs:edit', body: c => ({ parentId: c.revisionId, message: 'm', document: fixtureDocument(), branch: true }) },

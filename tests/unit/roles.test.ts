@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { can, isRole, PERMISSIONS, ROLES, type Permission, type Role } from '../../shared/utils/roles'
+import { can, canArchive, isRole, PERMISSIONS, ROLES, type Permission, type Role } from '../../shared/utils/roles'
 
 // The whole role matrix, case by case: the product brief's table of who gets what done.
 const MATRIX: Record<Permission, Role[]> = {
@@ -8,6 +8,7 @@ const MATRIX: Record<Permission, Role[]> = {
   'members:manage': ['admin'],
   'designs:view': ['admin', 'designer', 'reviewer', 'experimenter'],
   'designs:edit': ['admin', 'designer', 'experimenter'],
+  'designs:archive': ['admin', 'designer'],
   'review:comment': ['admin', 'designer', 'reviewer'],
   'review:verdict': ['admin', 'reviewer'],
   'release:manage': ['admin'],
@@ -30,6 +31,15 @@ describe('role permissions', () => {
       })
     }
   }
+  it('lets an experimenter archive only designs they created, and nobody without designs:edit', () => {
+    expect(canArchive('experimenter', 'u1', 'u1')).toBe(true)
+    expect(canArchive('experimenter', 'u1', 'u2')).toBe(false)
+    expect(canArchive('designer', 'u1', 'u2')).toBe(true)
+    expect(canArchive('admin', 'u1', 'u2')).toBe(true)
+    expect(canArchive('reviewer', 'u1', 'u1')).toBe(false)
+    expect(canArchive('fabricator', 'u1', 'u1')).toBe(false)
+    expect(canArchive('experimenter', null, 'u1')).toBe(false)
+  })
   it('denies everything without a role', () => {
     expect(PERMISSIONS.some(p => can(null, p))).toBe(false)
   })
