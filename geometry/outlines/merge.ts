@@ -88,12 +88,25 @@ function convexAlone(p: Polygon): Polygon | null {
   return [[...ring, ring[0]!]]
 }
 
+/** Swaps x and y of every point; the mirror image reverses each ring's turning, so rings are reversed too. */
+const transposed = (polys: readonly Polygon[]): Polygon[] =>
+  polys.map((p) => p.map((r) => r.map(([x, y]): Pair => [y, x]).reverse()))
+
 function mergeGroup(polys: readonly Polygon[]): MultiPolygon {
   if (polys.length === 1) {
     const alone = convexAlone(polys[0]!)
     if (alone) return [alone]
   }
-  return unionTree(polys, polys.map(pieceBox), polys.map((_, i) => i))
+  const boxes = polys.map(pieceBox)
+  let x0 = Infinity; let y0 = Infinity; let x1 = -Infinity; let y1 = -Infinity
+  for (const b of boxes) {
+    x0 = Math.min(x0, b[0]); y0 = Math.min(y0, b[1]); x1 = Math.max(x1, b[2]); y1 = Math.max(y1, b[3])
+  }
+  // polygon-clipping sweeps along x, and each segment's state carries the rings the sweep line crosses: a
+  // group taller than wide (a step array's nozzles along y on their supply) puts every nozzle on the sweep
+  // line at once — quadratic, 4 GB for 20 000 nozzles. Merged transposed, the sweep runs along the long side.
+  if (y1 - y0 > x1 - x0) return transposed(mergeGroup(transposed(polys)) as Polygon[])
+  return unionTree(polys, boxes, polys.map((_, i) => i))
 }
 
 /** Lowest-leftmost vertex of each part first: a stable order that does not depend on how pieces were grouped. */

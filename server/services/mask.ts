@@ -1,21 +1,34 @@
 // The mask file of a revision: merged, closed outlines per depth layer in micrometres (geometry/dxf).
-import { createError } from 'h3'
+// Pure (no h3, no I/O): it runs in a geometry worker (server/workers/geometry.ts), and in-thread without one.
 import { buildOutlines } from '../../geometry/outlines'
 import { exportDxf } from '../../geometry/dxf'
 import type { ChipDocument } from '../../shared/schemas/chip'
-import type { RevisionDetail } from '../../shared/types/designs'
+
+/** What the worker needs of a revision (it is copied to the worker thread). */
+export interface MaskInput {
+  document: unknown
+  number: number
+  createdAt: string
+  designName: string
+  mirror: boolean
+  layers?: string[]
+}
+
+export type MaskResult =
+  | { ok: true, dxf: string, filename: string }
+  | { ok: false, message: string }
 
 const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'design'
 
-export function revisionDxf(revision: RevisionDetail, options: { mirror: boolean, layers?: string[] }) {
-  const doc = revision.document as ChipDocument
+export function maskFile(input: MaskInput): MaskResult {
+  const doc = input.document as ChipDocument
   const outlines = buildOutlines(doc)
   if (outlines.problems.length) {
-    throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: `This revision's geometry cannot be exported: ${outlines.problems.map(p => p.message).join('; ')}` })
+    return { ok: false, message: `This revision's geometry cannot be exported: ${outlines.problems.map(p => p.message).join('; ')}` }
   }
-  const date = revision.createdAt.slice(0, 10)
-  const dxf = exportDxf(doc, { mirror: options.mirror, layers: options.layers, revision: `r${revision.number}`, date, outlines })
-  const layerSet = options.layers?.length ? options.layers.map(slug).join('+') : 'all-layers'
-  const filename = `${slug(revision.designName)}_r${revision.number}_${layerSet}${options.mirror ? '_mirrored' : ''}.dxf`
-  return { dxf, filename }
+  const date = input.createdAt.slice(0, 10)
+  const dxf = exportDxf(doc, { mirror: input.mirror, layers: input.layers, revision: `r${input.number}`, date, outlines })
+  const layerSet = input.layers?.length ? input.layers.map(slug).join('+') : 'all-layers'
+  const filename = `${slug(input.designName)}_r${input.number}_${layerSet}${input.mirror ? '_mirrored' : ''}.dxf`
+  return { ok: true, dxf, filename }
 }

@@ -2,18 +2,19 @@
 import { z } from 'zod'
 import { BUILT_IN_PROCESSES } from '../../geometry/rules/processes'
 import { labParams } from './labs'
+import { safeText } from './text'
 
 export const designParams = labParams.extend({ designId: z.uuid('Design id must be a UUID') })
 export const revisionParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID') })
 export const compareParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID'), otherId: z.uuid('Revision id must be a UUID') })
 
-const name = z.string().trim().min(1, 'Give the design a name').max(120, 'A name is at most 120 characters')
-const message = z.string().trim().min(1, 'Say what changed in this revision').max(500, 'A message is at most 500 characters')
+const name = safeText(undefined, 'Name').trim().min(1, 'Give the design a name').max(120, 'A name is at most 120 characters')
+const message = safeText(undefined, 'Message').trim().min(1, 'Say what changed in this revision').max(500, 'A message is at most 500 characters')
 
 export const designCreate = z.object({
   name,
-  description: z.string().max(2000, 'A description is at most 2000 characters').default(''),
-  processId: z.string().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id), 'Choose one of the fabrication processes').optional(),
+  description: safeText(undefined, 'Description').max(2000, 'A description is at most 2000 characters').default(''),
+  processId: safeText().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id), 'Choose one of the fabrication processes').optional(),
   /** A chip document (validated by the chip schema on the server); omitted → a starter document. */
   document: z.unknown().optional(),
   message: message.default('First revision'),
@@ -22,12 +23,12 @@ export type DesignCreate = z.input<typeof designCreate>
 
 export const designUpdate = z.object({
   name: name.optional(),
-  description: z.string().max(2000).optional(),
+  description: safeText(undefined, 'Description').max(2000, 'A description is at most 2000 characters').optional(),
   archived: z.boolean().optional(),
 })
 
 export const designListQuery = z.object({
-  q: z.string().max(120).optional(),
+  q: safeText(undefined, 'Search text').max(120, 'Search text is at most 120 characters').optional(),
   status: z.enum(['draft', 'in-review', 'changes-requested', 'approved', 'released']).optional(),
   kind: z.enum(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction']).optional(),
   archived: z.enum(['true', 'false']).default('false'),
@@ -52,5 +53,5 @@ export const duplicateBody = z.object({
 export const dxfQuery = z.object({
   mirror: z.enum(['true', 'false']).default('false'),
   /** Comma-separated layer ids or DXF layer names; all layers when omitted. */
-  layers: z.string().max(500).optional(),
+  layers: safeText(undefined, 'Layer list').max(500, 'The layer list is at most 500 characters').optional(),
 })

@@ -1,10 +1,11 @@
 import { z } from 'zod'
 import { ROLES } from '../utils/roles'
 import { labParams } from './labs'
+import { safeText } from './text'
 
 export const INVITATION_DAYS = 7
 
-const email = z.string().trim().toLowerCase().max(254, 'E-mail is at most 254 characters').email('Enter an e-mail address')
+const email = safeText(undefined, 'E-mail').trim().toLowerCase().max(254, 'E-mail is at most 254 characters').email('Enter an e-mail address')
 
 /** An admin invites an address with a role. */
 export const invitationCreate = z.object({ email, role: z.enum(ROLES, 'Choose a role') })
@@ -14,13 +15,13 @@ export const invitationParams = labParams.extend({ invitationId: z.uuid('Invitat
 
 /** The secret in the link: 32 random bytes, base64url. */
 export const invitationTokenParams = z.object({
-  token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, 'This invitation link is not valid: copy the whole link from the e-mail'),
+  token: safeText(undefined, 'Invitation link').regex(/^[A-Za-z0-9_-]{43}$/, 'This invitation link is not valid: copy the whole link from the e-mail'),
 })
 
 /** The account created when someone without one accepts. */
 export const newAccount = z.object({
-  name: z.string().trim().min(1, 'Enter your name').max(120, 'Name is at most 120 characters'),
-  password: z.string().min(10, 'Choose a password of at least 10 characters').max(200, 'Password is at most 200 characters'),
+  name: safeText(undefined, 'Name').trim().min(1, 'Enter your name').max(120, 'Name is at most 120 characters'),
+  password: safeText(undefined, 'Password').min(10, 'Choose a password of at least 10 characters').max(200, 'Password is at most 200 characters'),
 })
 export type NewAccount = z.infer<typeof newAccount>
 

@@ -1,7 +1,8 @@
-// The public forecast API (docs/forecast-api.md): a junction, a network or a chip document.
-import { ForecastInputError, runForecast } from '../../../shared/physics/forecast'
+// The public forecast API (docs/forecast-api.md): a junction, a network or a chip document, computed in a
+// geometry worker with a time budget (server/utils/summaryWorker.ts); a bad request is a 400 naming each field.
 import { requireSession } from '../../utils/access'
 import { assertBodySize } from '../../utils/bodyLimit'
+import { forecastOffThread } from '../../utils/summaryWorker'
 
 export default defineEventHandler(async (event) => {
   requireSession(event)
@@ -9,10 +10,5 @@ export default defineEventHandler(async (event) => {
   const request = await readBody(event).catch(() => {
     throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: 'Body must be valid JSON' })
   })
-  try {
-    return runForecast(request)
-  } catch (error) {
-    if (!(error instanceof ForecastInputError)) throw error
-    throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: error.message, data: { issues: error.issues } })
-  }
+  return forecastOffThread(request)
 })

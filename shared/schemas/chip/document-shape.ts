@@ -6,6 +6,8 @@ import { mark } from './marks'
 import { operatingPoint } from './operating-points'
 import { outline } from './outline'
 import { port } from './ports'
+import { safeText } from '../text'
+import { CHIP_LIMITS as L } from './limits'
 import { elementId } from './primitives'
 
 /** The current document version. Bump it together with a new `upgrades/vN-to-vN+1.ts`. */
@@ -16,7 +18,8 @@ export const LAYERS_REQUIRED = 'A chip needs at least one layer (one per channel
 /** The document's single-valued fields. */
 export const documentFields = z.object({
   version: z.literal(CHIP_DOCUMENT_VERSION, { error: `Document version must be ${CHIP_DOCUMENT_VERSION} after upgrade` }),
-  name: z.string().min(1, { error: 'Design name must not be empty' }).max(200),
+  name: safeText({ error: 'Design name must be a string' }, 'Design name').min(1, { error: 'Design name must not be empty' })
+    .max(L.nameChars, { error: `Design name must be at most ${L.nameChars} characters` }),
   units: z.literal('um', { error: 'Document units must be "um" (all lengths in micrometres)' }),
   outline: outline.optional(),
   activeOperatingPoint: elementId.optional(),

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { CHIP_LIMITS as L, shownLimit } from './limits'
 import { point } from './primitives'
 import { positiveUm } from './units'
 
@@ -12,7 +13,8 @@ export const outline = z.discriminatedUnion('kind', [
   }),
   z.object({
     kind: z.literal('polygon'),
-    points: z.array(point).min(3, { error: 'Chip outline polygon needs at least 3 points' }),
+    points: z.array(point).min(3, { error: 'Chip outline polygon needs at least 3 points' })
+      .max(L.pointsPerLine, { error: `Chip outline polygon must have at most ${shownLimit(L.pointsPerLine)} points` }),
   }),
 ])
 export type Outline = z.infer<typeof outline>

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { CHIP_LIMITS as L } from './limits'
 import { elementId, point } from './primitives'
 import { positiveUm } from './units'
 
@@ -10,7 +11,7 @@ export const port = z.object({
   id: elementId,
   kind: z.enum(['inlet', 'outlet'], { error: 'Port kind must be "inlet" or "outlet"' }),
   position: point,
-  punchDiameter: positiveUm('Port punch diameter'),
+  punchDiameter: positiveUm('Port punch diameter', L.punchDiameterUm),
   layerId: elementId,
   feed: z.object({ phase }).optional(),
 })

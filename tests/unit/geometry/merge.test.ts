@@ -57,12 +57,14 @@ describe('clustered union', () => {
     const chain = [square(0, 0, 10), square(10, 0, 10), square(20, 5, 10)] // edge to edge, then overlapping
     expect(pieceClusters([...chain, square(100, 0, 10)], 0)).toEqual([[0, 1, 2], [3]])
   })
-  it('merges a 4,096-nozzle single ladder (one sweep over it overflows the call stack in polygon-clipping 0.15)', () => {
-    const doc = generateParallelChip({ nozzles: 4096, nozzlesPerBank: 4096 })
+  // One sweep over a 4,096-nozzle single ladder overflowed the call stack in polygon-clipping 0.15; 3,200 in one
+  // bank (196 mm) is the longest single ladder within the document's ±200 000 µm coordinate limit.
+  it('merges a 3,200-nozzle single ladder, the longest the coordinate limit allows', () => {
+    const doc = generateParallelChip({ nozzles: 3200, nozzlesPerBank: 3200 })
     const o = buildOutlines(doc)
     expect(o.problems).toEqual([])
     const deep = o.layers.find((l) => l.layerId === 'deep')!
     expect(deep.polygons).toHaveLength(4) // the ladder (manifold, nozzles' reservoirs, feeds) and three punches
-    expect(o.layers.find((l) => l.layerId === 'nozzle')!.polygons).toHaveLength(4096 + 2) // + 2 alignment crosses
+    expect(o.layers.find((l) => l.layerId === 'nozzle')!.polygons).toHaveLength(3200 + 2) // + 2 alignment crosses
   }, 30_000)
 })

@@ -1,5 +1,6 @@
 import { z } from 'zod'
-import { positiveUm } from '../units'
+import { CHIP_LIMITS as L } from '../limits'
+import { countOf, positiveUm } from '../units'
 import { componentBase, requireThat } from './common'
 
 /**
@@ -11,8 +12,7 @@ export const serpentine = z
   .object({
     ...componentBase,
     kind: z.literal('serpentine'),
-    turns: z.number().int({ error: 'Serpentine turns must be a whole number' })
-      .min(1, { error: 'Serpentine needs at least 1 turn' }).max(10_000),
+    turns: countOf('Serpentine turns', 1, L.serpentineTurns),
     pitch: positiveUm('Serpentine pitch'),
     width: positiveUm('Serpentine width'),
     totalLength: positiveUm('Serpentine total length'),

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { elementId } from '../primitives'
-import { positiveUm } from '../units'
+import { CHIP_LIMITS as L } from '../limits'
+import { countOf, positiveUm } from '../units'
 import { componentBase, requireThat } from './common'
 
 /**
@@ -13,8 +14,7 @@ export const stepArray = z
     kind: z.literal('step-array'),
     supplyLayerId: elementId,
     reservoirLayerId: elementId,
-    nozzleCount: z.number().int({ error: 'Step array nozzle count must be a whole number' })
-      .min(1, { error: 'Step array needs at least 1 nozzle' }).max(100_000),
+    nozzleCount: countOf('Step array nozzle count', 1, L.nozzlesPerArray),
     pitch: positiveUm('Step array pitch'),
     nozzleWidth: positiveUm('Step array nozzle width'),
     nozzleLength: positiveUm('Step array nozzle length'),

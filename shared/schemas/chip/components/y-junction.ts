@@ -10,14 +10,14 @@ export const yJunction = z
   .object({
     ...componentBase,
     kind: z.literal('y-junction'),
-    angle: z.number({ error: 'Y-junction angle must be a number in degrees' }),
+    angle: z.number({ error: 'Y-junction angle must be a number in degrees' })
+      .min(10, { error: 'Y-junction angle must be between 10° and 170°' }).max(170, { error: 'Y-junction angle must be between 10° and 170°' }),
     continuousWidth: positiveUm('Y-junction continuous width'),
     dispersedWidth: positiveUm('Y-junction dispersed width'),
     outletWidth: positiveUm('Y-junction outlet width'),
     armLength: positiveUm('Y-junction arm length'),
   })
   .superRefine((c, ctx) => {
-    requireThat(ctx, c.angle >= 10 && c.angle <= 170, 'angle', 'Y-junction angle must be between 10° and 170°')
     const widest = Math.max(c.continuousWidth, c.dispersedWidth, c.outletWidth)
     requireThat(ctx, c.armLength >= widest, 'armLength', `Y-junction arm length must be ≥ the widest channel (${widest} µm)`)
   })

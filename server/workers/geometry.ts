@@ -1,0 +1,31 @@
+// Geometry worker (a tinypool thread): revision summaries (design rules + forecast), mask DXF files and the
+// public forecast, off the request's event loop. Each export is one task kind; server/utils/summaryWorker.ts
+// runs them with a time budget and terminates a worker that overruns it. Bundled to
+// .output/server/workers/geometry.mjs by scripts/build-workers.mjs when Nitro has compiled.
+import { ForecastInputError, runForecast, type ForecastAnswer } from '../../shared/physics/forecast'
+import type { ChipDocument } from '../../shared/schemas/chip'
+import type { RevisionSummary } from '../../shared/types/designs'
+import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
+import { summarizeRevision } from '../services/revisionSummary'
+
+export function summary(job: { document: ChipDocument, processId: string }): RevisionSummary {
+  return summarizeRevision(job.document, job.processId)
+}
+
+export function dxf(job: MaskInput): MaskResult {
+  return maskFile(job)
+}
+
+/** A refusal of the request crosses the thread as data (class instances do not survive the copy). */
+export type ForecastResult =
+  | { ok: true, answer: ForecastAnswer }
+  | { ok: false, message: string, issues: ForecastInputError['issues'] }
+
+export function forecast(request: unknown): ForecastResult {
+  try {
+    return { ok: true, answer: runForecast(request) }
+  } catch (error) {
+    if (error instanceof ForecastInputError) return { ok: false, message: error.message, issues: error.issues }
+    throw error
+  }
+}
