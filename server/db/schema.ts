@@ -40,13 +40,44 @@ export const sessions = pgTable('sessions', {
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
 }, t => [index('sessions_user_idx').on(t.userId), index('sessions_expires_idx').on(t.expiresAt)])
 
-/** Failed sign-ins, kept in the database so throttling holds across server instances. */
+/**
+ * A browser that has signed in to an account before: the `dw_device` cookie holds a random token, this table its
+ * SHA-256. Sign-in attempts from a known device are counted apart from everyone else's (server/services/signIn.ts).
+ */
+export const knownDevices = pgTable('known_devices', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+  createdAt: createdAt(),
+  lastUsedAt: timestamp('last_used_at', { withTimezone: true }).notNull().defaultNow(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+}, t => [index('known_devices_user_idx').on(t.userId)])
+
+/**
+ * Sign-in attempts that count against a limit: every attempt reserves its row before the password is checked, and a
+ * right password deletes it again, so the rows are the failures plus the attempts still being checked. Kept in the
+ * database so throttling holds across server instances. `device_id` is set for attempts from a known device.
+ */
 export const signInFailures = pgTable('sign_in_failures', {
   id: integer('id').primaryKey().generatedAlwaysAsIdentity(),
   email: varchar('email', { length: 254 }).notNull(),
   ip: varchar('ip', { length: 64 }).notNull(),
+  deviceId: uuid('device_id').references(() => knownDevices.id, { onDelete: 'cascade' }),
   at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
-}, t => [index('sign_in_failures_email_idx').on(t.email, t.at), index('sign_in_failures_ip_idx').on(t.ip, t.at)])
+}, t => [
+  index('sign_in_failures_email_idx').on(t.email, t.at), index('sign_in_failures_ip_idx').on(t.ip, t.at),
+  index('sign_in_failures_device_idx').on(t.deviceId, t.at),
+])
+
+/** A password reset link: the e-mail carries a random token, this table its SHA-256; one use, short expiry. */
+export const passwordResets = pgTable('password_resets', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull().unique(),
+  createdAt: createdAt(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  usedAt: timestamp('used_at', { withTimezone: true }),
+}, t => [index('password_resets_user_idx').on(t.userId, t.createdAt)])
 
 export const revisionStatusEnum = pgEnum('revision_status', ['draft', 'in-review', 'changes-requested', 'approved', 'released'])
 export const verdictEnum = pgEnum('verdict', ['approve', 'request-changes'])
@@ -189,4 +220,6 @@ export type Revision = typeof revisions.$inferSelect
 export type CommentThread = typeof commentThreads.$inferSelect
 export type Comment = typeof comments.$inferSelect
 export type Invitation = typeof invitations.$inferSelect
+export type KnownDevice = typeof knownDevices.$inferSelect
+export type PasswordReset = typeof passwordResets.$inferSelect
 export type MailMessage = typeof mailOutbox.$inferSelect

@@ -1,5 +1,5 @@
-// Resolves the session cookie once per request. Every API route except sign-in, the liveness probe and the two
-// invitation-link routes (whose token is the credential) answers 401 without a live session.
+// Resolves the session cookie once per request. Every API route except sign-in, the liveness probe, the reset
+// request and the invitation and reset link routes (whose token is the credential) answers 401 without a session.
 import { createError, defineEventHandler, getRequestURL } from 'h3'
 import { resolveSession } from '../services/sessions'
 import { readSessionCookie } from '../utils/cookies'
@@ -10,7 +10,15 @@ const PUBLIC_INVITATION: Array<[method: string, pattern: RegExp]> = [
   ['GET', /^\/api\/invitations\/[A-Za-z0-9_-]{43}$/],
   ['POST', /^\/api\/invitations\/[A-Za-z0-9_-]{43}\/accept$/],
 ]
-const isPublic = (method: string, path: string) => PUBLIC_API.has(path) || PUBLIC_INVITATION.some(([m, p]) => m === method && p.test(path))
+// The reset request (answered the same for any address), and the reset link's two routes; nothing else under
+// /api/auth/password-reset.
+const PUBLIC_PASSWORD_RESET: Array<[method: string, pattern: RegExp]> = [
+  ['POST', /^\/api\/auth\/password-reset$/],
+  ['GET', /^\/api\/auth\/password-reset\/[A-Za-z0-9_-]{43}$/],
+  ['POST', /^\/api\/auth\/password-reset\/[A-Za-z0-9_-]{43}$/],
+]
+const isPublic = (method: string, path: string) => PUBLIC_API.has(path)
+  || [...PUBLIC_INVITATION, ...PUBLIC_PASSWORD_RESET].some(([m, p]) => m === method && p.test(path))
 
 export default defineEventHandler(async (event) => {
   const path = getRequestURL(event).pathname

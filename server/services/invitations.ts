@@ -5,10 +5,10 @@ import { and, desc, eq, isNull, sql } from 'drizzle-orm'
 import { createError } from 'h3'
 import { invitations, labs, memberships, users, type Invitation } from '../db/schema'
 import { useDb } from '../utils/db'
-import { hashPassword } from '../utils/password'
+import { hashPassword, serverPasswordChecks } from '../utils/password'
 import { parseOr400 } from '../utils/validate'
 import type { LabCaller } from '../utils/access'
-import { INVITATION_DAYS, newAccount, type InvitationAccept, type InvitationCreate, type NewAccount } from '../../shared/schemas/invitations'
+import { INVITATION_DAYS, newAccountFor, type InvitationAccept, type InvitationCreate, type NewAccount } from '../../shared/schemas/invitations'
 import type { InvitationInfo, PendingInvitation } from '../../shared/types/invitations'
 import type { SessionData } from '../../shared/types/session'
 import type { Role } from '../../shared/utils/roles'
@@ -127,7 +127,7 @@ export async function acceptInvitation(session: SessionData | null, token: strin
     }
   } else {
     if (await accountFor(invitation.email)) throw signInFirst(invitation.email)
-    account = parseOr400(newAccount, body, 'Body')
+    account = parseOr400(newAccountFor(invitation.email, serverPasswordChecks), body, 'Body')
     passwordHash = await hashPassword(account.password) // slow on purpose: before the transaction, not inside it
   }
   return useDb().transaction(async (tx) => {

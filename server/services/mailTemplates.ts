@@ -78,3 +78,15 @@ export function releasedMail(p: { designName: string, revisionNumber: number, re
     action: { label: 'Open the release', link: p.link },
   })
 }
+
+export function passwordResetMail(p: { name: string, link: string, minutes: number }): MailContent {
+  return render({
+    subject: 'Reset your Dropwright password',
+    lines: [
+      `Hello ${p.name},`,
+      'Someone (we hope you) asked to reset the password of your Dropwright account. Open the link to choose a new one; every place you are signed in is signed out when you do.',
+    ],
+    action: { label: 'Choose a new password', link: p.link },
+    footnote: `The link works once and for ${p.minutes} minutes. If you did not ask for it, ignore this message: your password stays as it is.`,
+  })
+}

@@ -1,9 +1,10 @@
 // Server-side sessions in PostgreSQL: sign-out and expiry end them for every server instance.
 import { createHash, randomBytes } from 'node:crypto'
-import { eq, lt } from 'drizzle-orm'
+import { and, eq, lt, ne } from 'drizzle-orm'
 import { sessions } from '../db/schema'
 import { useDb, usePool } from '../utils/db'
 import type { SessionData } from '../../shared/types/session'
+import type { DbOrTx } from './mail'
 
 const TTL_MS = Number(process.env.DW_SESSION_TTL_HOURS ?? 24 * 7) * 3600_000
 
@@ -20,6 +21,17 @@ export async function createSession(userId: string): Promise<{ token: string, ex
 
 export async function endSession(token: string): Promise<void> {
   await useDb().delete(sessions).where(eq(sessions.tokenHash, digest(token)))
+}
+
+/**
+ * Ends every session of `userId` (sign out everywhere, a password reset), or every one but the session of
+ * `keepToken` (a password change keeps the browser that made it signed in). Returns how many ended.
+ */
+export async function endSessionsOf(db: DbOrTx, userId: string, keepToken?: string): Promise<number> {
+  const rows = await db.delete(sessions)
+    .where(keepToken ? and(eq(sessions.userId, userId), ne(sessions.tokenHash, digest(keepToken))) : eq(sessions.userId, userId))
+    .returning({ tokenHash: sessions.tokenHash })
+  return rows.length
 }
 
 /** One round trip, prepared once per connection: the live session's person and all their labs. */

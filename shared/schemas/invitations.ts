@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { ROLES } from '../utils/roles'
+import { newPasswordField, passwordProblem, type PasswordChecks } from './auth'
 import { labParams } from './labs'
 import { safeText } from './text'
 
@@ -18,13 +19,23 @@ export const invitationTokenParams = z.object({
   token: safeText(undefined, 'Invitation link').regex(/^[A-Za-z0-9_-]{43}$/, 'This invitation link is not valid: copy the whole link from the e-mail'),
 })
 
-/** The account created when someone without one accepts. */
-export const newAccount = z.object({
+/** The account created when someone without one accepts: the password follows the policy in ./auth. */
+const accountFields = {
   name: safeText(undefined, 'Name').trim().min(1, 'Enter your name').max(120, 'Name is at most 120 characters'),
-  password: safeText(undefined, 'Password').min(10, 'Choose a password of at least 10 characters').max(200, 'Password is at most 200 characters'),
-})
+  password: newPasswordField(),
+}
+
+/** The new account for the invited `email` (when known): the policy's checks against the address and the name (and
+ * `checks`) run once the fields themselves pass. */
+export function newAccountFor(email?: string | null, checks: PasswordChecks = {}) {
+  return z.object(accountFields).superRefine((account, ctx) => {
+    const problem = passwordProblem(account.password, email ? { email, name: account.name } : null, checks)
+    if (problem) ctx.addIssue({ code: 'custom', path: ['password'], message: problem })
+  })
+}
+export const newAccount = newAccountFor()
 export type NewAccount = z.infer<typeof newAccount>
 
 /** Accepting: empty when signed in with the invited address; name and password to create the account. */
-export const invitationAccept = newAccount.partial()
+export const invitationAccept = z.object(accountFields).partial()
 export type InvitationAccept = z.infer<typeof invitationAccept>

@@ -32,3 +32,10 @@ export function invitationLink(mail: ArrivedMail): { url: string, path: string, 
   if (!m) throw new Error(`no invitation link in:\n${mail.text}`)
   return { url: m[1]!, path: new URL(m[1]!).pathname, token: m[2]! }
 }
+
+/** The password reset link in a message's text, as an address path (`/reset-password/<token>`) and the token. */
+export function resetLink(mail: ArrivedMail): { url: string, path: string, token: string } {
+  const m = /(https?:\/\/[^\s]+\/reset-password\/([A-Za-z0-9_-]{43}))/.exec(mail.text)
+  if (!m) throw new Error(`no reset link in:\n${mail.text}`)
+  return { url: m[1]!, path: new URL(m[1]!).pathname, token: m[2]! }
+}

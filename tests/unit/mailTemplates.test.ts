@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { escapeHtml, invitationMail, verdictMail } from '../../server/services/mailTemplates'
+import { escapeHtml, invitationMail, passwordResetMail, verdictMail } from '../../server/services/mailTemplates'
 
 describe('mail templates', () => {
   it('escapes every interpolated value in the HTML and keeps the text plain', () => {
@@ -22,5 +22,14 @@ describe('mail templates', () => {
     expect(mail.subject).toBe('Approved: "D" revision 1')
     expect(mail.html).not.toContain('href=')
     expect(escapeHtml('&<>"\'')).toBe('&amp;&lt;&gt;&quot;&#39;')
+  })
+
+  it('writes the password reset mail with its link, how long it works, and the name escaped', () => {
+    const mail = passwordResetMail({ name: 'Ines <b>Varro</b>', link: 'http://127.0.0.1:3000/reset-password/abc', minutes: 60 })
+    expect(mail.subject).toBe('Reset your Dropwright password')
+    expect(mail.text).toContain('Choose a new password: http://127.0.0.1:3000/reset-password/abc')
+    expect(mail.text).toContain('works once and for 60 minutes')
+    expect(mail.html).toContain('Ines &lt;b&gt;Varro&lt;/b&gt;')
+    expect(mail.html).toContain('href="http://127.0.0.1:3000/reset-password/abc"')
   })
 })
