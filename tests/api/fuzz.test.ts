@@ -125,7 +125,8 @@ function bodies(templates: unknown[]): fc.Arbitrary<Body> {
 }
 
 const show = (b: Body) => {
-  const text = 'raw' in b ? `raw ${JSON.stringify(b.raw.slice(0, 300))}` : JSON.stringify(b.json) ?? String(b.json)
+  if ('raw' in b) return `raw ${JSON.stringify(b.raw.slice(0, 300))}${b.raw.length > 300 ? `… (${b.raw.length} characters)` : ''}`
+  const text = JSON.stringify(b.json) ?? String(b.json)
   const cut = text.length > 300 ? `${text.slice(0, 300)}… (${text.length} characters)` : text
   return 'changed' in b && b.changed ? `[${b.changed}] ${cut}` : cut
 }
