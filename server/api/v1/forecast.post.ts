@@ -1,11 +1,9 @@
 // The public forecast API (docs/forecast-api.md): a junction, a network or a chip document.
 import { ForecastInputError, runForecast } from '../../../shared/physics/forecast'
 import { requireSession } from '../../utils/access'
-import { assertBodySize } from '../../utils/bodyLimit'
 
 export default defineEventHandler(async (event) => {
   requireSession(event)
-  assertBodySize(event)
   const request = await readBody(event).catch(() => {
     throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: 'Body must be valid JSON' })
   })
