@@ -1,17 +1,25 @@
 // Dropwright — Nuxt configuration. The repository root is the source folder (no app/ folder).
 import { fileURLToPath } from 'node:url'
+import { PAGE_CSP, PERMISSIONS_POLICY } from './server/utils/securityHeaders'
 
 export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   srcDir: '.',
   devtools: { enabled: false },
-  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', '@sidebase/nuxt-auth'],
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', '@sidebase/nuxt-auth', 'nuxt-security'],
   css: [
     '@fontsource/ibm-plex-sans/400.css', '@fontsource/ibm-plex-sans/500.css', '@fontsource/ibm-plex-sans/600.css',
     '@fontsource/jetbrains-mono/400.css', '@fontsource/jetbrains-mono/500.css',
     '~/assets/css/main.css',
   ],
-  app: { head: { title: 'Dropwright', htmlAttrs: { lang: 'en' }, link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }] } },
+  app: {
+    head: {
+      title: 'Dropwright', htmlAttrs: { lang: 'en' }, link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+      // Security: the page CSP has no 'unsafe-eval', so zod must not compile validators in the browser (its probe
+      // for `new Function` would be a CSP violation). Its global config has to be set before any schema is built.
+      script: [{ innerHTML: 'globalThis.__zod_globalConfig = Object.assign(globalThis.__zod_globalConfig || {}, { jitless: true })', tagPriority: 'critical' }],
+    },
+  },
   runtimeConfig: {
     databaseUrl: '', // NUXT_DATABASE_URL or DATABASE_URL
     sessionTtlHours: 24 * 7,
@@ -52,6 +60,34 @@ export default defineNuxtConfig({
     'nitro:config'(config) {
       config.errorHandler = [fileURLToPath(new URL('./server/errors/database.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
     },
+  },
+  // Security headers (docs/api-limits.md). nuxt-security writes them on every answer and the page CSP with a fresh
+  // script nonce per answer; /api answers get their own set in server/middleware/0.request-guard.ts. Its other
+  // defences are off: CSRF (Origin check), body types and counted body limits are ours (server/utils/bodyLimit.ts,
+  // origin.ts), sign-in throttling lives in PostgreSQL, and its XSS filter would reject comments that quote HTML.
+  security: {
+    headers: {
+      contentSecurityPolicy: PAGE_CSP,
+      crossOriginEmbedderPolicy: false,
+      crossOriginOpenerPolicy: 'same-origin',
+      crossOriginResourcePolicy: 'same-origin',
+      // Not no-referrer: with it, browsers send `Origin: null` on the app's own writes, which the CSRF check refuses.
+      referrerPolicy: 'same-origin',
+      strictTransportSecurity: { maxAge: 15552000, includeSubdomains: false },
+      xFrameOptions: 'DENY',
+      permissionsPolicy: PERMISSIONS_POLICY,
+    },
+    nonce: true,
+    sri: true,
+    requestSizeLimiter: false,
+    rateLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    removeLoggers: false,
+    csrf: false,
+    basicAuth: false,
+    hidePoweredBy: true,
   },
   experimental: { scanPageMeta: true, extraPageMetaExtractionKeys: ['auth'] },
   typescript: { strict: true },

@@ -5,5 +5,7 @@ cd "$(dirname "$0")/.."
 . scripts/prepare.sh
 prepare app
 start_smtp
-npx tsx scripts/print-demo.ts "http://127.0.0.1:${PORT:-3000}"
+# The one address of the app: links in e-mail and the origin the CSRF check accepts.
+export DW_PUBLIC_URL=${DW_PUBLIC_URL:-http://127.0.0.1:${PORT:-3000}}
+npx tsx scripts/print-demo.ts "$DW_PUBLIC_URL"
 exec npx nuxt dev --host 127.0.0.1 --port "${PORT:-3000}"

@@ -1,12 +1,146 @@
+// Request bodies, counted on the stream whatever the transfer encoding (Content-Length or chunked): what each route
+// accepts (docs/api-limits.md) and the one reader every route uses. A body over its limit answers 413 the moment the
+// limit is passed; the server never holds more than the limit of one body in memory.
 import type { H3Event } from 'h3'
 import { createError, getRequestHeader } from 'h3'
 
-/** Documented request-size limit for JSON bodies that carry chip documents: 8 MiB. */
-export const MAX_DOCUMENT_BYTES = 8 * 1024 * 1024
+const KiB = 1024
+const MiB = 1024 * KiB
 
-export function assertBodySize(event: H3Event, limit = MAX_DOCUMENT_BYTES) {
-  const length = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (length > limit) {
-    throw createError({ statusCode: 413, statusMessage: 'Payload Too Large', message: `The request is ${(length / 1048576).toFixed(1)} MiB; the limit is ${limit / 1048576} MiB` })
+/** Bodies that carry a chip document (a design, a revision, a forecast request): 8 MiB. */
+export const MAX_DOCUMENT_BYTES = 8 * MiB
+/** Every other body (sign-in, invitations, comments, verdicts, …): 64 KiB, far above the longest field allowed. */
+export const MAX_SMALL_BYTES = 64 * KiB
+
+/** The only body type the API takes today. A route that documents another lists it in ROUTE_BODIES. */
+export const JSON_TYPE = 'application/json'
+
+interface BodyRule { method: string, pattern: RegExp, limit: number, types?: string[] }
+
+/** Routes whose limit or accepted types differ from the default (64 KiB of JSON). */
+export const ROUTE_BODIES: BodyRule[] = [
+  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/designs$/, limit: MAX_DOCUMENT_BYTES },
+  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/designs\/[^/]+\/revisions$/, limit: MAX_DOCUMENT_BYTES },
+  { method: 'POST', pattern: /^\/api\/v1\/forecast$/, limit: MAX_DOCUMENT_BYTES },
+]
+
+export const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
+
+export function bodyRule(method: string, path: string): { limit: number, types: string[] } {
+  const rule = ROUTE_BODIES.find(r => r.method === method && r.pattern.test(path))
+  return { limit: rule?.limit ?? MAX_SMALL_BYTES, types: rule?.types ?? [JSON_TYPE] }
+}
+
+const size = (bytes: number) => bytes >= MiB ? `${+(bytes / MiB).toFixed(1)} MiB` : `${+(bytes / KiB).toFixed(1)} KiB`
+
+/** Does the request say it has a body (a Content-Length above 0, or chunks)? */
+export function hasBody(event: H3Event): boolean {
+  const length = Number.parseInt(getRequestHeader(event, 'content-length') ?? '', 10)
+  return (Number.isFinite(length) && length > 0) || getRequestHeader(event, 'transfer-encoding') !== undefined
+}
+
+/**
+ * 415 unless the body is of a type the route accepts. Parameters are allowed when they are a UTF-8 charset.
+ * A write without a body and without a Content-Type (sign-out, delete) passes; a form type never does.
+ */
+export function assertBodyType(event: H3Event, types: string[] = bodyRule(event.method, event.path.split('?')[0]!).types) {
+  const header = getRequestHeader(event, 'content-type')
+  if (header === undefined && !hasBody(event)) return
+  const [type = '', ...params] = (header ?? '').split(';').map(p => p.trim().toLowerCase())
+  const charsetOk = params.every(p => p === '' || /^charset="?utf-8"?$/.test(p))
+  if (types.includes(type) && charsetOk) return
+  const accepted = types.join(' or ')
+  throw createError({
+    statusCode: 415,
+    statusMessage: 'Unsupported Media Type',
+    message: header
+      ? `This address accepts ${accepted} bodies (UTF-8) only; the request sent ${header.split(';')[0]!.trim() || 'an empty type'}${charsetOk ? '' : ` with ${params.filter(Boolean).join('; ')}`}`
+      : `This address accepts ${accepted} bodies only; the request sent a body without a Content-Type`,
+    data: { accepted: types },
+  })
+}
+
+const tooLarge = (limit: number, seen: string) => createError({
+  statusCode: 413,
+  statusMessage: 'Payload Too Large',
+  message: `The request body is ${seen}; this address accepts at most ${size(limit)}`,
+  data: { limitBytes: limit },
+})
+
+declare module 'h3' {
+  interface H3EventContext { body?: Promise<Buffer | undefined> }
+}
+
+/**
+ * After a refusal the client may still be sending: once the 413 is out, read and drop what keeps coming for at most
+ * two seconds (so the client reads the answer instead of a reset connection), then close the connection.
+ */
+function discardRest(event: H3Event) {
+  const { req, res } = event.node
+  const drop = () => {
+    req.removeAllListeners('data')
+    req.on('data', () => {})
+    req.resume()
+    if (req.readableEnded) return
+    const timer = setTimeout(() => req.socket?.destroy(), 2000)
+    timer.unref()
+    req.once('end', () => clearTimeout(timer))
+    req.once('close', () => clearTimeout(timer))
   }
+  if (res.writableFinished) drop()
+  else res.once('finish', drop)
+}
+
+/**
+ * The request body, read once per request with a byte counter (the same promise on every later call): undefined
+ * without a body, else the bytes. 413 as soon as the count passes `limit`; reading stops there.
+ */
+export function readLimitedBody(event: H3Event, limit = bodyRule(event.method, event.path.split('?')[0]!).limit): Promise<Buffer | undefined> {
+  if (event.context.body) return event.context.body
+  const promise = readCounted(event, limit).then((body) => {
+    // h3's own readers (readBody, readRawBody) take this body instead of reading the stream a second time.
+    if (body) (event.node.req as unknown as Record<symbol, unknown>)[Symbol.for('h3RawBody')] = body
+    return body
+  })
+  event.context.body = promise
+  return promise
+}
+
+function readCounted(event: H3Event, limit: number): Promise<Buffer | undefined> {
+  if (!hasBody(event)) return Promise.resolve(undefined)
+  const declared = Number.parseInt(getRequestHeader(event, 'content-length') ?? '', 10)
+  if (Number.isFinite(declared) && declared > limit) {
+    discardRest(event)
+    return Promise.reject(tooLarge(limit, size(declared)))
+  }
+  const { req } = event.node
+  return new Promise((resolve, reject) => {
+    const chunks: Buffer[] = []
+    let count = 0
+    const onData = (chunk: Buffer) => {
+      count += chunk.length
+      if (count > limit) {
+        cleanup()
+        req.pause()
+        chunks.length = 0
+        discardRest(event)
+        reject(tooLarge(limit, `over ${size(limit)}`))
+        return
+      }
+      chunks.push(chunk)
+    }
+    const onEnd = () => { cleanup(); resolve(Buffer.concat(chunks, count)) }
+    const onError = (error: Error) => { cleanup(); reject(createError({ statusCode: 400, statusMessage: 'Bad Request', message: `The request body could not be read: ${error.message}` })) }
+    const onClose = () => { if (!req.readableEnded) onError(new Error('the connection closed before the body ended')) }
+    const cleanup = () => {
+      req.off('data', onData)
+      req.off('end', onEnd)
+      req.off('error', onError)
+      req.off('close', onClose)
+    }
+    req.on('data', onData)
+    req.on('end', onEnd)
+    req.on('error', onError)
+    req.on('close', onClose)
+  })
 }

@@ -1,13 +1,11 @@
 import { designParams, revisionCreate } from '../../../../../../../shared/schemas/designs'
 import { createRevision } from '../../../../../../services/revisions'
 import { requireLabPermission } from '../../../../../../utils/access'
-import { assertBodySize } from '../../../../../../utils/bodyLimit'
 import { validBody, validParams } from '../../../../../../utils/validate'
 
 export default defineEventHandler(async (event) => {
   const { labId, designId } = validParams(event, designParams)
   const caller = requireLabPermission(event, labId, 'designs:edit')
-  assertBodySize(event)
   const body = await validBody(event, revisionCreate)
   setResponseStatus(event, 201)
   return createRevision(caller, designId, body)
