@@ -68,7 +68,7 @@ const tooLarge = (limit: number, seen: string) => createError({
 })
 
 declare module 'h3' {
-  interface H3EventContext { body?: Promise<Buffer | undefined> }
+  interface H3EventContext { countedBody?: Promise<Buffer | undefined> }
 }
 
 /**
@@ -96,13 +96,13 @@ function discardRest(event: H3Event) {
  * without a body, else the bytes. 413 as soon as the count passes `limit`; reading stops there.
  */
 export function readLimitedBody(event: H3Event, limit = bodyRule(event.method, event.path.split('?')[0]!).limit): Promise<Buffer | undefined> {
-  if (event.context.body) return event.context.body
+  if (event.context.countedBody) return event.context.countedBody
   const promise = readCounted(event, limit).then((body) => {
     // h3's own readers (readBody, readRawBody) take this body instead of reading the stream a second time.
     if (body) (event.node.req as unknown as Record<symbol, unknown>)[Symbol.for('h3RawBody')] = body
     return body
   })
-  event.context.body = promise
+  event.context.countedBody = promise
   return promise
 }
 
