@@ -51,7 +51,10 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
   const design = await findDesign(useDb(), caller, designId)
   if (design.archivedAt) throw archived()
   const document = validDocument(body.document)
-  const summary = await summarizeOffThread(document, design.processId)
+  // A parent that is already not the latest never becomes it again: such a save ends in 409 below, so it skips the
+  // summary (the expensive part) and leaves the geometry workers to saves that can win.
+  const stale = !body.branch && design.latestRevisionId !== body.parentId
+  const summary = stale ? null : await summarizeOffThread(document, design.processId)
   // One connection from begin to commit (DEVELOPERS.md, "Database work"): the loser of a race reads what came
   // after its parent on the connection that holds the lock, never through a second checkout.
   return withClient(async (client) => {
@@ -71,6 +74,7 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
         data: { latestRevisionId: locked.latest, since },
       })
     }
+    if (!summary) throw new Error('a save without a summary reached the insert') // unreachable: stale saves end in 409 above
     const number = locked.count + 1
     const action = body.branch ? 'revision.branched' : 'revision.saved'
     const { rows: [revision] } = await client.query<{ id: string }>({

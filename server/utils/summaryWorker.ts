@@ -17,6 +17,7 @@ import type { RevisionDetail, RevisionSummary } from '../../shared/types/designs
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
 import type { ForecastResult } from '../workers/geometry'
+import { assertJsonDepth } from './jsonDepth'
 
 const envNumber = (name: string, fallback: number) => {
   const v = Number(process.env[name])
@@ -25,7 +26,9 @@ const envNumber = (name: string, fallback: number) => {
 /** Per-task time budget (ms), worker threads, waiting tasks, worker heap (MB). */
 export const GEOMETRY_BUDGET_MS = envNumber('DW_GEOMETRY_BUDGET_MS', 60_000)
 const THREADS = envNumber('DW_GEOMETRY_THREADS', 2)
-const QUEUE = envNumber('DW_GEOMETRY_QUEUE', 32)
+// 256 waiting tasks: a burst of saves (120 at once on one design in tests/api/save-race.test.ts) waits its turn
+// instead of answering 503; each waiting task holds one validated document, bounded by the 8 MiB body limit.
+const QUEUE = envNumber('DW_GEOMETRY_QUEUE', 256)
 const HEAP_MB = envNumber('DW_GEOMETRY_HEAP_MB', 1024)
 
 let pool: Tinypool | null | undefined
@@ -142,6 +145,7 @@ export async function dxfOffThread(revision: RevisionDetail, options: { mirror: 
 
 /** POST /api/v1/forecast: a junction, a network or a chip document; a bad request is a 400 naming each field. */
 export async function forecastOffThread(request: unknown): Promise<ForecastAnswer> {
+  assertJsonDepth(request)
   const p = usePool()
   let result: ForecastResult
   if (p) {

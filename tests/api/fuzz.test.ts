@@ -180,6 +180,10 @@ function plan(route: ApiRoute, s: Setup) {
   const plans: Record<string, { client: ApiClient, params?: Partial<typeof params>, templates: unknown[] }> = {
     'POST /api/auth/login': { client: anonymous, templates: [{ email: `nobody-${randomUUID().slice(0, 6)}@test.example`, password: 'not-the-password-1' }] },
     'POST /api/auth/logout': { client: leaver, templates: [{}] },
+    'POST /api/auth/logout-everywhere': { client: leaver, templates: [{}] },
+    'POST /api/auth/password': { client: leaver, templates: [{ currentPassword: 'not-the-password-1', newPassword: 'a fresh passphrase 42' }] },
+    'POST /api/auth/password-reset': { client: anonymous, templates: [{ email: `nobody-${randomUUID().slice(0, 6)}@test.example` }] },
+    'POST /api/auth/password-reset/[token]': { client: anonymous, templates: [{ password: 'a fresh passphrase 42' }] },
     'POST /api/invitations/[token]/accept': { client: anonymous, templates: [{ name: 'New Person', password: 'long-enough-password' }, {}] },
     'POST /api/labs/[labId]/designs': {
       client: admin,
