@@ -25,7 +25,7 @@ const envNumber = (name: string, fallback: number) => {
 /** Per-task time budget (ms), worker threads, waiting tasks, worker heap (MB). */
 export const GEOMETRY_BUDGET_MS = envNumber('DW_GEOMETRY_BUDGET_MS', 120_000)
 const THREADS = envNumber('DW_GEOMETRY_THREADS', 2)
-const QUEUE = envNumber('DW_GEOMETRY_QUEUE', 32)
+const QUEUE = envNumber('DW_GEOMETRY_QUEUE', 1000)
 const HEAP_MB = envNumber('DW_GEOMETRY_HEAP_MB', 1024)
 
 let pool: Tinypool | null | undefined
