@@ -1,11 +1,16 @@
 // Geometry benchmark (part of `npm run bench`): outline + merge, design rules and DXF for the generated
 // 512- and 4,096-nozzle chips; the clustered merge against one polygon-clipping sweep per layer; the
-// spatial-index rule check against the naive all-pairs check; growth per 8×; chip sizes and wafers.
+// spatial-index rule check against the naive all-pairs check; growth per 8×; chip sizes and wafers; the largest
+// document the schema accepts and what its summary and DXF take.
 import { multiPolygonArea } from '~~/geometry/area'
 import { planParallelChip, planTJunctionChip } from '~~/geometry/arrays'
 import { exportDxf } from '~~/geometry/dxf'
 import { buildOutlines, mergePiecesSingleSweep } from '~~/geometry/outlines'
 import { BUILT_IN_PROCESSES, checkDesignRules } from '~~/geometry/rules'
+import { documentPieceCount, parseChipDocument } from '~~/shared/schemas/chip'
+import { summarizeRevision } from '~~/server/services/revisionSummary'
+import { maskFile } from '~~/server/services/mask'
+import { largestAcceptedDocument } from '~~/tests/unit/schemas/largest'
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!
 
@@ -79,6 +84,25 @@ export async function run(): Promise<void> {
   console.log(`  64 T-junctions: outline+rules ${tjRules.ms.toFixed(1)} ms, ${tjRules.value.filter((f) => f.severity !== 'info').length} errors/warnings;` +
     ` chip ${mm(tj.chip.width)} × ${mm(tj.chip.height)} mm (${tj.chip.wafer.diameterMm ?? '> 300'} mm wafer);` +
     ` manifolds ${tj.continuous.width}/${tj.dispersed.width} µm, non-uniformity ${(100 * tj.continuous.nonUniformity).toFixed(2)}/${(100 * tj.dispersed.nonUniformity).toFixed(2)} %`)
+  largest()
+}
+
+/** The largest document the schema accepts (tests/unit/schemas/largest.ts): what one save or DXF can cost. */
+function largest(): void {
+  const raw = largestAcceptedDocument()
+  const parsed = parseChipDocument(raw)
+  if (!parsed.ok) throw new Error(`largest accepted document refused: ${parsed.errors[0]?.message}`)
+  const doc = parsed.document
+  const nozzles = doc.components.reduce((n, c) => n + (c.kind === 'step-array' ? c.nozzleCount : 0), 0)
+  let t = performance.now()
+  summarizeRevision(doc, BUILT_IN_PROCESSES[0]!.id)
+  const summaryMs = performance.now() - t
+  t = performance.now()
+  const mask = maskFile({ document: doc, number: 1, createdAt: '2026-01-01', designName: doc.name, mirror: false })
+  const dxfMs = performance.now() - t
+  console.log(`  largest accepted document: ${(JSON.stringify(raw).length / 1024).toFixed(1)} KiB, ${nozzles.toLocaleString('en-US')} nozzles,` +
+    ` ${documentPieceCount(doc).toLocaleString('en-US')} pieces (its JSON is tiny; the cost is the pieces) → summary ${(summaryMs / 1000).toFixed(1)} s, DXF ${(dxfMs / 1000).toFixed(1)} s` +
+    ` (${mask.ok ? `${(mask.dxf.length / 1e6).toFixed(1)} MB` : mask.message}); both run in a geometry worker with a time budget`)
 }
 
 if (import.meta.url === `file://${globalThis.process.argv[1]}`) await run()

@@ -24,7 +24,7 @@ const envNumber = (name: string, fallback: number) => {
   return Number.isFinite(v) && v > 0 ? v : fallback
 }
 /** Per-task time budget (ms), worker threads, waiting tasks, worker heap (MB). */
-export const GEOMETRY_BUDGET_MS = envNumber('DW_GEOMETRY_BUDGET_MS', 60_000)
+export const GEOMETRY_BUDGET_MS = envNumber('DW_GEOMETRY_BUDGET_MS', 120_000)
 const THREADS = envNumber('DW_GEOMETRY_THREADS', 2)
 // 256 waiting tasks: a burst of saves (120 at once on one design in tests/api/save-race.test.ts) waits its turn
 // instead of answering 503; each waiting task holds one validated document, bounded by the 8 MiB body limit.

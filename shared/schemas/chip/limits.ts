@@ -39,7 +39,7 @@ export const CHIP_LIMITS = {
    * Drawn pieces in the whole document (channel segments and their joins, nozzles, serpentine runs and turns,
    * arms of the other parts, punches, marks): what outline merging, rules and the DXF cost. The 4,096-nozzle
    * chip of `planParallelChip` has 16 653, the 8,192-nozzle one about 33 300. The largest accepted document
-   * (tests/unit/schemas/largest.ts) takes seconds per stage, well within the worker's time budget.
+   * (tests/unit/schemas/largest.ts) takes 10–50 s per stage on a loaded 2-core machine, within the worker's 120 s budget.
    */
   pieces: 40_000,
   /** Text: names, labels and marks. */
