@@ -3,10 +3,10 @@
 // in the console, while an injected inline script is blocked.
 import type { Browser, ConsoleMessage, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { ApiClient } from '../support/api'
 import { hydrated, launch, newPage, signInAs } from '../support/browser'
+import { designerWithDesign } from '../support/designs'
 import { at } from '../support/editor'
-import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
+import { TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
 let email = ''
@@ -14,13 +14,10 @@ let labId = ''
 let designId = ''
 beforeAll(async () => {
   browser = await launch()
-  const { lab, people } = await makeLab(['designer'])
-  labId = lab.id
-  email = people[0]!.email
-  const api = await new ApiClient().signIn(email, TEST_PASSWORD)
-  const created = await api.post(`/api/labs/${labId}/designs`, { name: 'CSP check chip', document: fixtureDocument() })
-  expect(created.status).toBe(201)
-  designId = created.json.designId
+  const made = await designerWithDesign('CSP check chip')
+  email = made.email
+  labId = made.labId
+  designId = made.designId
 })
 afterAll(async () => { await browser?.close() })
 

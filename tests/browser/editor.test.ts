@@ -4,11 +4,10 @@
 import type { Browser, Page } from 'playwright-core'
 import { readFile } from 'node:fs/promises'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { ApiClient } from '../support/api'
 import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
-import { labWithDesign } from '../support/designs'
+import { labWithDesign, designerWithDesign } from '../support/designs'
 import { at, editorPage } from '../support/editor'
-import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
+import { TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
 let email = ''
@@ -16,12 +15,10 @@ let labId = ''
 let designId = ''
 beforeAll(async () => {
   browser = await launch()
-  const { lab, people } = await makeLab(['designer'])
-  labId = lab.id
-  email = people[0]!.email
-  const api = await new ApiClient().signIn(email, TEST_PASSWORD)
-  const created = await api.post(`/api/labs/${labId}/designs`, { name: 'Editor story chip', document: fixtureDocument() })
-  designId = created.json.designId
+  const made = await designerWithDesign('Editor story chip')
+  email = made.email
+  labId = made.labId
+  designId = made.designId
 })
 afterAll(async () => { await browser?.close() })
 

@@ -17,3 +17,13 @@ export async function labWithDesign() {
   if (created.status !== 201) throw new Error(`create failed: ${created.status} ${JSON.stringify(created.json)}`)
   return { lab, as: clients, ids, designId: created.json.designId as string, revisionId: created.json.revisionId as string }
 }
+
+/** A lab with one designer, signed in, and one design of the fixture chip, made through the API. */
+export async function designerWithDesign(name: string) {
+  const { lab, people } = await makeLab(['designer'])
+  const email = people[0]!.email
+  const api = await new ApiClient().signIn(email, TEST_PASSWORD)
+  const created = await api.post(`/api/labs/${lab.id}/designs`, { name, document: fixtureDocument() })
+  if (created.status !== 201) throw new Error(`create failed: ${created.status} ${JSON.stringify(created.json)}`)
+  return { labId: lab.id, email, api, designId: created.json.designId as string, revisionId: created.json.revisionId as string }
+}
