@@ -50,7 +50,7 @@ export const RESET_REQUESTED = 'If a Dropwright account uses that address, a lin
 
 export async function requestPasswordReset({ email }: PasswordResetRequest, origin: string): Promise<{ message: string }> {
   await useDb().transaction(async (tx) => {
-    const [user] = await tx.select({ id: users.id, email: users.email, name: users.name }).from(users).where(sql`lower(${users.email}) = ${email}`).for('update')
+    const [user] = await tx.select({ id: users.id, email: users.email, name: users.name }).from(users).where(sql`lower(${users.email}) = ${email}`).for('no key update')
     if (!user) return
     const [recent] = await tx.select({ n: count() }).from(passwordResets)
       .where(and(eq(passwordResets.userId, user.id), gt(passwordResets.createdAt, sql`now() - interval '1 hour'`)))

@@ -92,7 +92,7 @@ const archived = () => createError({ statusCode: 409, statusMessage: 'Conflict',
 const LOCK_SQL = `
   select d.latest_revision_id as latest, d.revision_count as count, d.archived_at is not null as archived,
          (select p.number from revisions p where p.id = $2 and p.design_id = d.id) as parent
-    from designs d where d.id = $1 for update`
+    from designs d where d.id = $1 for no key update`
 const SINCE_SQL = `
   select r.id, r.design_id as "designId", r.number, r.parent_id as "parentId", r.message, u.name as "authorName",
          r.created_at as "createdAt", r.status, r.status_changed_at as "statusChangedAt", r.summary

@@ -43,7 +43,8 @@ async function inWindow(tx: Tx, where: ReturnType<typeof and>) {
     n: sql<number>`count(*)::int`,
     retry: sql<number>`coalesce(ceil(extract(epoch from min(${signInFailures.at}) + ${WINDOW} - now())), 0)::int`,
   }).from(signInFailures).where(and(where, gt(signInFailures.at, sql`now() - ${WINDOW}`)))
-  return { n: row?.n ?? 0, retry: Math.max(1, row?.retry ?? 0) }
+  // Clamped to the window: an attempt counted by a transaction that began after this one can read as 901 s.
+  return { n: row?.n ?? 0, retry: Math.min(WINDOW_MIN * 60, Math.max(1, row?.retry ?? 0)) }
 }
 
 /** Serialises attempts on one key (an account, an address, a device) until the transaction ends. */
