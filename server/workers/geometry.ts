@@ -2,11 +2,18 @@
 // public forecast, off the request's event loop. Each export is one task kind; server/utils/summaryWorker.ts
 // runs them with a time budget and terminates a worker that overruns it. Bundled to
 // .output/server/workers/geometry.mjs by scripts/build-workers.mjs when Nitro has compiled.
+import { setPriority } from 'node:os'
 import { ForecastInputError, runForecast, type ForecastAnswer } from '../../shared/physics/forecast'
 import type { ChipDocument } from '../../shared/schemas/chip'
 import type { RevisionSummary } from '../../shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
+
+// Below the request thread: on Linux a nice value is per thread, so on a busy machine the event loop that answers
+// requests gets the CPU first and a long geometry task waits (DW_GEOMETRY_NICE, default 10; 0 keeps it equal).
+try {
+  setPriority(Number(process.env.DW_GEOMETRY_NICE ?? 10))
+} catch { /* not allowed here: run at the same priority */ }
 
 export function summary(job: { document: ChipDocument, processId: string }): RevisionSummary {
   return summarizeRevision(job.document, job.processId)
