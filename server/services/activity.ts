@@ -1,10 +1,8 @@
 // The audit trail: one row per thing that happened to a design, written in the same transaction.
 import { desc, eq } from 'drizzle-orm'
 import { activity, revisions, users } from '../db/schema'
-import type { Db } from '../utils/db'
+import type { Db, Tx } from '../utils/db'
 import type { ActivityEntry } from '../../shared/types/designs'
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
 
 export async function logActivity(db: Db | Tx, entry: { labId: string, designId: string, revisionId?: string | null, actorId: string, action: string, detail?: Record<string, unknown> }) {
   await db.insert(activity).values({ ...entry, detail: entry.detail ?? {} })

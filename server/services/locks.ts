@@ -10,10 +10,9 @@ import { designs, labs, revisions } from '../db/schema'
 import type { Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { can } from '../../shared/utils/roles'
-import { revisionHead, type RevisionHead } from './designGuards'
+import { notFound, revisionHead, type RevisionHead } from './designGuards'
 
 export const conflict = (message: string, data?: Record<string, unknown>) => createError({ statusCode: 409, statusMessage: 'Conflict', message, data })
-const notFound = (what: string) => createError({ statusCode: 404, statusMessage: 'Not Found', message: `No such ${what} in this lab` })
 
 /** The lab row, for changes to who is in the lab (roles, removals, invitations): one at a time per lab. */
 export async function lockLab(tx: Tx, labId: string): Promise<void> {

@@ -3,7 +3,8 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import { designs, memberships, users } from '../db/schema'
 import type { RevisionHead as Revision } from './designGuards'
-import type { Db } from '../utils/db'
+import type { Tx } from '../utils/db'
+import { appOrigin } from '../utils/origin'
 import type { LabCaller } from '../utils/access'
 import { queueMailTo, type DbOrTx } from './mail'
 import { newCommentMail, releasedMail, reviewRequestedMail, verdictMail } from './mailTemplates'
@@ -24,14 +25,8 @@ export const mailReleased = (db: DbOrTx, p: Base & { releasedByName: string, lab
   queueMailTo(db, [p.to].flat(), { labId: p.labId, kind: 'released', ...releasedMail(p) })
 
 // Who hears about review events. Called by the review services inside their transaction.
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
-
-/** Links in notification mail: DW_PUBLIC_URL in production, else the address this server listens on. */
-export function publicOrigin(): string {
-  return (process.env.DW_PUBLIC_URL || `http://${process.env.HOST || '127.0.0.1'}:${process.env.PORT || 3000}`).replace(/\/$/, '')
-}
-
-const revisionLink = (labId: string, revisionId: string) => `${publicOrigin()}/labs/${labId}/revisions/${revisionId}`
+// Links in mail: the one configured origin (server/utils/origin.ts), never the request's Host header.
+const revisionLink = (labId: string, revisionId: string) => `${appOrigin()}/labs/${labId}/revisions/${revisionId}`
 
 async function context(tx: Tx, caller: LabCaller, revision: Revision) {
   const [row] = await tx.select({ name: designs.name, createdBy: designs.createdBy }).from(designs).where(eq(designs.id, revision.designId))

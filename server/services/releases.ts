@@ -5,7 +5,7 @@ import { designs, releases, revisions } from '../db/schema'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { logActivity } from './activity'
-import { findVisibleRevision } from './designGuards'
+import { archivedDesign, findVisibleRevision } from './designGuards'
 import { conflict, lockRevision } from './locks'
 import { FAB_NEXT, FAB_STATUS_LABELS, fabFrom, type FabStatus } from '../../shared/utils/fabStatus'
 import { notifyReleased } from './notifications'
@@ -14,7 +14,7 @@ export async function releaseRevision(caller: LabCaller, revisionId: string, not
   await useDb().transaction(async (tx) => {
     // Under the revision row lock a verdict racing this release has either committed (and is seen here) or waits.
     const revision = await lockRevision(tx, caller, revisionId)
-    if (revision.archived) throw conflict('This design is archived: restore it first')
+    if (revision.archived) throw archivedDesign()
     if (revision.status === 'released') throw conflict('This revision has already been released to fabrication', { status: 'released' })
     if (revision.status !== 'approved') {
       throw conflict(`Only an approved revision can be released (this one is ${revision.status})`, { status: revision.status })

@@ -8,11 +8,10 @@ import type { LabCaller } from '../utils/access'
 import type { RevisionStatus } from '../../shared/types/designs'
 import { can } from '../../shared/utils/roles'
 import { logActivity } from './activity'
-import { findVisibleRevision } from './designGuards'
+import { archivedDesign, findVisibleRevision } from './designGuards'
 import { conflict, lockRevision } from './locks'
 import { notifyReviewRequested, notifyVerdict } from './notifications'
 
-const archivedDesign = () => conflict('This design is archived: restore it first')
 
 export async function requestReview(caller: LabCaller, revisionId: string, reviewerIds: string[]) {
   const db = useDb()

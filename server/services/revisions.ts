@@ -9,7 +9,7 @@ import type { LabCaller } from '../utils/access'
 import type { RevisionDetail, RevisionRow, RevisionSummary } from '../../shared/types/designs'
 import type { revisionCreate } from '../../shared/schemas/designs'
 import type { z } from 'zod'
-import { assertNotArchived, findDesign, findVisibleRevision, notFound, seenRevisionId } from './designGuards'
+import { archivedDesign, assertNotArchived, findDesign, findVisibleRevision, notFound, seenRevisionId } from './designGuards'
 import { validDocument } from './documents'
 import { summarizeOffThread } from '../utils/summaryWorker'
 
@@ -49,7 +49,7 @@ export async function getRevision(caller: LabCaller, revisionId: string, options
 
 export async function createRevision(caller: LabCaller, designId: string, body: z.infer<typeof revisionCreate>) {
   const design = await findDesign(useDb(), caller, designId)
-  if (design.archivedAt) throw archived()
+  assertNotArchived(design)
   const document = validDocument(body.document)
   // A parent that is already not the latest never becomes it again: such a save ends in 409 below, so it skips the
   // summary (the expensive part) and leaves the geometry workers to saves that can win.
@@ -63,7 +63,7 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
       name: 'dw-save-lock', text: LOCK_SQL, values: [designId, body.parentId],
     })
     if (!locked) throw notFound('design')
-    if (locked.archived) throw archived()
+    if (locked.archived) throw archivedDesign()
     if (locked.parent === null) throw notFound('parent revision for this design')
     if (!body.branch && locked.latest !== body.parentId) {
       const { rows } = await client.query<RawRow>({ name: 'dw-save-since', text: SINCE_SQL, values: [designId, locked.parent] })
@@ -85,8 +85,6 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
     return { revisionId: revision!.id, number }
   })
 }
-
-const archived = () => createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This design is archived: restore it before saving' })
 
 // One round trip each (the save is the busiest write): lock + parent check, then revision + design + activity.
 const LOCK_SQL = `
