@@ -6,6 +6,8 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   srcDir: '.',
   devtools: { enabled: false },
+  // Only .vue files are components: the pure helpers beside them (components/*/lib/*.ts) are plain modules.
+  components: [{ path: '~/components', extensions: ['vue'] }],
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', '@sidebase/nuxt-auth', 'nuxt-security'],
   css: [
     '@fontsource/ibm-plex-sans/400.css', '@fontsource/ibm-plex-sans/500.css', '@fontsource/ibm-plex-sans/600.css',
