@@ -26,9 +26,9 @@ afterAll(async () => { await second?.stop(); await pool.end(); await closeDb() }
 describe('background jobs (pg-boss)', () => {
   it('shares one queue between two server instances: every job runs once, on either', async () => {
     const marker = randomUUID()
-    const ids = await Promise.all(Array.from({ length: 24 }, () => enqueueJob('diagnostic.echo', { marker, ms: 150 })))
+    const ids = await Promise.all(Array.from({ length: 24 }, () => enqueueJob('diagnostic.echo', { marker, ms: 500 })))
     expect(new Set(ids).size).toBe(24)
-    await expect.poll(async () => (await jobsWith(marker)).filter(j => j.state === 'completed').length, { timeout: 20_000, interval: 250 }).toBe(24)
+    await expect.poll(async () => (await jobsWith(marker)).filter(j => j.state === 'completed').length, { timeout: 40_000, interval: 250 }).toBe(24)
     const jobs = await jobsWith(marker)
     expect(jobs.every(j => j.retry_count === 0)).toBe(true) // none ran twice
     const instances = new Set(jobs.map(j => j.output.instance))
