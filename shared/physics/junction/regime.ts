@@ -53,7 +53,7 @@ function regime(method: Method, valid: boolean, name: string, value: number, ban
  * dispersed phase in the nozzle for step), `we` is the dispersed-phase Weber number.
  * The T-junction thresholds are the published ones; for flow-focusing they are only indicative (valid: false).
  */
-export function classifyRegime(kind: JunctionKind, ca: number, we: number): Regime {
+export function classifyRegime(kind: JunctionKind, ca: number, we: number, _viscosityRatio?: number): Regime {
   const jetting = ca + we
   if (kind === 'step') {
     if (jetting >= JETTING_BAND[0]) return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'step-emulsification', 'jetting')
