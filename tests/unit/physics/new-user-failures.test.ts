@@ -40,9 +40,9 @@ const simpleNetwork = (channels: unknown[], sources: unknown[] = [{ node: 'in', 
   ({ network: { channels, sources, liquid: { viscosity: '3 mPa*s', density: '1000 kg/m^3' }, ...extra } })
 const channel = (id: string, from: string, to: string, patch: Record<string, unknown> = {}) => ({ id, from, to, width: '50 um', depth: '50 um', length: '1 mm', ...patch })
 
-describe('a deep, narrow channel (depth 200 µm > width 50 µm)', () => {
+describe('a deep, narrow channel (depth 400 µm > width 50 µm)', () => {
   const answer = runForecast(tJunction({
-    junction: { kind: 't-junction', mainWidth: '50 um', inletWidth: '50 um', depth: '200 um' },
+    junction: { kind: 't-junction', mainWidth: '50 um', inletWidth: '50 um', depth: '400 um' },
     flow: { continuous: '1 uL/min', dispersed: '0.05 uL/min' },
   })) as JunctionForecast
   it('gives a positive volume, diameter and frequency (a short drop is a disc, never a negative plug)', () => {
