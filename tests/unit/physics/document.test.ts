@@ -88,7 +88,8 @@ describe('document forecast: the T-junction fixture', () => {
       valid: false, // dripping at this Ca: the squeezing law is an upper bound
     }])
     const oil = answer.network.inlets.find((i) => i.port === 'oil-in')!
-    expect(summary.inlets).toContainEqual({ port: 'oil-in', mode: 'flow', pressureMbar: Number((oil.pressure.value / 100).toPrecision(4)) })
+    // 1 m³/s = 6e10 µL/min: the oil inlet's set 10 µL/min comes back as its solved flow.
+    expect(summary.inlets).toContainEqual({ port: 'oil-in', mode: 'flow', pressureMbar: Number((oil.pressure.value / 100).toPrecision(4)), flowUlPerMin: 10 })
   })
 })
 
