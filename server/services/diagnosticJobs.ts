@@ -2,6 +2,7 @@
 // queue itself: "diagnostic.echo" waits `ms` and answers which instance ran it (its PORT); "diagnostic.fail" always
 // throws `message`, to see the retries, the back-off, the dead-letter copy and the lab's failed-jobs view.
 import { setTimeout as sleep } from 'node:timers/promises'
+import { useConfig } from '../utils/config'
 import { defineJob } from '../utils/jobs'
 
 export interface EchoData { labId?: string, ms?: number, marker: string }
@@ -10,7 +11,7 @@ export interface FailData { labId?: string, message: string, marker: string }
 export function defineDiagnosticJobs() {
   defineJob<EchoData>('diagnostic.echo', async (data) => {
     await sleep(Math.min(Math.max(data.ms ?? 0, 0), 5000))
-    return { instance: process.env.PORT ?? String(process.pid), marker: data.marker }
+    return { instance: useConfig().listen.port, marker: data.marker }
   }, { retryLimit: 0, deadLetter: false, concurrency: 2 })
   defineJob<FailData>('diagnostic.fail', async (data) => {
     throw new Error(data.message)

@@ -6,6 +6,7 @@
 import { eq, sql } from 'drizzle-orm'
 import { createTransport } from 'nodemailer'
 import { mailOutbox, type MailMessage } from '../db/schema'
+import { useConfig, type Config } from '../utils/config'
 import type { Db } from '../utils/db'
 import { defineJob, type JobContext } from '../utils/jobs'
 import { MAIL_SEND_JOB, outboxMessageId, type MailSendData } from './mail'
@@ -17,16 +18,8 @@ export interface MailJobConfig {
   from: string
 }
 
-export function mailConfigFromEnv(env: NodeJS.ProcessEnv = process.env): MailJobConfig {
-  const whole = (name: string, fallback: number) => {
-    const n = Number(env[name])
-    return Number.isInteger(n) && n > 0 ? n : fallback
-  }
-  return {
-    retryDelaySeconds: whole('DW_MAIL_RETRY_SECONDS', 5),
-    maxAttempts: whole('DW_MAIL_MAX_ATTEMPTS', 8),
-    from: env.MAIL_FROM || 'Dropwright <no-reply@dropwright.local>',
-  }
+export function mailJobConfig(config: Config = useConfig()): MailJobConfig {
+  return { retryDelaySeconds: config.mail.retrySeconds, maxAttempts: config.mail.maxAttempts, from: config.mail.from }
 }
 
 /**
@@ -100,7 +93,7 @@ export async function sendOutboxMessage(store: OutboxStore, transport: MailTrans
 }
 
 /** Defines "mail.send" with its retries; the jobs plugin calls it once (it works here with SMTP_URL and DW_MAIL_WORKER not 0). */
-export function defineMailJob(store: OutboxStore, transport: MailTransport, config: MailJobConfig = mailConfigFromEnv(), { workHere = true } = {}) {
+export function defineMailJob(store: OutboxStore, transport: MailTransport, config: MailJobConfig = mailJobConfig(), { workHere = true } = {}) {
   return defineJob<MailSendData>(MAIL_SEND_JOB, (data: MailSendData, _job: JobContext) => sendOutboxMessage(store, transport, config, data.outboxId), {
     retryLimit: config.maxAttempts - 1,
     retryDelay: config.retryDelaySeconds,

@@ -15,6 +15,7 @@ import { integer, jsonb, pgSchema, text, timestamp, uuid } from 'drizzle-orm/pg-
 import type pg from 'pg'
 import PgBoss from 'pg-boss'
 import type { FailedJob } from '../../shared/types/jobs'
+import { useConfig } from './config'
 import { databaseUrl, useDb, usePool, type Db, type Tx } from './db'
 
 export interface JobDefinitionOptions {
@@ -70,13 +71,8 @@ let starting: Promise<PgBoss> | null = null
 let working = false
 const queuesReady = new Map<string, Promise<void>>()
 
-const num = (name: string, fallback: number, min = 0) => {
-  const v = Number(process.env[name])
-  return Number.isFinite(v) && v >= min ? v : fallback
-}
-
 /** How often an idle instance looks for new jobs (pg-boss allows 0.5 s at least). */
-const pollSeconds = () => Math.max(0.5, num('DW_JOBS_POLL_SECONDS', 2, 0.5))
+const pollSeconds = () => useConfig().jobs.pollSeconds
 
 export function defineJob<T extends object>(name: string, handler: JobHandler<T>, options: JobDefinitionOptions = {}): { name: string } {
   if (!/^[a-z][a-z0-9-]*(\.[a-z][a-z0-9-]*)*$/.test(name)) throw new Error(`Job name "${name}" must be lower-case words joined by "." or "-" (e.g. "mail.send")`)
@@ -150,7 +146,7 @@ export function startJobs({ work: runWorkers = true }: { work?: boolean } = {}):
   starting = (async () => {
     const b = new PgBoss({
       connectionString: databaseUrl(),
-      max: num('DW_JOBS_POOL', 3, 1),
+      max: useConfig().jobs.pool,
       application_name: 'dropwright-jobs',
       // Failed jobs stay listed for the lab's admins for 14 days; finished ones are archived after a day.
       archiveCompletedAfterSeconds: 24 * 3600,

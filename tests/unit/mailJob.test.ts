@@ -3,10 +3,11 @@
 // (tests/api/mail.test.ts and tests/api/jobs.test.ts watch them on the real queue).
 import { describe, expect, it } from 'vitest'
 import type { MailMessage } from '../../server/db/schema'
-import { mailConfigFromEnv, retryDelaySeconds, sendOutboxMessage, type MailTransport, type OutboxStore } from '../../server/services/mailJob'
+import { loadConfig } from '../../server/utils/config'
+import { mailJobConfig, retryDelaySeconds, sendOutboxMessage, type MailTransport, type OutboxStore } from '../../server/services/mailJob'
 import { outboxIdOf, outboxMessageId } from '../../server/services/mail'
 
-const config = { ...mailConfigFromEnv({}), maxAttempts: 3 }
+const config = { ...mailJobConfig(loadConfig({})), maxAttempts: 3 }
 
 function memoryStore(rows: MailMessage[]): OutboxStore & { rows: MailMessage[] } {
   return {
@@ -38,10 +39,10 @@ function stubTransport(failures: number): MailTransport & { sent: string[], call
 }
 
 describe('mail.send job', () => {
-  it('reads its settings from the environment, ignoring values that are not whole positive numbers', () => {
-    expect(mailConfigFromEnv({})).toEqual({ retryDelaySeconds: 5, maxAttempts: 8, from: 'Dropwright <no-reply@dropwright.local>' })
-    expect(mailConfigFromEnv({ DW_MAIL_RETRY_SECONDS: 'soon', DW_MAIL_MAX_ATTEMPTS: '2.5', MAIL_FROM: 'Lab <lab@x.example>' }))
-      .toEqual({ retryDelaySeconds: 5, maxAttempts: 8, from: 'Lab <lab@x.example>' })
+  it('takes its settings from the configuration', () => {
+    expect(mailJobConfig(loadConfig({}))).toEqual({ retryDelaySeconds: 5, maxAttempts: 8, from: 'Dropwright <no-reply@dropwright.local>' })
+    expect(mailJobConfig(loadConfig({ DW_MAIL_RETRY_SECONDS: '2', DW_MAIL_MAX_ATTEMPTS: '3', MAIL_FROM: 'Lab <lab@x.example>' })))
+      .toEqual({ retryDelaySeconds: 2, maxAttempts: 3, from: 'Lab <lab@x.example>' })
   })
 
   it('shows the earliest next try: delay × 2^(n−1) (pg-boss 10 failJobs plan: delay·2^n/2 plus up to as much jitter)', () => {
