@@ -75,6 +75,9 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
 
   const size = estimateSize(j, regime)
   warnings.push(...size.warnings)
+  if (!regime.valid && !warnings.length) {
+    warnings.push({ code: 'regime-indicative', message: `The ${regime.value} regime's thresholds (${regime.criterion.name} band ${regime.criterion.band.join('–')}) are indicative for this junction kind: ${regime.source}` })
+  }
   const sizeValid = size.valid && !wets && propertiesValid
   if (!propertiesValid) warnings.push({ code: 'properties-out-of-range', message: 'A liquid property is outside its correlation\'s range (see inputs); every size is marked invalid' })
   const volume = size.volume as CubicMetres

@@ -1,6 +1,6 @@
 // Solves a hydraulic network: index and check it, assemble the sparse SPD system, solve it, derive flows.
 import { NetworkError } from '../errors'
-import { assemble, multiply, type ReducedSystem } from './assemble'
+import { assemble, multiply, pressureReference, type ReducedSystem } from './assemble'
 import { denseSolve } from './dense'
 import { envelopeCholesky, envelopeShape, envelopeSolve } from './envelope'
 import { indexNetwork, type IndexedNetwork } from './indexing'
@@ -57,11 +57,15 @@ function residualOf(system: ReducedSystem, x: Float64Array): number {
 function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, solver: SolverName, iterations: number, residual: number): NetworkSolution {
   const n = net.nodeIds.length
   const pressure = new Float64Array(n)
-  for (let i = 0; i < n; i++) pressure[i] = net.unknownIndex[i]! >= 0 ? x[net.unknownIndex[i]!]! : net.fixedPressure[i]!
+  const reference = pressureReference(net)
+  // Flows from pressures relative to the reference, so a large common offset costs no digits.
+  const relative = new Float64Array(n)
+  for (let i = 0; i < n; i++) relative[i] = net.unknownIndex[i]! >= 0 ? x[net.unknownIndex[i]!]! : net.fixedPressure[i]! - reference
+  for (let i = 0; i < n; i++) pressure[i] = net.unknownIndex[i]! >= 0 ? relative[i]! + reference : net.fixedPressure[i]!
   const flow = new Float64Array(net.from.length)
   const outflow = new Float64Array(n)
   for (let k = 0; k < flow.length; k++) {
-    const q = (pressure[net.from[k]!]! - pressure[net.to[k]!]! - net.offset[k]!) * net.conductance[k]!
+    const q = (relative[net.from[k]!]! - relative[net.to[k]!]! - net.offset[k]!) * net.conductance[k]!
     flow[k] = q
     outflow[net.from[k]!]! += q
     outflow[net.to[k]!]! -= q
