@@ -15,8 +15,9 @@ describe('POST /api/v1/forecast and GET /api/v1/liquids (real server)', () => {
     }
     // Ca = μc·U/γ with U = Qc/(w·h): 3e-3 Pa·s × (10 µL/min ÷ (100 µm × 50 µm)) / 5e-3 N/m = 0.02
     expect(res.json.capillaryNumber.value).toBeCloseTo(3e-3 * (10e-9 / 60) / (100e-6 * 50e-6) / 5e-3, 6)
-    // L/w = 1 + α·Qd/Qc (Garstecki et al. 2006) with α = 1: L = 100 µm × 1.5
-    expect(res.json.dropletLength.value).toBeCloseTo(150e-6, 9)
+    // L/w = 1 + α·Qd/Qc (Garstecki et al. 2006) with α = 1: 100 µm × 1.5, shortened past Ca 0.01 by
+    // (Ca/0.01)^(−0.2) (the Xu et al. 2008 form, shared/physics/junction/tJunction.ts): × 2^(−0.2)
+    expect(res.json.dropletLength.value).toBeCloseTo(150e-6 * 2 ** -0.2, 9)
     // Ca = 0.02 lies above the squeezing threshold (Ca ≈ 0.015, De Menech et al. 2008): the size must come flagged
     expect(res.json.regime.value).not.toBe('squeezing')
     expect(res.json.dropletLength.valid).toBe(false)

@@ -308,7 +308,7 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
     // Fall back to the solve without drops (each channel still with its own liquid), and say so.
     added.fill(0)
     solve()
-    updateArms(flow)
+    for (let pass = 0; pass < 2 * junctions.length + 2 && updateArms(flow); pass++) (applyArms(), solve())
     warnings.push({ code: 'two-phase-not-converged', message: `The coupled drops–flows iteration did not settle within ${maxIterations} iterations (last relative change ${change.toExponential(2)}, tolerance ${COUPLING_TOLERANCE}); flows and pressures are given WITHOUT the drops' added resistance and marked invalid` })
   }
   for (let k = 0; k < n; k++) dropletPressure[k] = added[k]! * Math.abs(flow[k]!)
