@@ -113,7 +113,12 @@ export async function run(): Promise<void> {
   const docMs = median(() => forecastDocument(chip), 21)
   const json = JSON.parse(JSON.stringify(chip))
   const parseMs = median(() => parseChipDocument(json), 7)
-  console.log(`forecastDocument: ${answer.network.channels.length} channels, ${answer.junctions.length} junctions (${forecast} forecast), ${answer.network.solver.name}: ${docMs.toFixed(2)} ms median (target < 20 ms)`)
+  const { coupling } = answer.network
+  const windows = answer.network.operatingWindow
+  console.log(`forecastDocument, two-phase: ${answer.network.channels.length} channels, ${answer.junctions.length} junctions (${forecast} forecast), ${answer.network.solver.name}: ${docMs.toFixed(2)} ms median (target < 30 ms)`)
+  console.log(`  coupled drops–flows iteration: ${coupling.iterations} iterations, ${coupling.converged ? 'converged' : 'NOT converged'} (change ${coupling.change.toExponential(2)} < tolerance ${coupling.tolerance}); ${windows.length} pressure windows, e.g. ${windows[0] ? `${windows[0].port} ${(windows[0].from.value / 100).toFixed(1)}–${(windows[0].to.value / 100).toFixed(1)} mbar (${windows[0].limitedBy})` : 'none'}`)
+  const dropShare = answer.network.channels.reduce((max, c) => Math.max(max, c.dropletShare), 0)
+  console.log(`  largest share of a channel's pressure drop added by drops: ${(100 * dropShare).toFixed(2)} %`)
   console.log(`uniformity across ${answer.network.uniformity[0]?.count} nozzles: cv ${(answer.network.uniformity[0]?.cv ?? 0).toExponential(2)}, max/min ${(answer.network.uniformity[0]?.maxOverMin ?? 1).toFixed(4)}`)
   console.log(`(parsing the same document from JSON, as runDocumentForecast does first: ${parseMs.toFixed(2)} ms median)`)
 
@@ -135,5 +140,5 @@ export async function run(): Promise<void> {
     }
   }
   const ms = median(full, 15)
-  console.log(`network (1536 channels) + 512 nozzle forecasts: ${ms.toFixed(2)} ms median (target < 20 ms)`)
+  console.log(`single-phase path — network (1536 channels, one liquid) + 512 nozzle forecasts: ${ms.toFixed(2)} ms median (target < 20 ms)`)
 }

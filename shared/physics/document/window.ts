@@ -2,11 +2,13 @@
 // other setting held) over which its junctions make drops — from the entry barrier to jetting or backflow.
 import type { ChipDocument } from '../../schemas/chip'
 import { breakupGroups } from '../forecast/junction'
+import type { ResolvedJunction } from '../forecast/types'
+import { isJetting } from '../junction/regime'
 import { quantity, type Method } from '../quantity'
 import { UNIT } from '../units'
 import type { ResolvedOperatingPoint } from './operating-point'
-import { solveProblem } from './solveProblem'
 import { resolvedAt, type TwoPhaseSolution } from './twophase'
+export { jettingTest }
 import type { CompiledDocument, CompiledJunction, DocumentForecastOptions, OperatingWindow } from './types'
 
 export const OPERATING_WINDOW: Method = {
@@ -22,14 +24,25 @@ const SEARCH_LIMIT = 1e6
 const continuousFlow = (j: CompiledJunction, flow: (k: number) => number) =>
   j.continuousRule === 'sum' ? j.continuous.reduce((sum, k) => sum + flow(k), 0) : Math.max(...j.continuous.map((k) => Math.abs(flow(k))))
 
+/** A junction's jetting verdict as a function of its two flows (the groups of breakupGroups, checked equal in tests). */
+function jettingTest(j: CompiledJunction, op: ResolvedOperatingPoint): (qc: number, qd: number) => boolean {
+  const probe: ResolvedJunction = resolvedAt(j, op, 1, 1)
+  const unit = breakupGroups(probe)
+  // Ca is linear in its flow and We quadratic in Qd (junction/dimensionless.ts): scale the unit-flow groups.
+  const step = probe.kind === 'step'
+  return (qc, qd) => isJetting(probe.kind, unit.ca * (step ? qd : qc), unit.we * qd * qd)
+}
+
 export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, solved: TwoPhaseSolution, op: ResolvedOperatingPoint, options: DocumentForecastOptions): OperatingWindow[] {
   if (!op.interfacialTension || !solved.coupling.converged) return []
   const windows: OperatingWindow[] = []
+  let baseAtSetPoint: Float64Array | undefined
   for (const source of compiled.sources) {
     if (source.kind !== 'inlet' || source.mode !== 'pressure' || solved.phases.inletPhase.get(source.port) !== 'dispersed') continue
     const fed = compiled.junctions.map((j, k) => ({ j, k })).filter(({ j, k }) => j.dispersed >= 0 && solved.arms[k]!.source === source.node)
     if (!fed.length) continue
     const offset = Float64Array.from(solved.offset)
+    const zeros = new Float64Array(offset.length)
     const closed = new Set<number>()
     compiled.junctions.forEach((j, k) => {
       const arm = solved.arms[k]!
@@ -37,34 +50,34 @@ export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, 
       if (arm.barrier !== undefined && (mine || arm.state === 'open')) offset[j.dispersed] = arm.barrier
       else if (arm.state === 'below-barrier') closed.add(j.dispersed)
     })
-    const at = (pressure: number, resistance: Float64Array) => {
-      const sources = compiled.sources.map((s) => (s === source ? { ...s, pressure } : s))
-      return solveProblem(doc, { ...compiled, sources }, resistance, offset, closed).flow
-    }
+    // Flows are affine in this inlet's pressure: q(P) = q(p0) + (P − p0) u, u the response to 1 Pa at this
+    // inlet with every other source and every barrier at zero (superposition).
+    const unitSources = compiled.sources.map((s) => (s === source ? { ...s, pressure: 1 } : s.mode === 'pressure' ? { ...s, pressure: 0 } : { ...s, flow: 0 }))
+    const response = (resistance: Float64Array) => solved.solver.solve(resistance, zeros, closed, unitSources).flow
     const p0 = source.pressure
-    const step = Math.max(100, 0.1 * Math.abs(p0))
     // Lower edge, where the first drop forms, so no drops yet: the liquids' resistances alone.
-    const b0 = at(p0, solved.base)
-    const b1 = at(p0 + step, solved.base)
+    baseAtSetPoint ??= solved.solver.solve(solved.base, offset, closed).flow
+    const b0 = baseAtSetPoint
+    const ub = response(solved.base)
     let from = Number.POSITIVE_INFINITY
-    for (const { j } of fed) {
-      const slope = (b1[j.dispersed]! - b0[j.dispersed]!) / step
-      if (slope > 0) from = Math.min(from, p0 - b0[j.dispersed]! / slope)
-    }
-    // Upper edge: drops held as at the set point.
-    const q0 = at(p0, solved.resistance)
-    const q1 = at(p0 + step, solved.resistance)
-    const flowAt = (pressure: number) => (k: number) => (k >= 0 ? q0[k]! + ((q1[k]! - q0[k]!) / step) * (pressure - p0) : 0)
+    for (const { j } of fed) if (ub[j.dispersed]! > 0) from = Math.min(from, p0 - b0[j.dispersed]! / ub[j.dispersed]!)
     if (!Number.isFinite(from)) continue
+    // Upper edge: drops held as at the set point (with every fed arm open, the converged solution is that solve).
+    const asSolved = fed.every(({ k }) => solved.arms[k]!.state === 'open')
+    const q0 = asSolved ? solved.solution.flow : solved.solver.solve(solved.resistance, offset, closed).flow
+    const u = response(solved.resistance)
+    const flowAt = (pressure: number) => (k: number) => (k >= 0 ? q0[k]! + u[k]! * (pressure - p0) : 0)
     const limits = [SEARCH_LIMIT, options.limits?.bondPressure, options.limits?.pumpPressure].filter((x): x is number => x !== undefined)
     const top = Math.max(Math.min(...limits), from)
+    const jetting = fed.map(({ j }) => jettingTest(j, op))
     const stops = (pressure: number): 'jetting' | 'continuous-backflow' | undefined => {
       const flow = flowAt(pressure)
-      for (const { j } of fed) {
+      for (let f = 0; f < fed.length; f++) {
+        const j = fed[f]!.j
         const qd = flow(j.dispersed)
         const qc = continuousFlow(j, flow)
         if (qc <= 0) return 'continuous-backflow'
-        if (qd > 0 && breakupGroups(resolvedAt(j, op, qc, qd)).regime.value === 'jetting') return 'jetting'
+        if (qd > 0 && jetting[f]!(qc, qd)) return 'jetting'
       }
       return undefined
     }
@@ -75,7 +88,7 @@ export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, 
       // Bisect for the first stop above the lower edge (both stops grow with the dispersed pressure).
       let lo = from
       let hi = top
-      for (let i = 0; i < 60 && hi - lo > 1e-6 * Math.max(1, hi); i++) {
+      for (let i = 0; i < 40 && hi - lo > 1e-3 * Math.max(1, hi); i++) {
         const mid = (lo + hi) / 2
         if (stops(mid)) hi = mid
         else lo = mid

@@ -3,7 +3,7 @@ import * as D from '../junction/dimensionless'
 import { ENTRY_BARRIER, entryBarrier, LAPLACE_PLUG, laplacePlug } from '../junction/laplace'
 import { DISPERSED_FRACTION, dispersedFraction, GENERATION_RATE, generationRate, PLUG_VOLUME, SPHERE_EQUIVALENT, sphereEquivalentDiameter, TRAIN_SPACING, trainSpacing } from '../junction/plugVolume'
 import { classifyRegime, type Regime } from '../junction/regime'
-import { STEP_WETTING } from '../junction/step'
+import { STEP_DIAMETER_FACTOR, STEP_WETTING } from '../junction/step'
 import { INPUT, quantity, type Warning } from '../quantity'
 import { UNIT, type CubicMetres, type CubicMetresPerSecond, type KilogramsPerCubicMetre, type Metres, type NewtonsPerMetre, type PascalSeconds, type Radians } from '../units'
 import { estimateSize } from './size'
@@ -15,7 +15,7 @@ const REYNOLDS_LIMIT = 10
 const BOND_LIMIT = 0.1
 
 /** The groups that pick the breakup regime (conventions in junction/dimensionless.ts), and the regime. */
-export function breakupGroups(j: ResolvedJunction): { dh: Metres; ca: number; re: number; we: number; regime: Regime } {
+export function breakupGroups(j: ResolvedJunction): { dh: Metres; ca: number; re: number; we: number; readonly regime: Regime } {
   const w = j.mainWidth as Metres
   const h = j.depth as Metres
   const step = j.kind === 'step'
@@ -29,12 +29,14 @@ export function breakupGroups(j: ResolvedJunction): { dh: Metres; ca: number; re
   const ca = step ? D.capillaryNumber(muD, ud, gamma) : D.capillaryNumber(muC, uc, gamma)
   const re = step ? D.reynoldsNumber(rhoD, ud, dh, muD) : D.reynoldsNumber(j.continuous.density.value as KilogramsPerCubicMetre, uc, dh, muC)
   const we = D.weberNumber(rhoD, ud, (step ? h : j.inletWidth) as Metres, gamma)
-  return { dh, ca, re, we, regime: classifyRegime(j.kind, ca, we, muD / muC) }
+  // The regime object is built only when read (the operating window asks for Ca and We thousands of times).
+  return { dh, ca, re, we, get regime() { return classifyRegime(j.kind, ca, we, muD / muC) } }
 }
 
 /** Drop volume (m³) and frequency (Hz) only, for the network's coupled iteration. */
 export function dropTrain(j: ResolvedJunction): { volume: number; frequency: number } {
-  const volume = estimateSize(j, breakupGroups(j).regime).volume
+  // A step nozzle's size does not depend on the regime (d ≈ 4h); skip classifying it.
+  const volume = j.kind === 'step' ? (Math.PI / 6) * (STEP_DIAMETER_FACTOR * j.depth) ** 3 : estimateSize(j, breakupGroups(j).regime, true).volume
   return { volume, frequency: j.flowDispersed / volume }
 }
 
@@ -73,6 +75,9 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
 
   const size = estimateSize(j, regime)
   warnings.push(...size.warnings)
+  if (!regime.valid && !warnings.length) {
+    warnings.push({ code: 'regime-indicative', message: `The ${regime.value} regime's thresholds (${regime.criterion.name} band ${regime.criterion.band.join('–')}) are indicative for this junction kind: ${regime.source}` })
+  }
   const sizeValid = size.valid && !wets && propertiesValid
   if (!propertiesValid) warnings.push({ code: 'properties-out-of-range', message: 'A liquid property is outside its correlation\'s range (see inputs); every size is marked invalid' })
   const volume = size.volume as CubicMetres

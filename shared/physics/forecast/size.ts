@@ -32,15 +32,15 @@ function deepChannel(w: Metres, h: Metres, warnings: Warning[]): boolean {
   return true
 }
 
-function tJunctionSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
-  const squeezing = tJunctionSqueezing(j, regime)
+function tJunctionSize(j: ResolvedJunction, regime: Regime, quiet = false): SizeEstimate {
+  const squeezing = tJunctionSqueezing(j, regime, quiet)
   const ca = regime.criterion.name === 'Ca' ? regime.criterion.value : undefined
   if (regime.value === 'squeezing' || ca === undefined || ca <= DRIPPING_ANCHOR_CA || squeezing.length === undefined) return squeezing
   // Transition and dripping: the squeezing length, shortened by the viscous shear (Xu et al. 2008 form).
   const w = j.mainWidth as Metres
   const h = j.depth as Metres
   const length = drippingLength(squeezing.length as Metres, ca)
-  squeezing.warnings.push({ code: 'dripping-law-indicative', message: `Ca = ${ca.toPrecision(3)} is past squeezing: the length follows L ∝ Ca^(−${DRIPPING_EXPONENT}) from the squeezing size at Ca = ${DRIPPING_ANCHOR_CA} (indicative, exponent from memory); calibrate with measured drops` })
+  if (!quiet) squeezing.warnings.push({ code: 'dripping-law-indicative', message: `Ca = ${ca.toPrecision(3)} is past squeezing: the length follows L ∝ Ca^(−${DRIPPING_EXPONENT}) from the squeezing size at Ca = ${DRIPPING_ANCHOR_CA} (indicative, exponent from memory); calibrate with measured drops` })
   return {
     volume: plugVolume(length, w, h), length,
     method: { id: `${squeezing.method.id}+${XU_TRANSITION_DRIPPING.id}`, source: `${squeezing.method.source}; ${XU_TRANSITION_DRIPPING.source}` },
@@ -48,34 +48,34 @@ function tJunctionSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
   }
 }
 
-function tJunctionSqueezing(j: ResolvedJunction, regime: Regime): SizeEstimate {
+function tJunctionSqueezing(j: ResolvedJunction, regime: Regime, quiet = false): SizeEstimate {
   const w = j.mainWidth as Metres
   const h = j.depth as Metres
   const ratio = j.flowDispersed / j.flowContinuous
-  const warnings = regimeWarnings(regime)
+  const warnings = quiet ? [] : regimeWarnings(regime)
   const inRegime = regime.value === 'squeezing'
   if (j.alpha === undefined && vanSteijnValid(w, j.inletWidth as Metres, h)) {
     const volume = vanSteijnVolume(w, j.inletWidth as Metres, h, ratio)
     return { volume, length: plugLength(volume, w, h), method: VAN_STEIJN_SQUEEZING, valid: inRegime, warnings }
   }
   const alpha = j.alpha ?? DEFAULT_ALPHA
-  if (j.alpha === undefined) {
+  if (j.alpha === undefined && !quiet) {
     warnings.push({
       code: 'alpha-default',
       message: `Geometry h/w = ${(h / w).toPrecision(3)}, win/w = ${(j.inletWidth / w).toPrecision(3)} is outside van Steijn et al. 2010 (h/w ≤ 0.5, 1/3 ≤ win/w ≤ 3); used α = 1 — fit α from measured droplets and pass model.alpha`,
     })
   }
   const length = garsteckiLength(w, alpha, ratio)
-  const deep = deepChannel(w, h, warnings)
+  const deep = deepChannel(w, h, quiet ? [] : warnings)
   return { volume: plugVolume(length, w, h), length, method: GARSTECKI_SQUEEZING, valid: inRegime && j.alpha !== undefined && !deep, warnings }
 }
 
-function flowFocusingSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
+function flowFocusingSize(j: ResolvedJunction, regime: Regime, quiet = false): SizeEstimate {
   const w = j.mainWidth as Metres
   const h = j.depth as Metres
   const length = flowFocusingLength(w, j.alpha ?? DEFAULT_ALPHA, j.flowDispersed / j.flowContinuous)
-  const warnings = regimeWarnings(regime)
-  warnings.push({
+  const warnings = quiet ? [] : regimeWarnings(regime)
+  if (!quiet) warnings.push({
     code: 'flow-focusing-low-confidence',
     message: j.alpha === undefined
       ? 'Flow-focusing size uses the linear squeezing-type law with α = 1 (low confidence, factor ~1.5); fit α from measured droplets and pass model.alpha'
@@ -84,16 +84,17 @@ function flowFocusingSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
   const ca = regime.criterion.name === 'Ca' ? regime.criterion.value : undefined
   if (regime.value !== 'squeezing' && ca !== undefined && ca > FF_DRIPPING_ANCHOR_CA) {
     const volume = plugVolume(length, w, h) * flowFocusingDrippingFactor(ca)
-    warnings.push({ code: 'dripping-law-indicative', message: `Ca = ${ca.toPrecision(3)} at the orifice is past squeezing: the volume follows V ∝ Ca^(−1) (d ∝ Ca^(−1/3), Cubaud & Mason 2008) from the linear law at Ca = ${FF_DRIPPING_ANCHOR_CA}; indicative, calibrate with measured drops` })
+    if (!quiet) warnings.push({ code: 'dripping-law-indicative', message: `Ca = ${ca.toPrecision(3)} at the orifice is past squeezing: the volume follows V ∝ Ca^(−1) (d ∝ Ca^(−1/3), Cubaud & Mason 2008) from the linear law at Ca = ${FF_DRIPPING_ANCHOR_CA}; indicative, calibrate with measured drops` })
     return { volume, length: plugLength(volume as CubicMetres, w, h), method: { id: `${FLOW_FOCUSING_SQUEEZING.id}+${CUBAUD_MASON_DRIPPING.id}`, source: `${FLOW_FOCUSING_SQUEEZING.source}; ${CUBAUD_MASON_DRIPPING.source}` }, valid: false, warnings }
   }
   const deep = deepChannel(w, h, warnings)
   return { volume: plugVolume(length, w, h), length, method: FLOW_FOCUSING_SQUEEZING, valid: regime.value === 'squeezing' && j.alpha !== undefined && !deep, warnings }
 }
 
-function stepSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
+function stepSize(j: ResolvedJunction, regime: Regime, quiet = false): SizeEstimate {
   const w = j.mainWidth as Metres
   const h = j.depth as Metres
+  if (quiet) return { volume: sphereVolume(stepDiameter(h)), method: STEP_DIAMETER, valid: false, warnings: [] }
   const warnings = regimeWarnings(regime)
   let valid = regime.value === 'step-emulsification'
   if (!stepAspectOk(w, h)) {
@@ -109,8 +110,8 @@ function stepSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
   return { volume: sphereVolume(stepDiameter(h)), method: STEP_DIAMETER, valid, warnings }
 }
 
-export function estimateSize(j: ResolvedJunction, regime: Regime): SizeEstimate {
-  if (j.kind === 't-junction') return tJunctionSize(j, regime)
-  if (j.kind === 'flow-focusing') return flowFocusingSize(j, regime)
-  return stepSize(j, regime)
+/** `quiet`: the volume only, warnings not written (the network's coupled iteration calls this per junction per pass). */
+export function estimateSize(j: ResolvedJunction, regime: Regime, quiet = false): SizeEstimate {
+  const size = j.kind === 't-junction' ? tJunctionSize(j, regime, quiet) : j.kind === 'flow-focusing' ? flowFocusingSize(j, regime, quiet) : stepSize(j, regime, quiet)
+  return size
 }

@@ -84,3 +84,10 @@ export function classifyRegime(kind: JunctionKind, ca: number, we: number, visco
   }
   return found
 }
+
+/** Same verdict as classifyRegime(kind, ca, we).value === 'jetting', without building the regime. */
+export function isJetting(kind: JunctionKind, ca: number, we: number): boolean {
+  const jetting = ca + we
+  if (jetting >= JETTING_BAND[0]) return jetting > JETTING_BAND[1] * (1 + BAND_EDGE_SLACK)
+  return kind === 'step' && ca > STEP_BAND[1] * (1 + BAND_EDGE_SLACK)
+}

@@ -32,16 +32,23 @@ export interface LibraryLiquid {
   properties(temperature: Kelvin, massFraction?: number): { liquid: LiquidProperties; warnings: Warning[] }
 }
 
-function rangeWarning(id: string, temperature: number, range: { min: number; max: number }): Warning[] {
+function rangeWarning(id: string, temperature: number, range: { min: number; max: number }, clamped = false): Warning[] {
   if (temperature >= range.min && temperature <= range.max) return []
   const c = (k: number) => (k - 273.15).toFixed(1)
+  const edge = clamped ? `; evaluated at ${c(Math.min(Math.max(temperature, range.min), range.max))} °C, the nearest edge, rather than extrapolated` : ''
   return [
     {
       code: 'liquid-temperature-out-of-range',
-      message: `${id}: ${c(temperature)} °C is outside the correlation's range ${c(range.min)}–${c(range.max)} °C; its properties are marked invalid`,
+      message: `${id}: ${c(temperature)} °C is outside the correlation's range ${c(range.min)}–${c(range.max)} °C${edge}; its properties are marked invalid`,
     },
   ]
 }
+
+/**
+ * Correlations are evaluated inside their range only: outside it they extrapolate to nonsense (IAPWS water
+ * viscosity at −60 °C rounds to zero), so the nearest edge stands in, marked invalid with a warning.
+ */
+const clampTo = (temperature: Kelvin, range: { min: number; max: number }) => Math.min(Math.max(temperature, range.min), range.max) as Kelvin
 
 const water: LibraryLiquid = {
   id: 'water',
@@ -49,8 +56,9 @@ const water: LibraryLiquid = {
   parameters: [],
   temperatureRange: waterLiquidRange,
   sources: [IAPWS_VISCOSITY.source, KELL_DENSITY.source, IAPWS_SURFACE_TENSION.source],
-  properties(temperature) {
-    const ok = temperature >= waterLiquidRange.min && temperature <= waterLiquidRange.max
+  properties(given) {
+    const ok = given >= waterLiquidRange.min && given <= waterLiquidRange.max
+    const temperature = clampTo(given, waterLiquidRange)
     return {
       liquid: {
         id: 'water',
@@ -59,7 +67,7 @@ const water: LibraryLiquid = {
         density: quantity(waterDensity(temperature), UNIT.density, KELL_DENSITY, ok),
         surfaceTension: quantity(waterSurfaceTension(temperature), UNIT.tension, IAPWS_SURFACE_TENSION, ok),
       },
-      warnings: rangeWarning('water', temperature, waterLiquidRange),
+      warnings: rangeWarning('water', given, waterLiquidRange, true),
     }
   },
 }
@@ -70,8 +78,9 @@ const glycerolWater: LibraryLiquid = {
   parameters: ['massFraction'],
   temperatureRange: chengRange,
   sources: [CHENG_VISCOSITY.source, CHENG_DENSITY.source],
-  properties(temperature, massFraction = 0) {
-    const ok = temperature >= chengRange.min && temperature <= chengRange.max
+  properties(given, massFraction = 0) {
+    const ok = given >= chengRange.min && given <= chengRange.max
+    const temperature = clampTo(given, chengRange)
     const percent = (massFraction * 100).toFixed(1)
     return {
       liquid: {
@@ -80,7 +89,7 @@ const glycerolWater: LibraryLiquid = {
         viscosity: quantity(glycerolWaterViscosity(temperature, massFraction), UNIT.viscosity, CHENG_VISCOSITY, ok),
         density: quantity(glycerolWaterDensity(temperature, massFraction), UNIT.density, CHENG_DENSITY, ok),
       },
-      warnings: rangeWarning('glycerol-water', temperature, chengRange),
+      warnings: rangeWarning('glycerol-water', given, chengRange, true),
     }
   },
 }

@@ -18,6 +18,7 @@ export interface ReducedSystem {
 /** Assembles A and b. Off-diagonal entries of parallel channels stay as duplicates (harmless for A·x). */
 export function assemble(net: IndexedNetwork): ReducedSystem {
   const size = net.unknownCount
+  const reference = pressureReference(net)
   const diagonal = new Float64Array(size)
   const rhs = new Float64Array(size)
   const count = new Int32Array(size + 1)
@@ -45,8 +46,8 @@ export function assemble(net: IndexedNetwork): ReducedSystem {
       value[fill[i]!++] = -g
       column[fill[j]!] = i
       value[fill[j]!++] = -g
-    } else if (i >= 0) rhs[i]! += g * net.fixedPressure[b]!
-    else if (j >= 0) rhs[j]! += g * net.fixedPressure[a]!
+    } else if (i >= 0) rhs[i]! += g * (net.fixedPressure[b]! - reference)
+    else if (j >= 0) rhs[j]! += g * (net.fixedPressure[a]! - reference)
     // A pressure offset Δ: outflow g (p_from − p_to − Δ), so g·Δ moves to the right-hand side at `from`, −g·Δ at `to`.
     const d = net.offset[k]!
     if (d !== 0) {
@@ -59,6 +60,18 @@ export function assemble(net: IndexedNetwork): ReducedSystem {
     if (i >= 0) rhs[i]! += net.injected[node]!
   }
   return { matrix: { size, rowStart, column, value, diagonal }, rhs }
+}
+
+/**
+ * Unknowns are solved relative to the middle of the fixed pressures: a network floating at −48 bar with
+ * nanolitre flows would otherwise put its flows below the solver's relative tolerance of that offset (found by
+ * the property test). Flows depend only on differences, so nothing else changes.
+ */
+export function pressureReference(net: IndexedNetwork): number {
+  let lo = Number.POSITIVE_INFINITY
+  let hi = Number.NEGATIVE_INFINITY
+  for (const p of net.fixedPressure) if (!Number.isNaN(p)) ((lo = Math.min(lo, p)), (hi = Math.max(hi, p)))
+  return Number.isFinite(lo) ? (lo + hi) / 2 : 0
 }
 
 /** y = A x. */

@@ -1,6 +1,6 @@
 // Solves a hydraulic network: index and check it, assemble the sparse SPD system, solve it, derive flows.
 import { NetworkError } from '../errors'
-import { assemble, multiply, type ReducedSystem } from './assemble'
+import { assemble, multiply, pressureReference, type ReducedSystem } from './assemble'
 import { denseSolve } from './dense'
 import { envelopeCholesky, envelopeShape, envelopeSolve } from './envelope'
 import { indexNetwork, type IndexedNetwork } from './indexing'
@@ -17,10 +17,16 @@ const ENVELOPE_COST_PER_UNKNOWN = 600
  */
 const MIC_RELAXATION = 0.99
 
-function preconditioner(system: ReducedSystem): { apply: Preconditioner; name: SolverName } {
+interface Ordering { order: Int32Array; shape: ReturnType<typeof envelopeShape> }
+
+function ordering(system: ReducedSystem): Ordering {
+  const order = reverseCuthillMcKee(system.matrix)
+  return { order, shape: envelopeShape(system.matrix, order) }
+}
+
+function preconditioner(system: ReducedSystem, known?: Ordering): { apply: Preconditioner; name: SolverName } {
   const { matrix } = system
-  const order = reverseCuthillMcKee(matrix)
-  const shape = envelopeShape(matrix, order)
+  const { order, shape } = known ?? ordering(system)
   if (shape.cost <= ENVELOPE_COST_PER_UNKNOWN * Math.max(matrix.size, 1)) {
     const factor = envelopeCholesky(matrix, order, shape.first, shape.entries)
     if (factor) {
@@ -51,11 +57,15 @@ function residualOf(system: ReducedSystem, x: Float64Array): number {
 function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, solver: SolverName, iterations: number, residual: number): NetworkSolution {
   const n = net.nodeIds.length
   const pressure = new Float64Array(n)
-  for (let i = 0; i < n; i++) pressure[i] = net.unknownIndex[i]! >= 0 ? x[net.unknownIndex[i]!]! : net.fixedPressure[i]!
+  const reference = pressureReference(net)
+  // Flows from pressures relative to the reference, so a large common offset costs no digits.
+  const relative = new Float64Array(n)
+  for (let i = 0; i < n; i++) relative[i] = net.unknownIndex[i]! >= 0 ? x[net.unknownIndex[i]!]! : net.fixedPressure[i]! - reference
+  for (let i = 0; i < n; i++) pressure[i] = net.unknownIndex[i]! >= 0 ? relative[i]! + reference : net.fixedPressure[i]!
   const flow = new Float64Array(net.from.length)
   const outflow = new Float64Array(n)
   for (let k = 0; k < flow.length; k++) {
-    const q = (pressure[net.from[k]!]! - pressure[net.to[k]!]! - net.offset[k]!) * net.conductance[k]!
+    const q = (relative[net.from[k]!]! - relative[net.to[k]!]! - net.offset[k]!) * net.conductance[k]!
     flow[k] = q
     outflow[net.from[k]!]! += q
     outflow[net.to[k]!]! -= q
@@ -86,4 +96,45 @@ export function solveNetworkDense(problem: NetworkProblem): NetworkSolution {
   const system = assemble(net)
   const x = denseSolve(system.matrix, system.rhs)
   return finish(problem, net, x, 'dense-gauss', 0, residualOf(system, x))
+}
+
+/**
+ * Repeated solves of one network topology at new resistances, offsets and source values (the coupled
+ * two-phase iteration, the operating window): indexes the network and orders its matrix once. The sources
+ * passed to `solve` must name the same nodes with the same kinds as the problem's.
+ */
+export class NetworkResolver {
+  private readonly net: IndexedNetwork
+  private readonly sourceIndex: number[]
+  private known?: Ordering
+
+  constructor(private readonly problem: NetworkProblem) {
+    this.net = indexNetwork(problem)
+    const index = new Map(this.net.nodeIds.map((id, i) => [id, i]))
+    this.sourceIndex = problem.sources.map((source) => index.get(source.node)!)
+  }
+
+  solve(resistance: ArrayLike<number>, offset?: ArrayLike<number>, sources: NetworkProblem['sources'] = this.problem.sources): NetworkSolution {
+    const net = this.net
+    for (let k = 0; k < net.conductance.length; k++) {
+      const r = resistance[k]!
+      if (!(r > 0) || !Number.isFinite(r)) throw new NetworkError('bad-resistance', `Channel "${this.problem.channels[k]!.id}" has resistance ${r}; it must be finite and > 0 — check its width, depth and length`, { channelIndex: k })
+      net.conductance[k] = 1 / r
+    }
+    if (offset) for (let k = 0; k < net.offset.length; k++) net.offset[k] = offset[k]!
+    net.injected.fill(0)
+    sources.forEach((source, k) => {
+      const i = this.sourceIndex[k]!
+      if ('pressure' in source) net.fixedPressure[i] = source.pressure
+      else net.injected[i] = net.injected[i]! + source.flow
+    })
+    const system = assemble(net)
+    this.known ??= ordering(system)
+    const { apply, name } = preconditioner(system, this.known)
+    const result = pcg(system.matrix, system.rhs, apply)
+    if (!result.converged) {
+      throw new NetworkError('not-converged', `The network solve stopped at relative residual ${result.residual.toExponential(2)} after ${result.iterations} iterations; check for channels whose resistances differ by more than ~10¹² and merge or drop them`)
+    }
+    return finish({ channels: this.problem.channels, sources }, net, result.x, name, result.iterations, result.residual)
+  }
 }

@@ -136,3 +136,22 @@ describe('the runner (npm run forecast)', () => {
     expect(answer.dropletDiameter.valid).toBe(false)
   }, 30_000)
 })
+
+describe('found by the property test (tests/unit/physics/forecast-properties.test.ts)', () => {
+  it('water at −60 °C is evaluated at the 0 °C edge of IAPWS, flagged — not an extrapolated viscosity of zero', () => {
+    const answer = runForecast(tJunction({ temperature: '-60 degC' })) as JunctionForecast
+    const water = answer.inputs.dispersed.viscosity
+    expect(water.valid).toBe(false)
+    // IAPWS R12-08 at 0 °C: 1.7914 mPa·s (the release's table value, from memory to 4 digits).
+    expect(water.value).toBeCloseTo(1.7914e-3, 6)
+    expect(answer.viscosityRatio.value).toBeGreaterThan(0)
+    expect(answer.warnings.find((w) => w.code === 'liquid-temperature-out-of-range')!.message).toContain('nearest edge')
+  })
+  it('a network floating at −48 bar with picolitre flows still conserves flow (solved relative to its fixed pressures)', () => {
+    const request = simpleNetwork([channel('a', 'in', 'm', { width: '10 mm', depth: '10 mm', length: '1 m' }), channel('b', 'm', 'out', { width: '5 mm', depth: '10 mm', length: '1 m' })],
+      [{ node: 'in', flow: 1.7e-10 }, { node: 'out', pressure: '-48 bar' }])
+    const answer = runForecast(request) as NetworkForecast
+    const [inlet, outlet] = answer.inlets
+    expect(Math.abs(inlet!.flow.value + outlet!.flow.value)).toBeLessThan(1e-12 * inlet!.flow.value)
+  })
+})

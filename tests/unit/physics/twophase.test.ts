@@ -54,13 +54,12 @@ describe('two-phase network: the documented chip example (oil 10 µL/min, water 
     expect(answer.network.coupling.change).toBeLessThan(answer.network.coupling.tolerance)
   })
 
-  it('is well above the old single-phase figure, which gave the water feed the oil\'s viscosity (≈ μd/μc of it)', () => {
+  it('charges the water feed μd/μc of the resistance the single-phase model gave it (which used the oil\'s viscosity)', () => {
+    const feed = channel('water-feed')
     const muOil = answer.network.liquid.viscosity.value
-    const muWater = channel('water-feed').viscosity.value
-    const qd = answer.network.inlets.find((i) => i.port === 'water-in')!.flow.value
-    // Same pressures across the feed, oil's viscosity: what the single-phase approximation reported for this feed.
-    const singlePhase = (qd * muWater) / muOil
-    expect(qd / singlePhase).toBeGreaterThan(2.5)
+    const singlePhase = rectangularResistance(muOil as PascalSeconds, 2300e-6 as Metres, 50e-6 as Metres, 50e-6 as Metres)
+    expect(relative(feed.resistance.value / singlePhase, feed.viscosity.value / muOil)).toBeLessThan(1e-12)
+    expect(feed.viscosity.value / muOil).toBeLessThan(0.5)
     expect(SINGLE_PHASE.id).toBe('single-phase-continuous-viscosity')
   })
 
