@@ -43,11 +43,12 @@ const tension = (l: Liquids) => l.interfacialTension.value
 const FAMILIES: Family[] = [
   {
     kind: 't-junction',
-    shape: (s) => ({ mainWidth: s, inletWidth: 0.6 * s, depth: 0.45 * s }),
+    // The inlet is widened to the process's minimum feature when 0.6 s would be too fine (still inside win/w ≤ 3).
+    shape: (s, minFeature) => ({ mainWidth: s, inletWidth: Math.min(Math.max(0.6 * s, minFeature), 3 * s), depth: 0.45 * s }),
     capillary: 0.8 * SQUEEZING_BAND[0],
     // Ca = μc Qc / (w h γ) in the main channel; equal flows (Qd/Qc = 1).
     flows: (g, l) => { const qc = (0.8 * SQUEEZING_BAND[0] * tension(l) * g.mainWidth * g.depth) / l.continuous.viscosity.value; return { qc, qd: qc } },
-    validity: 'squeezing regime (Ca < 0.01, De Menech et al. 2008); h/w ≤ 0.5 and 1/3 ≤ win/w ≤ 3 for the van Steijn et al. 2010 law (here h/w = 0.45, win/w = 0.6)',
+    validity: 'squeezing regime (Ca < 0.01, De Menech et al. 2008); h/w ≤ 0.5 and 1/3 ≤ win/w ≤ 3 for the van Steijn et al. 2010 law (here h/w = 0.45, win/w = 0.6, or wider to print)',
     why: 'depth 0.45 × width and inlet 0.6 × width keep the van Steijn et al. 2010 squeezing law valid; the drop is a plug about 1–2 channel widths long',
   },
   {

@@ -103,9 +103,11 @@ function planDocument(input: unknown): PlanAnswer {
   const first = forecastDocument(doc, op.id, options)
   const ids = first.junctions.map((j) => `"${j.id}"`).join(', ')
   if (!first.junctions.length) throw new ForecastInputError([{ path: 'document.components', message: `Design "${doc.name}" has no connected junction to plan: place a T-junction, flow-focusing cross or step nozzle and wire it to the inlets` }])
-  const junctionId = request.junctionId ?? first.junctions[0]!.id
-  const junction = first.junctions.find((j) => j.id === junctionId)
-  if (!junction) throw new ForecastInputError([{ path: 'junctionId', message: `Junction "${junctionId}" is not in design "${doc.name}": use one of ${ids}` }])
+  // A junction id, or the component it belongs to (its first nozzle for a step array).
+  const wanted = request.junctionId ?? first.junctions[0]!.id
+  const junction = first.junctions.find((j) => j.id === wanted) ?? first.junctions.find((j) => j.element === wanted)
+  if (!junction) throw new ForecastInputError([{ path: 'junctionId', message: `Junction "${wanted}" is not in design "${doc.name}": use one of ${ids}` }])
+  const junctionId = junction.id
   const target = planTarget(request.target)
   const scanInput = {
     doc, op, junctionId, target, options,

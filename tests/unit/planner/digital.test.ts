@@ -46,3 +46,15 @@ describe('digital assay statistics (Dube, Qin & Ramakrishnan 2008, PLoS ONE 3, e
     expect(digitalAssay(100, volume, 100).estimate!.lambda.valid).toBe(false)
   })
 })
+
+describe('Dube interval against an independent computation', () => {
+  it('matches the recipe computed in Python with SciPy\'s normal quantile (tests/fixtures/plan/poisson-scipy.json)', async () => {
+    const { dube } = (await import('../../fixtures/plan/poisson-scipy.json')).default
+    for (const c of dube.cases) {
+      const e = dubeEstimate(c.k, c.n)
+      expect(e.lambda).toBeCloseTo(c.lambda, 10)
+      expect(e.lambdaLow).toBeCloseTo(c.low, 8)
+      expect(e.lambdaHigh).toBeCloseTo(c.high, 8)
+    }
+  })
+})

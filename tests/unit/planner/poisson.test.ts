@@ -40,3 +40,15 @@ describe('Poisson loading (Collins et al. 2015, Lab Chip 15, 3439)', () => {
     expect(e.lambda.source).toContain('Lab Chip 15, 3439')
   })
 })
+
+describe('Poisson loading against an independent library', () => {
+  it('matches SciPy\'s Poisson distribution to 1e-12 (recorded in tests/fixtures/plan/poisson-scipy.json)', async () => {
+    const { rows } = (await import('../../fixtures/plan/poisson-scipy.json')).default
+    for (const r of rows) {
+      const o = occupancy(r.lambda)
+      expect(o.empty, `λ = ${r.lambda}`).toBeCloseTo(r.empty, 12)
+      expect(o.single, `λ = ${r.lambda}`).toBeCloseTo(r.single, 12)
+      expect(o.multiple, `λ = ${r.lambda}`).toBeCloseTo(r.multiple, 12)
+    }
+  })
+})
