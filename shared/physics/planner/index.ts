@@ -114,8 +114,13 @@ function planDocument(input: unknown): PlanAnswer {
     box: request.search ?? {},
     n: request.search?.points ?? PLAN_LIMITS.pointsPerAxis.document,
   }
+  // A chip's scan costs one whole-chip forecast per point: the grid is bounded by the chip's size.
+  const channels = Math.max(1, first.network.channels.length)
+  const largest = Math.max(PLAN_LIMITS.pointsPerAxis.min, Math.min(PLAN_LIMITS.pointsPerAxis.chip, Math.floor(Math.sqrt(PLAN_LIMITS.chipWork / channels))))
+  if (request.search?.points !== undefined && scanInput.n > largest) throw new ForecastInputError([{ path: 'search.points', message: `a ${scanInput.n} × ${scanInput.n} grid is too much for a chip of ${channels} channels (each point solves the whole chip): use at most ${largest} points per axis` }])
+  scanInput.n = Math.min(scanInput.n, largest)
   const evaluator = documentEvaluator(scanInput)
-  if (request.search?.points === undefined && (evaluator.continuous.mode === 'pressure' || evaluator.dispersed.mode === 'pressure')) scanInput.n = PLAN_LIMITS.pointsPerAxis.pressure
+  if (request.search?.points === undefined && (evaluator.continuous.mode === 'pressure' || evaluator.dispersed.mode === 'pressure')) scanInput.n = Math.min(largest, PLAN_LIMITS.pointsPerAxis.pressure)
   const scan = scanDocument(scanInput)
   const evaluate: Evaluate = (xc, xd) => evaluator.at(xc, xd)
   const resolved = resolveOperatingPoint(doc, op.id)

@@ -22,7 +22,7 @@ export function whyInvalid(f: JunctionForecast): string | undefined {
 export function pointFromForecast(f: JunctionForecast, target: PlanTarget, at: Pick<ScanPoint, 'i' | 'j' | 'xc' | 'xd' | 'qc' | 'qd' | 'pc' | 'pd'>, withinLimits = true): ScanPoint {
   const valid = f.dropletDiameter.valid && f.frequency.valid
   const point: ScanPoint = {
-    ...at,
+    i: at.i, j: at.j, xc: at.xc, xd: at.xd, qc: at.qc, qd: at.qd,
     diameter: f.dropletDiameter,
     frequency: f.frequency,
     regime: f.regime.value,
@@ -30,6 +30,8 @@ export function pointFromForecast(f: JunctionForecast, target: PlanTarget, at: P
     withinLimits,
     hit: hitsTarget(f.dropletDiameter.value, f.frequency.value, target),
   }
+  if (at.pc !== undefined) point.pc = at.pc
+  if (at.pd !== undefined) point.pd = at.pd
   const why = whyInvalid(f)
   if (why) point.why = why
   return point
@@ -45,11 +47,16 @@ export function scanJunction(j: ResolvedJunction, box: { continuous: [number, nu
   const qcs = logSpace(box.continuous[0], box.continuous[1], n)
   const qds = logSpace(box.dispersed[0], box.dispersed[1], n)
   const points: ScanPoint[] = []
+  // One junction object, its flows set per point: the core reads it and keeps none of it (a copy per point cost
+  // about a tenth of the scan).
+  const probe: ResolvedJunction = { ...j }
   for (let i = 0; i < n; i++) {
     for (let k = 0; k < n; k++) {
       const qc = qcs[i]!
       const qd = qds[k]!
-      points.push(pointFromForecast(forecastAt(j, qc, qd), target, { i, j: k, xc: qc, xd: qd, qc, qd }))
+      probe.flowContinuous = qc
+      probe.flowDispersed = qd
+      points.push(pointFromForecast(forecastJunction(probe), target, { i, j: k, xc: qc, xd: qd, qc, qd }))
     }
   }
   return {

@@ -34,6 +34,11 @@ describe('the planner on a chip document', () => {
     expect(plan.warnings.map((w) => w.code)).toContain('pressure-caution')
   })
 
+  it('bounds the grid of a chip by its size, naming search.points', () => {
+    const doc = latest('Parallel step emulsifier')
+    expect(() => runPlan({ document: doc, target: { dropletDiameter: '32 um' }, search: { points: 100 } })).toThrow(/search\.points|too much for a chip/)
+  })
+
   it('names an unknown junction and a document with errors', () => {
     const doc = latest('Cell encapsulation')
     expect(() => runPlan({ document: doc, junctionId: 'nope', target: { dropletDiameter: '40 um' } })).toThrow(/Junction "nope" is not in design/)
