@@ -72,15 +72,16 @@ export function windowMapOption(window: PlanWindow, recommended: Recommended | n
   }
 }
 
-/** Occupancy bars: share of drops holding k cells, k = 0…5. */
+/** Occupancy bars: percentage of drops holding k cells, k = 0…5, each labelled (small shares stay readable). */
 export function occupancyOption(e: Encapsulation): EChartsOption {
+  const pct = (p: number) => (p * 100 >= 0.1 ? (p * 100).toPrecision(3) : (p * 100).toExponential(1))
   return {
     animation: false, textStyle: FONT,
-    grid: { left: 44, right: 8, top: 10, bottom: 38 },
-    tooltip: { trigger: 'item', confine: true, formatter: (q: any) => `${q.name} per drop: ${(q.value * 100).toPrecision(3)} %` },
-    xAxis: { type: 'category', name: 'cells per drop', nameLocation: 'middle', nameGap: 24, nameTextStyle: NAME_FONT, data: e.distribution.map((d) => (d.k === 5 ? '5' : String(d.k))), axisLabel: FONT },
-    yAxis: { type: 'log', name: 'share of drops', nameLocation: 'middle', nameGap: 32, nameTextStyle: NAME_FONT, min: 1e-6, max: 1, axisLabel: { ...FONT, formatter: (v: number) => sig(v) }, splitLine: { lineStyle: { color: PLOT_COLOURS.grid } } },
-    series: [{ name: 'Poisson share', type: 'bar', data: e.distribution.map((d) => Math.max(d.probability.value, 1e-6)), itemStyle: { color: PLOT_COLOURS.line } }],
+    grid: { left: 44, right: 8, top: 18, bottom: 38 },
+    tooltip: { trigger: 'item', confine: true, formatter: (q: any) => `${q.name} cells per drop: ${pct(q.value / 100)} %` },
+    xAxis: { type: 'category', name: 'cells per drop', nameLocation: 'middle', nameGap: 24, nameTextStyle: NAME_FONT, data: e.distribution.map((d) => String(d.k)), axisLabel: FONT },
+    yAxis: { type: 'value', name: 'drops, %', nameLocation: 'middle', nameGap: 30, nameTextStyle: NAME_FONT, min: 0, max: 100, axisLabel: FONT, splitLine: { lineStyle: { color: PLOT_COLOURS.grid } } },
+    series: [{ name: 'Poisson share', type: 'bar', data: e.distribution.map((d) => d.probability.value * 100), itemStyle: { color: PLOT_COLOURS.line }, label: { show: true, position: 'top', ...FONT, formatter: (q: any) => `${pct(q.value / 100)}` } }],
   }
 }
 

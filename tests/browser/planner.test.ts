@@ -51,6 +51,9 @@ describe('planner in Chromium', () => {
     expect(Number.parseFloat((await page.locator('[data-test="planner-lambda"]').textContent())!)).toBeCloseTo(0.067, 2)
     await page.locator('[data-test="planner-map"]').scrollIntoViewIfNeeded()
     await shot(page, 'planner-window')
+    await page.locator('[data-test="planner-loading"]').scrollIntoViewIfNeeded()
+    await page.locator('[data-test="planner-loading"]').screenshot({ path: 'test-results/planner-loading.png' })
+    await page.locator('[data-test="planner-recommended"]').screenshot({ path: 'test-results/planner-recommended.png' })
 
     const before = await editorDoc(page)
     await page.click('[data-test="planner-apply"]')
