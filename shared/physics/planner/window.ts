@@ -94,7 +94,8 @@ function refine(scan: Scan, best: ScanPoint, target: PlanTarget, evaluate: Evalu
   const x = bisectLog((v) => evaluate(xc, v).diameter?.value ?? null, lo, hi, target.diameter, 30)
   if (x === null) return best
   const tuned = { ...evaluate(xc, x), i: best.i, j: best.j }
-  return tuned.hit && tuned.withinLimits && (tuned.valid || !best.valid) ? tuned : best
+  // Tuning must not move the point into another regime or out of validity (the scan's point stays otherwise).
+  return tuned.hit && tuned.withinLimits && tuned.regime === best.regime && (tuned.valid || !best.valid) ? tuned : best
 }
 
 export function recommend(scan: Scan, target: PlanTarget, evaluate: Evaluate, limitsChecked: boolean): { recommended: Recommended | null; unreachable?: Unreachable; point?: ScanPoint } {
