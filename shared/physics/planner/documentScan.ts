@@ -12,6 +12,9 @@ import type { AxisMode, PlanTarget, Scan, ScanPoint, WindowAxis } from './types'
 
 type Phase = 'continuous' | 'dispersed'
 
+/** Inlet settings as a lab writes them: six significant figures (no 0.0999999999 µL/min from the log grid). */
+const sixFigures = (v: number) => Number(v.toPrecision(6))
+
 /** The inlets of each phase at the operating point, and how that phase is driven (its first inlet's mode). */
 export function phaseInlets(doc: ChipDocument, op: OperatingPoint): Record<Phase, { ports: string[]; mode: AxisMode }> {
   const phaseOf = new Map(doc.ports.map((p) => [p.id, p.feed?.phase]))
@@ -33,8 +36,8 @@ export function withInlets(op: OperatingPoint, inlets: ReturnType<typeof phaseIn
       if (!phase) return s
       const { mode, ports } = inlets[phase]
       return mode === 'pressure'
-        ? { portId: s.portId, mode: 'pressure', value: values[phase] / 100, unit: 'mbar' }
-        : { portId: s.portId, mode: 'flow', value: (values[phase] / ports.length) * 6e10, unit: 'uL/min' }
+        ? { portId: s.portId, mode: 'pressure', value: sixFigures(values[phase] / 100), unit: 'mbar' }
+        : { portId: s.portId, mode: 'flow', value: sixFigures((values[phase] / ports.length) * 6e10), unit: 'uL/min' }
     }),
   }
 }

@@ -88,6 +88,8 @@ const FALLBACK_RANK: Record<string, number> = { 'squeezing': 0, 'step-emulsifica
 function refine(scan: Scan, best: ScanPoint, target: PlanTarget, evaluate: Evaluate): ScanPoint {
   const xs = scan.dispersed.values
   const xc = scan.continuous.values[best.i]!
+  // Already on the target (a step's size hardly depends on flow): nothing to tune.
+  if (best.diameter && Math.abs(best.diameter.value - target.diameter) <= 1e-3 * target.diameter) return best
   const lo = xs[Math.max(0, best.j - 1)]!
   const hi = xs[Math.min(xs.length - 1, best.j + 1)]!
   if (!(lo > 0)) return best
@@ -107,7 +109,7 @@ export function recommend(scan: Scan, target: PlanTarget, evaluate: Evaluate, li
   const best = pick(validHits)
   if (best) {
     const tuned = refine(scan, best, target, evaluate)
-    return { point: tuned, recommended: { ...windowPoint(tuned), reason: `Highest droplet rate (${hz(rate(tuned))}) of the ${validHits.length} scanned points that give ${tol}${rateText} inside the methods' validity${limits}; the dispersed ${scan.dispersed.mode} is tuned to put the size on the target.` } }
+    return { point: tuned, recommended: { ...windowPoint(tuned), reason: `Highest droplet rate (${hz(rate(tuned))}) of the ${validHits.length} scanned points that give ${tol}${rateText} inside the methods' validity${limits}${tuned === best ? '' : `; the dispersed ${scan.dispersed.mode} is tuned to put the size on the target`}.` } }
   }
   // Outside validity, prefer the regimes whose law is closest to applying, never jetting or strong inertia.
   const invalidHits = scan.points.filter((p) => p.hit && p.withinLimits && p.regime !== 'jetting' && p.why !== 'inertia' && p.why !== 'jetting')

@@ -32,6 +32,11 @@ describe('the planner on a chip document', () => {
     expect(sized.length).toBeGreaterThan(0)
     for (const p of sized) expect(p.pressure!.dispersed.unit).toBe('Pa')
     expect(plan.warnings.map((w) => w.code)).toContain('pressure-caution')
+    // "Use this point" on a pressure-driven chip sets the dispersed inlet's pressure, as the lab writes it.
+    const dispersed = plan.recommended!.inlets!.find((s) => s.portId.endsWith('disp-in'))!
+    expect(dispersed.mode).toBe('pressure')
+    expect(dispersed.unit).toBe('mbar')
+    expect(String(dispersed.value).length).toBeLessThanOrEqual(8)
   })
 
   it('bounds the grid of a chip by its size, naming search.points', () => {
