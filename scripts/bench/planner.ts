@@ -5,6 +5,8 @@ import { generateParallelChip } from '../../geometry/arrays'
 import { resolveJunctionRequest } from '../../shared/physics/forecast/junctionRequest'
 import { runPlan, scanJunction } from '../../shared/physics/planner'
 import { junctionRequest } from '../../shared/schemas/forecast'
+import { forecastDocument } from '../../shared/physics/document'
+import { requireChipDocument } from '../../shared/schemas/chip'
 
 function timed(run: () => void, repeats: number): { median: number; worst: number } {
   run() // warm-up
@@ -47,5 +49,7 @@ export function run(): void {
     points = plan.window.points.length
     if (plan.window.mode.dispersed !== 'pressure') throw new Error('bench chip is not pressure-driven')
   }, 3)
+  const one = timed(() => forecastDocument(requireChipDocument(chip)), 9)
   console.log(`  pressure-driven window of a 64-nozzle chip through the network (${points} points, each a whole-chip forecast): median ${ms(pressure.median)} (worst ${ms(pressure.worst)}; budget 2 s)`)
+  console.log(`    of which one whole-chip forecast of that chip: median ${ms(one.median)}`)
 }

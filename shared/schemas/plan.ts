@@ -10,7 +10,7 @@ import { safeText, textProblem } from './text'
 
 /** Bounds of a plan request (common practice, no source): a scan costs one forecast per point. */
 export const PLAN_LIMITS = {
-  pointsPerAxis: { min: 3, max: 100, junction: 25, document: 21, pressure: 16, chip: 40 },
+  pointsPerAxis: { min: 3, max: 100, junction: 25, document: 21, pressure: 8, chip: 40 },
   /** A chip's grid: points² × channels at most this (about 10 s of forecasts on a busy 2-core machine). */
   chipWork: 100_000,
   /** Partitions of a digital assay and droplets of a run. */
