@@ -31,9 +31,12 @@ const umOf = (text: string | null) => Number.parseFloat((text ?? '').replace(/[^
 
 describe('planner in Chromium', () => {
   let page: Page
+  const problems: string[] = []
 
   it('plans 40 µm at ≥ 500 Hz for the selected junction, applies the point as one undoable edit, and the forecast matches', async () => {
     page = await editorPage(browser, api, labId, designId)
+    page.on('console', (m) => { if (m.type() === 'error') problems.push(m.text()) })
+    page.on('pageerror', (e) => problems.push(e.message))
     const p = await at(page, 5000, 3000)
     await page.mouse.click(p.x, p.y)
     await page.waitForSelector('[data-test="planner-target"]')
@@ -41,6 +44,10 @@ describe('planner in Chromium', () => {
     await page.fill('[data-test="planner-rate"]', '500')
     await page.fill('[data-test="planner-cells"]', '2000000')
     await page.click('[data-test="planner-run"]')
+    // The scan runs in a Web Worker: the page answers at once while it runs.
+    const asked = Date.now()
+    await page.evaluate(() => document.title)
+    expect(Date.now() - asked).toBeLessThan(1000)
     await page.waitForSelector('[data-test="planner-recommended"]', { timeout: 30_000 })
     await page.waitForSelector('[data-test="planner-map"] svg path', { state: 'attached' })
     const planned = umOf(await page.locator('[data-test="planner-recommended-diameter"]').textContent())
@@ -85,5 +92,6 @@ describe('planner in Chromium', () => {
     expect(doc.components.filter((c: { kind: string }) => c.kind === 'step-nozzle').length).toBeGreaterThan(1)
     await expect.poll(() => page.locator('[data-test="findings-count"]').textContent(), { timeout: 15_000 }).toMatch(/^0 errors/)
     await shot(page, 'planner-new-design')
+    expect(problems).toEqual([])
   })
 })
