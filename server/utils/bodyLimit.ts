@@ -22,6 +22,8 @@ export const ROUTE_BODIES: BodyRule[] = [
   { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/designs$/, limit: MAX_DOCUMENT_BYTES },
   { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/designs\/[^/]+\/revisions$/, limit: MAX_DOCUMENT_BYTES },
   { method: 'POST', pattern: /^\/api\/v1\/forecast$/, limit: MAX_DOCUMENT_BYTES },
+  // The planner takes a forecast request (a chip document) plus its target.
+  { method: 'POST', pattern: /^\/api\/v1\/plan$/, limit: MAX_DOCUMENT_BYTES },
 ]
 
 export const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])

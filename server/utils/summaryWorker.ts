@@ -16,7 +16,8 @@ import { documentPieceCount, shownLimit, type ChipDocument } from '../../shared/
 import type { RevisionDetail, RevisionSummary } from '../../shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
-import type { ForecastResult } from '../workers/geometry'
+import type { ForecastResult, PlanResult } from '../workers/geometry'
+import { runPlan, type PlanAnswer } from '../../shared/physics/planner'
 import { useConfig } from './config'
 import { assertJsonDepth } from './jsonDepth'
 
@@ -151,6 +152,25 @@ export async function forecastOffThread(request: unknown): Promise<ForecastAnswe
   } else {
     try {
       result = { ok: true, answer: runForecast(request) }
+    } catch (error) {
+      if (!(error instanceof ForecastInputError)) throw error
+      result = { ok: false, message: error.message, issues: error.issues }
+    }
+  }
+  if (!result.ok) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: result.message, data: { issues: result.issues } })
+  return result.answer
+}
+
+/** POST /api/v1/plan: a window scan of one junction or a chip's junction; a bad request is a 400 naming each field. */
+export async function planOffThread(request: unknown): Promise<PlanAnswer> {
+  assertJsonDepth(request)
+  const p = usePool()
+  let result: PlanResult
+  if (p) {
+    result = await runTask<PlanResult>(p, 'plan', request, { doing: 'The plan', tooLarge: 'the chip or the search grid is too large' })
+  } else {
+    try {
+      result = { ok: true, answer: runPlan(request) }
     } catch (error) {
       if (!(error instanceof ForecastInputError)) throw error
       result = { ok: false, message: error.message, issues: error.issues }

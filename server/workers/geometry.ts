@@ -4,6 +4,7 @@
 // .output/server/workers/geometry.mjs by scripts/build-workers.mjs when Nitro has compiled.
 import { setPriority } from 'node:os'
 import { ForecastInputError, runForecast, type ForecastAnswer } from '../../shared/physics/forecast'
+import { runPlan, type PlanAnswer } from '../../shared/physics/planner'
 import type { ChipDocument } from '../../shared/schemas/chip'
 import type { RevisionSummary } from '../../shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
@@ -32,6 +33,20 @@ export type ForecastResult =
 export function forecast(request: unknown): ForecastResult {
   try {
     return { ok: true, answer: runForecast(request) }
+  } catch (error) {
+    if (error instanceof ForecastInputError) return { ok: false, message: error.message, issues: error.issues }
+    throw error
+  }
+}
+
+export type PlanResult =
+  | { ok: true, answer: PlanAnswer }
+  | { ok: false, message: string, issues: ForecastInputError['issues'] }
+
+/** POST /api/v1/plan: the planner's window scan (one forecast per point) with its refusals as data. */
+export function plan(request: unknown): PlanResult {
+  try {
+    return { ok: true, answer: runPlan(request) }
   } catch (error) {
     if (error instanceof ForecastInputError) return { ok: false, message: error.message, issues: error.issues }
     throw error

@@ -12,6 +12,9 @@ import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
 import { startServer, type ServerInstance } from '../support/instance'
 import { apiRoutes, fill, isWrite, type ApiRoute } from '../support/routes'
 import forecastExample from '../fixtures/forecast/t-junction-request.json'
+
+/** The forecast example without its flows: a plan request's junction part. */
+const { flow: _flow, ...planJunction } = forecastExample as Record<string, unknown>
 import type { Role } from '../../shared/utils/roles'
 
 const RUNS_PER_ROUTE = Number(process.env.DW_FUZZ_RUNS ?? 110) // × 19 routes ≥ 2,000 bodies
@@ -217,6 +220,13 @@ function plan(route: ApiRoute, s: Setup) {
         forecastExample,
         { network: { channels: [channel('a', 'in', 'mid'), channel('b', 'mid', 'out')], sources: [{ node: 'in', pressure: '100 mbar' }, { node: 'out', pressure: '0 mbar' }], liquid: { liquid: 'water' } } },
         { document: s.doc, operatingPoint: 'op-1' },
+      ],
+    },
+    'POST /api/v1/plan': {
+      client: admin,
+      templates: [
+        { ...planJunction, target: { dropletDiameter: '40 um', tolerance: 0.05, minFrequency: '500 Hz' }, search: { continuous: ['0.1 uL/min', '100 uL/min'], dispersed: ['0.1 uL/min', '100 uL/min'], points: 4 }, encapsulation: { concentration: '2e6 /mL' }, run: { minutes: 10 }, digital: { partitions: 20000, positives: 4000 } },
+        { document: s.doc, operatingPoint: 'op-1', target: { dropletVolume: '30 pL' }, search: { points: 3 }, process: 'film-mask-soft-litho' },
       ],
     },
   }
