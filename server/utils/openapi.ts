@@ -5,6 +5,7 @@
 import { z } from 'zod'
 import { designCreate, designListQuery, designUpdate, duplicateBody, dxfQuery, revisionCreate } from '../../shared/schemas/designs'
 import { documentRequest, junctionRequest, networkRequest } from '../../shared/schemas/forecast'
+import { planDocumentRequest, planJunctionRequest } from '../../shared/schemas/plan'
 import { invitationCreate } from '../../shared/schemas/invitations'
 import { memberRoleUpdate } from '../../shared/schemas/labs'
 import { commentCreate, fabStatusBody, releaseBody, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '../../shared/schemas/review'
@@ -28,6 +29,7 @@ const forecastBody = z.union([junctionRequest, networkRequest, documentRequest])
 
 export const OPERATIONS: Operation[] = [
   { method: 'post', path: '/api/v1/forecast', tag: 'Forecast', summary: 'Forecast droplets for a junction, a channel network or a chip document', body: forecastBody, answers: 'the forecast, each quantity with its method and source (docs/forecast-api.md)' },
+  { method: 'post', path: '/api/v1/plan', tag: 'Forecast', summary: 'Plan a droplet generator: from a target droplet to an operating window, a recommended point, geometry, loading and a run plan', body: z.union([planJunctionRequest, planDocumentRequest]), answers: 'window, recommended, geometry, encapsulation, each quantity with its method and source (docs/planner.md)' },
   { method: 'get', path: '/api/v1/liquids', tag: 'Forecast', summary: 'The built-in liquids, pairs and surfactants, each value with its source' },
   { method: 'get', path: '/api/labs', tag: 'Labs', summary: 'The labs the caller works in (with a token: the token\'s lab)' },
   { method: 'get', path: '/api/labs/{labId}/designs', tag: 'Designs', permission: 'designs:view', query: designListQuery, summary: 'List the lab\'s designs' },
