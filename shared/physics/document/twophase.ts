@@ -264,12 +264,15 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
   let converged = false
   let relaxation = RELAXATION
   let lastChange = Number.POSITIVE_INFINITY
+  const nodeMaps = new Map<string[], Int32Array>()
   const solve = () => {
     for (let k = 0; k < n; k++) resistance[k] = base[k]! + added[k]!
     solution = solver.solve(resistance, offset, closed)
     flow = solution.flow
-    // Pressures by our own node numbering (a closed arm's centre-side nodes keep their last value: none are lost).
-    for (let i = 0; i < solution.nodeIds.length; i++) pressure[nodes.index.get(solution.nodeIds[i]!)!] = solution.pressure[i]!
+    // Pressures by our own node numbering (one map per solver topology: its nodeIds array is reused).
+    let map = nodeMaps.get(solution.nodeIds)
+    if (!map) nodeMaps.set(solution.nodeIds, (map = Int32Array.from(solution.nodeIds, (id) => nodes.index.get(id)!)))
+    for (let i = 0; i < map.length; i++) pressure[map[i]!] = solution.pressure[i]!
   }
   applyArms()
   const maxIterations = options.maxCouplingIterations ?? COUPLING_MAX_ITERATIONS
