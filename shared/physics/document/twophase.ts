@@ -69,9 +69,12 @@ export interface TwoPhaseSolution {
 const area = (ch: CompiledChannel) => ('diameter' in ch ? (Math.PI * (ch as { diameter: number }).diameter ** 2) / 4 : ch.width * ch.depth)
 const smallest = (ch: CompiledChannel) => ('diameter' in ch ? (ch as { diameter: number }).diameter : Math.min(ch.width, ch.depth))
 
-function continuousFlow(j: CompiledJunction, flow: Float64Array): number {
-  const at = (k: number) => (k >= 0 ? flow[k]! : 0)
-  return j.continuousRule === 'sum' ? j.continuous.reduce((sum, k) => sum + at(k), 0) : Math.max(...j.continuous.map((k) => Math.abs(at(k))))
+export function continuousFlow(j: CompiledJunction, flow: ArrayLike<number> | ((k: number) => number)): number {
+  const at = typeof flow === 'function' ? flow : (k: number) => (k >= 0 ? flow[k]! : 0)
+  // Summed arms, or the largest crossflow past a step (no array built: this runs per junction per pass).
+  let value = 0
+  for (const k of j.continuous) value = j.continuousRule === 'sum' ? value + at(k) : Math.max(value, Math.abs(at(k)))
+  return value
 }
 
 export function resolvedAt(j: CompiledJunction, op: ResolvedOperatingPoint, qc: number, qd: number): ResolvedJunction {
@@ -261,12 +264,15 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
   let converged = false
   let relaxation = RELAXATION
   let lastChange = Number.POSITIVE_INFINITY
+  const nodeMaps = new Map<string[], Int32Array>()
   const solve = () => {
     for (let k = 0; k < n; k++) resistance[k] = base[k]! + added[k]!
     solution = solver.solve(resistance, offset, closed)
     flow = solution.flow
-    // Pressures by our own node numbering (a closed arm's centre-side nodes keep their last value: none are lost).
-    for (let i = 0; i < solution.nodeIds.length; i++) pressure[nodes.index.get(solution.nodeIds[i]!)!] = solution.pressure[i]!
+    // Pressures by our own node numbering (one map per solver topology: its nodeIds array is reused).
+    let map = nodeMaps.get(solution.nodeIds)
+    if (!map) nodeMaps.set(solution.nodeIds, (map = Int32Array.from(solution.nodeIds, (id) => nodes.index.get(id)!)))
+    for (let i = 0; i < map.length; i++) pressure[map[i]!] = solution.pressure[i]!
   }
   applyArms()
   const maxIterations = options.maxCouplingIterations ?? COUPLING_MAX_ITERATIONS

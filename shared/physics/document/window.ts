@@ -7,7 +7,7 @@ import { isJetting } from '../junction/regime'
 import { quantity, type Method } from '../quantity'
 import { UNIT } from '../units'
 import type { ResolvedOperatingPoint } from './operating-point'
-import { resolvedAt, type TwoPhaseSolution } from './twophase'
+import { continuousFlow, resolvedAt, type TwoPhaseSolution } from './twophase'
 export { jettingTest }
 import type { CompiledDocument, CompiledJunction, DocumentForecastOptions, OperatingWindow } from './types'
 
@@ -21,8 +21,6 @@ export const OPERATING_WINDOW: Method = {
 /** Highest pressure searched, Pa (10 bar), unless a bond or pump limit is lower. Common practice, no source. */
 const SEARCH_LIMIT = 1e6
 
-const continuousFlow = (j: CompiledJunction, flow: (k: number) => number) =>
-  j.continuousRule === 'sum' ? j.continuous.reduce((sum, k) => sum + flow(k), 0) : Math.max(...j.continuous.map((k) => Math.abs(flow(k))))
 
 /** A junction's jetting verdict as a function of its two flows (the groups of breakupGroups, checked equal in tests). */
 function jettingTest(j: CompiledJunction, op: ResolvedOperatingPoint): (qc: number, qd: number) => boolean {

@@ -54,7 +54,7 @@ function residualOf(system: ReducedSystem, x: Float64Array): number {
   return b === 0 ? 0 : Math.sqrt(r / b)
 }
 
-function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, solver: SolverName, iterations: number, residual: number): NetworkSolution {
+function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, solver: SolverName, iterations: number, residual: number, sourceIndex?: readonly number[]): NetworkSolution {
   const n = net.nodeIds.length
   const pressure = new Float64Array(n)
   const reference = pressureReference(net)
@@ -70,9 +70,9 @@ function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, s
     outflow[net.from[k]!]! += q
     outflow[net.to[k]!]! -= q
   }
-  const index = new Map(net.nodeIds.map((id, i) => [id, i]))
-  const sources = problem.sources.map((source) => {
-    const i = index.get(source.node)!
+  const index = sourceIndex ? undefined : new Map(net.nodeIds.map((id, i) => [id, i]))
+  const sources = problem.sources.map((source, k) => {
+    const i = sourceIndex ? sourceIndex[k]! : index!.get(source.node)!
     return { node: source.node, pressure: pressure[i]!, flow: 'flow' in source ? source.flow : outflow[i]! }
   })
   return { nodeIds: net.nodeIds, pressure, flow, sources, solver, iterations, residual }
@@ -135,6 +135,6 @@ export class NetworkResolver {
     if (!result.converged) {
       throw new NetworkError('not-converged', `The network solve stopped at relative residual ${result.residual.toExponential(2)} after ${result.iterations} iterations; check for channels whose resistances differ by more than ~10¹² and merge or drop them`)
     }
-    return finish({ channels: this.problem.channels, sources }, net, result.x, name, result.iterations, result.residual)
+    return finish({ channels: this.problem.channels, sources }, net, result.x, name, result.iterations, result.residual, this.sourceIndex)
   }
 }
