@@ -30,8 +30,8 @@ describe('findings on the revision page', () => {
     await hydrated(page)
     const panel = page.locator('[data-test="findings-panel"]')
     await expect.poll(() => panel.textContent()).toContain('is 100 µm wide where it joins terminal "dispersed" of "tj-1"')
-    expect(await page.locator('[data-test="findings-count"]').textContent()).toMatch(/1 warning,/)
-    expect(await page.locator('aside').textContent()).not.toMatch(/\b1 warnings\b/)
+    expect(await page.locator('[data-test="findings-count"]').textContent()).toMatch(/^0 errors, 2 warnings, 1 note$/)
+    expect(await page.locator('aside').textContent()).not.toMatch(/\b1 (errors|warnings|notes)\b/)
     await page.waitForSelector('[data-test="viewer-canvas"] canvas')
     await page.locator('[data-test="finding-terminal-width-step"]').click()
     // The drawing centres on the finding: the viewer's readout of the point under the centre of the canvas is there.
