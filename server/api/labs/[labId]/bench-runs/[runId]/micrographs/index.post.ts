@@ -1,0 +1,15 @@
+import { benchRunParams, micrographScale } from '../../../../../../../shared/schemas/bench'
+import { requireBenchCaller } from '../../../../../../services/bench'
+import { uploadMicrograph } from '../../../../../../services/benchMicrographs'
+import { readMicrographForm } from '../../../../../../utils/multipart'
+import { parseOr400, validParams } from '../../../../../../utils/validate'
+
+// multipart/form-data: "image" (PNG, JPEG or TIFF, checked on its bytes) and the scale ("umPerPx", or "barPx" + "barUm").
+export default defineEventHandler(async (event) => {
+  const { labId, runId } = validParams(event, benchRunParams)
+  const caller = requireBenchCaller(event, labId, 'measurements:record')
+  const form = await readMicrographForm(event)
+  const { umPerPx } = parseOr400(micrographScale, form.fields, 'Scale')
+  setResponseStatus(event, 201)
+  return uploadMicrograph(caller, runId, form.file, umPerPx)
+})
