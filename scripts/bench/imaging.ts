@@ -33,7 +33,9 @@ export async function run() {
     const require = createRequire(import.meta.url)
     const t0 = performance.now()
     const cvModule = require('@techstark/opencv-js')
-    const cv = cvModule instanceof Promise ? await cvModule : await new Promise<any>((resolve) => { if (cvModule.Mat) resolve(cvModule); else cvModule.onRuntimeInitialized = () => resolve(cvModule) })
+    // The module is a thenable that resolves to itself: wait for its runtime, then hand it on wrapped (never resolve a
+    // promise with it, which would loop).
+    const { cv } = await new Promise<{ cv: any }>((resolve) => { if (cvModule.Mat) resolve({ cv: cvModule }); else cvModule.onRuntimeInitialized = () => resolve({ cv: cvModule }) })
     const load = performance.now() - t0
     const cvMs = await best(3, () => {
       const src = cv.matFromArray(size, size, cv.CV_8UC1, image.data)

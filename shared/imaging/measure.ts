@@ -5,15 +5,15 @@
 // Method (the classic particle-analysis pipeline):
 //   1. background: the 90th percentile of 64-px tiles, interpolated bilinearly, divides the image (flat-field
 //      correction of uneven illumination; Russ & Neal 2016, The Image Processing Handbook, 7th ed., ch. 4 — from memory);
-//   2. threshold: after a σ = 1 px Gaussian smoothing, Otsu 1979 (N. Otsu, IEEE Trans. Syst. Man Cybern. 9, 62–66), between background and drop rims;
-//   3. holes filled (a drop's bright core joins its rim), then 4-connected components (Rosenfeld & Pfaltz 1966,
+//   2. threshold: after a σ ≈ 1 px binomial smoothing, Otsu 1979 (N. Otsu, IEEE Trans. Syst. Man Cybern. 9, 62–66), between background and drop rims;
+//   3. holes filled (a flood fill from the border: a drop's bright core joins its rim), then 4-connected components (Rosenfeld & Pfaltz 1966,
 //      J. ACM 13, 471) through image-js's ROI map;
 //   4. filters: components cut by the image edge are rejected (their size is unknown); circularity 4πA/P² and the
 //      minor/major axis ratio of the moment ellipse reject touching or deformed drops (Russ & Neal 2016, ch. 11 —
 //      from memory; the cut-offs 0.8 and 0.85 are common practice, no source);
 //   5. size: the area-equivalent diameter d = 2√(A/π) of the filled component, refined to sub-pixel by the
 //      half-contrast crossing of the edge along 32 rays (the "50 % edge" of Canny-free edge location; common practice).
-import { fromMask, Image } from 'image-js'
+import { computeThreshold, fromMask, Image, Mask } from 'image-js'
 import { describeSample, type SampleSummary } from '../physics/calibration/stats'
 import type { GreyImage } from './types'
 
@@ -97,6 +97,63 @@ function background(image: GreyImage): Float32Array {
   return out
 }
 
+/**
+ * Two passes of the [1 2 1]/4 binomial kernel along each axis: a Gaussian of σ = 1 px to within a few per cent
+ * (the binomial approximation of the Gaussian; Burt & Adelson 1983, IEEE Trans. Commun. 31, 532), so pixel noise
+ * does not fray the components' outlines (and their circularity).
+ */
+function binomialSmooth(src: Uint8Array, width: number, height: number): Uint8Array {
+  let a = new Float32Array(src)
+  let b = new Float32Array(src.length)
+  for (let pass = 0; pass < 2; pass++) {
+    for (let y = 0; y < height; y++) {
+      const row = y * width
+      for (let x = 0; x < width; x++) {
+        const l = a[row + Math.max(0, x - 1)]!
+        const r = a[row + Math.min(width - 1, x + 1)]!
+        b[row + x] = 0.25 * l + 0.5 * a[row + x]! + 0.25 * r
+      }
+    }
+    ;[a, b] = [b, a]
+    for (let y = 0; y < height; y++) {
+      const up = Math.max(0, y - 1) * width
+      const down = Math.min(height - 1, y + 1) * width
+      const row = y * width
+      for (let x = 0; x < width; x++) b[row + x] = 0.25 * a[up + x]! + 0.5 * a[row + x]! + 0.25 * a[down + x]!
+    }
+    ;[a, b] = [b, a]
+  }
+  const out = new Uint8Array(src.length)
+  for (let i = 0; i < out.length; i++) out[i] = Math.round(a[i]!)
+  return out
+}
+
+/**
+ * Mask of the dark side (value ≤ threshold) with holes filled: every bright pixel that cannot reach the image border
+ * through bright pixels (4-connected flood fill from the border) belongs to a drop — its bright core.
+ */
+function fillHoles(values: Uint8Array, width: number, height: number, threshold: number): Uint8Array {
+  const n = width * height
+  const mask = new Uint8Array(n)
+  for (let i = 0; i < n; i++) mask[i] = values[i]! <= threshold ? 1 : 0
+  const outside = new Uint8Array(n)
+  const stack = new Int32Array(n)
+  let top = 0
+  const push = (i: number) => { if (!mask[i] && !outside[i]) { outside[i] = 1; stack[top++] = i } }
+  for (let x = 0; x < width; x++) { push(x); push((height - 1) * width + x) }
+  for (let y = 0; y < height; y++) { push(y * width); push(y * width + width - 1) }
+  while (top > 0) {
+    const i = stack[--top]!
+    const x = i % width
+    if (x > 0) push(i - 1)
+    if (x < width - 1) push(i + 1)
+    if (i >= width) push(i - width)
+    if (i < n - width) push(i + width)
+  }
+  for (let i = 0; i < n; i++) mask[i] = outside[i] ? 0 : 1
+  return mask
+}
+
 /** Bilinear sample of the corrected image at (x, y) in pixel-centre coordinates. */
 function sample(values: Uint8Array, width: number, height: number, x: number, y: number): number {
   const fx = Math.min(width - 1.001, Math.max(0, x - 0.5))
@@ -167,11 +224,11 @@ export function measureDrops(image: GreyImage, options: MeasureOptions): Measure
   for (let i = 0; i < flat.length; i++) flat[i] = Math.min(255, Math.round((200 * data[i]!) / bg[i]!))
   progress(0.2)
 
-  // 2–3. Otsu threshold, drops are the dark side; fill holes; label components.
-  const grey = new Image(width, height, { colorModel: 'GREY', data: flat })
-  // A Gaussian of σ = 1 px first, so pixel noise does not fray the components' outlines (and their circularity).
-  const smooth = grey.gaussianBlur({ sigma: 1 })
-  const level = smooth.threshold({ algorithm: 'otsu' }).invert().solidFill()
+  // 2–3. Smooth, Otsu threshold (drops are the dark side), fill holes, label components.
+  const smooth = binomialSmooth(flat, width, height)
+  const grey = new Image(width, height, { colorModel: 'GREY', data: smooth })
+  const cut = computeThreshold(grey, { algorithm: 'otsu' })
+  const level = new Mask(width, height, { data: fillHoles(smooth, width, height, cut) })
   progress(0.5)
   const rois = fromMask(level).getRois({ kind: 'white' })
   progress(0.7)
@@ -204,7 +261,7 @@ export function measureDrops(image: GreyImage, options: MeasureOptions): Measure
     })
   }
   progress(1)
-  return summarise({ width, height, umPerPx: options.umPerPx, threshold: 0, drops, method: DETECTION_METHOD })
+  return summarise({ width, height, umPerPx: options.umPerPx, threshold: cut, drops, method: DETECTION_METHOD })
 }
 
 const round = (v: number, digits: number) => Number(v.toFixed(digits))
