@@ -79,5 +79,5 @@ export const useBenchStore = defineStore('bench', () => {
     if (done) calibration.value = await $fetch<CalibrationAnswer>(`/api/labs/${labId.value}/calibrations`, { query: { designId } })
   }
 
-  return { list, calibration, micrograph, uploading, busy, problem, load, record, upload, openMicrograph, exclude, setMode }
+  return { labId, list, calibration, micrograph, uploading, busy, problem, load, record, upload, openMicrograph, exclude, setMode }
 })

@@ -5,7 +5,10 @@ import { and, eq } from 'drizzle-orm'
 import sharp from 'sharp'
 import { measureDrops } from '../../shared/imaging/measure'
 import { renderMicrograph, scatterDrops } from '../../shared/imaging/synthetic'
+import { plugDiameterUm } from '../../shared/physics/calibration/lab'
 import { describeSample } from '../../shared/physics/calibration/stats'
+import { plugLength, sphereVolume } from '../../shared/physics/junction/plugVolume'
+import type { Metres } from '../../shared/physics/units'
 import { predictRun } from '../services/benchForecast'
 import { objectKey, putObject } from '../services/storage'
 import type { Db } from '../utils/db'
@@ -22,18 +25,28 @@ export async function seedDemoBench(db: Db, labId: string, people: { designer: s
   const predicted = await predictRun(target.document, opId, undefined, {})
   const base = { labId, designId: target.designId, revisionId: target.id, operatingPointId: opId ?? null, junctionId: predicted?.junctionId ?? null, predicted: predicted as unknown as Record<string, unknown> | null }
 
-  // Typed: twelve drops measured by hand, about 8 % above the forecast.
-  const scale = predicted ? predicted.diameterUm * 1.08 : 60
-  const typed = [0.99, 1.01, 1.0, 0.98, 1.02, 1.0, 1.01, 0.99, 1.0, 1.02, 0.98, 1.0].map(f => +(scale * f).toFixed(1))
+  // The lab's "true" chip: drops 12 % above the forecast at the design's flow ratio, on the line L/w = 1 + α Qd/Qc.
+  const w = predicted?.mainWidthUm ?? 100
+  const h = predicted?.depthUm ?? 50
+  const x1 = predicted?.forecastFlowRatio ?? 0.2
+  const targetUm = (predicted ? predicted.diameterUm : 60) * 1.12
+  const alpha = (plugLength(sphereVolume(targetUm * 1e-6 as Metres), w * 1e-6 as Metres, h * 1e-6 as Metres) * 1e6 / w - 1) / x1
+
+  // Typed: twelve drops measured by hand at half the dispersed flow (the ratio typed as the bench's flows).
+  const x2 = x1 / 2
+  const atHalf = plugDiameterUm(w * (1 + alpha * x2), w, h)
+  const typed = [0.99, 1.01, 1.0, 0.98, 1.02, 1.0, 1.01, 0.99, 1.0, 1.02, 0.98, 1.0].map(f => +(atHalf * f).toFixed(1))
   const s = describeSample(typed)
+  const halfPrediction = predicted ? { ...predicted, flowRatio: x2 } : null
   await db.insert(benchRuns).values({
-    ...base, conditions: {}, quantity: 'diameter', source: 'typed', valuesUm: typed, count: s.count, meanUm: s.mean, sdUm: s.sd, cv: s.cv,
-    notes: 'Demo: measured by hand on the first chip of the batch (invented data).', ranBy: people.experimenter, ranAt: new Date(Date.now() - 3 * 86_400_000),
+    ...base, predicted: halfPrediction as unknown as Record<string, unknown> | null, conditions: { continuousFlow: { value: 10, unit: 'uL/min' }, dispersedFlow: { value: +(10 * x2).toPrecision(4), unit: 'uL/min' } },
+    quantity: 'diameter', source: 'typed', valuesUm: typed, count: s.count, meanUm: s.mean, sdUm: s.sd, cv: s.cv,
+    notes: 'Demo: measured by hand on the first chip of the batch, at half the dispersed flow (invented data).', ranBy: people.experimenter, ranAt: new Date(Date.now() - 3 * 86_400_000),
   })
 
   // Micrograph: 60 drops about 12 % above the forecast, drawn at 0.8 µm per pixel.
   const umPerPx = 0.8
-  const diameterPx = (predicted ? predicted.diameterUm * 1.12 : 60) / umPerPx
+  const diameterPx = targetUm / umPerPx
   const size = 1024
   const { separated } = scatterDrops({ width: size, height: size, count: Math.min(60, Math.floor((size / (diameterPx * 1.6)) ** 2 * 0.5)), meanDiameter: diameterPx, cv: 0.025, seed: 11 })
   const image = renderMicrograph({ width: size, height: size, drops: separated, noise: 4, blur: 0.9, unevenness: 0.3, seed: 11 })
