@@ -37,9 +37,10 @@ export async function seedDemoBench(db: Db, labId: string, people: { designer: s
   const atHalf = plugDiameterUm(w * (1 + alpha * x2), w, h)
   const typed = [0.99, 1.01, 1.0, 0.98, 1.02, 1.0, 1.01, 0.99, 1.0, 1.02, 0.98, 1.0].map(f => +(atHalf * f).toFixed(1))
   const s = describeSample(typed)
-  const halfPrediction = predicted ? { ...predicted, flowRatio: x2 } : null
+  const halfConditions = { continuousFlow: { value: 10, unit: 'uL/min' as const }, dispersedFlow: { value: +(10 * x2).toPrecision(4), unit: 'uL/min' as const } }
+  const halfPrediction = await predictRun(target.document, opId, undefined, halfConditions)
   await db.insert(benchRuns).values({
-    ...base, predicted: halfPrediction as unknown as Record<string, unknown> | null, conditions: { continuousFlow: { value: 10, unit: 'uL/min' }, dispersedFlow: { value: +(10 * x2).toPrecision(4), unit: 'uL/min' } },
+    ...base, predicted: halfPrediction as unknown as Record<string, unknown> | null, conditions: halfConditions,
     quantity: 'diameter', source: 'typed', valuesUm: typed, count: s.count, meanUm: s.mean, sdUm: s.sd, cv: s.cv,
     notes: 'Demo: measured by hand on the first chip of the batch, at half the dispersed flow (invented data).', ranBy: people.experimenter, ranAt: new Date(Date.now() - 3 * 86_400_000),
   })

@@ -5,7 +5,7 @@ import type { LabCalibration } from '../physics/calibration/lab'
 
 export interface BenchPrediction {
   junctionId: string, kind: string, diameterUm: number, regime: string, method: string, valid: boolean
-  flowRatio: number, forecastFlowRatio: number, mainWidthUm: number, depthUm: number, uncertainty: number, uncertaintySource: string
+  flowRatio: number, forecastFlowRatio: number, atBenchFlows: boolean, mainWidthUm: number, depthUm: number, uncertainty: number, uncertaintySource: string
 }
 
 export interface BenchMicrographInfo {

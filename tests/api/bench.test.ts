@@ -131,3 +131,19 @@ describe('bench runs', () => {
     expect((await s.as.fabricator.get(`${base}/calibrations`)).status).toBe(404)
   })
 })
+
+describe('the forecast a run is compared with', () => {
+  it('is recomputed at the flow ratio typed at the bench for a T-junction', async () => {
+    const design = await s.as.designer.post(`${base}/revisions/${s.revisionId}/bench-runs`, { source: 'typed', values: [50], operatingPointId: 'op-1' })
+    const ratio = design.json.predicted.forecastFlowRatio
+    const typed = await s.as.designer.post(`${base}/revisions/${s.revisionId}/bench-runs`, {
+      source: 'typed', values: [50], operatingPointId: 'op-1',
+      conditions: { continuousFlow: { value: 10, unit: 'uL/min' }, dispersedFlow: { value: 10 * ratio * 2, unit: 'uL/min' } },
+    })
+    expect(typed.status).toBe(201)
+    expect(typed.json.predicted.flowRatio).toBeCloseTo(ratio * 2, 9)
+    expect(typed.json.predicted.atBenchFlows).toBe(true)
+    // Twice the dispersed flow in squeezing makes a longer plug, so a larger sphere-equivalent drop.
+    expect(typed.json.predicted.diameterUm).toBeGreaterThan(design.json.predicted.diameterUm * 1.05)
+  })
+})
