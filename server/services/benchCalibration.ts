@@ -1,6 +1,6 @@
 // The lab's calibration from its bench runs (per junction kind) and a design's forecast switch.
 import { and, desc, eq } from 'drizzle-orm'
-import { calibratedDiameterUm, fitLabCalibrations, type CalibrationRun } from '../../shared/physics/calibration/lab'
+import { calibratedDiameterUm, calibrationKey, fitLabCalibrations, type CalibrationRun } from '../../shared/physics/calibration/lab'
 import { designForecastModes, revisions } from '../db/schema'
 import type { LabCaller } from '../utils/access'
 import { useDb } from '../utils/db'
@@ -15,7 +15,7 @@ async function calibrationsOf(caller: LabCaller) {
     if (!p || run.meanUm === null) return []
     return [{
       id: run.id, kind: p.kind, ranAt: run.ranAt.toISOString(), measuredUm: run.meanUm, quantity: run.quantity as 'diameter' | 'plug-length',
-      predictedDiameterUm: p.diameterUm, flowRatio: p.flowRatio, mainWidthUm: p.mainWidthUm, depthUm: p.depthUm,
+      predictedDiameterUm: p.diameterUm, flowRatio: p.flowRatio, mainWidthUm: p.mainWidthUm, depthUm: p.depthUm, regime: p.regime,
     }]
   })
   return fitLabCalibrations(points)
@@ -33,8 +33,8 @@ export async function labCalibrations(caller: LabCaller, designId?: string) {
   const runs = (await labRunsForCalibration(caller)).filter(r => r.designId === designId && r.predicted)
   const junctions = runs.length
     ? [...new Map(runs.map(r => [((r.predicted as unknown) as RunPrediction).junctionId, (r.predicted as unknown) as RunPrediction])).values()].map((p) => {
-        const calibration = calibrations.find(c => c.kind === p.kind)
-        return { junctionId: p.junctionId, kind: p.kind, modelDiameterUm: p.diameterUm, calibrated: calibration ? calibratedDiameterUm(calibration, { predictedDiameterUm: p.diameterUm, flowRatio: p.forecastFlowRatio, mainWidthUm: p.mainWidthUm, depthUm: p.depthUm }) : null }
+        const calibration = calibrations.find(c => c.kind === calibrationKey(p.kind, p.regime))
+        return { junctionId: p.junctionId, kind: calibrationKey(p.kind, p.regime), modelDiameterUm: p.diameterUm, calibrated: calibration ? calibratedDiameterUm(calibration, { predictedDiameterUm: p.diameterUm, flowRatio: p.forecastFlowRatio, mainWidthUm: p.mainWidthUm, depthUm: p.depthUm }) : null }
       })
     : []
   return { calibrations, design: { id: design.id, mode: mode?.mode ?? 'model', changedAt: mode?.changedAt.toISOString() ?? null, latestRevisionId: latest?.id ?? null, junctions } }

@@ -66,10 +66,11 @@ describe('bench results in the browser', () => {
 
     // Measured against forecast, the fitted α with its interval, and the switch.
     expect(await page.locator('[data-test="bench-plot"] circle').count()).toBe(2)
-    await expect.poll(() => page.textContent('[data-test="calibration-t-junction"]')).toMatch(/α .*95 % interval .* – /)
+    // The fixture chip forecasts dripping: a correction factor k, fitted apart from squeezing's α.
+    await expect.poll(() => page.textContent('[data-test="calibration-t-junction/dripping"]')).toMatch(/dripping regime: k .*95 % interval .* – /)
     await page.click('[data-test="mode-calibrated"]')
     await expect.poll(() => page.getAttribute('[data-test="mode-calibrated"]', 'aria-checked')).toBe('true')
-    expect(await page.textContent('[data-test="calibrated-label"]')).toMatch(/Lab-calibrated: α .* from 2 runs/)
+    expect(await page.textContent('[data-test="calibrated-label"]')).toMatch(/Lab-calibrated: k .* from 2 runs/)
     await page.click('[data-test="mode-model"]')
     await expect.poll(() => page.getAttribute('[data-test="mode-model"]', 'aria-checked')).toBe('true')
     await shot(page, 'bench-page')

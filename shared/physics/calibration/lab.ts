@@ -21,12 +21,16 @@ export interface CalibrationRun {
   flowRatio: number | null
   mainWidthUm: number | null
   depthUm: number | null
+  /** The forecast's regime at the run: α is a squeezing coefficient, so other T-junction regimes are fitted apart. */
+  regime?: string | null
 }
 
 export type CalibrationModel = 'squeezing-alpha' | 'step-ratio' | 'correction-factor'
 
 export interface LabCalibration {
+  /** The group: the junction kind, or `t-junction/<regime>` for T-junction runs outside squeezing. */
   kind: string
+  junctionKind: string
   model: CalibrationModel
   parameter: string
   fit: Fit
@@ -40,6 +44,15 @@ const MODEL: Record<string, { model: CalibrationModel, parameter: string }> = {
   't-junction': { model: 'squeezing-alpha', parameter: 'α (L/w = 1 + α Qd/Qc)' },
   'step-nozzle': { model: 'step-ratio', parameter: 'd/h' },
   'step-array': { model: 'step-ratio', parameter: 'd/h' },
+}
+
+/**
+ * Which calibration a run (or a forecast) belongs to. Garstecki's α holds in squeezing (and is the usual
+ * extrapolation through the transition band); a T-junction in dripping or jetting gets its own multiplicative
+ * correction instead of bending α.
+ */
+export function calibrationKey(kind: string, regime?: string | null): string {
+  return kind === 't-junction' && regime && regime !== 'squeezing' && regime !== 'transition' ? `t-junction/${regime}` : kind
 }
 
 const um = (v: number) => (v * 1e-6) as Metres
@@ -77,15 +90,15 @@ function points(kind: string, runs: CalibrationRun[]): { x: number[], y: number[
 
 /** One calibration per junction kind with at least two usable runs; kinds with fewer are left out. */
 export function fitLabCalibrations(runs: readonly CalibrationRun[]): LabCalibration[] {
-  const kinds = [...new Set(runs.map(r => r.kind))].sort()
+  const keys = [...new Set(runs.map(r => calibrationKey(r.kind, r.regime)))].sort()
   const out: LabCalibration[] = []
-  for (const kind of kinds) {
-    const { x, y, used } = points(kind, runs.filter(r => r.kind === kind))
+  for (const kind of keys) {
+    const { x, y, used } = points(kind, runs.filter(r => calibrationKey(r.kind, r.regime) === kind))
     if (used.length < 2 || !x.some(v => v !== 0)) continue
     const { model, parameter } = MODEL[kind] ?? { model: 'correction-factor' as const, parameter: 'k (measured = k × predicted)' }
     const fit = model === 'correction-factor' ? fitCorrectionFactor(x, y) : fitThroughOrigin(x, y)
     out.push({
-      kind, model, parameter, fit, runs: used.length,
+      kind, junctionKind: used[0]!.kind, model, parameter, fit, runs: used.length,
       latestRunAt: used.map(r => r.ranAt).sort().at(-1)!,
       residuals: used.map((r, i) => ({ runId: r.id, x: x[i]!, y: y[i]!, fitted: fit.value * x[i]!, residual: y[i]! - fit.value * x[i]! })),
     })

@@ -84,3 +84,13 @@ describe('fitLabCalibrations', () => {
     expect(fits[0]!.fit.value).toBeCloseTo(1.1, 12)
   })
 })
+
+describe('calibrationKey', () => {
+  it('keeps T-junction runs outside squeezing out of α', () => {
+    const run = (id: string, regime: string, q: number, measured: number): CalibrationRun => ({ id, kind: 't-junction', regime, ranAt: '2026-11-01T00:00:00Z', quantity: 'diameter', measuredUm: measured, predictedDiameterUm: 100, flowRatio: q, mainWidthUm: 100, depthUm: 50 })
+    const fits = fitLabCalibrations([run('a', 'squeezing', 0.2, plugDiameterUm(130, 100, 50)), run('b', 'squeezing', 0.4, plugDiameterUm(160, 100, 50)), run('c', 'dripping', 0.1, 90), run('d', 'dripping', 0.1, 80)])
+    expect(fits.map(f => [f.kind, f.model])).toEqual([['t-junction', 'squeezing-alpha'], ['t-junction/dripping', 'correction-factor']])
+    expect(fits[0]!.fit.value).toBeCloseTo(1.5, 9)
+    expect(fits[1]!.fit.value).toBeCloseTo(0.85, 12)
+  })
+})
