@@ -1,11 +1,14 @@
 // Dropwright — Nuxt configuration. The repository root is the source folder (no app/ folder).
 import { fileURLToPath } from 'node:url'
+import { DEFAULT_SESSION_TTL_HOURS } from './server/utils/config'
 import { PAGE_CSP, PERMISSIONS_POLICY } from './server/utils/securityHeaders'
 
 export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   srcDir: '.',
   devtools: { enabled: false },
+  // Only .vue files are components: the pure helpers beside them (components/*/lib/*.ts) are plain modules.
+  components: [{ path: '~/components', extensions: ['vue'] }],
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', '@sidebase/nuxt-auth', 'nuxt-security'],
   css: [
     '@fontsource/ibm-plex-sans/400.css', '@fontsource/ibm-plex-sans/500.css', '@fontsource/ibm-plex-sans/600.css',
@@ -20,10 +23,7 @@ export default defineNuxtConfig({
       script: [{ innerHTML: 'globalThis.__zod_globalConfig = Object.assign(globalThis.__zod_globalConfig || {}, { jitless: true })', tagPriority: 'critical' }],
     },
   },
-  runtimeConfig: {
-    databaseUrl: '', // NUXT_DATABASE_URL or DATABASE_URL
-    sessionTtlHours: 24 * 7,
-  },
+  // The server's settings are environment variables read once by server/utils/config.ts (README, "Configuration").
   auth: {
     isEnabled: true,
     originEnvKey: 'AUTH_ORIGIN',
@@ -45,7 +45,8 @@ export default defineNuxtConfig({
         cookieName: 'dw.marker',
         type: '',
         headerName: 'X-Dw-Marker',
-        maxAgeInSeconds: 60 * 60 * 24 * 7,
+        // Only until the first answer: the server sets the marker with the session's own expiry (server/utils/cookies.ts).
+        maxAgeInSeconds: DEFAULT_SESSION_TTL_HOURS * 3600,
         sameSiteAttribute: 'lax',
         secureCookieAttribute: false,
         httpOnlyCookieAttribute: false,

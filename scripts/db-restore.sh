@@ -53,6 +53,16 @@ else
   fi
 fi
 
-clean=(); [ -n "$replace" ] && clean=(--clean --if-exists)
-"$PGBIN/pg_restore" --dbname="$url" --no-owner --no-acl --single-transaction --exit-on-error "${clean[@]}" "$file"
+if [ -n "$replace" ]; then
+  # pg_restore --clean cannot drop a partition's inherited primary key ("cannot drop inherited constraint"), and
+  # pg-boss's job table (schema pgboss) is partitioned by queue: drop that schema first, in the same transaction,
+  # and let --clean replace everything else. The script is written out whole first, so a pg_restore that fails
+  # half-way never feeds psql a truncated restore to commit.
+  script=$(mktemp "${TMPDIR:-/tmp}/dw-restore-XXXXXX.sql")
+  trap 'rm -f "$script"' EXIT
+  { echo 'drop schema if exists pgboss cascade;'; "$PGBIN/pg_restore" --no-owner --no-acl --clean --if-exists --file=- "$file"; } > "$script"
+  psql "$url" -Xq --single-transaction -v ON_ERROR_STOP=1 -f "$script" > /dev/null
+else
+  "$PGBIN/pg_restore" --dbname="$url" --no-owner --no-acl --single-transaction --exit-on-error "$file"
+fi
 log "restored $file into database $name"

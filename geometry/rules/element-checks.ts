@@ -1,4 +1,4 @@
-import type { ChipDocument, Component } from '#shared/schemas/chip'
+import type { ChipDocument, Component, Terminal } from '#shared/schemas/chip'
 import { componentTerminals, portTerminals } from '#shared/schemas/chip'
 import type { FabricationProcess, Finding } from './types'
 import { findingId } from './types'
@@ -61,17 +61,36 @@ export function elementFindings(doc: ChipDocument, p: FabricationProcess): Findi
   return out
 }
 
-/** A channel end that claims a terminal but does not sit on it (> 0.5 µm away) breaks the drawing and the network. */
+// A step in width where a channel meets a component's arm changes the junction's effective geometry (and the
+// forecast, which uses the arm's width). Differences under 2 % are drawing round-off — common practice, no source.
+const WIDTH_STEP_TOLERANCE = 0.02
+const widthStep = (channel: number, arm: number, feedsNozzle: boolean) =>
+  (feedsNozzle ? arm - channel : Math.abs(channel - arm)) > WIDTH_STEP_TOLERANCE * arm
+const fmtUm = (v: number) => (Number.isInteger(v) ? String(v) : v.toFixed(1))
+
+/**
+ * A channel end that claims a terminal but does not sit on it (> 0.5 µm away) breaks the drawing and the network;
+ * one that sits on a component's terminal with another width makes a step there (a warning; ports are punches).
+ */
 function terminalFindings(doc: ChipDocument): Finding[] {
-  const terminals = new Map<string, Map<string, { x: number; y: number }>>()
-  for (const c of doc.components) terminals.set(c.id, new Map(componentTerminals(c).map((t) => [t.name, t.position])))
-  for (const port of doc.ports) terminals.set(port.id, new Map(portTerminals(port).map((t) => [t.name, t.position])))
+  const terminals = new Map<string, Map<string, Terminal>>()
+  for (const c of doc.components) terminals.set(c.id, new Map(componentTerminals(c).map((t) => [t.name, t])))
+  for (const port of doc.ports) terminals.set(port.id, new Map(portTerminals(port).map((t) => [t.name, t])))
+  const isComponent = new Set(doc.components.map((c) => c.id))
+  // A step nozzle is the constriction: a supply wider than the nozzle feeding its entry is the design, not a slip.
+  const nozzleEntries = new Set(doc.components.filter((c) => c.kind === 'step-nozzle').map((c) => `${c.id}/dispersed`))
   const out: Finding[] = []
   for (const ch of doc.channels) {
     for (const [end, ref, pt] of [['start', ch.start, ch.points[0]!], ['end', ch.end, ch.points[ch.points.length - 1]!]] as const) {
-      const t = ref && terminals.get(ref.element)?.get(ref.terminal)
-      if (!t) continue
+      const terminal = ref && terminals.get(ref.element)?.get(ref.terminal)
+      if (!terminal) continue
+      const t = { ...terminal.position, width: terminal.width }
       const gap = Math.hypot(t.x - pt.x, t.y - pt.y)
+      if (gap <= 0.5 && isComponent.has(ref.element) && widthStep(ch.width, t.width, nozzleEntries.has(`${ref.element}/${ref.terminal}`))) {
+        const elements = [ch.id, ref.element]
+        out.push({ id: findingId(`terminal-width-step-${end}`, elements), rule: 'terminal-width-step', severity: 'warning', elements, location: { x: pt.x, y: pt.y },
+          message: `Channel "${ch.id}" is ${fmtUm(ch.width)} µm wide where it joins terminal "${ref.terminal}" of "${ref.element}", which is ${fmtUm(t.width)} µm wide: the width steps at the joint; make the channel ${fmtUm(t.width)} µm wide or change the ${ref.terminal} width of "${ref.element}"` })
+      }
       if (gap > 0.5) {
         const elements = [ch.id, ref.element]
         out.push({ id: findingId(`terminal-mismatch-${end}`, elements), rule: 'terminal-mismatch', severity: 'error', elements, location: { x: pt.x, y: pt.y },

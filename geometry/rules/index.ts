@@ -1,6 +1,7 @@
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { ChipOutlines } from '../outlines'
 import { buildOutlines } from '../outlines'
+import { crossingFindings } from './crossings'
 import { elementFindings } from './element-checks'
 import { spacingFindings } from './layer-spacing'
 import { liquidFindings } from './liquids'
@@ -27,6 +28,7 @@ export function checkDesignRules(doc: ChipDocument, process: FabricationProcess,
     ...geometry,
     ...spacingFindings(o, process, options.naive ?? false),
     ...elementFindings(doc, process),
+    ...crossingFindings(doc),
     ...placementFindings(doc, o, process),
     ...liquidFindings(doc, process),
   ]

@@ -224,6 +224,25 @@ export type KnownDevice = typeof knownDevices.$inferSelect
 export type PasswordReset = typeof passwordResets.$inferSelect
 export type MailMessage = typeof mailOutbox.$inferSelect
 
+// ── platform (issue 12): personal API tokens ─────────────────────────────────────────────────────────────────
+/**
+ * A person's API token for scripts: scoped to one lab and a role whose permissions are within the person's own
+ * there. Only the SHA-256 of the token is kept; `prefix` (its first characters) lets the account page tell tokens
+ * apart. A revoked token stays listed (revokedAt) and never works again.
+ */
+export const apiTokens = pgTable('api_tokens', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  role: roleEnum('role').notNull(),
+  name: varchar('name', { length: 80 }).notNull(),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull(),
+  prefix: varchar('prefix', { length: 12 }).notNull(),
+  createdAt: createdAt(),
+  lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
+  revokedAt: timestamp('revoked_at', { withTimezone: true }),
+}, t => [uniqueIndex('api_tokens_hash_idx').on(t.tokenHash), index('api_tokens_user_idx').on(t.userId)])
+export type ApiToken = typeof apiTokens.$inferSelect
 // ── Bench results and calibration (bench helper, issue 13) ────────────────────────────────────────────────────────
 
 /** A chip run at the bench: one operating point of a revision (or conditions typed at the bench) and what was measured. */

@@ -3,6 +3,7 @@
 // the body type (415, anything but JSON). The body itself is read, counted, after auth.ts (body.ts).
 import type { ServerResponse } from 'node:http'
 import { defineEventHandler } from 'h3'
+import { isBearerWithoutCookies } from '../utils/bearer'
 import { assertBodyType, WRITE_METHODS } from '../utils/bodyLimit'
 import { assertSameOrigin } from '../utils/origin'
 import { apiHeaders } from '../utils/securityHeaders'
@@ -11,7 +12,7 @@ export default defineEventHandler((event) => {
   if (!event.path.startsWith('/api/')) return
   keepApiHeaders(event.node.res)
   if (!WRITE_METHODS.has(event.method)) return
-  assertSameOrigin(event)
+  if (!isBearerWithoutCookies(event)) assertSameOrigin(event)
   assertBodyType(event)
 })
 

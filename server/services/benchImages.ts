@@ -9,6 +9,7 @@ import sharp from 'sharp'
 import Tinypool from 'tinypool'
 import { measureDrops, type Measurement } from '../../shared/imaging/measure'
 import { MAX_MICROGRAPH_PIXELS, MICROGRAPH_TYPES } from '../../shared/schemas/bench'
+import { useConfig } from '../utils/config'
 
 const badImage = (message: string) => createError({ statusCode: 415, statusMessage: 'Unsupported Media Type', message })
 
@@ -52,7 +53,7 @@ function imagingPool(): Tinypool | null {
   let dir = dirname(fileURLToPath(import.meta.url))
   let file: string | null = null
   for (let i = 0; i < 5 && !file; i++, dir = dirname(dir)) if (existsSync(join(dir, 'workers', 'imaging.mjs'))) file = join(dir, 'workers', 'imaging.mjs')
-  pool = file && process.env.DW_IMAGING_WORKER !== '0'
+  pool = file && useConfig().imaging.worker
     ? new Tinypool({ filename: file, minThreads: 0, maxThreads: 1, idleTimeout: 30_000, resourceLimits: { maxOldGenerationSizeMb: 1024 } })
     : null
   return pool

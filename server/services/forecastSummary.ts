@@ -9,7 +9,7 @@ type ForecastPart = Pick<RevisionSummary, 'operatingPoint' | 'junctions' | 'inle
 export function forecastSummary(doc: ChipDocument): ForecastPart {
   try {
     const s = summarizeForecast(forecastDocument(doc))
-    return { operatingPoint: s.operatingPoint, junctions: s.junctions, inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar })), forecastError: null }
+    return { operatingPoint: s.operatingPoint, junctions: s.junctions, inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar, flowUlPerMin: i.flowUlPerMin })), forecastError: null }
   } catch (error) {
     if (!(error instanceof ForecastInputError) && !(error instanceof Error && error.name === 'NetworkError')) console.error('[summary] forecast failed:', error)
     const message = error instanceof ForecastInputError ? error.issues.map(i => i.message).join('; ') : error instanceof Error ? error.message : String(error)

@@ -4,9 +4,10 @@
 import { createHash, randomBytes } from 'node:crypto'
 import { and, eq, gt, lt, sql } from 'drizzle-orm'
 import { knownDevices } from '../db/schema'
+import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 
-export const DEVICE_DAYS = Number(process.env.DW_DEVICE_DAYS ?? 180)
+export const DEVICE_DAYS = useConfig().session.deviceDays
 const digest = (token: string) => createHash('sha256').update(token).digest('hex')
 
 /** The live device behind `token` when it belongs to `userId`; anyone else's token counts as an unknown device. */

@@ -1,8 +1,9 @@
-// Queueing e-mail. A message is a row in `mail_outbox`, written in the caller's transaction when it has one, so it
-// exists exactly when the change it reports does. The worker (server/plugins/mailWorker.ts) sends it later: a slow
-// or broken mail server never slows or fails the request that queued it.
+// Queueing e-mail. A message is a row in `mail_outbox` plus a "mail.send" job (server/services/mailJob.ts), both
+// written in the caller's transaction when it has one, so they exist exactly when the change they report does.
+// Whichever server instance is free sends it later: a slow or broken mail server never slows or fails the request.
 import { mailOutbox } from '../db/schema'
 import type { Db } from '../utils/db'
+import { enqueueJob } from '../utils/jobs'
 
 /** A database handle or a transaction opened on one. */
 export type DbOrTx = Db | Parameters<Parameters<Db['transaction']>[0]>[0]
@@ -13,12 +14,9 @@ export type MailKind = (typeof MAIL_KINDS)[number]
 export interface MailContent { subject: string, text: string, html?: string | null }
 export interface QueuedMail extends MailContent { labId?: string | null, kind: MailKind, to: string }
 
-let onQueued: (() => void) | null = null
-
-/** The worker registers here to be woken when a message is queued (it also polls, for other instances' rows). */
-export function onMailQueued(listener: (() => void) | null) {
-  onQueued = listener
-}
+/** The job that sends one outbox row. */
+export const MAIL_SEND_JOB = 'mail.send'
+export interface MailSendData { outboxId: string, labId: string | null }
 
 /** Header fields must be one line: a name or design title with a line break must not add headers. */
 const oneLine = (value: string, max: number) => value.replace(/[\r\n\t]+/g, ' ').trim().slice(0, max)
@@ -28,7 +26,7 @@ export async function queueMail(db: DbOrTx, mail: QueuedMail): Promise<string> {
   return id!
 }
 
-/** One message to each recipient, queued in a single statement. */
+/** One message to each recipient: the rows in one statement, then one job each, all on `db`'s connection. */
 export async function queueMailTo(db: DbOrTx, recipients: string[], mail: Omit<QueuedMail, 'to'>): Promise<string[]> {
   if (!recipients.length) return []
   const rows = await db.insert(mailOutbox).values(recipients.map(to => ({
@@ -39,7 +37,9 @@ export async function queueMailTo(db: DbOrTx, recipients: string[], mail: Omit<Q
     text: mail.text,
     html: mail.html ?? null,
   }))).returning({ id: mailOutbox.id })
-  onQueued?.()
+  for (const row of rows) {
+    await enqueueJob<MailSendData>(MAIL_SEND_JOB, { outboxId: row.id, labId: mail.labId ?? null }, { tx: db })
+  }
   return rows.map(r => r.id)
 }
 

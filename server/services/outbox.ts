@@ -7,6 +7,7 @@ import { join, resolve } from 'node:path'
 import { and, desc, eq, inArray, isNull } from 'drizzle-orm'
 import { createError } from 'h3'
 import { mailOutbox } from '../db/schema'
+import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { KeptMail, LabOutbox } from '../../shared/types/outbox'
@@ -14,13 +15,13 @@ import { outboxIdOf } from './mail'
 
 const MAX_FILES = 500
 
-export const outboxAvailable = () => process.env.DW_DEV_OUTBOX === '1'
+export const outboxAvailable = () => useConfig().mail.devOutbox
 
 export function requireOutbox() {
   if (!outboxAvailable()) throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'The outbox exists only with the local fake SMTP (npm start, npm run dev)' })
 }
 
-const mailDir = () => resolve(process.env.DW_MAIL_DIR || join(process.cwd(), '.data/mail'))
+const mailDir = () => resolve(useConfig().mail.dir ?? join(process.cwd(), '.data/mail'))
 
 interface KeptFile { messageId: string | null, to: string[], from: string, subject: string, text: string, html: string | null, date: string }
 

@@ -5,6 +5,7 @@ import { createHash, randomBytes } from 'node:crypto'
 import { and, count, eq, gt, isNull, sql } from 'drizzle-orm'
 import { createError } from 'h3'
 import { passwordResets, signInFailures, users } from '../db/schema'
+import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 import { hashPassword, serverPasswordChecks } from '../utils/password'
 import { parseOr400 } from '../utils/validate'
@@ -18,7 +19,7 @@ import { checkCredentials } from './signIn'
 
 const digest = (token: string) => createHash('sha256').update(token).digest('hex')
 /** Reset mails one account gets in an hour at most: more requests are answered the same and send nothing. */
-const RESETS_PER_HOUR = Number(process.env.DW_RESETS_PER_HOUR ?? 3)
+const RESETS_PER_HOUR = useConfig().signIn.resetsPerHour
 
 /**
  * Signed in: checks the current password (it counts against the sign-in limits like any attempt), sets the new one

@@ -3,12 +3,13 @@
 // prepared query. A fabricator's answer names no unreleased revision (`seenRevisionId`).
 import { eq, sql } from 'drizzle-orm'
 import { revisions } from '../db/schema'
+import { useConfig } from '../utils/config'
 import { useDb, usePool } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { can } from '../../shared/utils/roles'
 import { notFound, seenRevisionId } from './designGuards'
 
-const MAX_ENTRIES = Number(process.env.DW_REVISION_CACHE ?? 64)
+const MAX_ENTRIES = useConfig().geometry.revisionCache
 const content = new Map<string, { document: string, summary: string }>()
 
 async function contentOf(revisionId: string) {

@@ -3,10 +3,11 @@ import { createHash, randomBytes } from 'node:crypto'
 import { and, eq, lt, ne } from 'drizzle-orm'
 import { sessions } from '../db/schema'
 import { useDb, usePool } from '../utils/db'
+import { useConfig } from '../utils/config'
 import type { SessionData } from '../../shared/types/session'
 import type { DbOrTx } from './mail'
 
-const TTL_MS = Number(process.env.DW_SESSION_TTL_HOURS ?? 24 * 7) * 3600_000
+const TTL_MS = useConfig().session.ttlHours * 3600_000
 
 const digest = (token: string) => createHash('sha256').update(token).digest('hex')
 

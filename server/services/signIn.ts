@@ -8,6 +8,7 @@
 import { and, eq, gt, isNull, sql } from 'drizzle-orm'
 import { createError } from 'h3'
 import { signInFailures, users } from '../db/schema'
+import { useConfig } from '../utils/config'
 import { useDb, type Tx } from '../utils/db'
 import { verifyPassword } from '../utils/password'
 import type { SignInBody } from '../../shared/schemas/auth'
@@ -16,11 +17,11 @@ import { knownDevice } from './knownDevices'
 const WINDOW_MIN = 15
 const WINDOW = sql.raw(`interval '${WINDOW_MIN} minutes'`)
 /** Unknown devices, per account. */
-const MAX_PER_EMAIL = Number(process.env.DW_SIGNIN_MAX_PER_EMAIL ?? 5)
+const MAX_PER_EMAIL = useConfig().signIn.maxPerEmail
 /** Unknown devices, per client address (clientAddress: X-Forwarded-For only from DW_TRUSTED_PROXIES). */
-const MAX_PER_IP = Number(process.env.DW_SIGNIN_MAX_PER_IP ?? 50)
+const MAX_PER_IP = useConfig().signIn.maxPerIp
 /** Each known device, on its own. */
-const MAX_PER_DEVICE = Number(process.env.DW_SIGNIN_MAX_PER_DEVICE ?? 5)
+const MAX_PER_DEVICE = useConfig().signIn.maxPerDevice
 
 export const WRONG_CREDENTIALS = 'Wrong e-mail or password'
 

@@ -6,24 +6,23 @@
 // Keys are always `labs/<labId>/...`, so one lab's objects never share a prefix with another's.
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client, type S3ClientConfig } from '@aws-sdk/client-s3'
 import { createError } from 'h3'
+import { useConfig } from '../utils/config'
 
 let client: S3Client | undefined
 
 export function storageBucket(): string {
-  return process.env.DW_S3_BUCKET || 'dropwright'
+  return useConfig().storage.bucket
 }
 
 function useStorage(): S3Client {
   if (client) return client
-  const endpoint = process.env.DW_S3_ENDPOINT
+  const { endpoint, region, credentials } = useConfig().storage
   const config: S3ClientConfig = {
-    region: process.env.DW_S3_REGION || 'us-east-1',
+    region,
     // The local fake (and most self-hosted stores) answer path-style addresses only.
     forcePathStyle: Boolean(endpoint),
     ...(endpoint ? { endpoint } : {}),
-    ...(process.env.DW_S3_ACCESS_KEY && process.env.DW_S3_SECRET_KEY
-      ? { credentials: { accessKeyId: process.env.DW_S3_ACCESS_KEY, secretAccessKey: process.env.DW_S3_SECRET_KEY } }
-      : {}),
+    ...(credentials ? { credentials } : {}),
   }
   client = new S3Client(config)
   return client

@@ -5,12 +5,13 @@
 // address that is not a trusted proxy) is proxy-addr's, the one Express uses.
 import type { H3Event } from 'h3'
 import proxyAddr from 'proxy-addr'
+import { useConfig } from './config'
 
 let trust: ((addr: string, i: number) => boolean) | undefined
 let trustFrom: string | undefined
 
 function trusted(): (addr: string, i: number) => boolean {
-  const configured = process.env.DW_TRUSTED_PROXIES ?? ''
+  const configured = useConfig().trustedProxies
   if (!trust || trustFrom !== configured) {
     const list = configured.split(/[\s,]+/).filter(Boolean)
     try {

@@ -1,6 +1,7 @@
 import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../db/schema'
+import { useConfig } from './config'
 
 export type Db = NodePgDatabase<typeof schema>
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
@@ -10,12 +11,10 @@ let pool: pg.Pool | undefined
 
 /** The database URL: NUXT_DATABASE_URL (runtime config) or DATABASE_URL. */
 export function databaseUrl(): string {
-  const url = process.env.NUXT_DATABASE_URL || process.env.DATABASE_URL
+  const url = useConfig().databaseUrl
   if (!url) throw new Error('DATABASE_URL is not set: run `npm start` (starts a local PostgreSQL) or set DATABASE_URL to a managed server')
   return url
 }
-
-const ms = (name: string, fallback: number) => Number(process.env[name] ?? fallback)
 
 /**
  * The pool and its time-outs (DEVELOPERS.md, "Database work"). A request path checks out at most one connection
@@ -25,14 +24,15 @@ const ms = (name: string, fallback: number) => Number(process.env[name] ?? fallb
  * - idle_in_transaction_session_timeout (DW_DB_IDLE_TX_MS, 10 s) ends a transaction its holder forgot.
  */
 export function poolConfig(): pg.PoolConfig {
+  const { db } = useConfig()
   return {
     connectionString: databaseUrl(),
-    max: ms('DW_DB_POOL', 10),
-    connectionTimeoutMillis: ms('DW_DB_ACQUIRE_MS', 5000),
+    max: db.pool,
+    connectionTimeoutMillis: db.acquireMs,
     idleTimeoutMillis: 30_000,
-    statement_timeout: ms('DW_DB_STATEMENT_MS', 10_000),
-    idle_in_transaction_session_timeout: ms('DW_DB_IDLE_TX_MS', 10_000),
-    options: `-c lock_timeout=${ms('DW_DB_LOCK_MS', 5000)}`,
+    statement_timeout: db.statementMs,
+    idle_in_transaction_session_timeout: db.idleInTransactionMs,
+    options: `-c lock_timeout=${db.lockMs}`,
     application_name: 'dropwright',
   }
 }

@@ -1,10 +1,9 @@
 import type { H3Event } from 'h3'
 import { createError, getRequestHeader, getRequestURL } from 'h3'
+import { useConfig } from './config'
 
 /** DW_PUBLIC_URL without trailing slashes, or null when it is not set. */
-function publicUrl(): string | null {
-  return process.env.DW_PUBLIC_URL?.trim().replace(/\/+$/, '') || null
-}
+const publicUrl = (): string | null => useConfig().publicUrl
 
 /**
  * The address people open links in e-mail at, never taken from the request (a forged Host header must not put
@@ -14,8 +13,7 @@ function publicUrl(): string | null {
 export function appOrigin(_event?: H3Event): string {
   const configured = publicUrl()
   if (configured) return configured
-  const host = (process.env.NITRO_HOST || process.env.HOST || '').trim()
-  const port = (process.env.NITRO_PORT || process.env.PORT || '3000').trim()
+  const { host, port } = useConfig().listen
   const name = !host || host === '0.0.0.0' || host === '::' || host === '[::]' ? 'localhost' : host.includes(':') && !host.startsWith('[') ? `[${host}]` : host
   return `http://${name}:${port}`
 }

@@ -17,19 +17,17 @@ import type { RevisionDetail, RevisionSummary } from '../../shared/types/designs
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
 import type { ForecastResult } from '../workers/geometry'
+import { useConfig } from './config'
 import { assertJsonDepth } from './jsonDepth'
 
-const envNumber = (name: string, fallback: number) => {
-  const v = Number(process.env[name])
-  return Number.isFinite(v) && v > 0 ? v : fallback
-}
+const geometry = useConfig().geometry
 /** Per-task time budget (ms), worker threads, waiting tasks, worker heap (MB). */
-export const GEOMETRY_BUDGET_MS = envNumber('DW_GEOMETRY_BUDGET_MS', 120_000)
-const THREADS = envNumber('DW_GEOMETRY_THREADS', 2)
+export const GEOMETRY_BUDGET_MS = geometry.budgetMs
+const THREADS = geometry.threads
 // 256 waiting tasks: a burst of saves (120 at once on one design in tests/api/save-race.test.ts) waits its turn
 // instead of answering 503; each waiting task holds one validated document, bounded by the 8 MiB body limit.
-const QUEUE = envNumber('DW_GEOMETRY_QUEUE', 256)
-const HEAP_MB = envNumber('DW_GEOMETRY_HEAP_MB', 1024)
+const QUEUE = geometry.queue
+const HEAP_MB = geometry.heapMb
 
 let pool: Tinypool | null | undefined
 
@@ -44,7 +42,7 @@ function workerFile(): string | null {
 
 function usePool(): Tinypool | null {
   if (pool !== undefined) return pool
-  const filename = process.env.DW_SUMMARY_WORKER === '0' ? null : workerFile()
+  const filename = geometry.worker ? workerFile() : null
   pool = filename
     ? new Tinypool({ filename, minThreads: 1, maxThreads: THREADS, idleTimeout: 60_000, resourceLimits: { maxOldGenerationSizeMb: HEAP_MB } })
     : null

@@ -8,11 +8,12 @@ import type { ChipDocument } from '../../shared/schemas/chip'
 import type { RevisionSummary } from '../../shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
+import { useConfig } from '../utils/config'
 
 // Below the request thread: on Linux a nice value is per thread, so on a busy machine the event loop that answers
 // requests gets the CPU first and a long geometry task waits (DW_GEOMETRY_NICE, default 10; 0 keeps it equal).
 try {
-  setPriority(Number(process.env.DW_GEOMETRY_NICE ?? 10))
+  setPriority(useConfig().geometry.nice)
 } catch { /* not allowed here: run at the same priority */ }
 
 export function summary(job: { document: ChipDocument, processId: string }): RevisionSummary {

@@ -88,10 +88,21 @@ export const networkSource = byKey('flow',
   z.strictObject({ node: netId('a node id'), pressure: quantityField('pressure', { positive: false }) }),
 )
 
+/** Channel ids name flows, parallel sets and answers: two channels with one id would make them ambiguous. */
+function uniqueChannelIds(channels: readonly { id: string }[], ctx: z.RefinementCtx): void {
+  const first = new Map<string, number>()
+  channels.forEach((channel, k) => {
+    const earlier = first.get(channel.id)
+    if (earlier === undefined) first.set(channel.id, k)
+    else ctx.addIssue({ code: 'custom', path: [k, 'id'], message: `channel id "${channel.id}" is already used by channel ${earlier}; give every channel its own id` })
+  })
+}
+
 export const networkRequest = z.strictObject({
   network: z.strictObject({
     channels: z.array(byKey('diameter', tubing, rectangularChannel)).min(1, 'a network needs at least one channel')
-      .max(FORECAST_LIMITS.channels, `a network can have at most ${FORECAST_LIMITS.channels} channels`),
+      .max(FORECAST_LIMITS.channels, `a network can have at most ${FORECAST_LIMITS.channels} channels`)
+      .superRefine(uniqueChannelIds),
     sources: z.array(networkSource).min(1, 'a network needs at least one pressure source (an outlet at 0 Pa)')
       .max(FORECAST_LIMITS.sources, `a network can have at most ${FORECAST_LIMITS.sources} sources`),
     liquid: liquidInput,

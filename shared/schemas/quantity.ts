@@ -83,8 +83,21 @@ export function parseQuantity(input: unknown, dimension: Dimension): ParseResult
   return result
 }
 
+/**
+ * Lab spellings mathjs does not know, rewritten before parsing: the micro sign (µ U+00B5, μ U+03BC) as "u",
+ * centipoise and poise (1 cP = 1 mPa·s, 1 P = 0.1 Pa·s; BIPM SI Brochure, 9th ed., table 8 non-SI units), "°C"/"°".
+ */
+export function normalizeUnitText(text: string): string {
+  return text
+    .replace(/[\u00b5\u03bc](?=[a-zA-Z])/g, 'u')
+    .replace(/°\s*C\b/g, 'degC')
+    .replace(/°/g, 'deg')
+    .replace(/(^|[\d\s.)])cP\b/g, '$1mPa*s')
+    .replace(/(^|[\d\s.)])P\b(?!a)/g, '$1dPa*s')
+}
+
 function parseString(input: string, dimension: Dimension, info: DimensionInfo): ParseResult {
-  const text = input.trim()
+  const text = normalizeUnitText(input.trim())
   if (/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(text)) {
     return { ok: false, message: `"${input}" has no unit; write it with one, e.g. "${info.example}"` }
   }

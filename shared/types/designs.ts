@@ -9,7 +9,8 @@ export interface RevisionSummary {
   counts: { channels: number, components: number, ports: number, layers: number }
   operatingPoint: string | null
   junctions: JunctionSummary[]
-  inlets: Array<{ portId: string, pressureMbar: number }>
+  /** Summaries stored before flows were kept have no `flowUlPerMin`. */
+  inlets: Array<{ portId: string, pressureMbar: number, flowUlPerMin?: number }>
   forecastError: string | null
   findings: { errors: number, warnings: number, infos: number }
   processId: string

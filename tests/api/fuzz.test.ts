@@ -175,11 +175,13 @@ function plan(route: ApiRoute, s: Setup) {
   const { admin, fabricator, leaver, anonymous } = s.clients
   const params = {
     labId: s.lab.id, designId: s.main.designId, revisionId: s.main.revisionId, threadId: s.threadId,
-    invitationId: s.invitationId, userId: s.people[5]!.id, token: randomBytes(32).toString('base64url'),
+    invitationId: s.invitationId, userId: s.people[5]!.id, token: randomBytes(32).toString('base64url'), tokenId: randomUUID(),
     runId: s.runId, micrographId: randomUUID(),
   }
   const channel = (id: string, from: string, to: string) => ({ id, from, to, width: '100 um', depth: '50 um', length: '10 mm' })
   const plans: Record<string, { client: ApiClient, params?: Partial<typeof params>, templates: unknown[] }> = {
+    'POST /api/account/tokens': { client: admin, templates: [{ name: 'fuzz script', labId: s.lab.id, role: 'reviewer' }, { name: 'too high?', labId: s.lab.id, role: 'admin' }] },
+    'DELETE /api/account/tokens/[tokenId]': { client: admin, templates: [{}] },
     'POST /api/auth/login': { client: anonymous, templates: [{ email: `nobody-${randomUUID().slice(0, 6)}@test.example`, password: 'not-the-password-1' }] },
     'POST /api/auth/logout': { client: leaver, templates: [{}] },
     'POST /api/auth/logout-everywhere': { client: leaver, templates: [{}] },

@@ -27,8 +27,10 @@ export function mailEnv(): Record<string, string> {
     DW_DEV_OUTBOX: process.env.DW_DEV_OUTBOX || local.DW_DEV_OUTBOX || '',
     DW_MAIL_DIR: process.env.DW_MAIL_DIR || local.DW_MAIL_DIR || '',
     // Quick rounds and retries, so the tests see a retried message arrive in about a second.
-    DW_MAIL_POLL_MS: process.env.DW_MAIL_POLL_MS || '200',
-    DW_MAIL_RETRY_BASE_MS: process.env.DW_MAIL_RETRY_BASE_MS || '500',
+    DW_JOBS_POLL_SECONDS: process.env.DW_JOBS_POLL_SECONDS || '0.5',
+    DW_MAIL_RETRY_SECONDS: process.env.DW_MAIL_RETRY_SECONDS || '1',
+    // The diagnostic jobs tests/api/jobs.test.ts watches the queue with (server/services/diagnosticJobs.ts).
+    DW_DIAGNOSTIC_JOBS: '1',
   }
   if (!env.SMTP_URL) throw new Error('SMTP_URL is not set: run the tests with `npm test` (it starts the local fake SMTP)')
   return env

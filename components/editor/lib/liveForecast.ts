@@ -89,8 +89,11 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
 
 const sig = (v: number, n = 2) => Number(v.toPrecision(n))
 
-/** Junction callouts (regime, Ø µm, caution when outside validity) and inlet callouts (pressure needed, mbar). */
-export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null): ViewerLabel[] {
+/**
+ * Junction callouts (regime, Ø µm, caution when outside validity) and inlet callouts (pressure and flow; a fault
+ * when the pressure exceeds the bond limit of the design's process).
+ */
+export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null, bondLimitMbar = Infinity): ViewerLabel[] {
   if (!summary) return []
   const comps = new Map(doc.components.map(c => [c.id, c]))
   const labels: ViewerLabel[] = []
@@ -103,7 +106,10 @@ export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null)
   const ports = new Map(doc.ports.map(p => [p.id, p]))
   for (const i of summary.inlets) {
     const p = ports.get(i.port)
-    if (p) labels.push({ elementId: p.id, x: p.position.x, y: p.position.y, lines: [`${sig(i.pressureMbar, 3)} mbar`], tone: 'ok' })
+    if (!p) continue
+    const over = i.pressureMbar > bondLimitMbar
+    const lines = [`${over ? '⚠ ' : ''}${sig(i.pressureMbar, 3)} mbar`, `${sig(i.flowUlPerMin, 3)} µL/min`]
+    labels.push({ elementId: p.id, x: p.position.x, y: p.position.y, lines, tone: over ? 'fault' : 'ok' })
   }
   return labels
 }

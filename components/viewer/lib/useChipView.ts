@@ -4,6 +4,8 @@ import { ref, shallowRef } from 'vue'
 import { centreOn, fitToBounds, panBy, screenPoint, screenToWorld, worldPoint, zoomAround, type Bounds, type View, type ViewportSize, type WorldPoint } from './viewport'
 
 export const ZOOM_STEP = 1.5
+/** Space left around the chip by Fit, in CSS pixels. */
+export const FIT_MARGIN_PX = 24
 const DRAG_THRESHOLD_PX = 3
 
 export function useChipView(bounds: () => Bounds) {
@@ -11,20 +13,23 @@ export function useChipView(bounds: () => Bounds) {
   const view = shallowRef<View>(fitToBounds(bounds(), size.value))
   const cursor = shallowRef<WorldPoint | null>(null)
   const panning = ref(false)
-  let fitted = false
+  // The view follows Fit (on first layout and on every resize) until the person zooms or pans.
+  let following = true
 
-  const fit = () => { view.value = fitToBounds(bounds(), size.value, 24); fitted = true }
-  const zoomBy = (factor: number, at = screenPoint(size.value.width / 2, size.value.height / 2)) => { view.value = zoomAround(view.value, factor, at) }
-  const centre = (x: number, y: number) => { view.value = centreOn(view.value, worldPoint(x, y), size.value) }
-  const setView = (v: View) => { view.value = v }
+  const fit = () => { view.value = fitToBounds(bounds(), size.value, FIT_MARGIN_PX); following = true }
+  const moved = (next: View) => { view.value = next; following = false }
+  const zoomBy = (factor: number, at = screenPoint(size.value.width / 2, size.value.height / 2)) => moved(zoomAround(view.value, factor, at))
+  const centre = (x: number, y: number) => moved(centreOn(view.value, worldPoint(x, y), size.value))
+  const setView = (v: View) => moved(v)
 
-  /** Keeps the world point at the centre when the box is resized; fits on the first real size. */
+  /** Fits again when the box is resized, unless the person has zoomed or panned: then the centre stays put. */
   function resize(width: number, height: number) {
     if (width <= 0 || height <= 0) return
     const old = size.value
+    if (old.width === width && old.height === height && !following) return
     const mid = screenToWorld(view.value, screenPoint(old.width / 2, old.height / 2))
     size.value = { width, height }
-    if (!fitted) fit()
+    if (following) fit()
     else view.value = centreOn(view.value, mid, size.value)
   }
 
@@ -32,7 +37,7 @@ export function useChipView(bounds: () => Bounds) {
     e.preventDefault()
     const lines = e.deltaMode === 1 ? 33 : e.deltaMode === 2 ? size.value.height : 1
     const factor = Math.exp(-e.deltaY * lines * (e.ctrlKey ? 0.01 : 0.0015))
-    view.value = zoomAround(view.value, factor, screenPoint(at.x, at.y))
+    moved(zoomAround(view.value, factor, screenPoint(at.x, at.y)))
   }
 
   /** Returns true when the key was a view command. */
@@ -41,8 +46,8 @@ export function useChipView(bounds: () => Bounds) {
     const stepY = size.value.height * 0.15
     const actions: Record<string, () => void> = {
       '+': () => zoomBy(ZOOM_STEP), '=': () => zoomBy(ZOOM_STEP), '-': () => zoomBy(1 / ZOOM_STEP), '_': () => zoomBy(1 / ZOOM_STEP),
-      '0': fit, 'ArrowLeft': () => (view.value = panBy(view.value, stepX, 0)), 'ArrowRight': () => (view.value = panBy(view.value, -stepX, 0)),
-      'ArrowUp': () => (view.value = panBy(view.value, 0, stepY)), 'ArrowDown': () => (view.value = panBy(view.value, 0, -stepY)),
+      '0': fit, 'ArrowLeft': () => moved(panBy(view.value, stepX, 0)), 'ArrowRight': () => moved(panBy(view.value, -stepX, 0)),
+      'ArrowUp': () => moved(panBy(view.value, 0, stepY)), 'ArrowDown': () => moved(panBy(view.value, 0, -stepY)),
     }
     const act = e.ctrlKey || e.metaKey || e.altKey ? undefined : actions[e.key]
     if (!act) return false
@@ -61,7 +66,7 @@ export function useChipView(bounds: () => Bounds) {
     const dy = at.y - press.y
     if (!panning.value && Math.hypot(dx, dy) < DRAG_THRESHOLD_PX) return
     panning.value = true
-    view.value = panBy(press.view, dx, dy)
+    moved(panBy(press.view, dx, dy))
   }
   /** Ends a press; returns true when it was a click (no pan). */
   function pointerUp(): boolean {

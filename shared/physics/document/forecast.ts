@@ -2,7 +2,9 @@
 import type { ChipDocument } from '../../schemas/chip'
 import { compileDocument } from './compile'
 import { forecastJunctions } from './junctions'
-import { networkAnswer, solveCompiled } from './network'
+import { networkAnswer } from './network'
+import { solveTwoPhase } from './twophase'
+import { operatingWindows } from './window'
 import { resolveOperatingPoint } from './operating-point'
 import type { DocumentForecast, DocumentForecastOptions } from './types'
 
@@ -13,10 +15,11 @@ import type { DocumentForecast, DocumentForecastOptions } from './types'
 export function forecastDocument(doc: ChipDocument, operatingPointId?: string, options: DocumentForecastOptions = {}): DocumentForecast {
   const op = resolveOperatingPoint(doc, operatingPointId)
   const compiled = compileDocument(doc, op)
-  const solved = solveCompiled(doc, compiled, op, options)
+  const solved = solveTwoPhase(doc, compiled, op, options)
   const network = networkAnswer(compiled, solved, op, options)
+  network.operatingWindow = operatingWindows(doc, compiled, solved, op, options)
   const flowScale = Math.max(0, ...solved.solution.sources.map((s) => Math.abs(s.flow)))
-  const { junctions, warnings } = forecastJunctions(compiled.junctions, solved.solution.flow, op, flowScale)
+  const { junctions, warnings } = forecastJunctions(compiled.junctions, solved.solution.flow, op, flowScale, solved, compiled.sources, network.operatingWindow)
   return {
     document: { name: doc.name },
     operatingPoint: { id: op.point.id, name: op.point.name },

@@ -8,6 +8,7 @@ export { summarizeForecast, type ForecastSummary } from './summary'
 export { compileDocument } from './compile'
 export { COINCIDENCE_UM } from './connect'
 export { SINGLE_PHASE } from './network'
+export { TWO_PHASE, COUPLING_TOLERANCE } from './twophase'
 export { documentForecastRequest } from './request'
 export type { CompiledDocument, DocumentForecast, DocumentForecastOptions, DocumentJunction, DocumentJunctionKind, DocumentNetwork, DocumentWarning } from './types'
 

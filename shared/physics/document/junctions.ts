@@ -3,12 +3,15 @@
 import { forecastJunction } from '../forecast/junction'
 import type { JunctionForecast, ResolvedJunction } from '../forecast/types'
 import type { JunctionKind } from '../junction/regime'
-import type { Method } from '../quantity'
+import { ENTRY_BARRIER } from '../junction/laplace'
+import { quantity, type Method } from '../quantity'
+import { UNIT } from '../units'
+import type { TwoPhaseSolution } from './twophase'
 import type { ResolvedOperatingPoint } from './operating-point'
-import type { CompiledJunction, DocumentJunction, DocumentJunctionKind, DocumentWarning } from './types'
+import type { CompiledJunction, DocumentJunction, DocumentJunctionKind, DocumentSource, DocumentWarning, OperatingWindow } from './types'
 
 /** The single-junction method each document kind is forecast by. */
-const CORE_KIND: Record<DocumentJunctionKind, JunctionKind> = {
+export const CORE_KIND: Record<DocumentJunctionKind, JunctionKind> = {
   't-junction': 't-junction',
   'y-junction': 't-junction',
   'flow-focusing': 'flow-focusing',
@@ -27,13 +30,31 @@ export const Y_AS_T: Method = {
   source: 'T-junction squeezing laws applied to a Y-junction (an approximation, unchecked for inclined inlets): lower confidence',
 }
 
-export function forecastJunctions(junctions: CompiledJunction[], flows: Float64Array, op: ResolvedOperatingPoint, flowScale: number): { junctions: DocumentJunction[]; warnings: DocumentWarning[] } {
+export function forecastJunctions(junctions: CompiledJunction[], flows: Float64Array, op: ResolvedOperatingPoint, flowScale: number, solved?: TwoPhaseSolution, sources: DocumentSource[] = [], windows: OperatingWindow[] = []): { junctions: DocumentJunction[]; warnings: DocumentWarning[] } {
   const warnings: DocumentWarning[] = []
+  const portAt = new Map(sources.map((s) => [s.node, s]))
   // Below this a flow is rounding noise of the solve, not a flow.
   const zero = 1e-9 * flowScale
-  const answer = junctions.map((j): DocumentJunction => {
+  const answer = junctions.map((j, index): DocumentJunction => {
     const entry: DocumentJunction = { id: j.id, kind: j.kind, element: j.element, forecast: null }
     if (j.nozzle !== undefined) entry.nozzle = j.nozzle
+    const arm = solved?.arms[index]
+    if (arm?.barrier !== undefined) {
+      entry.entry = { barrier: quantity(arm.barrier, UNIT.pressure, ENTRY_BARRIER), state: arm.state }
+      if (arm.state !== 'open') {
+        const source = arm.source !== undefined ? portAt.get(arm.source) : undefined
+        const deficit = arm.barrier - (arm.drive ?? 0)
+        if (source && source.mode === 'pressure' && source.kind === 'inlet') {
+          const window = windows.find((w) => w.port === source.port)
+          const start = window ? window.from.value : source.pressure + deficit
+          entry.entry.dropsFrom = window ? window.from : quantity(start, UNIT.pressure, { id: 'entry-barrier-onset', source: `the feed inlet's pressure raised by the arm's shortfall below its barrier; ${ENTRY_BARRIER.source}` })
+          warnings.push({ code: 'below-entry-barrier', element: j.element, message: `No droplets at ${j.kind} "${j.id}" until inlet "${source.port}" reaches ≈ ${(start / 100).toPrecision(3)} mbar (now ${(source.pressure / 100).toPrecision(3)} mbar): the dispersed phase cannot enter the junction below its entry barrier of ${(arm.barrier / 100).toPrecision(3)} mbar` })
+        } else {
+          warnings.push({ code: 'below-entry-barrier', element: j.element, message: `No droplets at ${j.kind} "${j.id}": the pressure across its dispersed arm (${((arm.drive ?? 0) / 100).toPrecision(3)} mbar) is below its entry barrier of ${(arm.barrier / 100).toPrecision(3)} mbar; raise the dispersed feed by ≈ ${(deficit / 100).toPrecision(3)} mbar` })
+        }
+        return entry
+      }
+    }
     const flow = (k: number) => (k >= 0 ? flows[k]! : 0)
     const qd = flow(j.dispersed)
     const qc = j.continuousRule === 'sum' ? j.continuous.reduce((sum, k) => sum + flow(k), 0) : Math.max(...j.continuous.map((k) => Math.abs(flow(k))))

@@ -60,8 +60,10 @@ export interface DocumentJunction {
   kind: DocumentJunctionKind
   element: string
   nozzle?: number
-  /** Null when the junction cannot be forecast (no dispersed flow, backflow, no tension); a warning says why. */
+  /** Null when the junction cannot be forecast (no dispersed flow, backflow, below its entry barrier, no tension); a warning says why. */
   forecast: JunctionForecast | null
+  /** The dispersed arm's entry barrier and its state; `dropsFrom` is the inlet pressure at which drops start when it is below. */
+  entry?: { barrier: Quantity; state: 'open' | 'below-barrier' | 'backflow'; dropsFrom?: Quantity }
 }
 
 export interface DocumentUniformity extends Uniformity {
@@ -75,14 +77,49 @@ export interface DocumentNetwork {
   /** How the chip's two-phase flow is reduced to one liquid for the pressure budget. */
   approximation: Method
   nodes: { id: string; pressure: Quantity }[]
-  channels: { id: string; element: string; from: string; to: string; flow: Quantity; resistance: Quantity; pressureDrop: Quantity }[]
-  /** The pressure each inlet needs and the flow it supplies (gauge, Pa and m³/s). */
-  inlets: { port: string; node: string; mode: 'pressure' | 'flow'; pressure: Quantity; flow: Quantity }[]
+  channels: DocumentChannel[]
+  /** The pressure each inlet needs and the flow it supplies (gauge, Pa and m³/s), whatever its mode. */
+  inlets: { port: string; node: string; mode: 'pressure' | 'flow'; phase: 'continuous' | 'dispersed'; pressure: Quantity; flow: Quantity }[]
   outlets: { port: string; node: string; flow: Quantity }[]
   uniformity: DocumentUniformity[]
   margins?: { bondPressure?: Margin; pumpPressure?: Margin }
   solver: { name: string; iterations: number; residual: number }
+  /** The coupled drops–flows iteration: tolerance on the relative flow change, iterations, whether it converged. */
+  coupling: { method: string; tolerance: number; iterations: number; converged: boolean; change: number }
+  /** Per pressure-driven dispersed inlet: the range of its pressure, others held, over which its junctions make drops. */
+  operatingWindow: OperatingWindow[]
   warnings: DocumentWarning[]
+}
+
+export interface DocumentChannel {
+  id: string
+  element: string
+  from: string
+  to: string
+  /** Which liquid it carries: a feed line's phase, or the continuous phase with drops ("emulsion") after a junction. */
+  liquid: 'continuous' | 'dispersed' | 'emulsion'
+  viscosity: Quantity
+  flow: Quantity
+  /** Effective resistance Δp/Q, the drops' share included. */
+  resistance: Quantity
+  /** Viscous pressure drop, the drops' share included (an entry barrier is reported on its own). */
+  pressureDrop: Quantity
+  /** The part of pressureDrop the drops add, and its fraction of the whole. */
+  dropletPressureDrop: Quantity
+  dropletShare: number
+  /** A dispersed arm's capillary entry barrier when it holds one. */
+  entryBarrier?: Quantity
+}
+
+export interface OperatingWindow {
+  port: string
+  /** The dispersed pressure at which drops start (the entry barrier) and where they stop (jetting or backflow). */
+  from: Quantity
+  to: Quantity
+  limitedBy: 'jetting' | 'continuous-backflow' | 'pressure-limit'
+  /** The set point, for comparison. */
+  current: Quantity
+  junctions: string[]
 }
 
 export interface DocumentForecast {
@@ -99,4 +136,6 @@ export interface DocumentForecastOptions {
   limits?: { bondPressure?: number; pumpPressure?: number }
   /** Exact series (default) or Bruus's approximation. */
   resistanceMethod?: 'series' | 'approximate'
+  /** Cap on the coupled drops–flows iterations (default COUPLING_MAX_ITERATIONS); for tests of the fallback. */
+  maxCouplingIterations?: number
 }

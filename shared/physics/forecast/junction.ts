@@ -2,7 +2,7 @@
 import * as D from '../junction/dimensionless'
 import { ENTRY_BARRIER, entryBarrier, LAPLACE_PLUG, laplacePlug } from '../junction/laplace'
 import { DISPERSED_FRACTION, dispersedFraction, GENERATION_RATE, generationRate, PLUG_VOLUME, SPHERE_EQUIVALENT, sphereEquivalentDiameter, TRAIN_SPACING, trainSpacing } from '../junction/plugVolume'
-import { classifyRegime } from '../junction/regime'
+import { classifyRegime, type Regime } from '../junction/regime'
 import { STEP_WETTING } from '../junction/step'
 import { INPUT, quantity, type Warning } from '../quantity'
 import { UNIT, type CubicMetres, type CubicMetresPerSecond, type KilogramsPerCubicMetre, type Metres, type NewtonsPerMetre, type PascalSeconds, type Radians } from '../units'
@@ -13,6 +13,30 @@ import type { JunctionForecast, ResolvedJunction } from './types'
 const REYNOLDS_LIMIT = 10
 /** Gravity negligible against tension below this Bond number. */
 const BOND_LIMIT = 0.1
+
+/** The groups that pick the breakup regime (conventions in junction/dimensionless.ts), and the regime. */
+export function breakupGroups(j: ResolvedJunction): { dh: Metres; ca: number; re: number; we: number; regime: Regime } {
+  const w = j.mainWidth as Metres
+  const h = j.depth as Metres
+  const step = j.kind === 'step'
+  const gamma = j.interfacialTension.value as NewtonsPerMetre
+  const muC = j.continuous.viscosity.value as PascalSeconds
+  const muD = j.dispersed.viscosity.value as PascalSeconds
+  const rhoD = j.dispersed.density.value as KilogramsPerCubicMetre
+  const dh = D.hydraulicDiameter(w, h)
+  const uc = D.meanSpeed(j.flowContinuous, w, h)
+  const ud = D.meanSpeed(j.flowDispersed, (step ? w : j.inletWidth) as Metres, h)
+  const ca = step ? D.capillaryNumber(muD, ud, gamma) : D.capillaryNumber(muC, uc, gamma)
+  const re = step ? D.reynoldsNumber(rhoD, ud, dh, muD) : D.reynoldsNumber(j.continuous.density.value as KilogramsPerCubicMetre, uc, dh, muC)
+  const we = D.weberNumber(rhoD, ud, (step ? h : j.inletWidth) as Metres, gamma)
+  return { dh, ca, re, we, regime: classifyRegime(j.kind, ca, we, muD / muC) }
+}
+
+/** Drop volume (m³) and frequency (Hz) only, for the network's coupled iteration. */
+export function dropTrain(j: ResolvedJunction): { volume: number; frequency: number } {
+  const volume = estimateSize(j, breakupGroups(j).regime).volume
+  return { volume, frequency: j.flowDispersed / volume }
+}
 
 export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] = []): JunctionForecast {
   const w = j.mainWidth as Metres
@@ -29,15 +53,9 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
   const warnings: Warning[] = [...liquidWarnings]
   const propertiesValid = [j.continuous.viscosity, j.continuous.density, j.dispersed.viscosity, j.dispersed.density, j.interfacialTension].every((q) => q.valid)
 
-  const dh = D.hydraulicDiameter(w, h)
-  const uc = D.meanSpeed(qc, w, h)
-  const ud = D.meanSpeed(qd, step ? w : win, h)
-  const ca = step ? D.capillaryNumber(muD, ud, gamma) : D.capillaryNumber(muC, uc, gamma)
-  const re = step ? D.reynoldsNumber(rhoD, ud, dh, muD) : D.reynoldsNumber(rhoC, uc, dh, muC)
-  const we = D.weberNumber(rhoD, ud, step ? h : win, gamma)
+  const { dh, ca, re, we, regime } = breakupGroups(j)
   const bo = D.bondNumber(rhoD - rhoC, dh, gamma)
   const oh = D.ohnesorgeNumber(muD, rhoD, gamma, Math.min(w, h) as Metres)
-  const regime = classifyRegime(j.kind, ca, we)
 
   if (re > REYNOLDS_LIMIT) warnings.push({ code: 'inertia', message: `Re = ${re.toPrecision(3)} > ${REYNOLDS_LIMIT}: the creeping-flow size laws lose accuracy; lower the flow rates or use a smaller channel` })
   if (bo > BOND_LIMIT) warnings.push({ code: 'gravity', message: `Bo = ${bo.toPrecision(3)} > ${BOND_LIMIT}: gravity is not negligible against interfacial tension at this size` })

@@ -2,7 +2,7 @@
 import { networkRequest } from '../../schemas/forecast'
 import { ForecastInputError, NetworkError } from '../errors'
 import { circularResistance, HAGEN_POISEUILLE, RECT_APPROX, RECT_SERIES, rectangularResistance, rectangularResistanceApprox } from '../hydraulics/resistance'
-import { flowUniformity, pressureMargin, solveNetwork, type Margin, type NetworkSolution, type Uniformity } from '../network'
+import { flowUniformity, pressureMargin, pumpMargin, solveNetwork, suctionWarnings, type Margin, type NetworkSolution, type Uniformity } from '../network'
 import { quantity, type Method, type Quantity, type Warning } from '../quantity'
 import { UNIT, type Kelvin, type Metres, type PascalSeconds } from '../units'
 import { parseOrThrow } from './issues'
@@ -95,10 +95,11 @@ export function runNetworkForecast(input: unknown): NetworkForecast {
   if (network.limits) {
     answer.margins = {}
     if (network.limits.bondPressure !== undefined) answer.margins.bondPressure = pressureMargin(network.limits.bondPressure, inletPressures)
-    if (network.limits.pumpPressure !== undefined) answer.margins.pumpPressure = pressureMargin(network.limits.pumpPressure, inletPressures)
+    if (network.limits.pumpPressure !== undefined) answer.margins.pumpPressure = pumpMargin(network.limits.pumpPressure, inletPressures)
     for (const [name, margin] of Object.entries(answer.margins)) {
       if (!margin.ok) warnings.push({ code: 'pressure-limit', message: `An inlet needs ${margin.highest.toPrecision(3)} Pa, above the ${name} limit of ${margin.limit.toPrecision(3)} Pa; lower the flow or shorten narrow channels` })
     }
   }
+  warnings.push(...suctionWarnings(answer.inlets))
   return answer
 }

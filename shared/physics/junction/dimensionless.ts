@@ -8,7 +8,7 @@ export const CAPILLARY: Method = {
 }
 export const CAPILLARY_DISPERSED: Method = {
   id: 'capillary-number-dispersed-nozzle',
-  source: 'Ca = μd Ud / γ, Ud = Qd/(w h) mean dispersed-phase speed in the nozzle (step emulsification; Li et al. 2015, Lab Chip 15, 1023)',
+  source: 'Ca = μd Ud / γ, Ud = Qd/(w h) mean dispersed-phase speed in the nozzle (step emulsification; Li, Leshansky, Pismen & Tabeling 2015, Lab Chip 15, 1023)',
 }
 export const REYNOLDS: Method = { id: 'reynolds-hydraulic-diameter', source: 'Re = ρ U Dh / μ of the phase filling the channel (continuous in the main channel or orifice, dispersed in a step nozzle), Dh = 2wh/(w + h) (Bruus 2008, Theoretical Microfluidics, ch. 4)' }
 export const WEBER: Method = {

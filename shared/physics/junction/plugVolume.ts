@@ -1,12 +1,15 @@
 // Geometry of a confined plug (a drop longer than the channel is wide) and the derived train quantities.
 import type { Method } from '../quantity'
+import { mspRadius } from './laplace'
 import type { CubicMetres, CubicMetresPerSecond, Hertz, Metres } from '../units'
 
 export const PLUG_VOLUME: Method = {
   id: 'musterd-2015-plug-volume',
   source:
-    'V = [hw − (1 − π/4)h²](L − w) + (π/4)h(w − h)² + (π²/8)h²(w − h) + (π/6)h³, plug of length L in a w × h channel (h ≤ w) ' +
-    'with gutters of radius h/2 (Musterd, van Steijn, Kleijn & Kreutzer 2015, RSC Adv. 5, 16042; re-derived here by Pappus\'s theorem)',
+    'V = [hw − (4 − π) r²](L − w) + (π/4)h(w − h)² + (π²/8)h²(w − h) + (π/6)h³, plug of length L in a w × h channel (h ≤ w the smaller side), ' +
+    'caps as a pancake with a rim of radius h/2 (Musterd, van Steijn, Kleijn & Kreutzer 2015, RSC Adv. 5, 16042; re-derived here by Pappus\'s theorem), ' +
+    'body gutters of the Mayer–Stowe–Princen corner radius r (Wong, Radke & Morris 1995, J. Fluid Mech. 292, 71; r → h/2 for h ≪ w); ' +
+    'a drop shorter than the larger side is a disc of diameter L squeezed to h, shorter than h a sphere',
 }
 export const SPHERE_EQUIVALENT: Method = { id: 'sphere-equivalent-diameter', source: 'd = (6V/π)^(1/3), diameter of the sphere of equal volume' }
 export const GENERATION_RATE: Method = { id: 'generation-rate', source: 'f = Qd / V, continuity (Garstecki et al. 2006, Lab Chip 6, 437)' }
@@ -25,21 +28,40 @@ function capsVolume(w: number, h: number): number {
   return (Math.PI / 4) * h * (w - h) ** 2 + ((Math.PI ** 2) / 8) * h ** 2 * (w - h) + (Math.PI / 6) * h ** 3
 }
 
-/** Cross-section of the plug body: the channel section less four gutters, (1 − π/4)(h/2)² each. */
+/**
+ * Cross-section of the plug body: the channel section less four gutters, (1 − π/4) r² each, r the
+ * Mayer–Stowe–Princen corner radius (the body's interface has the caps' curvature). r = h/2 only for h ≪ w.
+ */
 function bodyArea(w: number, h: number): number {
-  return w * h - (1 - Math.PI / 4) * h ** 2
+  return w * h - (4 - Math.PI) * mspRadius(w as Metres, h as Metres, 0) ** 2
 }
 
-/** Plug volume from its length L ≥ w (Musterd et al. 2015). The smaller of width/depth plays h. */
+/**
+ * Drop volume from its length L (Musterd et al. 2015 for L ≥ w). The smaller of width/depth plays h, so a
+ * deep narrow channel (depth > width) is the same channel turned on its side. A drop shorter than the larger
+ * side cannot be a plug: it is a disc of diameter L squeezed to thickness h (the caps' shape with w → L), and
+ * below L = h a sphere — continuous at both joins, and never negative.
+ */
 export function plugVolume(length: Metres, width: Metres, depth: Metres): CubicMetres {
   const { w, h } = sides(width, depth)
-  return (bodyArea(w, h) * (length - w) + capsVolume(w, h)) as CubicMetres
+  if (length >= w) return (bodyArea(w, h) * (length - w) + capsVolume(w, h)) as CubicMetres
+  if (length >= h) return capsVolume(length, h) as CubicMetres
+  return ((Math.PI / 6) * length ** 3) as CubicMetres
 }
 
-/** Inverse of plugVolume: the length of a plug of volume V (linear in L). */
+/** Inverse of plugVolume: the length of a drop of volume V (linear for plugs, by bisection for discs). */
 export function plugLength(volume: CubicMetres, width: Metres, depth: Metres): Metres {
   const { w, h } = sides(width, depth)
-  return (w + (volume - capsVolume(w, h)) / bodyArea(w, h)) as Metres
+  if (volume >= capsVolume(w, h)) return (w + (volume - capsVolume(w, h)) / bodyArea(w, h)) as Metres
+  if (volume <= (Math.PI / 6) * h ** 3) return Math.cbrt((6 * volume) / Math.PI) as Metres
+  let lo = h
+  let hi = w
+  for (let i = 0; i < 80; i++) {
+    const mid = (lo + hi) / 2
+    if (capsVolume(mid, h) < volume) lo = mid
+    else hi = mid
+  }
+  return ((lo + hi) / 2) as Metres
 }
 
 /** Smallest volume that is still a plug (L = w): below it the drop is not confined lengthwise. */

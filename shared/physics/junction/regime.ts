@@ -31,7 +31,7 @@ export const STEP_CRITICAL: Method = {
   id: 'step-critical-capillary',
   source:
     'step emulsification holds below a critical nozzle capillary number of order 10⁻² that depends on viscosity ratio ' +
-    '(Li, Sauret, Li & Weitz 2015, Lab Chip 15, 1023); band 0.01–0.03 is an indicative value, from memory',
+    '(Li, Leshansky, Pismen & Tabeling 2015, Lab Chip 15, 1023); band 0.01–0.03 is an indicative value, from memory',
 }
 
 /** Squeezing/dripping band on Ca (T-junction, De Menech et al. 2008). */
@@ -41,19 +41,36 @@ export const JETTING_BAND: [number, number] = [0.7, 1.3]
 /** Step emulsification band on the nozzle capillary number (indicative). */
 export const STEP_BAND: [number, number] = [0.01, 0.03]
 
+/**
+ * Band edges are inclusive up to rounding: a Ca computed as 0.020000000000000004 from a nominal 0.02 is still in
+ * the band the docs say includes 0.02. Relative slack 1e-9, far below any physical resolution.
+ */
+export const BAND_EDGE_SLACK = 1e-9
+
 function regime(method: Method, valid: boolean, name: string, value: number, band: [number, number], below: RegimeName, above: RegimeName): Regime {
   const base = { unit: '' as const, method: method.id, source: method.source, valid, criterion: { name, value, band } }
-  if (value < band[0]) return { ...base, value: below }
-  if (value > band[1]) return { ...base, value: above }
+  if (value < band[0] * (1 - BAND_EDGE_SLACK)) return { ...base, value: below }
+  if (value > band[1] * (1 + BAND_EDGE_SLACK)) return { ...base, value: above }
   return { ...base, value: 'transition', between: [below, above] }
 }
+
+export const CHRISTOPHER_LOW_VISCOSITY: Method = {
+  id: 'christopher-2008-no-squeezing-low-viscosity-ratio',
+  source:
+    'when the dispersed phase is at least 50 times less viscous than the continuous phase, no purely squeezing regime appears and size ' +
+    'follows power laws in Ca (Christopher, Noharuddin, Taylor & Anna 2008, Phys. Rev. E 78, 036317)',
+}
+
+/** Viscosity ratio μd/μc below which a T-junction has no pure squeezing regime (Christopher et al. 2008). */
+export const NO_SQUEEZING_RATIO = 1 / 50
 
 /**
  * Regime of a junction. `ca` follows the kind's convention (continuous phase in the main channel or orifice;
  * dispersed phase in the nozzle for step), `we` is the dispersed-phase Weber number.
  * The T-junction thresholds are the published ones; for flow-focusing they are only indicative (valid: false).
+ * With `viscosityRatio` μd/μc < 1/50 a T-junction below the band is transition, not squeezing (Christopher et al. 2008).
  */
-export function classifyRegime(kind: JunctionKind, ca: number, we: number): Regime {
+export function classifyRegime(kind: JunctionKind, ca: number, we: number, viscosityRatio?: number): Regime {
   const jetting = ca + we
   if (kind === 'step') {
     if (jetting >= JETTING_BAND[0]) return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'step-emulsification', 'jetting')
@@ -61,5 +78,9 @@ export function classifyRegime(kind: JunctionKind, ca: number, we: number): Regi
   }
   const published = kind === 't-junction'
   if (jetting >= JETTING_BAND[0]) return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'dripping', 'jetting')
-  return regime(DE_MENECH_BAND, published, 'Ca', ca, SQUEEZING_BAND, 'squeezing', 'dripping')
+  const found = regime(DE_MENECH_BAND, published, 'Ca', ca, SQUEEZING_BAND, 'squeezing', 'dripping')
+  if (published && found.value === 'squeezing' && viscosityRatio !== undefined && viscosityRatio < NO_SQUEEZING_RATIO) {
+    return { ...found, value: 'transition', between: ['squeezing', 'dripping'], method: `${found.method}+${CHRISTOPHER_LOW_VISCOSITY.id}`, source: `${found.source}; ${CHRISTOPHER_LOW_VISCOSITY.source}` }
+  }
+  return found
 }

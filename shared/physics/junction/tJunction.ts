@@ -59,3 +59,25 @@ export function vanSteijnVolume(width: Metres, inletWidth: Metres, depth: Metres
   const scale = depth * width ** 2
   return (scale * (vanSteijnFillVolume(width, inletWidth, depth) + vanSteijnAlpha(width, inletWidth, depth) * flowRatio)) as CubicMetres
 }
+
+/**
+ * Beyond squeezing the viscous shear of the continuous phase cuts the drop before it fills the channel, so its
+ * length falls with Ca. Correlations of the form L/w = (squeezing term) · Ca^(−m) cover squeezing to dripping
+ * (Xu, Li, Tan & Luo 2008, Microfluid. Nanofluid. 5, 711, from squeezing to dripping in T-junctions); we anchor
+ * the power law to the squeezing size at the band's lower edge so the curve is continuous.
+ */
+export const XU_TRANSITION_DRIPPING: Method = {
+  id: 'xu-2008-transition-dripping',
+  source:
+    'L = L_squeezing (Ca/Ca₀)^(−m) for Ca ≥ Ca₀ = 0.01, m = 0.2 (power-law form of Xu, Li, Tan & Luo 2008, Microfluid. Nanofluid. 5, 711; ' +
+    'exponent from memory, anchoring at the squeezing band edge ours); lower confidence — indicative trend, calibrate with measured drops',
+}
+/** Where the power law takes over from the squeezing law (the De Menech band's lower edge). */
+export const DRIPPING_ANCHOR_CA = 0.01
+/** Exponent m of L ∝ Ca^(−m) (from memory). */
+export const DRIPPING_EXPONENT = 0.2
+
+/** Length of a drop beyond squeezing: the squeezing length at Ca₀ scaled by (Ca/Ca₀)^(−m). */
+export function drippingLength(squeezingLength: Metres, ca: number): Metres {
+  return (squeezingLength * (Math.max(ca, DRIPPING_ANCHOR_CA) / DRIPPING_ANCHOR_CA) ** -DRIPPING_EXPONENT) as Metres
+}

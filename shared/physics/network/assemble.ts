@@ -47,6 +47,12 @@ export function assemble(net: IndexedNetwork): ReducedSystem {
       value[fill[j]!++] = -g
     } else if (i >= 0) rhs[i]! += g * net.fixedPressure[b]!
     else if (j >= 0) rhs[j]! += g * net.fixedPressure[a]!
+    // A pressure offset Δ: outflow g (p_from − p_to − Δ), so g·Δ moves to the right-hand side at `from`, −g·Δ at `to`.
+    const d = net.offset[k]!
+    if (d !== 0) {
+      if (i >= 0) rhs[i]! += g * d
+      if (j >= 0) rhs[j]! -= g * d
+    }
   }
   for (let node = 0; node < net.nodeIds.length; node++) {
     const i = net.unknownIndex[node]!

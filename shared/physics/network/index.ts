@@ -1,3 +1,3 @@
 export * from './types'
 export { solveNetwork, solveNetworkDense } from './solve'
-export { flowUniformity, pressureMargin, type Margin, type Uniformity } from './metrics'
+export { flowUniformity, pressureMargin, pumpMargin, suctionWarnings, VACUUM_GAUGE, type Margin, type Uniformity } from './metrics'

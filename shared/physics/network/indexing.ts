@@ -8,6 +8,8 @@ export interface IndexedNetwork {
   from: Int32Array
   to: Int32Array
   conductance: Float64Array
+  /** Per channel: pressure offset (Pa), 0 for plain channels. */
+  offset: Float64Array
   /** Per node: fixed pressure or NaN when unknown; injected flow. */
   fixedPressure: Float64Array
   injected: Float64Array
@@ -59,17 +61,22 @@ export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
   const from = new Int32Array(m)
   const to = new Int32Array(m)
   const conductance = new Float64Array(m)
+  const offset = new Float64Array(m)
   problem.channels.forEach((channel, k) => {
     from[k] = index.get(channel.from)!
     to[k] = index.get(channel.to)!
     conductance[k] = 1 / channel.resistance
+    if (channel.offset !== undefined) {
+      if (!Number.isFinite(channel.offset)) throw new NetworkError('bad-resistance', `Channel "${channel.id}" has pressure offset ${channel.offset}; it must be finite`, { channelIndex: k })
+      offset[k] = channel.offset
+    }
   })
   const nodeIds = [...index.keys()]
   assertGrounded(nodeIds, from, to, fixedPressure)
   const unknownIndex = new Int32Array(n)
   let unknownCount = 0
   for (let i = 0; i < n; i++) unknownIndex[i] = Number.isNaN(fixedPressure[i]!) ? unknownCount++ : -1
-  return { nodeIds, from, to, conductance, fixedPressure, injected, unknownIndex, unknownCount }
+  return { nodeIds, from, to, conductance, offset, fixedPressure, injected, unknownIndex, unknownCount }
 }
 
 /** Every node must reach a fixed-pressure node through channels, or its pressure is undetermined. */

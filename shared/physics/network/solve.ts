@@ -55,7 +55,7 @@ function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, s
   const flow = new Float64Array(net.from.length)
   const outflow = new Float64Array(n)
   for (let k = 0; k < flow.length; k++) {
-    const q = (pressure[net.from[k]!]! - pressure[net.to[k]!]!) * net.conductance[k]!
+    const q = (pressure[net.from[k]!]! - pressure[net.to[k]!]! - net.offset[k]!) * net.conductance[k]!
     flow[k] = q
     outflow[net.from[k]!]! += q
     outflow[net.to[k]!]! -= q

@@ -6,6 +6,11 @@ export interface NetworkChannel {
   to: string
   /** Pa·s/m³, finite and > 0. */
   resistance: number
+  /**
+   * Pa, optional: a pressure the flow must overcome before it moves (a capillary entry barrier), so the
+   * channel's flow is (p_from − p_to − offset)/R. Enters Kirchhoff's law as a pair of injected flows ±offset/R.
+   */
+  offset?: number
 }
 
 export type NetworkSource = { node: string; pressure: number } | { node: string; flow: number }

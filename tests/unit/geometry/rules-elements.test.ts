@@ -3,7 +3,7 @@ import { parseChipDocument } from '#shared/schemas/chip'
 import { exportDxf } from '~~/geometry/dxf'
 import { BUILT_IN_PROCESSES, checkDesignRules } from '~~/geometry/rules'
 import { loadDocumentFixture } from '../schemas/load-fixture'
-import { channelsDoc, parsed } from './helpers'
+import { channelsDoc, moved, parsed } from './helpers'
 
 // Values from geometry/rules/processes.ts (common practice, no source) and the citations beside each rule.
 const film = BUILT_IN_PROCESSES.find((p) => p.id === 'film-mask-soft-litho')!
@@ -72,5 +72,51 @@ describe('process rules', () => {
     const r = rules(checkDesignRules(doc, film))
     expect(r).toContain('step-no-step sn')
     expect(r).toContain('step-nozzle-aspect sn')
+  })
+})
+
+// Slips seen on screen that the rules used to pass silently.
+describe('geometry slips', () => {
+  const base = loadDocumentFixture('t-junction-basic.json')
+  it('a 100 µm channel onto the 50 µm dispersed arm of a T-junction warns of a width step there', () => {
+    const doc = structuredClone(base)
+    doc.channels[1].width = 100
+    const f = checkDesignRules(parsed(doc), film).filter((x) => x.rule === 'terminal-width-step')
+    expect(f.map((x) => [x.elements, x.severity])).toEqual([[['water-feed', 'tj-1'], 'warning']])
+    expect(f[0]!.message).toContain('100 µm wide where it joins terminal "dispersed" of "tj-1", which is 50 µm wide')
+    const end = doc.channels[1].points.at(-1)
+    expect(f[0]!.location).toEqual({ x: end.x, y: end.y })
+  })
+  it('matching widths, ports of any size and a 1 % round-off give no width step', () => {
+    const doc = structuredClone(base)
+    doc.channels[1].width = 50.5
+    expect(rules(checkDesignRules(parsed(doc), film)).filter((r) => r.startsWith('terminal-width-step'))).toEqual([])
+  })
+  const crossingPair = () => channelsDoc([
+    { id: 'a', layerId: 'L', width: 50, points: [{ x: 1000, y: 2000 }, { x: 6000, y: 2000 }, { x: 6000, y: 8000 }] },
+    { id: 'b', layerId: 'L', width: 50, points: [{ x: 8000, y: 5000 }, { x: 3000, y: 5000 }] },
+  ])
+  it('two channels crossing after a turn on one layer are an error located at the crossing', () => {
+    const f = checkDesignRules(crossingPair(), film).filter((x) => x.rule === 'channel-crossing')
+    expect(f.map((x) => [x.elements, x.severity])).toEqual([[['a', 'b'], 'error']])
+    expect(f[0]!.location.x).toBeCloseTo(6000, 6)
+    expect(f[0]!.location.y).toBeCloseTo(5000, 6)
+  })
+  it('the crossing is found on the moved and rotated chip too, at the moved point', () => {
+    const f = checkDesignRules(moved(crossingPair(), 37, { x: 400, y: -300 }), film).filter((x) => x.rule === 'channel-crossing')
+    const expected = moved(channelsDoc([{ id: 'p', layerId: 'L', width: 50, points: [{ x: 6000, y: 5000 }, { x: 6100, y: 5000 }] }]), 37, { x: 400, y: -300 }).channels[0]!.points[0]!
+    expect(f).toHaveLength(1)
+    expect(f[0]!.location.x).toBeCloseTo(expected.x, 6)
+    expect(f[0]!.location.y).toBeCloseTo(expected.y, 6)
+  })
+  it('channels that only meet end to end, or cross on different layers, are not crossings', () => {
+    const touching = channelsDoc([
+      { id: 'a', layerId: 'L', width: 50, points: [{ x: 1000, y: 2000 }, { x: 6000, y: 2000 }] },
+      { id: 'b', layerId: 'L', width: 50, points: [{ x: 6000, y: 2000 }, { x: 6000, y: 7000 }] },
+    ])
+    expect(rules(checkDesignRules(touching, film)).filter((r) => r.startsWith('channel-crossing'))).toEqual([])
+    const twoLayers = parsed({ ...crossingPair(), layers: [{ id: 'L', name: 'L', depth: 50 }, { id: 'M', name: 'M', depth: 50 }],
+      channels: crossingPair().channels.map((c) => (c.id === 'b' ? { ...c, layerId: 'M' } : c)) })
+    expect(rules(checkDesignRules(twoLayers, film)).filter((r) => r.startsWith('channel-crossing'))).toEqual([])
   })
 })

@@ -57,13 +57,15 @@ describe('document forecast: the T-junction fixture', () => {
     expect(relative(f.capillaryNumber.value, ca)).toBeLessThan(1e-9)
   })
 
-  it('needs the inlet pressure of the series path, by Bruus\'s exact rectangular resistance', () => {
+  it('needs the inlet pressure of the series path, by Bruus\'s exact rectangular resistance plus the drops\' share', () => {
     const mu = answer.network.liquid.viscosity.value as PascalSeconds
     const r = (length: number, width: number) => rectangularResistance(mu, (length * 1e-6) as Metres, (width * 1e-6) as Metres, 50e-6 as Metres)
     const qc = 10 * UL_PER_MIN
     const qd = 5 * UL_PER_MIN
+    const drops = answer.network.channels.filter((c) => c.liquid === 'emulsion').reduce((sum, c) => sum + Math.abs(c.dropletPressureDrop.value), 0)
+    expect(drops).toBeGreaterThan(0)
     // oil-feed 3300 µm; arms 200 µm; drops-out 3300 µm; outlet at 0 Pa.
-    const expected = qc * (r(3300, 100) + r(200, 100)) + (qc + qd) * (r(200, 100) + r(3300, 100))
+    const expected = qc * (r(3300, 100) + r(200, 100)) + (qc + qd) * (r(200, 100) + r(3300, 100)) + drops
     const oil = answer.network.inlets.find((i) => i.port === 'oil-in')!
     expect(relative(oil.pressure.value, expected)).toBeLessThan(1e-9)
     expect(oil.flow.value).toBeCloseTo(qc, 20)
@@ -86,7 +88,8 @@ describe('document forecast: the T-junction fixture', () => {
       valid: false, // dripping at this Ca: the squeezing law is an upper bound
     }])
     const oil = answer.network.inlets.find((i) => i.port === 'oil-in')!
-    expect(summary.inlets).toContainEqual({ port: 'oil-in', mode: 'flow', pressureMbar: Number((oil.pressure.value / 100).toPrecision(4)) })
+    // 1 m³/s = 6e10 µL/min: the oil inlet's set 10 µL/min comes back as its solved flow.
+    expect(summary.inlets).toContainEqual({ port: 'oil-in', mode: 'flow', pressureMbar: Number((oil.pressure.value / 100).toPrecision(4)), flowUlPerMin: 10 })
   })
 })
 
@@ -160,8 +163,10 @@ describe('document forecast: every junction kind', () => {
     expect(channel('w-a').from).toBe('serp-1:outlet')
     expect(channel('w-b').from).toBe(channel('w-a').to)
     expect(relative(channel('o-a').flow.value + channel('o-b').flow.value, 20 * UL_PER_MIN)).toBeLessThan(1e-12)
-    // The serpentine is one channel of its total length: 12 000 µm × 60 µm × 50 µm (Bruus 2008, exact series).
-    const mu = answer.network.liquid.viscosity.value as PascalSeconds
+    // The serpentine is one channel of its total length: 12 000 µm × 60 µm × 50 µm (Bruus 2008, exact series),
+    // carrying the water feed, so with the dispersed phase's viscosity.
+    expect(channel('serp-1/run').liquid).toBe('dispersed')
+    const mu = channel('serp-1/run').viscosity.value as PascalSeconds
     expect(relative(channel('serp-1/run').resistance.value, rectangularResistance(mu, 12e-3 as Metres, 60e-6 as Metres, 50e-6 as Metres))).toBeLessThan(1e-12)
   })
 

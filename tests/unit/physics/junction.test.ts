@@ -24,14 +24,29 @@ describe('coalescence of two equal drops', () => {
 })
 
 describe('Young–Laplace', () => {
-  it('a 100 × 50 µm plug at 5 mN/m has 2γ(1/w + 1/h) = 300 Pa; a sphere of that diameter 4γ/d', () => {
-    expect(laplacePlug(N(0.005), m(100e-6), m(50e-6))).toBeCloseTo(300, 9)
+  it('a 100 × 50 µm plug at 5 mN/m: Mayer–Stowe–Princen 284.94 Pa (by hand from (4 − π) r² − 2(w + h) r + wh = 0), below the gutter-free 2γ(1/w + 1/h) = 300 Pa', () => {
+    // r = [300e-6 − √(9e-8 − 4 (4 − π) 5e-9)] / (2 (4 − π)) = 17.548 µm; γ/r = 284.94 Pa.
+    const r = (300e-6 - Math.sqrt(9e-8 - 4 * (4 - Math.PI) * 5e-9)) / (2 * (4 - Math.PI))
+    expect(laplacePlug(N(0.005), m(100e-6), m(50e-6))).toBeCloseTo(0.005 / r, 9)
+    expect(laplacePlug(N(0.005), m(100e-6), m(50e-6))).toBeCloseTo(284.94, 2)
+    expect(laplacePlug(N(0.005), m(100e-6), m(50e-6))).toBeLessThan(300)
     expect(laplaceSphere(N(0.005), m(50e-6))).toBeCloseTo(200, 9)
   })
-  it('entry barrier is positive for a non-wetting dispersed phase, zero at 90°, negative when it wets', () => {
+  it('square duct: Δp a/γ = 2[cos θ + √(π/4 − θ + sin θ cos θ)], the published closed form (Legait 1983; Ma, Mason & Morrow 1996, Colloids Surf. A 117, 273); 2 + √π at θ = 0', () => {
+    const a = 50e-6
+    expect((laplacePlug(N(0.005), m(a), m(a)) * a) / 0.005).toBeCloseTo(2 + Math.sqrt(Math.PI), 10)
+    for (const wettingDeg of [0, 10, 20, 30, 40]) {
+      const t = (wettingDeg * Math.PI) / 180
+      const published = 2 * (Math.cos(t) + Math.sqrt(Math.PI / 4 - t + Math.sin(t) * Math.cos(t)))
+      expect((entryBarrier(N(0.005), (Math.PI - t) as Radians, m(a), m(a)) * a) / 0.005).toBeCloseTo(published, 9)
+    }
+  })
+  it('entry barrier is positive for a non-wetting dispersed phase, continuous at 135°, zero at 90°, negative when it wets', () => {
     const barrier = (deg: number) => entryBarrier(N(0.005), ((deg * Math.PI) / 180) as Radians, m(50e-6), m(50e-6))
-    // −2γ cos150° (2/50 µm) = 2·0.005·(√3/2)·(2/50e-6) by hand
-    expect(barrier(150)).toBeCloseTo((0.005 * Math.sqrt(3) * 2) / 50e-6, 6)
+    // Below 135° the corners hold no continuous phase: −2γ cos θ (2/a); at 120°: 2·0.005·0.5·(2/50e-6) by hand.
+    expect(barrier(120)).toBeCloseTo((0.005 * 2) / 50e-6, 6)
+    expect(Math.abs(barrier(135.0001) - barrier(134.9999))).toBeLessThan(1e-2)
+    expect(barrier(150)).toBeGreaterThan(barrier(135))
     expect(Math.abs(barrier(90))).toBeLessThan(1e-9)
     expect(barrier(60)).toBeLessThan(0)
   })
@@ -41,8 +56,25 @@ describe('confined plug volume (Musterd et al. 2015)', () => {
   it('reduces to a sphere of diameter h for L = w = h', () => {
     expect(plugVolume(m(1), m(1), m(1)) / ((Math.PI / 6) * 1)).toBeCloseTo(1, 12)
   })
-  it('body of a square channel has the circular section πh²/4 (gutters of radius h/2)', () => {
-    expect((plugVolume(m(3), m(1), m(1)) - plugVolume(m(1), m(1), m(1))) / 2).toBeCloseTo(Math.PI / 4, 12)
+  it('body of a square channel keeps gutters of the Mayer–Stowe–Princen radius a/(2 + √π), not a/2 (Wong, Radke & Morris 1995)', () => {
+    const r = 1 / (2 + Math.sqrt(Math.PI))
+    expect((plugVolume(m(3), m(1), m(1)) - plugVolume(m(1), m(1), m(1))) / 2).toBeCloseTo(1 - (4 - Math.PI) * r ** 2, 12)
+  })
+  it('flat channels (h ≪ w) keep Musterd\'s gutters of radius h/2: body area within 0.2 % of hw − (1 − π/4)h² at h/w = 0.05', () => {
+    const w = 1, h = 0.05
+    const body = (plugVolume(m(3), m(w), m(h)) - plugVolume(m(2), m(w), m(h)))
+    expect(Math.abs(body / (w * h - (1 - Math.PI / 4) * h ** 2) - 1)).toBeLessThan(2e-3)
+  })
+  it('a deep narrow channel (depth 200 µm > width 50 µm) never gives a negative volume: short drops are discs, then spheres, continuous at the joins', () => {
+    const w = m(50e-6), h = m(200e-6)
+    for (const length of [10e-6, 49e-6, 50e-6, 51e-6, 60e-6, 120e-6, 199e-6, 200e-6, 201e-6, 400e-6]) {
+      const v = plugVolume(m(length), w, h)
+      expect(v).toBeGreaterThan(0)
+      expect(plugLength(v, w, h) / length).toBeCloseTo(1, 9)
+    }
+    for (const join of [50e-6, 200e-6]) {
+      expect(plugVolume(m(join * (1 - 1e-9)), w, h) / plugVolume(m(join * (1 + 1e-9)), w, h)).toBeCloseTo(1, 6)
+    }
   })
   it('is below the full rectangular volume h·w·L and inverts exactly', () => {
     const v = plugVolume(m(300e-6), m(100e-6), m(40e-6))

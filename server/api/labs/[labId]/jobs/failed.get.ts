@@ -1,0 +1,10 @@
+import { labParams } from '#shared/schemas/labs'
+import { labFailedJobs } from '../../../../services/jobsAdmin'
+import { requireLabPermission } from '../../../../utils/access'
+import { validParams } from '../../../../utils/validate'
+
+export default defineEventHandler(async (event) => {
+  const { labId } = validParams(event, labParams)
+  const caller = requireLabPermission(event, labId, 'members:manage')
+  return labFailedJobs(caller)
+})
