@@ -45,6 +45,19 @@ export const useBenchStore = defineStore('bench', () => {
         uploading.value = null
         let json: any = null
         try { json = JSON.parse(xhr.responseText) } catch { /* not JSON */ }
+        if (xhr.status === 202) {
+          // Still measuring in the background: follow the row until it is done.
+          uploading.value = { fileName: file.name, phase: 'measuring', fraction: json.micrograph.progress }
+          for (;;) {
+            await new Promise(r => setTimeout(r, 1000))
+            const next = await $fetch<MicrographResult>(`/api/labs/${labId.value}/bench-runs/${runId}/micrographs/${json.micrograph.id}`).catch(() => null)
+            if (next && next.micrograph.status !== 'done' && next.micrograph.status !== 'failed') { uploading.value = { fileName: file.name, phase: 'measuring', fraction: next.micrograph.progress }; continue }
+            uploading.value = null
+            if (next?.micrograph.status === 'done') { micrograph.value = next; await refresh(); resolve(next) }
+            else { problem.value = { status: 422, message: `The micrograph could not be measured: ${next?.micrograph.error ?? 'try again'}`, fields: {} }; resolve(undefined) }
+            return
+          }
+        }
         if (xhr.status === 201) {
           micrograph.value = json as MicrographResult
           await refresh()

@@ -10,6 +10,8 @@ export default defineEventHandler(async (event) => {
   const caller = requireBenchCaller(event, labId, 'measurements:record')
   const form = await readMicrographForm(event)
   const { umPerPx } = parseOr400(micrographScale, form.fields, 'Scale')
-  setResponseStatus(event, 201)
-  return uploadMicrograph(caller, runId, form.file, umPerPx)
+  const result = await uploadMicrograph(caller, runId, form.file, umPerPx)
+  // 201 with the drops when measured in time; 202 while the background job still measures (follow the micrograph).
+  setResponseStatus(event, result.pending ? 202 : 201)
+  return result
 })
