@@ -22,7 +22,7 @@ try {
   const size = 4600
   const { separated } = scatterDrops({ width: size, height: size, count: 2000, meanDiameter: 40, cv: 0.05, seed: 3 })
   const image = renderMicrograph({ width: size, height: size, drops: separated, seed: 3 })
-  const tiff = await sharp(Buffer.from(image.data), { raw: { width: size, height: size, channels: 1 } }).tiff({ compression: 'none' }).toBuffer()
+  const tiff = await sharp(Buffer.from(image.data), { raw: { width: size, height: size, channels: 1 } }).toColourspace('b-w').tiff({ compression: 'none' }).toBuffer()
   console.log(`[upload] micrograph: ${size} × ${size} px TIFF, ${(tiff.length / 1e6).toFixed(1)} MB, ${separated.length} drops`)
 
   const list = () => autocannon({ url: `${base}/api/labs/${labId}/designs`, connections: 10, duration: DURATION_S, headers: { cookie } })
