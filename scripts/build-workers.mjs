@@ -7,7 +7,7 @@ const root = fileURLToPath(new URL('..', import.meta.url))
 
 export async function buildWorkers(serverDir) {
   await build({
-    entryPoints: { geometry: join(root, 'server/workers/geometry.ts') },
+    entryPoints: { geometry: join(root, 'server/workers/geometry.ts'), imaging: join(root, 'server/workers/imaging.ts') },
     outdir: join(serverDir, 'workers'),
     outExtension: { '.js': '.mjs' },
     bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning',

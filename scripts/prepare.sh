@@ -13,6 +13,8 @@ prepare() {
     export DATABASE_URL=${TEST_DATABASE_URL:-$DATABASE_URL}
     flag=--test
   fi
+  # Object storage before the seed: the demo's micrograph is stored there.
+  if [ "$1" = test ]; then start_s3 always; else start_s3; fi
   npx tsx scripts/migrate.ts $flag
   npx tsx scripts/seed.ts $flag
 }
@@ -22,6 +24,15 @@ start_smtp() {
   if [ "${1:-}" = always ] || [ -z "${SMTP_URL:-}" ]; then
     SMTP_URL= bash scripts/smtp.sh start
     set -a; . .data/smtp.env; set +a
+  fi
+}
+
+# The local fake S3 (object storage for uploads), unless DW_S3_ENDPOINT points at a real one (`start_s3 always`
+# ignores it).
+start_s3() {
+  if [ "${1:-}" = always ] || [ -z "${DW_S3_ENDPOINT:-}" ]; then
+    DW_S3_ENDPOINT= bash scripts/s3.sh start
+    set -a; . .data/s3.env; set +a
   fi
 }
 

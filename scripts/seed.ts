@@ -1,6 +1,7 @@
 // Idempotent demo seed: running it twice leaves the same rows. `tsx scripts/seed.ts [--test]`
 import { sql } from 'drizzle-orm'
 import { DEMO_ACCOUNTS, DEMO_LABS, DEMO_PASSWORD } from '../server/db/demo'
+import { seedDemoBench } from '../server/db/demoBench'
 import { seedDemoDesigns } from '../server/db/seedDesigns'
 import { labs, memberships, users } from '../server/db/schema'
 import { closeDb, useDb } from '../server/utils/db'
@@ -33,6 +34,9 @@ for (const account of DEMO_ACCOUNTS) {
 
 const person = (role: string) => userIds.get(`${role}@quillmere.example`)!
 await seedDemoDesigns(db, labIds.get('quillmere')!, { admin: person('admin'), designer: person('designer'), reviewer: person('reviewer'), experimenter: person('experimenter') })
+
+// Bench runs need the object storage (scripts/s3.sh); without it the demo has no bench results.
+if (process.env.DW_S3_ENDPOINT || process.env.DW_S3_BUCKET) await seedDemoBench(db, labIds.get('quillmere')!, { designer: person('designer'), experimenter: person('experimenter') })
 
 await closeDb()
 console.error(`[seed] demo data ready: ${DEMO_LABS.length} labs, ${DEMO_ACCOUNTS.length} accounts, 3 designs`)

@@ -1,7 +1,7 @@
 // Dropwright's tables. Migrations are generated from this file by drizzle-kit (`npm run db:generate`)
 // and committed with their snapshots in server/db/migrations; never hand-written.
 import { sql } from 'drizzle-orm'
-import { bigint, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, varchar, type AnyPgColumn } from 'drizzle-orm/pg-core'
+import { bigint, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, varchar, type AnyPgColumn } from 'drizzle-orm/pg-core'
 import { ROLES } from '../../shared/utils/roles'
 
 export const roleEnum = pgEnum('role', ROLES)
@@ -243,3 +243,68 @@ export const apiTokens = pgTable('api_tokens', {
   revokedAt: timestamp('revoked_at', { withTimezone: true }),
 }, t => [uniqueIndex('api_tokens_hash_idx').on(t.tokenHash), index('api_tokens_user_idx').on(t.userId)])
 export type ApiToken = typeof apiTokens.$inferSelect
+// ── Bench results and calibration (bench helper, issue 13) ────────────────────────────────────────────────────────
+
+/** A chip run at the bench: one operating point of a revision (or conditions typed at the bench) and what was measured. */
+export const benchRuns = pgTable('bench_runs', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  designId: uuid('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  revisionId: uuid('revision_id').notNull().references(() => revisions.id, { onDelete: 'cascade' }),
+  /** The revision's operating point the run followed; the actual settings are in `conditions`. */
+  operatingPointId: varchar('operating_point_id', { length: 64 }),
+  junctionId: varchar('junction_id', { length: 64 }),
+  conditions: jsonb('conditions').$type<Record<string, unknown>>().notNull().default({}),
+  /** What the chip was made to, when known (as-built widths and depth, µm). */
+  asBuilt: jsonb('as_built').$type<Record<string, unknown> | null>(),
+  quantity: varchar('quantity', { length: 16 }).notNull().default('diameter'),
+  source: varchar('source', { length: 16 }).notNull(),
+  /** Measured sizes, µm; the summary columns are computed from them. */
+  valuesUm: jsonb('values_um').$type<number[]>().notNull().default([]),
+  count: integer('count').notNull().default(0),
+  meanUm: doublePrecision('mean_um'),
+  sdUm: doublePrecision('sd_um'),
+  cv: doublePrecision('cv'),
+  frequencyHz: doublePrecision('frequency_hz'),
+  /** The forecast at the run's conditions, kept with the run (sphere-equivalent diameter, regime, flow ratio…). */
+  predicted: jsonb('predicted').$type<Record<string, unknown> | null>(),
+  notes: text('notes').notNull().default(''),
+  ranBy: uuid('ran_by').notNull().references(() => users.id),
+  ranAt: timestamp('ran_at', { withTimezone: true }).notNull(),
+  createdAt: createdAt(),
+}, t => [index('bench_runs_revision_idx').on(t.revisionId), index('bench_runs_lab_idx').on(t.labId, t.ranAt)])
+
+/** A micrograph of a run: the bytes live in object storage under `objectKey`; the row keeps metadata and the result. */
+export const benchMicrographs = pgTable('bench_micrographs', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  runId: uuid('run_id').notNull().references(() => benchRuns.id, { onDelete: 'cascade' }),
+  objectKey: varchar('object_key', { length: 300 }).notNull(),
+  thumbnailKey: varchar('thumbnail_key', { length: 300 }),
+  contentType: varchar('content_type', { length: 40 }).notNull(),
+  bytes: integer('bytes').notNull(),
+  fileName: varchar('file_name', { length: 200 }).notNull().default(''),
+  width: integer('width').notNull(),
+  height: integer('height').notNull(),
+  umPerPx: doublePrecision('um_per_px').notNull(),
+  /** queued → measuring → done | failed; progress 0–1 while measuring. */
+  status: varchar('status', { length: 16 }).notNull().default('queued'),
+  progress: doublePrecision('progress').notNull().default(0),
+  error: text('error'),
+  measurement: jsonb('measurement').$type<Record<string, unknown> | null>(),
+  excluded: jsonb('excluded').$type<number[]>().notNull().default([]),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+}, t => [index('bench_micrographs_run_idx').on(t.runId)])
+
+/** Which forecast a design shows: the model's, or the model corrected by the lab's calibration. */
+export const designForecastModes = pgTable('design_forecast_modes', {
+  designId: uuid('design_id').primaryKey().references(() => designs.id, { onDelete: 'cascade' }),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  mode: varchar('mode', { length: 16 }).notNull().default('model'),
+  changedBy: uuid('changed_by').notNull().references(() => users.id),
+  changedAt: timestamp('changed_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
+export type BenchRun = typeof benchRuns.$inferSelect
+export type BenchMicrograph = typeof benchMicrographs.$inferSelect

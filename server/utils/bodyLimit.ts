@@ -14,6 +14,8 @@ export const MAX_SMALL_BYTES = 64 * KiB
 
 /** The only body type the API takes today. A route that documents another lists it in ROUTE_BODIES. */
 export const JSON_TYPE = 'application/json'
+/** Micrograph uploads (multipart/form-data with one PNG, JPEG or TIFF): 25 MiB, a 20 MB camera image and its form. */
+export const MAX_UPLOAD_BYTES = 25 * MiB
 
 interface BodyRule { method: string, pattern: RegExp, limit: number, types?: string[] }
 
@@ -24,6 +26,9 @@ export const ROUTE_BODIES: BodyRule[] = [
   { method: 'POST', pattern: /^\/api\/v1\/forecast$/, limit: MAX_DOCUMENT_BYTES },
   // The planner takes a forecast request (a chip document) plus its target.
   { method: 'POST', pattern: /^\/api\/v1\/plan$/, limit: MAX_DOCUMENT_BYTES },
+  // Bench results (issue 13): runs as JSON or a CSV of sizes (up to 4 MB of text); micrographs as a multipart upload.
+  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/bench-runs$/, limit: MAX_DOCUMENT_BYTES, types: [JSON_TYPE, 'text/csv'] },
+  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/bench-runs\/[^/]+\/micrographs$/, limit: MAX_UPLOAD_BYTES, types: ['multipart/form-data'] },
 ]
 
 export const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
@@ -49,7 +54,7 @@ export function assertBodyType(event: H3Event, types: string[] = bodyRule(event.
   const header = getRequestHeader(event, 'content-type')
   if (header === undefined && !hasBody(event)) return
   const [type = '', ...params] = (header ?? '').split(';').map(p => p.trim().toLowerCase())
-  const charsetOk = params.every(p => p === '' || /^charset="?utf-8"?$/.test(p))
+  const charsetOk = params.every(p => p === '' || /^charset="?utf-8"?$/.test(p) || (type === 'multipart/form-data' && /^boundary=/.test(p)))
   if (types.includes(type) && charsetOk) return
   const accepted = types.join(' or ')
   throw createError({

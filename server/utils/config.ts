@@ -115,6 +115,13 @@ export const envSchema = z.object({
   DW_GEOMETRY_NICE: whole(10, -20, 19),
   DW_SUMMARY_WORKER: flag(true),
   DW_REVISION_CACHE: whole(64, 1),
+  // Object storage (server/services/storage.ts) and the micrograph worker (bench, issue 13).
+  DW_S3_ENDPOINT: url(['http', 'https'], 'https://s3.eu-central-1.amazonaws.com'),
+  DW_S3_BUCKET: text('dropwright'),
+  DW_S3_REGION: text('us-east-1'),
+  DW_S3_ACCESS_KEY: text(),
+  DW_S3_SECRET_KEY: text(),
+  DW_IMAGING_WORKER: flag(true),
 })
 
 export type Env = z.infer<typeof envSchema>
@@ -140,6 +147,11 @@ function shape(env: Env) {
       budgetMs: env.DW_GEOMETRY_BUDGET_MS, threads: env.DW_GEOMETRY_THREADS, queue: env.DW_GEOMETRY_QUEUE, heapMb: env.DW_GEOMETRY_HEAP_MB,
       nice: env.DW_GEOMETRY_NICE, worker: env.DW_SUMMARY_WORKER, revisionCache: env.DW_REVISION_CACHE,
     },
+    storage: {
+      endpoint: env.DW_S3_ENDPOINT ?? null, bucket: env.DW_S3_BUCKET!, region: env.DW_S3_REGION!,
+      credentials: env.DW_S3_ACCESS_KEY && env.DW_S3_SECRET_KEY ? { accessKeyId: env.DW_S3_ACCESS_KEY, secretAccessKey: env.DW_S3_SECRET_KEY } : null,
+    },
+    imaging: { worker: env.DW_IMAGING_WORKER },
   }
 }
 

@@ -16,4 +16,5 @@ export interface FailedJob {
 /** What each kind of job does, in people's words (a job without a line here shows its name). */
 export const JOB_LABELS: Record<string, string> = {
   'mail.send': 'Send an e-mail',
+  'micrograph.measure': 'Measure the droplets of a micrograph',
 }

@@ -166,8 +166,9 @@ async function setUp(baseURL: string) {
   const thread = await ok<{ threadId: string }>(designer.post(`${labPath}/revisions/${main.revisionId}/threads`, { anchor: { x: 1, y: 1 }, body: 'fuzz' }), 'thread')
   await ok(admin.post(`${labPath}/invitations`, { email: `fuzz-${randomUUID().slice(0, 8)}@test.example`, role: 'designer' }), 'invite')
   const invitations = await ok<Array<{ id: string }>>(admin.get(`${labPath}/invitations`), 'invitations')
+  const run = await ok<{ id: string }>(designer.post(`${labPath}/revisions/${main.revisionId}/bench-runs`, { source: 'typed', values: [50, 51, 52] }), 'bench run')
   return {
-    lab, people, doc, main, renamed, toRelease, released, threadId: thread.threadId, invitationId: invitations[0]!.id,
+    lab, people, doc, main, renamed, toRelease, released, threadId: thread.threadId, invitationId: invitations[0]!.id, runId: run.id,
     clients: { admin, designer, fabricator, leaver, anonymous: new ApiClient(baseURL) },
   }
 }
@@ -178,6 +179,7 @@ function plan(route: ApiRoute, s: Setup) {
   const params = {
     labId: s.lab.id, designId: s.main.designId, revisionId: s.main.revisionId, threadId: s.threadId,
     invitationId: s.invitationId, userId: s.people[5]!.id, token: randomBytes(32).toString('base64url'), tokenId: randomUUID(),
+    runId: s.runId, micrographId: randomUUID(),
   }
   const channel = (id: string, from: string, to: string) => ({ id, from, to, width: '100 um', depth: '50 um', length: '10 mm' })
   const plans: Record<string, { client: ApiClient, params?: Partial<typeof params>, templates: unknown[] }> = {
@@ -214,6 +216,16 @@ function plan(route: ApiRoute, s: Setup) {
     'PATCH /api/labs/[labId]/revisions/[revisionId]/threads/[threadId]': { client: admin, templates: [{ resolved: true }, { resolved: false }] },
     'POST /api/labs/[labId]/revisions/[revisionId]/threads/[threadId]/comments': { client: admin, templates: [{ body: 'A reply with **Markdown**' }] },
     'POST /api/labs/[labId]/revisions/[revisionId]/verdicts': { client: admin, templates: [{ verdict: 'approve', note: 'fine' }, { verdict: 'request-changes' }] },
+    'POST /api/labs/[labId]/revisions/[revisionId]/bench-runs': {
+      client: admin,
+      templates: [
+        { source: 'typed', values: [48.2, 49.9, 51.1], unit: 'um', operatingPointId: 'op-1', conditions: { continuousFlow: { value: 10, unit: 'uL/min' }, dispersedFlow: { value: 2, unit: 'uL/min' } }, notes: 'n' },
+        { source: 'csv', csv: { text: 'diameter\n50.1\n49.7\n', column: 'diameter', unit: 'um' } },
+      ],
+    },
+    'POST /api/labs/[labId]/bench-runs/[runId]/micrographs': { client: admin, templates: [{ umPerPx: 0.8 }] },
+    'PATCH /api/labs/[labId]/bench-runs/[runId]/micrographs/[micrographId]': { client: admin, templates: [{ excluded: [1, 2] }] },
+    'PUT /api/labs/[labId]/calibrations/forecast-mode': { client: admin, templates: [{ designId: s.main.designId, mode: 'lab-calibrated' }, { designId: s.main.designId, mode: 'model' }] },
     'POST /api/v1/forecast': {
       client: admin,
       templates: [

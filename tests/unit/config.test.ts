@@ -44,7 +44,7 @@ describe('configuration (server/utils/config.ts)', () => {
     const section = readme.slice(readme.indexOf('## Configuration'))
     const table = section.slice(0, section.indexOf('\n## ', 5))
     const firstCells = [...table.matchAll(/^\| ([^|]+)\|/gm)].map(m => m[1]!)
-    const documented = new Set(firstCells.flatMap(cell => [...cell.matchAll(/`([A-Z_]+)`/g)].map(m => m[1])))
+    const documented = new Set(firstCells.flatMap(cell => [...cell.matchAll(/`([A-Z0-9_]+)`/g)].map(m => m[1])))
     for (const name of Object.keys(envSchema.shape)) expect(documented, `${name} is missing from README.md's table`).toContain(name)
   })
 })

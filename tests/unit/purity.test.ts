@@ -14,7 +14,7 @@ function files(dir: string): string[] {
 }
 
 describe('the pure core stays pure', () => {
-  for (const dir of ['shared/physics', 'geometry', 'shared/schemas', 'shared/editor']) {
+  for (const dir of ['shared/physics', 'geometry', 'shared/schemas', 'shared/editor', 'shared/imaging']) {
     it(`${dir} imports no framework, database or Node module`, () => {
       const offenders = files(dir).filter(f => readFileSync(f, 'utf8').split('\n').some(line => FORBIDDEN.test(line)))
       expect(offenders).toEqual([])

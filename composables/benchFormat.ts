@@ -1,0 +1,22 @@
+// Display helpers for bench results: numbers with their units, and the labels of sources, regimes and kinds.
+export const BENCH_SOURCE_LABELS: Record<string, string> = { typed: 'Typed', csv: 'CSV import', micrograph: 'Micrograph' }
+export const BENCH_KIND_LABELS: Record<string, string> = { 't-junction': 'T-junction', 'flow-focusing': 'Flow-focusing', 'step-nozzle': 'Step nozzle', 'step-array': 'Step array', 'y-junction': 'Y-junction' }
+export const REGIME_COLOURS: Record<string, string> = { squeezing: '#1f6f8b', transition: '#c47f0e', dripping: '#2f8a57', jetting: '#b3372b', 'step-emulsification': '#3e4a56' }
+
+/** A number to `digits` significant figures, grouped for reading; a dash when missing. */
+export function sig(value: number | null | undefined, digits = 3): string {
+  return value == null || !Number.isFinite(value) ? '—' : Number(value.toPrecision(digits)).toLocaleString('en-GB')
+}
+
+export function percent(value: number | null | undefined, digits = 1): string {
+  return value == null || !Number.isFinite(value) ? '—' : `${(value * 100).toFixed(digits)} %`
+}
+
+/** Nice axis ticks from 0 to above `max`. */
+export function axisTicks(max: number, count = 5): number[] {
+  if (!(max > 0)) return [0, 1]
+  const raw = max / count
+  const magnitude = 10 ** Math.floor(Math.log10(raw))
+  const step = [1, 2, 2.5, 5, 10].map(f => f * magnitude).find(s => s >= raw) ?? raw
+  return Array.from({ length: Math.ceil(max / step) + 1 }, (_, i) => +(i * step).toPrecision(6))
+}
