@@ -8,15 +8,16 @@ import { documentRequest, junctionRequest, networkRequest } from '../../shared/s
 import { planDocumentRequest, planJunctionRequest } from '../../shared/schemas/plan'
 import { invitationCreate } from '../../shared/schemas/invitations'
 import { memberRoleUpdate } from '../../shared/schemas/labs'
+import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery, micrographUpdate } from '../../shared/schemas/bench'
 import { commentCreate, fabStatusBody, releaseBody, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '../../shared/schemas/review'
 import { PERMISSION_LABELS, type Permission } from '../../shared/utils/roles'
 
-type Method = 'get' | 'post' | 'patch' | 'delete'
+type Method = 'get' | 'post' | 'put' | 'patch' | 'delete'
 export interface Operation {
   method: Method
   path: string // OpenAPI style: /api/labs/{labId}/designs
   summary: string
-  tag: 'Forecast' | 'Labs' | 'Designs' | 'Review' | 'Members'
+  tag: 'Forecast' | 'Labs' | 'Designs' | 'Review' | 'Members' | 'Bench'
   permission?: Permission
   body?: z.ZodType
   query?: z.ZodObject
@@ -50,6 +51,15 @@ export const OPERATIONS: Operation[] = [
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/threads', tag: 'Review', permission: 'review:comment', body: threadCreate, status: 201, summary: 'Start a comment thread pinned to a point of the chip (µm)' },
   { method: 'patch', path: '/api/labs/{labId}/revisions/{revisionId}/threads/{threadId}', tag: 'Review', permission: 'review:comment', body: threadUpdate, summary: 'Resolve or reopen a thread' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/threads/{threadId}/comments', tag: 'Review', permission: 'review:comment', body: commentCreate, status: 201, summary: 'Reply in a thread' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/bench-runs', tag: 'Bench', permission: 'designs:view', summary: 'Bench runs of a revision, each measured against its forecast (docs/bench-results.md)' },
+  { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/bench-runs', tag: 'Bench', permission: 'measurements:record', body: benchRunCreate, status: 201, summary: 'Record a bench run: typed sizes as JSON, or a text/csv body of measured sizes' },
+  { method: 'get', path: '/api/labs/{labId}/bench-runs/{runId}', tag: 'Bench', permission: 'designs:view', summary: 'A bench run with its measurements and micrographs' },
+  { method: 'post', path: '/api/labs/{labId}/bench-runs/{runId}/micrographs', tag: 'Bench', permission: 'measurements:record', status: 201, summary: 'Upload a micrograph (multipart: PNG, JPEG or TIFF and its scale); answers the detected drops, or 202 while measuring' },
+  { method: 'get', path: '/api/labs/{labId}/bench-runs/{runId}/micrographs/{micrographId}', tag: 'Bench', permission: 'designs:view', summary: 'A micrograph\'s detected drops and measuring progress' },
+  { method: 'patch', path: '/api/labs/{labId}/bench-runs/{runId}/micrographs/{micrographId}', tag: 'Bench', permission: 'measurements:record', body: micrographUpdate, summary: 'Exclude false detections' },
+  { method: 'get', path: '/api/labs/{labId}/bench-runs/{runId}/micrographs/{micrographId}/file', tag: 'Bench', permission: 'designs:view', query: micrographFileQuery, summary: 'The micrograph image (original, view or thumbnail)' },
+  { method: 'get', path: '/api/labs/{labId}/calibrations', tag: 'Bench', permission: 'designs:view', query: calibrationQuery, summary: 'The lab\'s calibrations per junction kind, with standard error and interval' },
+  { method: 'put', path: '/api/labs/{labId}/calibrations/forecast-mode', tag: 'Bench', permission: 'designs:edit', body: forecastModeBody, summary: 'Switch a design between the model and the lab-calibrated forecast' },
   { method: 'get', path: '/api/labs/{labId}/members', tag: 'Members', permission: 'members:view', summary: 'The lab\'s members and their roles' },
   { method: 'patch', path: '/api/labs/{labId}/members/{userId}', tag: 'Members', permission: 'members:manage', body: memberRoleUpdate, summary: 'Change a member\'s role' },
   { method: 'delete', path: '/api/labs/{labId}/members/{userId}', tag: 'Members', permission: 'members:manage', summary: 'Remove a member from the lab' },

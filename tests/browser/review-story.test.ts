@@ -47,6 +47,8 @@ async function uploadRevision(page: Page, mainWidth: number, message: string) {
 
 async function pinComment(page: Page, fx: number, fy: number, text: string, shown: string) {
   await page.click('[data-test="pin-mode"]')
+  // Pin mode brings the drawing into view (it sits above the comments).
+  await expect.poll(async () => { const b = (await page.locator('canvas').first().boundingBox())!; return b.y >= 0 && b.y + b.height <= page.viewportSize()!.height }).toBe(true)
   const box = (await page.locator('canvas').first().boundingBox())!
   await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy)
   await page.fill('[data-test="pin-form"] textarea', text)
