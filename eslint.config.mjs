@@ -52,3 +52,11 @@ export default createConfigForNuxt({
       ],
     },
   })
+  .append({
+    name: 'dropwright/server-aliases',
+    files: ['server/**/*.ts'],
+    ignores: ['server/db/**'], // drizzle-kit loads schema.ts on its own, without the aliases
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ regex: '^(\\.\\./)+shared/', message: 'Import shared code as #shared/… (one alias instead of ../../ chains; the worker bundler resolves it too).' }] }],
+    },
+  })

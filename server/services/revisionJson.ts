@@ -6,7 +6,7 @@ import { revisions } from '../db/schema'
 import { useConfig } from '../utils/config'
 import { useDb, usePool } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { can } from '../../shared/utils/roles'
+import { can } from '#shared/utils/roles'
 import { notFound, seenRevisionId } from './designGuards'
 
 const MAX_ENTRIES = useConfig().geometry.revisionCache

@@ -4,7 +4,7 @@ import { and, eq, lt, ne } from 'drizzle-orm'
 import { sessions } from '../db/schema'
 import { useDb, usePool } from '../utils/db'
 import { useConfig } from '../utils/config'
-import type { SessionData } from '../../shared/types/session'
+import type { SessionData } from '#shared/types/session'
 import type { DbOrTx } from './mail'
 
 const TTL_MS = useConfig().session.ttlHours * 3600_000
