@@ -11,6 +11,8 @@ export async function buildWorkers(serverDir) {
     outdir: join(serverDir, 'workers'),
     outExtension: { '.js': '.mjs' },
     bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning',
+    // `#shared/...` (the server's imports of shared code) resolves through the tsconfig paths Nuxt writes.
+    tsconfig: join(root, 'tsconfig.json'),
     // some bundled CommonJS packages call require(); give the ES module one
     banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
   })

@@ -10,7 +10,11 @@ prepare test
 start_smtp always
 bash scripts/ensure-system.sh
 [ -n "${DW_SKIP_BUILD:-}" ] || build_app
-# A full run (no arguments) also type-checks the whole project, as CI does.
+# A full run (no arguments) also lints and type-checks the whole project, as CI does (DW_LINT=1 lints a partial run).
+if [ $# -eq 0 ] || [ -n "${DW_LINT:-}" ]; then
+  echo "[lint] eslint ." >&2
+  npx eslint . > .data/lint.log 2>&1 || { grep -E 'error' .data/lint.log >&2 || tail -20 .data/lint.log >&2; tail -3 .data/lint.log >&2; exit 1; }
+fi
 if [ $# -eq 0 ]; then
   echo "[typecheck] nuxt typecheck" >&2
   npx nuxt typecheck > .data/typecheck.log 2>&1 || { grep -E 'error TS' .data/typecheck.log >&2 || tail -20 .data/typecheck.log >&2; exit 1; }

@@ -2,7 +2,7 @@
 import { desc, eq } from 'drizzle-orm'
 import { activity, revisions, users } from '../db/schema'
 import type { Db, Tx } from '../utils/db'
-import type { ActivityEntry } from '../../shared/types/designs'
+import type { ActivityEntry } from '#shared/types/designs'
 
 export async function logActivity(db: Db | Tx, entry: { labId: string, designId: string, revisionId?: string | null, actorId: string, action: string, detail?: Record<string, unknown> }) {
   await db.insert(activity).values({ ...entry, detail: entry.detail ?? {} })

@@ -1,6 +1,6 @@
 // The lab's calibration from its bench runs (per junction kind) and a design's forecast switch.
 import { and, desc, eq } from 'drizzle-orm'
-import { calibratedDiameterUm, calibrationKey, fitLabCalibrations, type CalibrationRun } from '../../shared/physics/calibration/lab'
+import { calibratedDiameterUm, calibrationKey, fitLabCalibrations, type CalibrationRun } from '#shared/physics/calibration/lab'
 import { designForecastModes, revisions } from '../db/schema'
 import type { LabCaller } from '../utils/access'
 import { useDb } from '../utils/db'

@@ -1,10 +1,10 @@
 // The forecast a bench run is compared with: the revision's chip at the run's operating point, run in the geometry
 // workers, reduced to what the comparison and the calibration need.
-import type { DocumentForecast } from '../../shared/physics/forecast'
-import type { BenchConditions } from '../../shared/schemas/bench'
-import { garsteckiLength, GARSTECKI_SQUEEZING, vanSteijnVolume, VAN_STEIJN_SQUEEZING } from '../../shared/physics/junction/tJunction'
-import { plugVolume } from '../../shared/physics/junction/plugVolume'
-import type { Metres } from '../../shared/physics/units'
+import type { DocumentForecast } from '#shared/physics/forecast'
+import type { BenchConditions } from '#shared/schemas/bench'
+import { garsteckiLength, GARSTECKI_SQUEEZING, vanSteijnVolume, VAN_STEIJN_SQUEEZING } from '#shared/physics/junction/tJunction'
+import { plugVolume } from '#shared/physics/junction/plugVolume'
+import type { Metres } from '#shared/physics/units'
 import { forecastOffThread } from '../utils/summaryWorker'
 
 export interface RunPrediction {

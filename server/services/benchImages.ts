@@ -7,8 +7,8 @@ import { fileTypeFromBuffer } from 'file-type'
 import { createError } from 'h3'
 import sharp from 'sharp'
 import Tinypool from 'tinypool'
-import { measureDrops, type Measurement } from '../../shared/imaging/measure'
-import { MAX_MICROGRAPH_PIXELS, MICROGRAPH_TYPES } from '../../shared/schemas/bench'
+import { measureDrops, type Measurement } from '#shared/imaging/measure'
+import { MAX_MICROGRAPH_PIXELS, MICROGRAPH_TYPES } from '#shared/schemas/bench'
 import { useConfig } from '../utils/config'
 
 const badImage = (message: string) => createError({ statusCode: 415, statusMessage: 'Unsupported Media Type', message })

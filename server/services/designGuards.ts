@@ -5,7 +5,7 @@ import { createError } from 'h3'
 import { designs, revisions } from '../db/schema'
 import type { Db, Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { can } from '../../shared/utils/roles'
+import { can } from '#shared/utils/roles'
 
 export const notFound = (what: string) => createError({ statusCode: 404, statusMessage: 'Not Found', message: `No such ${what} in this lab` })
 

@@ -1,13 +1,13 @@
 // A lab's designs: list, create (with its first revision), rename or archive (who may: `canArchive`). Every query
 // is scoped to the lab.
-import { eq } from 'drizzle-orm'
+import { and, asc, desc, eq, sql } from 'drizzle-orm'
 import { createError } from 'h3'
-import { designs, revisions } from '../db/schema'
-import { useDb, usePool } from '../utils/db'
+import { designs, revisions, users } from '../db/schema'
+import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import type { DesignRow } from '../../shared/types/designs'
-import { canArchive } from '../../shared/utils/roles'
-import type { designCreate, designListQuery, designUpdate } from '../../shared/schemas/designs'
+import type { DesignRow } from '#shared/types/designs'
+import { canArchive } from '#shared/utils/roles'
+import type { designCreate, designListQuery, designUpdate } from '#shared/schemas/designs'
 import type { z } from 'zod'
 import { logActivity } from './activity'
 import { assertNotArchived, findDesign } from './designGuards'
@@ -15,34 +15,44 @@ import { validDocument } from './documents'
 import { summarizeOffThread } from '../utils/summaryWorker'
 import { starterDocument } from './starterDocument'
 
-// The list is the most read query: plain SQL as a named prepared statement per sort order (planned once per
-// connection), every filter a nullable parameter.
-const ORDER = { updated: 'd.updated_at', name: 'd.name', created: 'd.created_at' } as const
-const LIST_SQL = (order: string, dir: string) => `
-  select d.id, d.name, d.description, d.process_id, d.junction_kinds, d.latest_revision_id, d.updated_at,
-         d.archived_at is not null as archived, d.origin, r.number, r.status, u.name as author_name
-    from designs d
-    left join revisions r on r.id = d.latest_revision_id
-    left join users u on u.id = r.author_id
-   where d.lab_id = $1 and (d.archived_at is not null) = $2
-     and ($3::text is null or d.name ilike $3) and ($4::revision_status is null or r.status = $4)
-     and ($5::text is null or $5 = any(d.junction_kinds))
-   order by ${order} ${dir}, d.id limit 500`
+// The list is the most read query: a named prepared statement per sort order (planned once per connection), every
+// filter a nullable placeholder.
+const ORDER = { updated: designs.updatedAt, name: designs.name, created: designs.createdAt } as const
+type ListQuery = z.infer<typeof designListQuery>
+const like = sql.placeholder('like')
+const status = sql.placeholder('status')
+const kind = sql.placeholder('kind')
 
-interface ListRow { id: string, name: string, description: string, process_id: string, junction_kinds: string[], latest_revision_id: string | null, updated_at: Date, archived: boolean, origin: DesignRow['origin'], number: number | null, status: DesignRow['status'], author_name: string | null }
+function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
+  return useDb().select({
+    id: designs.id, name: designs.name, description: designs.description, processId: designs.processId, junctionKinds: designs.junctionKinds,
+    latestRevisionId: designs.latestRevisionId, latestNumber: revisions.number, status: revisions.status, updatedAt: designs.updatedAt,
+    authorName: users.name, archived: sql<boolean>`${designs.archivedAt} is not null`, origin: designs.origin,
+  }).from(designs)
+    .leftJoin(revisions, eq(revisions.id, designs.latestRevisionId))
+    .leftJoin(users, eq(users.id, revisions.authorId))
+    .where(and(
+      eq(designs.labId, sql.placeholder('labId')),
+      sql`(${designs.archivedAt} is not null) = ${sql.placeholder('archived')}`,
+      sql`(${like}::text is null or ${designs.name} ilike ${like})`,
+      sql`(${status}::revision_status is null or ${revisions.status} = ${status})`,
+      sql`(${kind}::text is null or ${kind} = any(${designs.junctionKinds}))`,
+    ))
+    .orderBy(dir === 'asc' ? asc(ORDER[sort]) : desc(ORDER[sort]), designs.id)
+    .limit(500)
+    .prepare(`dw_designs_${sort}_${dir}`)
+}
+const lists = new Map<string, ReturnType<typeof prepareList>>()
 
-export async function listDesigns(caller: LabCaller, query: z.infer<typeof designListQuery>): Promise<DesignRow[]> {
-  const like = query.q ? `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%` : null
-  const { rows } = await usePool().query<ListRow>({
-    name: `dw-designs-${query.sort}-${query.dir}`,
-    text: LIST_SQL(ORDER[query.sort], query.dir === 'asc' ? 'asc' : 'desc'),
-    values: [caller.lab.labId, query.archived === 'true', like, query.status ?? null, query.kind ?? null],
+export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<DesignRow[]> {
+  const dir = query.dir === 'asc' ? 'asc' : 'desc'
+  const key = `${query.sort}-${dir}`
+  const list = lists.get(key) ?? lists.set(key, prepareList(query.sort, dir)).get(key)!
+  const rows = await list.execute({
+    labId: caller.lab.labId, archived: query.archived === 'true', status: query.status ?? null, kind: query.kind ?? null,
+    like: query.q ? `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%` : null,
   })
-  return rows.map(r => ({
-    id: r.id, name: r.name, description: r.description, processId: r.process_id, junctionKinds: r.junction_kinds,
-    latestRevisionId: r.latest_revision_id, latestNumber: r.number, status: r.status,
-    updatedAt: r.updated_at.toISOString(), authorName: r.author_name ?? '', archived: r.archived, origin: r.origin ?? null,
-  }))
+  return rows.map(r => ({ ...r, updatedAt: r.updatedAt.toISOString(), authorName: r.authorName ?? '', origin: r.origin ?? null }))
 }
 
 export async function createDesign(caller: LabCaller, body: z.infer<typeof designCreate>) {

@@ -1,6 +1,6 @@
 // Chip documents arriving over HTTP: validated by the shared chip schema, with a report naming each element.
 import { createError } from 'h3'
-import { parseChipDocument, type ChipDocument } from '../../shared/schemas/chip'
+import { parseChipDocument, type ChipDocument } from '#shared/schemas/chip'
 
 export function validDocument(input: unknown): ChipDocument {
   const result = parseChipDocument(input)

@@ -1,8 +1,8 @@
 // The forecast part of a revision summary. A document the forecast cannot solve still saves: the reason is kept.
-import { ForecastInputError } from '../../shared/physics/errors'
-import { forecastDocument, summarizeForecast } from '../../shared/physics/document'
-import type { ChipDocument } from '../../shared/schemas/chip'
-import type { RevisionSummary } from '../../shared/types/designs'
+import { ForecastInputError } from '#shared/physics/errors'
+import { forecastDocument, summarizeForecast } from '#shared/physics/document'
+import type { ChipDocument } from '#shared/schemas/chip'
+import type { RevisionSummary } from '#shared/types/designs'
 
 type ForecastPart = Pick<RevisionSummary, 'operatingPoint' | 'junctions' | 'inlets' | 'forecastError'>
 

@@ -9,7 +9,7 @@ import { createError } from 'h3'
 import { designs, labs, revisions } from '../db/schema'
 import type { Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { can } from '../../shared/utils/roles'
+import { can } from '#shared/utils/roles'
 import { notFound, revisionHead, type RevisionHead } from './designGuards'
 
 export const conflict = (message: string, data?: Record<string, unknown>) => createError({ statusCode: 409, statusMessage: 'Conflict', message, data })

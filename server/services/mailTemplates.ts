@@ -1,6 +1,6 @@
 // The words of every e-mail Dropwright sends: plain text first, and a simple HTML version in which every
 // interpolated value is escaped. No markup from users ever reaches a message.
-import { ROLE_LABELS, type Role } from '../../shared/utils/roles'
+import { ROLE_LABELS, type Role } from '#shared/utils/roles'
 import type { MailContent } from './mail'
 
 const HTML_ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', '\'': '&#39;' }

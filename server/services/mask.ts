@@ -2,7 +2,7 @@
 // Pure (no h3, no I/O): it runs in a geometry worker (server/workers/geometry.ts), and in-thread without one.
 import { buildOutlines } from '../../geometry/outlines'
 import { exportDxf } from '../../geometry/dxf'
-import type { ChipDocument } from '../../shared/schemas/chip'
+import type { ChipDocument } from '#shared/schemas/chip'
 
 /** What the worker needs of a revision (it is copied to the worker thread). */
 export interface MaskInput {

@@ -4,8 +4,8 @@ import { createError } from 'h3'
 import { memberships, users } from '../db/schema'
 import { useDb, type Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import type { LabMember } from '../../shared/types/session'
-import { can, ROLE_LABELS, type Role } from '../../shared/utils/roles'
+import type { LabMember } from '#shared/types/session'
+import { can, ROLE_LABELS, type Role } from '#shared/utils/roles'
 import { conflict, lockLab } from './locks'
 
 export async function listMembers(caller: LabCaller): Promise<LabMember[]> {

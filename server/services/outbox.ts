@@ -10,7 +10,7 @@ import { mailOutbox } from '../db/schema'
 import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import type { KeptMail, LabOutbox } from '../../shared/types/outbox'
+import type { KeptMail, LabOutbox } from '#shared/types/outbox'
 import { outboxIdOf } from './mail'
 
 const MAX_FILES = 500

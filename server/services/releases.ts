@@ -7,7 +7,7 @@ import type { LabCaller } from '../utils/access'
 import { logActivity } from './activity'
 import { archivedDesign, findVisibleRevision } from './designGuards'
 import { conflict, lockRevision } from './locks'
-import { FAB_NEXT, FAB_STATUS_LABELS, fabFrom, type FabStatus } from '../../shared/utils/fabStatus'
+import { FAB_NEXT, FAB_STATUS_LABELS, fabFrom, type FabStatus } from '#shared/utils/fabStatus'
 import { notifyReleased } from './notifications'
 
 export async function releaseRevision(caller: LabCaller, revisionId: string, note: string) {

@@ -4,8 +4,8 @@ import { alias } from 'drizzle-orm/pg-core'
 import { comments, commentThreads, memberships, releases, reviewRequests, users, verdicts } from '../db/schema'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import type { ReviewState, ThreadView, VerdictView } from '../../shared/types/designs'
-import { can } from '../../shared/utils/roles'
+import type { ReviewState, ThreadView, VerdictView } from '#shared/types/designs'
+import { can } from '#shared/utils/roles'
 import { findVisibleRevision } from './designGuards'
 
 export async function getReviewState(caller: LabCaller, revisionId: string): Promise<ReviewState> {

@@ -1,12 +1,13 @@
 // The revision read path, built as a JSON string: a revision's document and summary never change, so their JSON
 // text is kept in a small in-memory cache and never parsed on the way out. Status and names are read fresh, in one
 // prepared query. A fabricator's answer names no unreleased revision (`seenRevisionId`).
-import { eq, sql } from 'drizzle-orm'
-import { revisions } from '../db/schema'
+import { and, eq, sql } from 'drizzle-orm'
+import { alias } from 'drizzle-orm/pg-core'
+import { designs, revisions, users } from '../db/schema'
 import { useConfig } from '../utils/config'
-import { useDb, usePool } from '../utils/db'
+import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { can } from '../../shared/utils/roles'
+import { can } from '#shared/utils/roles'
 import { notFound, seenRevisionId } from './designGuards'
 
 const MAX_ENTRIES = useConfig().geometry.revisionCache
@@ -26,28 +27,34 @@ async function contentOf(revisionId: string) {
   return row!
 }
 
-const HEAD_SQL = `
-  select r.id, r.design_id, r.number, r.parent_id, r.message, r.created_at, r.status, r.status_changed_at,
-         u.name as author_name, d.name as design_name, d.latest_revision_id, p.status as parent_status, l.status as latest_status
-    from revisions r join designs d on d.id = r.design_id join users u on u.id = r.author_id
-    left join revisions p on p.id = r.parent_id left join revisions l on l.id = d.latest_revision_id
-   where r.id = $1 and r.lab_id = $2`
-
-interface Head {
-  id: string, design_id: string, number: number, parent_id: string | null, message: string, created_at: Date, status: string, status_changed_at: Date,
-  author_name: string, design_name: string, latest_revision_id: string | null, parent_status: string | null, latest_status: string | null
+// Status and names, read fresh on every request: one named prepared statement.
+const parent = alias(revisions, 'parent')
+const latest = alias(revisions, 'latest')
+let headQuery: ReturnType<typeof prepareHead> | undefined
+function prepareHead() {
+  return useDb().select({
+    id: revisions.id, designId: revisions.designId, number: revisions.number, parentId: revisions.parentId, message: revisions.message,
+    createdAt: revisions.createdAt, status: revisions.status, statusChangedAt: revisions.statusChangedAt, authorName: users.name,
+    designName: designs.name, latestRevisionId: designs.latestRevisionId, parentStatus: parent.status, latestStatus: latest.status,
+  }).from(revisions)
+    .innerJoin(designs, eq(designs.id, revisions.designId))
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .leftJoin(parent, eq(parent.id, revisions.parentId))
+    .leftJoin(latest, eq(latest.id, designs.latestRevisionId))
+    .where(and(eq(revisions.id, sql.placeholder('revisionId')), eq(revisions.labId, sql.placeholder('labId'))))
+    .prepare('dw_revision_head')
 }
 
 export async function revisionJson(caller: LabCaller, revisionId: string): Promise<string> {
-  const { rows: [head] } = await usePool().query<Head>({ name: 'dw-revision-head', text: HEAD_SQL, values: [revisionId, caller.lab.labId] })
+  const [head] = await (headQuery ??= prepareHead()).execute({ revisionId, labId: caller.lab.labId })
   // Same rule as findVisibleRevision: a fabricator sees released revisions only.
   if (!head || (!can(caller.lab.role, 'designs:view') && head.status !== 'released')) throw notFound('revision')
   const { document, summary } = await contentOf(head.id)
   const fields = {
-    id: head.id, designId: head.design_id, number: head.number, parentId: seenRevisionId(caller, head.parent_id, head.parent_status), message: head.message,
-    authorName: head.author_name, createdAt: head.created_at.toISOString(), status: head.status,
-    statusChangedAt: head.status_changed_at.toISOString(), designName: head.design_name, labId: caller.lab.labId,
-    latestRevisionId: seenRevisionId(caller, head.latest_revision_id, head.latest_status),
+    id: head.id, designId: head.designId, number: head.number, parentId: seenRevisionId(caller, head.parentId, head.parentStatus), message: head.message,
+    authorName: head.authorName, createdAt: head.createdAt.toISOString(), status: head.status,
+    statusChangedAt: head.statusChangedAt.toISOString(), designName: head.designName, labId: caller.lab.labId,
+    latestRevisionId: seenRevisionId(caller, head.latestRevisionId, head.latestStatus),
   }
   return `${JSON.stringify(fields).slice(0, -1)},"summary":${summary},"document":${document}}`
 }

@@ -1,8 +1,8 @@
 // What the server stores beside each revision: junction kinds, counts, rule findings and the forecast summary.
 // Computed once when the revision is saved (revisions are immutable, so it never goes stale).
-import type { ChipDocument } from '../../shared/schemas/chip'
+import type { ChipDocument } from '#shared/schemas/chip'
 import { BUILT_IN_PROCESSES, checkDesignRules, findProcess } from '../../geometry/rules'
-import type { RevisionSummary } from '../../shared/types/designs'
+import type { RevisionSummary } from '#shared/types/designs'
 import { forecastSummary } from './forecastSummary'
 
 const JUNCTION_KINDS = new Set(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction'])

@@ -1,10 +1,10 @@
 // Server-side sessions in PostgreSQL: sign-out and expiry end them for every server instance.
 import { createHash, randomBytes } from 'node:crypto'
-import { and, eq, lt, ne } from 'drizzle-orm'
-import { sessions } from '../db/schema'
-import { useDb, usePool } from '../utils/db'
+import { and, eq, gt, lt, ne, sql } from 'drizzle-orm'
+import { labs, memberships, sessions, users } from '../db/schema'
+import { useDb } from '../utils/db'
 import { useConfig } from '../utils/config'
-import type { SessionData } from '../../shared/types/session'
+import type { SessionData } from '#shared/types/session'
 import type { DbOrTx } from './mail'
 
 const TTL_MS = useConfig().session.ttlHours * 3600_000
@@ -35,18 +35,27 @@ export async function endSessionsOf(db: DbOrTx, userId: string, keepToken?: stri
   return rows.length
 }
 
-/** One round trip, prepared once per connection: the live session's person and all their labs. */
-const SESSION_QUERY = `
-  select u.id, u.email, u.name,
-         coalesce(json_agg(json_build_object('labId', l.id, 'slug', l.slug, 'name', l.name, 'kind', l.kind, 'role', m.role)
-                           order by m.created_at, l.name) filter (where l.id is not null), '[]') as memberships
-    from sessions s join users u on u.id = s.user_id
-    left join memberships m on m.user_id = u.id left join labs l on l.id = m.lab_id
-   where s.token_hash = $1 and s.expires_at > now()
-   group by u.id`
+/** One round trip, a named prepared statement (planned once per connection): the live session's person and labs. */
+let sessionQuery: ReturnType<typeof prepareSessionQuery> | undefined
+function prepareSessionQuery() {
+  return useDb().select({
+    id: users.id, email: users.email, name: users.name,
+    labId: labs.id, slug: labs.slug, labName: labs.name, kind: labs.kind, role: memberships.role,
+  }).from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .leftJoin(memberships, eq(memberships.userId, users.id))
+    .leftJoin(labs, eq(labs.id, memberships.labId))
+    .where(and(eq(sessions.tokenHash, sql.placeholder('tokenHash')), gt(sessions.expiresAt, sql`now()`)))
+    .orderBy(memberships.createdAt, labs.name)
+    .prepare('dw_session')
+}
 
 export async function resolveSession(token: string): Promise<SessionData | null> {
-  const { rows } = await usePool().query<{ id: string, email: string, name: string, memberships: SessionData['memberships'] }>({ name: 'dw-session', text: SESSION_QUERY, values: [digest(token)] })
-  const row = rows[0]
-  return row ? { user: { id: row.id, email: row.email, name: row.name }, memberships: row.memberships } : null
+  const rows = await (sessionQuery ??= prepareSessionQuery()).execute({ tokenHash: digest(token) })
+  const first = rows[0]
+  if (!first) return null
+  return {
+    user: { id: first.id, email: first.email, name: first.name },
+    memberships: rows.flatMap(r => (r.labId && r.role ? [{ labId: r.labId, slug: r.slug!, name: r.labName!, kind: r.kind!, role: r.role }] : [])),
+  }
 }

@@ -11,7 +11,7 @@ import { signInFailures, users } from '../db/schema'
 import { useConfig } from '../utils/config'
 import { useDb, type Tx } from '../utils/db'
 import { verifyPassword } from '../utils/password'
-import type { SignInBody } from '../../shared/schemas/auth'
+import type { SignInBody } from '#shared/schemas/auth'
 import { knownDevice } from './knownDevices'
 
 const WINDOW_MIN = 15

@@ -1,5 +1,5 @@
 // A new design starts from a small, valid chip: one T-junction, two inlets, one outlet (invented example values).
-import { requireChipDocument, type ChipDocument } from '../../shared/schemas/chip'
+import { requireChipDocument, type ChipDocument } from '#shared/schemas/chip'
 
 const STARTER = {
   "version": 1,

@@ -1,8 +1,8 @@
 // Who is calling, and may they? Lab-scoped routes call `requireLabPermission` first, always.
 import type { H3Event } from 'h3'
 import { createError } from 'h3'
-import { can, type Permission } from '../../shared/utils/roles'
-import type { LabMembership, SessionData } from '../../shared/types/session'
+import { can, type Permission } from '#shared/utils/roles'
+import type { LabMembership, SessionData } from '#shared/types/session'
 
 declare module 'h3' {
   interface H3EventContext { session?: SessionData | null }

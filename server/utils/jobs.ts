@@ -14,7 +14,7 @@ import { and, desc, eq, inArray, sql, type SQL } from 'drizzle-orm'
 import { integer, jsonb, pgSchema, text, timestamp, uuid } from 'drizzle-orm/pg-core'
 import type pg from 'pg'
 import PgBoss from 'pg-boss'
-import type { FailedJob } from '../../shared/types/jobs'
+import type { FailedJob } from '#shared/types/jobs'
 import { useConfig } from './config'
 import { databaseUrl, useDb, usePool, type Db, type Tx } from './db'
 

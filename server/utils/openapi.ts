@@ -3,14 +3,14 @@
 // wrapper that places each schema in an operation. tests/unit/openapi.test.ts fails when a route under
 // server/api/v1 or server/api/labs is missing here.
 import { z } from 'zod'
-import { designCreate, designListQuery, designUpdate, duplicateBody, dxfQuery, revisionCreate } from '../../shared/schemas/designs'
-import { documentRequest, junctionRequest, networkRequest } from '../../shared/schemas/forecast'
-import { planDocumentRequest, planJunctionRequest } from '../../shared/schemas/plan'
-import { invitationCreate } from '../../shared/schemas/invitations'
-import { memberRoleUpdate } from '../../shared/schemas/labs'
-import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery, micrographUpdate } from '../../shared/schemas/bench'
-import { commentCreate, fabStatusBody, releaseBody, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '../../shared/schemas/review'
-import { PERMISSION_LABELS, type Permission } from '../../shared/utils/roles'
+import { designCreate, designListQuery, designUpdate, duplicateBody, dxfQuery, revisionCreate } from '#shared/schemas/designs'
+import { documentRequest, junctionRequest, networkRequest } from '#shared/schemas/forecast'
+import { planDocumentRequest, planJunctionRequest } from '#shared/schemas/plan'
+import { invitationCreate } from '#shared/schemas/invitations'
+import { memberRoleUpdate } from '#shared/schemas/labs'
+import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery, micrographUpdate } from '#shared/schemas/bench'
+import { commentCreate, fabStatusBody, releaseBody, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '#shared/schemas/review'
+import { PERMISSION_LABELS, type Permission } from '#shared/utils/roles'
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete'
 export interface Operation {

@@ -1,7 +1,7 @@
 // Password hashing with Argon2id (RFC 9106) through @node-rs/argon2, at its default cost parameters.
 import { hash, verify } from '@node-rs/argon2'
 import { dictionary } from '@zxcvbn-ts/language-common'
-import type { PasswordChecks } from '../../shared/schemas/auth'
+import type { PasswordChecks } from '#shared/schemas/auth'
 
 export function hashPassword(password: string): Promise<string> {
   return hash(password)

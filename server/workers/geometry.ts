@@ -3,10 +3,10 @@
 // runs them with a time budget and terminates a worker that overruns it. Bundled to
 // .output/server/workers/geometry.mjs by scripts/build-workers.mjs when Nitro has compiled.
 import { setPriority } from 'node:os'
-import { ForecastInputError, runForecast, type ForecastAnswer } from '../../shared/physics/forecast'
-import { runPlan, type PlanAnswer } from '../../shared/physics/planner'
-import type { ChipDocument } from '../../shared/schemas/chip'
-import type { RevisionSummary } from '../../shared/types/designs'
+import { ForecastInputError, runForecast, type ForecastAnswer } from '#shared/physics/forecast'
+import { runPlan, type PlanAnswer } from '#shared/physics/planner'
+import type { ChipDocument } from '#shared/schemas/chip'
+import type { RevisionSummary } from '#shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
 import { useConfig } from '../utils/config'

@@ -13,9 +13,10 @@ import { startServer, type ServerInstance } from '../support/instance'
 import { apiRoutes, fill, isWrite, type ApiRoute } from '../support/routes'
 import forecastExample from '../fixtures/forecast/t-junction-request.json'
 
+import type { Role } from '../../shared/utils/roles'
+
 /** The forecast example without its flows: a plan request's junction part. */
 const { flow: _flow, ...planJunction } = forecastExample as Record<string, unknown>
-import type { Role } from '../../shared/utils/roles'
 
 const RUNS_PER_ROUTE = Number(process.env.DW_FUZZ_RUNS ?? 110) // × 19 routes ≥ 2,000 bodies
 const CONCURRENCY = 8

@@ -1,4 +1,4 @@
-import { signInBody } from '../../../shared/schemas/auth'
+import { signInBody } from '#shared/schemas/auth'
 import { checkCredentials } from '../../services/signIn'
 import { clientAddress } from '../../utils/clientAddress'
 import { readDeviceCookie, startSignedIn, withRetryAfter } from '../../utils/signedIn'

@@ -1,5 +1,5 @@
 // Ends every session of the signed-in person, on every device, this one included.
-import type { SignedOutEverywhere } from '../../../shared/types/account'
+import type { SignedOutEverywhere } from '#shared/types/account'
 import { signOutEverywhere } from '../../services/passwords'
 import { requireSession } from '../../utils/access'
 import { clearSessionCookies } from '../../utils/cookies'

@@ -1,6 +1,6 @@
 // Signed in: change the password (current + new). Every other session of the person ends; this one stays.
-import { passwordChangeBody } from '../../../shared/schemas/auth'
-import type { PasswordChanged } from '../../../shared/types/account'
+import { passwordChangeBody } from '#shared/schemas/auth'
+import type { PasswordChanged } from '#shared/types/account'
 import { changePassword } from '../../services/passwords'
 import { requireSession } from '../../utils/access'
 import { clientAddress } from '../../utils/clientAddress'

@@ -1,4 +1,4 @@
 // The built-in library of liquids, pairs and surfactants, each value with its source.
-import { listLiquids } from '../../../shared/physics/liquids'
+import { listLiquids } from '#shared/physics/liquids'
 
 export default defineEventHandler(() => listLiquids())

@@ -8,8 +8,9 @@ import { quantity, type Method } from '../quantity'
 import { UNIT } from '../units'
 import type { ResolvedOperatingPoint } from './operating-point'
 import { continuousFlow, resolvedAt, type TwoPhaseSolution } from './twophase'
-export { jettingTest }
 import type { CompiledDocument, CompiledJunction, DocumentForecastOptions, OperatingWindow } from './types'
+
+export { jettingTest }
 
 export const OPERATING_WINDOW: Method = {
   id: 'pressure-operating-window',

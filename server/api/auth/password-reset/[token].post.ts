@@ -1,7 +1,7 @@
 // Public (the token is the credential): set the new password. Every session of the person ends, and this browser
 // is signed in afresh.
-import { passwordResetBody, passwordResetParams } from '../../../../shared/schemas/auth'
-import type { PasswordResetDone } from '../../../../shared/types/account'
+import { passwordResetBody, passwordResetParams } from '#shared/schemas/auth'
+import type { PasswordResetDone } from '#shared/types/account'
 import { knownDevice } from '../../../services/knownDevices'
 import { resetPassword } from '../../../services/passwords'
 import { readDeviceCookie, startSignedIn } from '../../../utils/signedIn'

@@ -1,6 +1,6 @@
 // Public (the token is the credential): join the lab, creating the account and signing in when there is none.
-import { invitationAccept, invitationTokenParams } from '../../../../shared/schemas/invitations'
-import type { InvitationAccepted } from '../../../../shared/types/invitations'
+import { invitationAccept, invitationTokenParams } from '#shared/schemas/invitations'
+import type { InvitationAccepted } from '#shared/types/invitations'
 import { acceptInvitation } from '../../../services/invitations'
 import { createSession } from '../../../services/sessions'
 import { setMarkerCookie, setSessionCookie } from '../../../utils/cookies'

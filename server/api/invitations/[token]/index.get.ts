@@ -1,5 +1,5 @@
 // Public (the token is the credential): what the invitation link offers.
-import { invitationTokenParams } from '../../../../shared/schemas/invitations'
+import { invitationTokenParams } from '#shared/schemas/invitations'
 import { describeInvitation } from '../../../services/invitations'
 import { validParams } from '../../../utils/validate'
 

@@ -1,4 +1,4 @@
-import { labParams } from '../../../../shared/schemas/labs'
+import { labParams } from '#shared/schemas/labs'
 import { labOutbox, requireOutbox } from '../../../services/outbox'
 import { requireLabPermission } from '../../../utils/access'
 import { validParams } from '../../../utils/validate'

@@ -1,5 +1,5 @@
-import { forecastModeBody } from '../../../../../shared/schemas/bench'
-import { labParams } from '../../../../../shared/schemas/labs'
+import { forecastModeBody } from '#shared/schemas/bench'
+import { labParams } from '#shared/schemas/labs'
 import { requireLabPermission } from '../../../../utils/access'
 import { setForecastMode } from '../../../../services/benchCalibration'
 import { validBody, validParams } from '../../../../utils/validate'

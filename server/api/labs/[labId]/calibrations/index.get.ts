@@ -1,5 +1,5 @@
-import { calibrationQuery } from '../../../../../shared/schemas/bench'
-import { labParams } from '../../../../../shared/schemas/labs'
+import { calibrationQuery } from '#shared/schemas/bench'
+import { labParams } from '#shared/schemas/labs'
 import { requireBenchCaller } from '../../../../services/bench'
 import { labCalibrations } from '../../../../services/benchCalibration'
 import { validParams, validQuery } from '../../../../utils/validate'

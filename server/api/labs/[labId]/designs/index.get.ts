@@ -1,5 +1,5 @@
-import { designListQuery } from '../../../../../shared/schemas/designs'
-import { labParams } from '../../../../../shared/schemas/labs'
+import { designListQuery } from '#shared/schemas/designs'
+import { labParams } from '#shared/schemas/labs'
 import { listDesigns } from '../../../../services/designs'
 import { requireLabPermission } from '../../../../utils/access'
 import { validParams, validQuery } from '../../../../utils/validate'

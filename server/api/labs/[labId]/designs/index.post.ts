@@ -1,5 +1,5 @@
-import { designCreate } from '../../../../../shared/schemas/designs'
-import { labParams } from '../../../../../shared/schemas/labs'
+import { designCreate } from '#shared/schemas/designs'
+import { labParams } from '#shared/schemas/labs'
 import { createDesign } from '../../../../services/designs'
 import { requireLabPermission } from '../../../../utils/access'
 import { validBody, validParams } from '../../../../utils/validate'

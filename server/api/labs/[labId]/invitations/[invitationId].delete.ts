@@ -1,4 +1,4 @@
-import { invitationParams } from '../../../../../shared/schemas/invitations'
+import { invitationParams } from '#shared/schemas/invitations'
 import { revokeInvitation } from '../../../../services/invitations'
 import { requireLabPermission } from '../../../../utils/access'
 import { validParams } from '../../../../utils/validate'

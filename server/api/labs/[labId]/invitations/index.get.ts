@@ -1,4 +1,4 @@
-import { labParams } from '../../../../../shared/schemas/labs'
+import { labParams } from '#shared/schemas/labs'
 import { listInvitations } from '../../../../services/invitations'
 import { requireLabPermission } from '../../../../utils/access'
 import { validParams } from '../../../../utils/validate'

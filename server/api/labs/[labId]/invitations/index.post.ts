@@ -1,5 +1,5 @@
-import { invitationCreate } from '../../../../../shared/schemas/invitations'
-import { labParams } from '../../../../../shared/schemas/labs'
+import { invitationCreate } from '#shared/schemas/invitations'
+import { labParams } from '#shared/schemas/labs'
 import { inviteToLab } from '../../../../services/invitations'
 import { requireLabPermission } from '../../../../utils/access'
 import { appOrigin } from '../../../../utils/origin'

@@ -1,4 +1,4 @@
-import { memberParams } from '../../../../../shared/schemas/labs'
+import { memberParams } from '#shared/schemas/labs'
 import { removeMember } from '../../../../services/members'
 import { requireLabPermission } from '../../../../utils/access'
 import { validParams } from '../../../../utils/validate'

@@ -1,4 +1,4 @@
-import { memberParams, memberRoleUpdate } from '../../../../../shared/schemas/labs'
+import { memberParams, memberRoleUpdate } from '#shared/schemas/labs'
 import { changeRole } from '../../../../services/members'
 import { requireLabPermission } from '../../../../utils/access'
 import { validBody, validParams } from '../../../../utils/validate'

@@ -1,4 +1,4 @@
-import { benchRunParams } from '../../../../../../shared/schemas/bench'
+import { benchRunParams } from '#shared/schemas/bench'
 import { getBenchRun, requireBenchCaller } from '../../../../../services/bench'
 import { validParams } from '../../../../../utils/validate'
 

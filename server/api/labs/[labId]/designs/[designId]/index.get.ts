@@ -1,4 +1,4 @@
-import { designParams } from '../../../../../../shared/schemas/designs'
+import { designParams } from '#shared/schemas/designs'
 import { getDesignDetail } from '../../../../../services/designDetail'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validParams } from '../../../../../utils/validate'

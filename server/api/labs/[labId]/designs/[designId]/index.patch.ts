@@ -1,4 +1,4 @@
-import { designParams, designUpdate } from '../../../../../../shared/schemas/designs'
+import { designParams, designUpdate } from '#shared/schemas/designs'
 import { updateDesign } from '../../../../../services/designs'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'

@@ -1,4 +1,4 @@
-import { duplicateBody, revisionParams } from '../../../../../../shared/schemas/designs'
+import { duplicateBody, revisionParams } from '#shared/schemas/designs'
 import { duplicateRevision } from '../../../../../services/duplicate'
 import { requireLabPermission, requireSession } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'

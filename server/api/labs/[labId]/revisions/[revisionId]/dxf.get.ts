@@ -1,4 +1,4 @@
-import { dxfQuery, revisionParams } from '../../../../../../shared/schemas/designs'
+import { dxfQuery, revisionParams } from '#shared/schemas/designs'
 import { getRevision } from '../../../../../services/revisions'
 import { requireLabPermission } from '../../../../../utils/access'
 import { dxfOffThread } from '../../../../../utils/summaryWorker'

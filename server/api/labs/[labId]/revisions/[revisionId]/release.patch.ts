@@ -1,5 +1,5 @@
-import { revisionParams } from '../../../../../../shared/schemas/designs'
-import { fabStatusBody } from '../../../../../../shared/schemas/review'
+import { revisionParams } from '#shared/schemas/designs'
+import { fabStatusBody } from '#shared/schemas/review'
 import { setFabStatus } from '../../../../../services/releases'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'

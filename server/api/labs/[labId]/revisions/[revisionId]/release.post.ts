@@ -1,5 +1,5 @@
-import { revisionParams } from '../../../../../../shared/schemas/designs'
-import { releaseBody } from '../../../../../../shared/schemas/review'
+import { revisionParams } from '#shared/schemas/designs'
+import { releaseBody } from '#shared/schemas/review'
 import { releaseRevision } from '../../../../../services/releases'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'

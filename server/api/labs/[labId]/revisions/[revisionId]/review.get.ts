@@ -1,4 +1,4 @@
-import { revisionParams } from '../../../../../../shared/schemas/designs'
+import { revisionParams } from '#shared/schemas/designs'
 import { getReviewState } from '../../../../../services/reviewState'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validParams } from '../../../../../utils/validate'

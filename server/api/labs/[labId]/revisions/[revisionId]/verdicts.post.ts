@@ -1,5 +1,5 @@
-import { revisionParams } from '../../../../../../shared/schemas/designs'
-import { verdictBody } from '../../../../../../shared/schemas/review'
+import { revisionParams } from '#shared/schemas/designs'
+import { verdictBody } from '#shared/schemas/review'
 import { giveVerdict } from '../../../../../services/review'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'

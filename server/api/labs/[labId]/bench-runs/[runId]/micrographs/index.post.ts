@@ -1,4 +1,4 @@
-import { benchRunParams, micrographScale } from '../../../../../../../shared/schemas/bench'
+import { benchRunParams, micrographScale } from '#shared/schemas/bench'
 import { requireBenchCaller } from '../../../../../../services/bench'
 import { uploadMicrograph } from '../../../../../../services/benchMicrographs'
 import { readMicrographForm } from '../../../../../../utils/multipart'

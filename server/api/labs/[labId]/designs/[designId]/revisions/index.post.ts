@@ -1,4 +1,4 @@
-import { designParams, revisionCreate } from '../../../../../../../shared/schemas/designs'
+import { designParams, revisionCreate } from '#shared/schemas/designs'
 import { createRevision } from '../../../../../../services/revisions'
 import { requireLabPermission } from '../../../../../../utils/access'
 import { validBody, validParams } from '../../../../../../utils/validate'

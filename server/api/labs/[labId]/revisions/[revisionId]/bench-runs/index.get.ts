@@ -1,4 +1,4 @@
-import { revisionParams } from '../../../../../../../shared/schemas/designs'
+import { revisionParams } from '#shared/schemas/designs'
 import { listBenchRuns, requireBenchCaller } from '../../../../../../services/bench'
 import { validParams } from '../../../../../../utils/validate'
 

@@ -1,5 +1,5 @@
-import { benchRunCreate, benchRunCsvQuery } from '../../../../../../../shared/schemas/bench'
-import { revisionParams } from '../../../../../../../shared/schemas/designs'
+import { benchRunCreate, benchRunCsvQuery } from '#shared/schemas/bench'
+import { revisionParams } from '#shared/schemas/designs'
 import { createBenchRun, requireBenchCaller } from '../../../../../../services/bench'
 import { readLimitedBody } from '../../../../../../utils/bodyLimit'
 import { parseOr400, validBody, validParams, validQuery } from '../../../../../../utils/validate'

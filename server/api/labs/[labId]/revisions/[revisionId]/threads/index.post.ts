@@ -1,5 +1,5 @@
-import { revisionParams } from '../../../../../../../shared/schemas/designs'
-import { threadCreate } from '../../../../../../../shared/schemas/review'
+import { revisionParams } from '#shared/schemas/designs'
+import { threadCreate } from '#shared/schemas/review'
 import { createThread } from '../../../../../../services/comments'
 import { requireLabPermission } from '../../../../../../utils/access'
 import { validBody, validParams } from '../../../../../../utils/validate'

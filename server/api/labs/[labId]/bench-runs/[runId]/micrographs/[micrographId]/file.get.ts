@@ -1,4 +1,4 @@
-import { micrographFileQuery, micrographParams } from '../../../../../../../../shared/schemas/bench'
+import { micrographFileQuery, micrographParams } from '#shared/schemas/bench'
 import { requireBenchCaller } from '../../../../../../../services/bench'
 import { micrographFile } from '../../../../../../../services/benchMicrographs'
 import { validParams, validQuery } from '../../../../../../../utils/validate'

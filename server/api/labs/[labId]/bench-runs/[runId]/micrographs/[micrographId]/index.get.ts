@@ -1,4 +1,4 @@
-import { micrographParams } from '../../../../../../../../shared/schemas/bench'
+import { micrographParams } from '#shared/schemas/bench'
 import { requireBenchCaller } from '../../../../../../../services/bench'
 import { getMicrograph } from '../../../../../../../services/benchMicrographs'
 import { validParams } from '../../../../../../../utils/validate'

@@ -1,4 +1,4 @@
-import { micrographParams, micrographUpdate } from '../../../../../../../../shared/schemas/bench'
+import { micrographParams, micrographUpdate } from '#shared/schemas/bench'
 import { requireBenchCaller } from '../../../../../../../services/bench'
 import { excludeDetections } from '../../../../../../../services/benchMicrographs'
 import { validBody, validParams } from '../../../../../../../utils/validate'

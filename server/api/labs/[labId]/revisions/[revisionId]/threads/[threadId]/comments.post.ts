@@ -1,4 +1,4 @@
-import { commentCreate, threadParams } from '../../../../../../../../shared/schemas/review'
+import { commentCreate, threadParams } from '#shared/schemas/review'
 import { reply } from '../../../../../../../services/comments'
 import { requireLabPermission } from '../../../../../../../utils/access'
 import { validBody, validParams } from '../../../../../../../utils/validate'

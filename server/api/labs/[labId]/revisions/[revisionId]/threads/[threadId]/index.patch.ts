@@ -1,4 +1,4 @@
-import { threadParams, threadUpdate } from '../../../../../../../../shared/schemas/review'
+import { threadParams, threadUpdate } from '#shared/schemas/review'
 import { setResolved } from '../../../../../../../services/comments'
 import { requireLabPermission } from '../../../../../../../utils/access'
 import { validBody, validParams } from '../../../../../../../utils/validate'
