@@ -10,18 +10,8 @@ import { runForecast } from '../../shared/physics/forecast'
 import { forecastJunction } from '../../shared/physics/forecast/junction'
 import { resolveJunctionRequest } from '../../shared/physics/forecast/junctionRequest'
 import { junctionRequest } from '../../shared/schemas/forecast'
+import { median } from './timing'
 
-function median(run: () => void, repeats: number): number {
-  run() // warm-up
-  const times: number[] = []
-  for (let i = 0; i < repeats; i++) {
-    const start = performance.now()
-    run()
-    times.push(performance.now() - start)
-  }
-  times.sort((a, b) => a - b)
-  return times[Math.floor(times.length / 2)]!
-}
 
 /** Parallel-nozzle ladder with `channels` channels: feed rail, collector rail, nozzles between them. */
 function ladder(channels: number): NetworkProblem {

@@ -7,18 +7,8 @@ import { runPlan, scanJunction } from '../../shared/physics/planner'
 import { junctionRequest } from '../../shared/schemas/forecast'
 import { forecastDocument } from '../../shared/physics/document'
 import { requireChipDocument } from '../../shared/schemas/chip'
+import { timed } from './timing'
 
-function timed(run: () => void, repeats: number): { median: number; worst: number } {
-  run() // warm-up
-  const times: number[] = []
-  for (let i = 0; i < repeats; i++) {
-    const start = performance.now()
-    run()
-    times.push(performance.now() - start)
-  }
-  times.sort((a, b) => a - b)
-  return { median: times[Math.floor(times.length / 2)]!, worst: times.at(-1)! }
-}
 
 const ms = (t: number) => `${t.toFixed(1)} ms`
 

@@ -49,3 +49,9 @@ export function checkField(collection: ElementCollection, el: object, path: stri
   if (typeof value !== 'number' || !Number.isFinite(value)) return 'Enter a number'
   return fieldError(SCHEMA[collection], el, path, value)
 }
+
+/** What a person typed into a number box: a decimal (comma or point, optional exponent), else NaN ("", "abc", "0x10"). */
+export function typedNumber(text: string): number {
+  const t = text.trim().replace(',', '.')
+  return /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t) ? Number(t) : Number.NaN
+}
