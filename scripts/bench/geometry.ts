@@ -11,19 +11,8 @@ import { documentPieceCount, parseChipDocument } from '~~/shared/schemas/chip'
 import { summarizeRevision } from '~~/server/services/revisionSummary'
 import { maskFile } from '~~/server/services/mask'
 import { largestAcceptedDocument } from '~~/tests/unit/schemas/largest'
-
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!
-
-function time<T>(fn: () => T, runs: number): { ms: number; value: T } {
-  let value = fn()
-  const ms: number[] = []
-  for (let i = 0; i < runs; i++) {
-    const t = performance.now()
-    value = fn()
-    ms.push(performance.now() - t)
-  }
-  return { ms: median(ms), value }
-}
+import { counted } from '~~/shared/utils/counted'
+import { timed } from './timing'
 
 const mm = (um: number) => (um / 1000).toFixed(1)
 
@@ -42,15 +31,15 @@ export async function run(): Promise<void> {
     const runs = n <= 512 ? 9 : 5
     const plan = planParallelChip({ nozzles: n })
     const doc = plan.document
-    const outline = time(() => buildOutlines(doc), runs)
-    const rules = time(() => checkDesignRules(doc, process, { outlines: outline.value }), runs)
-    const dxf = time(() => exportDxf(doc, { outlines: outline.value, date: '2026-01-01' }), runs)
-    rows.push({ n, outline: outline.ms, rules: rules.ms, dxf: dxf.ms })
-    const total = outline.ms + rules.ms + dxf.ms
+    const outline = timed(() => buildOutlines(doc), runs)
+    const rules = timed(() => checkDesignRules(doc, process, { outlines: outline.value }), runs)
+    const dxf = timed(() => exportDxf(doc, { outlines: outline.value, date: '2026-01-01' }), runs)
+    rows.push({ n, outline: outline.median, rules: rules.median, dxf: dxf.median })
+    const total = outline.median + rules.median + dxf.median
     const errors = rules.value.filter((f) => f.severity === 'error').length
-    console.log(`  ${n} nozzles: outline+merge ${outline.ms.toFixed(1)}, rules ${rules.ms.toFixed(1)}, DXF ${dxf.ms.toFixed(1)}` +
+    console.log(`  ${n} nozzles: outline+merge ${outline.median.toFixed(1)}, rules ${rules.median.toFixed(1)}, DXF ${dxf.median.toFixed(1)}` +
       ` → total ${total.toFixed(1)} ms${n === 512 ? ` (target < 1000: ${total < 1000 ? 'met' : 'MISSED'})` : ''}` +
-      `; ${rules.value.length} findings (${errors} errors), ${(dxf.value.length / 1e6).toFixed(2)} MB DXF`)
+      `; ${counted(rules.value.length, 'finding', 'findings')} (${counted(errors, 'error', 'errors')}), ${(dxf.value.length / 1e6).toFixed(2)} MB DXF`)
     console.log(`    chip ${mm(plan.chip.width)} × ${mm(plan.chip.height)} mm, ${plan.chip.columns} × ${plan.chip.rows} banks,` +
       ` diagonal ${plan.chip.wafer.diagonalMm.toFixed(1)} mm → ${plan.chip.wafer.diameterMm ?? '> 300'} mm wafer`)
     // The plain way for comparison: one sweep per layer over every piece (one run; it is the slow one).
@@ -68,10 +57,10 @@ export async function run(): Promise<void> {
   }
   const doc = planParallelChip({ nozzles: 512 }).document
   const o = buildOutlines(doc)
-  const indexed = time(() => checkDesignRules(doc, process, { outlines: o }), 3)
-  const naive = time(() => checkDesignRules(doc, process, { outlines: o, naive: true }), 1)
+  const indexed = timed(() => checkDesignRules(doc, process, { outlines: o }), 3)
+  const naive = timed(() => checkDesignRules(doc, process, { outlines: o, naive: true }), 1)
   const same = JSON.stringify(indexed.value) === JSON.stringify(naive.value)
-  console.log(`  512 nozzles rules: flatbush ${indexed.ms.toFixed(1)} ms vs naive all-pairs ${naive.ms.toFixed(1)} ms → ${(naive.ms / indexed.ms).toFixed(1)}× faster (same findings: ${same})`)
+  console.log(`  512 nozzles rules: flatbush ${indexed.median.toFixed(1)} ms vs naive all-pairs ${naive.median.toFixed(1)} ms → ${(naive.median / indexed.median).toFixed(1)}× faster (same findings: ${same})`)
   const [a, b] = rows
   if (a && b) {
     const nlogn = (8 * Math.log(b.n)) / Math.log(a.n)
@@ -80,8 +69,8 @@ export async function run(): Promise<void> {
       ` total ${g(a.outline + a.rules + a.dxf, b.outline + b.rules + b.dxf)}× (n log n would be ${nlogn.toFixed(1)}×)`)
   }
   const tj = planTJunctionChip({ junctions: 64 })
-  const tjRules = time(() => checkDesignRules(tj.document, process), 3)
-  console.log(`  64 T-junctions: outline+rules ${tjRules.ms.toFixed(1)} ms, ${tjRules.value.filter((f) => f.severity !== 'info').length} errors/warnings;` +
+  const tjRules = timed(() => checkDesignRules(tj.document, process), 3)
+  console.log(`  64 T-junctions: outline+rules ${tjRules.median.toFixed(1)} ms, ${tjRules.value.filter((f) => f.severity !== 'info').length} errors/warnings;` +
     ` chip ${mm(tj.chip.width)} × ${mm(tj.chip.height)} mm (${tj.chip.wafer.diameterMm ?? '> 300'} mm wafer);` +
     ` manifolds ${tj.continuous.width}/${tj.dispersed.width} µm, non-uniformity ${(100 * tj.continuous.nonUniformity).toFixed(2)}/${(100 * tj.dispersed.nonUniformity).toFixed(2)} %`)
   largest()

@@ -5,16 +5,7 @@ import { createRequire } from 'node:module'
 import { measureDrops } from '../../shared/imaging/measure'
 import { renderMicrograph, scatterDrops } from '../../shared/imaging/synthetic'
 import { describeSample } from '../../shared/physics/calibration/stats'
-
-const best = async (runs: number, work: () => unknown | Promise<unknown>) => {
-  let min = Infinity
-  for (let i = 0; i < runs; i++) {
-    const t = performance.now()
-    await work()
-    min = Math.min(min, performance.now() - t)
-  }
-  return min
-}
+import { bestOf } from './timing'
 
 export async function run() {
   const size = 2048
@@ -22,7 +13,7 @@ export async function run() {
   const image = renderMicrograph({ width: size, height: size, drops: separated, noise: 5, blur: 1, unevenness: 0.3, seed: 5 })
   const truth = describeSample(separated.map(d => d.diameter))
   let result = measureDrops(image, { umPerPx: 1 })
-  const ms = await best(3, () => { result = measureDrops(image, { umPerPx: 1 }) })
+  const ms = await bestOf(3, () => { result = measureDrops(image, { umPerPx: 1 }) })
   const accepted = result.drops.filter(d => d.accepted)
   console.log(`[imaging] ${size}×${size} px, ${separated.length} drops: image-js pipeline ${ms.toFixed(0)} ms (budget 2000 ms), ` +
     `${accepted.length} accepted, mean ${result.summary!.mean.toFixed(2)} px vs ${truth.mean.toFixed(2)} drawn (${(100 * (result.summary!.mean / truth.mean - 1)).toFixed(2)} %), ` +
@@ -37,7 +28,7 @@ export async function run() {
     // promise with it, which would loop).
     const { cv } = await new Promise<{ cv: any }>((resolve) => { if (cvModule.Mat) resolve({ cv: cvModule }); else cvModule.onRuntimeInitialized = () => resolve({ cv: cvModule }) })
     const load = performance.now() - t0
-    const cvMs = await best(3, () => {
+    const cvMs = await bestOf(3, () => {
       const src = cv.matFromArray(size, size, cv.CV_8UC1, image.data)
       const bin = new cv.Mat()
       cv.threshold(src, bin, 0, 255, cv.THRESH_BINARY_INV + cv.THRESH_OTSU)

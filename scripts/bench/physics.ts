@@ -12,7 +12,6 @@ import { resolveJunctionRequest } from '../../shared/physics/forecast/junctionRe
 import { junctionRequest } from '../../shared/schemas/forecast'
 import { median } from './timing'
 
-
 /** Parallel-nozzle ladder with `channels` channels: feed rail, collector rail, nozzles between them. */
 function ladder(channels: number): NetworkProblem {
   const rungs = Math.floor(channels / 3)

@@ -9,7 +9,6 @@ import { forecastDocument } from '../../shared/physics/document'
 import { requireChipDocument } from '../../shared/schemas/chip'
 import { timed } from './timing'
 
-
 const ms = (t: number) => `${t.toFixed(1)} ms`
 
 export function run(): void {

@@ -12,6 +12,7 @@ import { useConfig } from '../utils/config'
 import { useDb, type Tx } from '../utils/db'
 import { verifyPassword } from '../utils/password'
 import type { SignInBody } from '#shared/schemas/auth'
+import { counted } from '#shared/utils/counted'
 import { knownDevice } from './knownDevices'
 
 const WINDOW_MIN = 15
@@ -33,7 +34,7 @@ function tooMany(retryAfterSeconds: number, why: 'account' | 'address' | 'device
   const hint = why === 'account' ? ' If this is your account, sign in from a browser you have signed in with before, or reset your password.' : ''
   return createError({
     statusCode: 429, statusMessage: 'Too Many Requests',
-    message: `Too many failed sign-ins ${why === 'address' ? 'from this network' : 'for this account'}. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.${hint}`,
+    message: `Too many failed sign-ins ${why === 'address' ? 'from this network' : 'for this account'}. Wait ${counted(minutes, 'minute', 'minutes')} and try again.${hint}`,
     data: { retryAfterSeconds },
   })
 }
