@@ -1,4 +1,5 @@
 import type { ChipOutlines } from '../outlines'
+import { DBU_PER_UM } from '../units'
 import { collectEdges, indexEdges } from './edges'
 import { ElementLocator } from './locate'
 import { spacingAllPairs, spacingWithIndex } from './spacing'
@@ -6,8 +7,11 @@ import type { SpacingHit } from './spacing'
 import type { FabricationProcess, Finding } from './types'
 import { findingId } from './types'
 
-/** Measurements at exactly the limit pass; 1 nm absorbs rotation noise and the 0.1 nm merge grid (µm). */
-const TOL = 1e-3
+/**
+ * Measurements at exactly the limit pass; two database units (2 nm) absorb the rounding of both edges onto the
+ * 1 nm grid after a rotation (each vertex moves ≤ 0.71 nm) (µm).
+ */
+const TOL = 2 / DBU_PER_UM
 const r1 = (x: number) => (Math.round(x * 10) / 10).toString()
 
 /**
