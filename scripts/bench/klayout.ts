@@ -2,7 +2,8 @@
 // pieces of the 512-, 4,096- and 16,384-nozzle chips on the 1 nm database grid, lets `klayout -b` merge them
 // per layer (median of three, merge only, excluding load; scripts/bench/klayout-merge.py), times our merge of
 // the same pieces the same way and prints both, their ratio against the target (≤ 3× at 4,096 and 16,384) and
-// whether the merged areas agree per layer (1e-6 relative). Skipped with a printed line when klayout is absent.
+// whether the merged areas agree per layer (1e-6 relative); then reads our DXFs of the 512- and 4,096-nozzle
+// chips in KLayout and checks the filled area per layer (1e-6). Skipped with a printed line when klayout is absent.
 import { execFileSync } from 'node:child_process'
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
@@ -11,13 +12,16 @@ import { fileURLToPath } from 'node:url'
 import { multiPolygonArea } from '~~/geometry/area'
 import { planParallelChip } from '~~/geometry/arrays'
 import { documentPieces } from '~~/geometry/outlines/elements'
-import { mergePieces } from '~~/geometry/outlines'
+import { buildOutlines, mergePieces } from '~~/geometry/outlines'
+import { exportDxf } from '~~/geometry/dxf'
+import { depthLayerName } from '~~/geometry/dxf/layer-names'
 import type { Polygon } from '~~/geometry/types'
 import { DBU_PER_UM, toDbu } from '~~/geometry/units'
 import { median } from './timing'
 
 const KLAYOUT = process.env.KLAYOUT ?? '/usr/bin/klayout'
 const SCRIPT = fileURLToPath(new URL('./klayout-merge.py', import.meta.url))
+const DXF_SCRIPT = fileURLToPath(new URL('./klayout-dxf.py', import.meta.url))
 const SIZES = [512, 4096, 16384]
 const TARGET = 3
 
@@ -64,6 +68,44 @@ export function klayoutMerge(layers: Map<string, Polygon[]>): KLayoutMerge {
   }
 }
 
+/** KLayout's even-odd fill of every layer of a DXF we wrote: area µm² and parts per layer name. */
+export function klayoutDxfAreas(dxf: string): Map<string, { area: number; parts: number }> {
+  const dir = mkdtempSync(join(tmpdir(), 'dw-klayout-'))
+  try {
+    const input = join(dir, 'mask.dxf')
+    const output = join(dir, 'areas.txt')
+    writeFileSync(input, dxf)
+    execFileSync(KLAYOUT, ['-b', '-r', DXF_SCRIPT, '-rd', `input=${input}`, '-rd', `output=${output}`], { stdio: ['ignore', 'ignore', 'inherit'], timeout: 600_000 })
+    const areas = new Map<string, { area: number; parts: number }>()
+    for (const line of readFileSync(output, 'utf8').trim().split('\n')) {
+      const [name, area, parts] = line.split(' ')
+      areas.set(name!, { area: Number(area), parts: Number(parts) })
+    }
+    return areas
+  } finally {
+    rmSync(dir, { recursive: true, force: true })
+  }
+}
+
+/** Our DXFs of the 512- and 4,096-nozzle chips read and filled by KLayout: the same area per depth layer. */
+function dxfCheck(): void {
+  for (const n of [512, 4096]) {
+    const doc = planParallelChip({ nozzles: n }).document
+    const o = buildOutlines(doc)
+    const k = klayoutDxfAreas(exportDxf(doc, { outlines: o, date: '2026-01-01' }))
+    let worst = 0
+    const names: string[] = []
+    for (const l of o.layers) {
+      const name = depthLayerName(l.depth)
+      const ours = multiPolygonArea(l.polygons)
+      const theirs = k.get(name)?.area ?? NaN
+      worst = Math.max(worst, Math.abs(ours - theirs) / ours)
+      names.push(name)
+    }
+    console.log(`  DXF of ${n} nozzles read by KLayout (${names.join(', ')}): areas per layer agree to ${worst.toExponential(1)} relative (check ≤ 1e-6: ${worst <= 1e-6 ? 'ok' : 'FAILED'})`)
+  }
+}
+
 export async function run(): Promise<void> {
   if (!existsSync(KLAYOUT)) {
     console.log(`klayout: not installed at ${KLAYOUT} — side-by-side merge benchmark skipped (apt-get install klayout)`)
@@ -85,6 +127,7 @@ export async function run(): Promise<void> {
     console.log(`  merge ${n} nozzles: ours ${ours.toFixed(1)} ms, KLayout ${k.ms.toFixed(1)} ms, ratio ${ratio.toFixed(1)}×${target};` +
       ` areas per layer agree to ${worst.toExponential(1)} relative (check ≤ 1e-6: ${worst <= 1e-6 ? 'ok' : 'FAILED'})`)
   }
+  dxfCheck()
 }
 
 if (import.meta.url === `file://${globalThis.process.argv[1]}`) await run()
