@@ -112,6 +112,9 @@ export async function run(): Promise<void> {
     return
   }
   console.log('klayout: merge of the same raw pieces, median of three, merge only (load excluded)')
+  // Warm-up: a one-run warm-up leaves Clipper2's code unoptimised for the first size (512 read 5× slow).
+  const warm = rawPieces(512)
+  for (let i = 0; i < 5; i++) for (const pieces of warm.values()) mergePieces(pieces)
   for (const n of SIZES) {
     const layers = rawPieces(n)
     const k = klayoutMerge(layers)
