@@ -1,5 +1,5 @@
 // `npm run bench`: every benchmark of the pure core, printed as figures and ratios. Not a test.
-const suites = ['./bench/physics.ts', './bench/geometry.ts', './bench/planner.ts', './bench/imaging.ts']
+const suites = ['./bench/physics.ts', './bench/geometry.ts', './bench/klayout.ts', './bench/planner.ts', './bench/imaging.ts']
 for (const suite of suites) {
   try {
     const mod = await import(suite)

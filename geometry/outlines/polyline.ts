@@ -1,8 +1,10 @@
 import type { Pair, Polygon } from '../types'
-import { add, cross, dot, leftNormal, length, scale, segmentsIntersect, sub, unit } from '../vec'
+import { strokeOpenPath } from '../clip'
+import { toDbu } from '../units'
+import { cross, dot, length, segmentsIntersect, sub, unit } from '../vec'
 
 export interface StrokeOptions {
-  /** Largest miter length as a multiple of the half-width before a join is bevelled (SVG's stroke-miterlimit idea). */
+  /** Largest miter length as a multiple of the half-width before a join is squared off (Clipper2's miter limit). */
   miterLimit?: number
 }
 
@@ -39,46 +41,27 @@ export function findSelfCrossing(pts: readonly Pair[]): Pair | null {
 }
 
 /**
- * Sweeps a centre-line polyline with a constant width: one rectangle per segment (flat, butt ends: a channel
- * ends exactly at its end point), plus a miter or bevel wedge on the outer side of every turn. The pieces
- * overlap on the inner side and are merged by the layer union. Rejects self-crossing and doubling back.
+ * Sweeps a centre-line polyline with a constant width by Clipper2's open-path offsetting (clip.ts) on the
+ * integer database grid: butt ends (a channel ends exactly at its end point), mitred joins up to a miter
+ * length of `miterLimit` × the half-width, squared off beyond (the library's join; it replaced a hand-written
+ * stroker that bevelled). One piece per channel, rings open (no repeated first point), on the 1 nm grid.
+ * Rejects self-crossing and doubling back, which a mask must not silently merge.
  */
 export function strokePolyline(points: readonly Pair[], width: number, options: StrokeOptions = {}): StrokeResult {
   const miterLimit = options.miterLimit ?? 2
   const pts = cleanPolyline(points)
   if (pts.length < 2 || !(width > 0)) return { ok: false, reason: 'degenerate', at: points[0] ?? [0, 0] }
-  const h = width / 2
-  const pieces: Polygon[] = []
-  for (let i = 0; i < pts.length - 1; i++) {
-    const a = pts[i]!
-    const b = pts[i + 1]!
-    const n = scale(leftNormal(unit(sub(b, a))), h)
-    pieces.push([[sub(a, n), sub(b, n), add(b, n), add(a, n)]])
-  }
   for (let i = 1; i < pts.length - 1; i++) {
     const v = pts[i]!
     const d0 = unit(sub(v, pts[i - 1]!))
     const d1 = unit(sub(pts[i + 1]!, v))
-    const turn = cross(d0, d1)
-    if (Math.abs(turn) <= 1e-12) {
-      if (dot(d0, d1) < 0) return { ok: false, reason: 'doubles-back', at: v }
-      continue
-    }
-    // Outer side of the turn: right of the path for a left turn, left for a right turn.
-    const side = turn > 0 ? -1 : 1
-    const n0 = scale(leftNormal(d0), side)
-    const n1 = scale(leftNormal(d1), side)
-    const bis = unit(add(n0, n1))
-    const cosHalf = dot(bis, n0) // cos of half the turn angle
-    const p0 = add(v, scale(n0, h))
-    const p1 = add(v, scale(n1, h))
-    if (cosHalf > 1e-9 && 1 / cosHalf <= miterLimit) {
-      pieces.push([[v, p0, add(v, scale(bis, h / cosHalf)), p1]])
-    } else {
-      pieces.push([[v, p0, p1]])
-    }
+    if (Math.abs(cross(d0, d1)) <= 1e-12 && dot(d0, d1) < 0) return { ok: false, reason: 'doubles-back', at: v }
   }
   const crossing = findSelfCrossing(pts)
   if (crossing) return { ok: false, reason: 'self-crossing', at: crossing }
+  if (toDbu(width / 2) <= 0) return { ok: false, reason: 'degenerate', at: pts[0]! }
+  const outline = strokeOpenPath(pts, width / 2, miterLimit)
+  const pieces: Polygon[] = outline.map((poly) => poly.map((ring) => ring.slice(0, -1)))
+  if (pieces.length === 0) return { ok: false, reason: 'degenerate', at: pts[0]! }
   return { ok: true, pieces }
 }

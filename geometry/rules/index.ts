@@ -4,6 +4,7 @@ import { buildOutlines } from '../outlines'
 import { crossingFindings } from './crossings'
 import { elementFindings } from './element-checks'
 import { spacingFindings } from './layer-spacing'
+import type { SpacingMethod } from './layer-spacing'
 import { liquidFindings } from './liquids'
 import { placementFindings } from './placement'
 import type { FabricationProcess, Finding } from './types'
@@ -14,6 +15,8 @@ export interface RuleOptions {
   outlines?: ChipOutlines
   /** Use the O(n²) all-pairs spacing search (benchmark only). */
   naive?: boolean
+  /** Width and gap by sizing (default) or by edge pairs alone (the reference in tests). */
+  spacing?: SpacingMethod
 }
 
 const ORDER = { error: 0, warning: 1, info: 2 } as const
@@ -26,7 +29,7 @@ export function checkDesignRules(doc: ChipDocument, process: FabricationProcess,
   }))
   const all = [
     ...geometry,
-    ...spacingFindings(o, process, options.naive ?? false),
+    ...spacingFindings(o, process, options.naive ?? false, options.spacing ?? 'sizing'),
     ...elementFindings(doc, process),
     ...crossingFindings(doc),
     ...placementFindings(doc, o, process),
@@ -37,4 +40,5 @@ export function checkDesignRules(doc: ChipDocument, process: FabricationProcess,
 
 export { BUILT_IN_PROCESSES, findProcess } from './processes'
 export type { FabricationProcess, Finding, Severity } from './types'
+export type { SpacingMethod } from './layer-spacing'
 export { classifyLiquid } from './liquids'

@@ -2,7 +2,7 @@ import Flatbush from 'flatbush'
 import type { ElementPieces, Pair } from '../types'
 import { closestOnSegment, length, pointInRing, sub } from '../vec'
 
-/** Finds which elements' pieces touch a point (within `tol` µm, above the 0.1 nm merge grid), through a box index of the pieces. */
+/** Finds which elements' pieces touch a point (within `tol` µm: merged outlines sit on the 1 nm grid and the merge's closing moves corners by a few nm), through a box index of the pieces. */
 export class ElementLocator {
   private readonly index: Flatbush | null
   private readonly owners: { elementId: string; ring: Pair[] }[] = []
@@ -19,7 +19,7 @@ export class ElementLocator {
     this.index.finish()
   }
 
-  elementsAt(p: Pair, tol = 1e-3): string[] {
+  elementsAt(p: Pair, tol = 5e-3): string[] {
     if (!this.index) return []
     const found = new Set<string>()
     for (const k of this.index.search(p[0] - tol, p[1] - tol, p[0] + tol, p[1] + tol)) {

@@ -1,5 +1,6 @@
 import type Flatbush from 'flatbush'
 import type { Pair } from '../types'
+import { DBU_PER_UM } from '../units'
 import { dot, leftNormal, segmentDistance, sub, unit } from '../vec'
 import type { EdgeSet } from './edges'
 import { adjacent } from './edges'
@@ -7,6 +8,11 @@ import { adjacent } from './edges'
 /** A too-narrow feature ('width') or too-narrow space between features ('gap') on one layer. */
 export interface SpacingHit { kind: 'width' | 'gap'; distance: number; p: Pair; q: Pair }
 
+/**
+ * Edge pairs closer than two database units measure rounding, not a feature: a one-unit jog where two
+ * edges meant to be collinear were rounded onto neighbouring grid lines (rotated pieces on the 1 nm grid).
+ */
+const GRID_NOISE = 2 / DBU_PER_UM
 const FACING = Math.SQRT1_2 // the closest-point vector must lie within 45° of both edges' normals
 
 /**
@@ -24,7 +30,7 @@ export function classifyPair(e: EdgeSet, i: number, j: number, limit: number): S
   const c: Pair = [e.ax[j]!, e.ay[j]!]
   const d: Pair = [e.bx[j]!, e.by[j]!]
   const r = segmentDistance(a, b, c, d)
-  if (r.distance >= limit || r.distance <= 1e-9) return null
+  if (r.distance >= limit || r.distance <= GRID_NOISE) return null
   if (e.part[i] !== e.part[j]) return { kind: 'gap', distance: r.distance, p: r.p, q: r.q }
   const v = unit(sub(r.q, r.p))
   const ni = leftNormal(unit(sub(b, a)))

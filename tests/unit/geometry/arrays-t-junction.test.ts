@@ -75,3 +75,14 @@ describe('chip size and wafer', () => {
     expect(p.warnings[0]).toMatch(/does not fit a 100 mm wafer/)
   })
 })
+
+describe('unbounded plans (benchmarks only)', () => {
+  it('are the same document the schema accepts, only unchecked', () => {
+    // The 16,384-nozzle benchmark chip is over the piece limit; below it, skipping the check changes nothing.
+    const checked = planParallelChip({ nozzles: 256 }).document
+    const unchecked = planParallelChip({ nozzles: 256, unbounded: true }).document
+    expect(unchecked).toEqual(checked)
+    expect(() => planParallelChip({ nozzles: 16384 })).toThrow(/at most 40 000 pieces/)
+    expect(planParallelChip({ nozzles: 16384, unbounded: true }).document.components.length).toBeGreaterThanOrEqual(16384)
+  })
+})
