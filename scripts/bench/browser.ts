@@ -91,7 +91,7 @@ async function trace<T>(cdp: CDPSession, body: () => Promise<T>): Promise<{ valu
 /** Main-thread busy time per frame (ms): toplevel tasks of the renderer's main thread summed between frame marks. */
 function workPerFrame(events: TraceEvent[]): number[] {
   const mains = new Set(events.filter(e => e.ph === 'M' && e.name === 'thread_name' && e.args?.name === 'CrRendererMain').map(e => `${e.pid}:${e.tid}`))
-  const tasks = events.filter(e => e.ph === 'X' && e.name === 'RunTask' && mains.has(`${e.pid}:${e.tid}`) && e.dur != null)
+  const tasks = events.filter(e => e.ph === 'X' && (e.name === 'RunTask' || e.name === 'ThreadControllerImpl::RunTask') && mains.has(`${e.pid}:${e.tid}`) && e.dur != null)
   if (!tasks.length) return []
   // The page's main thread: the busiest CrRendererMain.
   const busy = new Map<string, number>()
@@ -127,7 +127,8 @@ async function release(page: Page): Promise<number> {
   const before = await page.evaluate(() => (window as any).__dwEditor.live.value.at)
   await page.evaluate(() => { (window as any).__release = performance.now() })
   await page.mouse.up()
-  await page.waitForFunction((b) => (window as any).__dwEditor.live.value.at > b, before, { timeout: 60_000 })
+  // Over a minute counts as never (printed as Infinity).
+  try { await page.waitForFunction((b) => (window as any).__dwEditor.live.value.at > b, before, { timeout: 60_000 }) } catch { return Infinity }
   return page.evaluate(() => (window as any).__dwEditor.live.value.at - (window as any).__release)
 }
 
@@ -215,7 +216,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     console.log(`Editor in Chromium headless, 1440 × 900 CSS px; ${new Date().toISOString()}`)
     for (const n of SIZES) {
       const p = await context.newPage()
-      try { await benchSize(p, labId, n) } finally { await p.close() }
+      try { await benchSize(p, labId, n) } catch (e) { console.log(`\n${n} nozzles: failed: ${e instanceof Error ? e.message.split('\n')[0] : e}`) } finally { await p.close() }
     }
   } finally {
     await browser.close()

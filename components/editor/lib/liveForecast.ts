@@ -61,6 +61,10 @@ function workerRunner(): WorkerRunner | null {
 }
 const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
 
+/** Up to this many ports, components and channels the first forecast runs in the page (the 512-nozzle chip has 1,540). */
+const IN_PAGE_FIRST_MAX = 2000
+const elementCount = (d: ChipDocument) => d.ports.length + d.components.length + d.channels.length
+
 /** A run taking longer than this shows "updating" (a shorter one would only flicker). */
 const SLOW_MS = 150
 
@@ -77,9 +81,10 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   // the forecast (they cost more on a large chip).
   let rulesFor = 0
   worker?.onRules((a) => { if (a.seq === rulesFor) findings.value = a.findings })
-  // The first forecast runs in the page, right after the chip is drawn, while the worker loads, checks the rules and
-  // warms up on the same document; every later one runs in the worker.
-  let first = !!worker
+  // On a small chip the first forecast runs in the page, right after the chip is drawn, while the worker loads,
+  // checks the rules and warms up on the same document; every later one runs in the worker. A large chip's first
+  // forecast goes to the worker too: on 4,096 nozzles it would hold the page for a second or more.
+  let first = !!worker && !!doc.value && elementCount(doc.value) <= IN_PAGE_FIRST_MAX
   let busy = false
   let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
