@@ -1,7 +1,8 @@
 // The editor's live forecast and rule checks off the main thread, so a large chip's forecast never holds up a
 // frame. It answers the summary (canvas labels) and the forecast without the network's per-node and per-channel
-// lists, which the editor does not show and which would cost more to copy back than to compute; then, in a task of
-// its own, the design-rule findings of the same document (dropped when a newer edit arrives first).
+// lists, which the editor does not show and which would cost more to copy back than to compute, and with only the
+// junctions of the focused (selected) element; then, in a task of its own, the design-rule findings of the same
+// document (dropped when a newer edit arrives first).
 //
 // It keeps the document of the previous request: after the first one the page sends only a patch of what the
 // edit changed (liveRun.ts, diffDocument), and when only marks or the chip outline changed, the previous forecast
@@ -12,7 +13,7 @@
 // first edit: on the 512-nozzle chip a first edit's run took 56–70 ms cold and 12–18 ms warmed. A request
 // arriving meanwhile stops the warm-up and is answered at once.
 import type { ChipDocument } from '#shared/schemas/chip'
-import { applyPatch, forecastUnchanged, runLiveForecast, runLiveRules, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
+import { applyPatch, focusOn, forecastUnchanged, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
 
 const WARM_UP_RUNS = 6
 let warmUp: ReturnType<typeof setTimeout> | undefined
@@ -20,7 +21,12 @@ let rules: ReturnType<typeof setTimeout> | undefined
 let doc: ChipDocument | null = null
 let last: LiveAnswer | null = null
 
-self.onmessage = (e: MessageEvent<LiveRequest>) => {
+self.onmessage = (e: MessageEvent<LiveRequest | FocusRequest>) => {
+  if ('refocus' in e.data) {
+    const f = e.data
+    self.postMessage({ seq: f.seq, focus: f.focus, junctions: focusOn(last?.forecast ?? null, f.focus)?.junctions ?? [] } satisfies FocusAnswer)
+    return
+  }
   clearTimeout(warmUp)
   clearTimeout(rules)
   const req = e.data
@@ -39,6 +45,7 @@ self.onmessage = (e: MessageEvent<LiveRequest>) => {
   }
   const same = !!(last && before && req.patch && !last.error && forecastUnchanged(before, req.patch))
   last = same ? { ...last!, seq: req.seq } : runLiveForecast(d, req.seq)
-  self.postMessage(last)
+  // The page gets the junctions of the focused element only; the rest stay here for a later focus request.
+  self.postMessage({ ...last, forecast: focusOn(last.forecast, req.focus) } satisfies LiveAnswer)
   if (req.processId !== undefined) rules = setTimeout(() => self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId) } satisfies RulesAnswer), 0)
 }

@@ -6,7 +6,7 @@ import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
 import type { Finding } from '~~/geometry/rules'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
-import { diffDocument, runLiveForecast, runLiveRules, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
+import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
 
 export { designProcess } from './liveRun'
 
@@ -21,9 +21,12 @@ export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAns
  * request carries only a patch of what changed (liveRun.ts).
  */
 interface WorkerRunner {
-  run: (doc: ChipDocument, seq: number, processId: string | null) => Promise<LiveAnswer>
+  run: (doc: ChipDocument, seq: number, processId: string | null, focus: string | null) => Promise<LiveAnswer>
   warm: (doc: ChipDocument, seq: number, processId: string | null) => void
+  /** The junctions of another element from the worker's last forecast. */
+  refocus: (seq: number, focus: string | null) => void
   onRules: (f: (a: RulesAnswer) => void) => void
+  onFocus: (f: (a: FocusAnswer) => void) => void
   stop: () => void
 }
 
@@ -33,10 +36,12 @@ function workerRunner(): WorkerRunner | null {
   try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
   const waiting = new Map<number, { doc: ChipDocument; done: (a: LiveAnswer) => void }>()
   let rules: (a: RulesAnswer) => void = () => {}
+  let focused: (a: FocusAnswer) => void = () => {}
   /** The document the worker holds (the last one sent), for the next patch. */
   let sent: ChipDocument | null = null
-  worker.onmessage = (e: MessageEvent<LiveAnswer | RulesAnswer>) => {
+  worker.onmessage = (e: MessageEvent<LiveAnswer | RulesAnswer | FocusAnswer>) => {
     if ('findings' in e.data) { rules(e.data); return }
+    if ('junctions' in e.data) { focused(e.data); return }
     waiting.get(e.data.seq)?.done(e.data)
     waiting.delete(e.data.seq)
   }
@@ -49,11 +54,13 @@ function workerRunner(): WorkerRunner | null {
     sent = raw
   }
   return {
-    run: (doc, seq, processId) => new Promise((done) => {
+    run: (doc, seq, processId, focus) => new Promise((done) => {
       if (broken) { done(runLiveForecast(doc, seq)); return }
       waiting.set(seq, { doc, done })
-      send(doc, { seq, processId })
+      send(doc, { seq, processId, focus })
     }),
+    refocus: (seq, focus) => { if (!broken) worker.postMessage({ seq, refocus: true, focus } satisfies FocusRequest) },
+    onFocus: (f) => { focused = f },
     warm: (doc, seq, processId) => { if (!broken) send(doc, { seq, warm: true, processId }) },
     onRules: (f) => { rules = f },
     stop: () => worker.terminate(),
@@ -68,7 +75,11 @@ const elementCount = (d: ChipDocument) => d.ports.length + d.components.length +
 /** A run taking longer than this shows "updating" (a shorter one would only flicker). */
 const SLOW_MS = 150
 
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner } = {}) {
+/**
+ * `focus`: the element whose junctions `live.forecast.junctions` must hold (the selected part); from the worker
+ * the forecast carries that element's junctions only (focusOn in liveRun.ts), the summary every junction.
+ */
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner; focus?: Ref<string | null> } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
   /** True while a run has taken longer than SLOW_MS, so the panel can say the numbers are being updated. */
@@ -81,11 +92,21 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   // the forecast (they cost more on a large chip).
   let rulesFor = 0
   worker?.onRules((a) => { if (a.seq === rulesFor) findings.value = a.findings })
+  // The seq of the forecast shown, and whether it came from the worker (then it holds the focused junctions only).
+  let shown = 0
+  let fromWorker = false
+  let sentFocus: string | null = null
+  const focus = () => opts.focus?.value ?? null
+  worker?.onFocus((a) => {
+    const f = live.value.forecast
+    if (a.seq === shown && f && a.focus === focus()) live.value = { ...live.value, forecast: { ...f, junctions: a.junctions } }
+  })
   // On a small chip the first forecast runs in the page, right after the chip is drawn, while the worker loads,
   // checks the rules and warms up on the same document; every later one runs in the worker. A large chip's first
   // forecast goes to the worker too: on 4,096 nozzles it would hold the page for a second or more.
   let first = !!worker && !!doc.value && elementCount(doc.value) <= IN_PAGE_FIRST_MAX
   let busy = false
+  if (worker && opts.focus) watch(opts.focus, (id) => { if (fromWorker && !busy) worker.refocus(shown, id) })
   let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
   let rulesTimer: ReturnType<typeof setTimeout> | undefined
@@ -108,13 +129,17 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
       a = await inThread(d, n)
     } else {
       rulesFor = n
-      a = await worker.run(d, n, processId())
+      sentFocus = focus()
+      a = await worker.run(d, n, processId(), sentFocus)
     }
+    fromWorker = !!worker && !here
     busy = false
     clearTimeout(slowTimer)
     slow.value = false
+    shown = n
     live.value = { forecast: a.forecast, summary: a.summary, error: a.error, at: performance.now() }
     if (pending) { const next = pending; pending = null; run(next) }
+    else if (fromWorker && focus() !== sentFocus) worker!.refocus(n, focus()) // the selection changed meanwhile
   }
   // With a worker the document is sent at once, so the forecast runs while the page redraws the chip; in the
   // page itself it waits for the redraw.

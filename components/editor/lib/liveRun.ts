@@ -9,13 +9,25 @@ import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProc
  * request's document. `warm`: run the document a few times to let the engine compile the forecast code, answer
  * nothing. `processId`: also check the design rules of that process, answered after the forecast.
  */
-export interface LiveRequest { seq: number; doc?: ChipDocument; patch?: DocPatch; warm?: boolean; processId?: string | null }
+export interface LiveRequest { seq: number; doc?: ChipDocument; patch?: DocPatch; warm?: boolean; processId?: string | null; focus?: string | null }
+/** Only a change of the focused element: answer its junctions from the last forecast (a FocusAnswer). */
+export interface FocusRequest { seq: number; refocus: true; focus: string | null }
+export interface FocusAnswer { seq: number; focus: string | null; junctions: DocumentForecast['junctions'] }
 export interface LiveAnswer { seq: number; forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null }
 export interface RulesAnswer { seq: number; findings: Finding[] }
 
 /** The forecast with the network's node and channel lists left empty (kept: inlets, outlets, uniformity, margins). */
 export function leanForecast(f: DocumentForecast): DocumentForecast {
   return { ...f, network: { ...f.network, nodes: [], channels: [] } }
+}
+
+/**
+ * The forecast with the junctions of one element only (the selected part, whose table and plots the editor
+ * shows). On 4,096 nozzles the whole list is ≈ 29 MB to copy from the worker (≈ 200 ms on the main thread); the
+ * canvas labels come from the summary, which keeps every junction.
+ */
+export function focusOn(f: DocumentForecast | null, focus: string | null | undefined): DocumentForecast | null {
+  return f && { ...f, junctions: focus ? f.junctions.filter(j => j.element === focus) : [] }
 }
 
 export function runLiveForecast(doc: ChipDocument, seq: number): LiveAnswer {

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { parseChipDocument, rememberParsed, type ChipDocument } from '../../../shared/schemas/chip'
 import { actions, runAction } from '../../../shared/editor'
 import { generateParallelChip } from '../../../geometry/arrays'
-import { applyPatch, diffDocument, forecastUnchanged, runLiveForecast, runLiveRules, type LiveAnswer, type RulesAnswer } from '../../../components/editor/lib/liveRun'
+import { applyPatch, diffDocument, focusOn, forecastUnchanged, runLiveForecast, runLiveRules, type FocusAnswer, type LiveAnswer, type RulesAnswer } from '../../../components/editor/lib/liveRun'
 import { fixtureDocument } from '../../support/factory'
 
 const parsed = (raw: unknown): ChipDocument => { const r = parseChipDocument(raw); if (!r.ok) throw new Error(r.errors[0]!.message); rememberParsed(r.document); return r.document }
@@ -60,13 +60,13 @@ describe('forecast reuse', () => {
 })
 
 describe('the forecast worker', () => {
-  const posted: Array<LiveAnswer | RulesAnswer> = []
+  const posted: Array<LiveAnswer | RulesAnswer | FocusAnswer> = []
   const g = globalThis as unknown as { self?: unknown }
   const had = 'self' in g
   const old = g.self
   let onmessage: (e: { data: unknown }) => void
   beforeAll(async () => {
-    g.self = { postMessage: (m: LiveAnswer | RulesAnswer) => posted.push(m), onmessage: null }
+    g.self = { postMessage: (m: LiveAnswer | RulesAnswer | FocusAnswer) => posted.push(m), onmessage: null }
     await import('../../../components/editor/lib/forecast.worker')
     onmessage = (g.self as { onmessage: typeof onmessage }).onmessage
   })
@@ -78,13 +78,24 @@ describe('the forecast worker', () => {
     docs.push(edit(docs[0]!, 'move', { ids: [docs[0]!.components[5]!.id], dx: 30, dy: 0 }))
     docs.push(edit(docs[1]!, 'setField', { id: docs[1]!.channels[3]!.id, path: 'width', value: docs[1]!.channels[3]!.width * 2 }))
     docs.push(edit(docs[2]!, 'placeMark', { position: { x: 100, y: 100 } }))
-    onmessage({ data: { seq: 1, doc: structuredClone(docs[0]), processId: 'film-mask-soft-litho' } })
-    for (let k = 1; k < docs.length; k++) onmessage({ data: structuredClone({ seq: k + 1, patch: diffDocument(docs[k - 1]!, docs[k]!), processId: 'film-mask-soft-litho' }) })
+    const focus = docs[0]!.components[5]!.id
+    onmessage({ data: { seq: 1, doc: structuredClone(docs[0]), processId: 'film-mask-soft-litho', focus } })
+    for (let k = 1; k < docs.length; k++) onmessage({ data: structuredClone({ seq: k + 1, patch: diffDocument(docs[k - 1]!, docs[k]!), processId: 'film-mask-soft-litho', focus }) })
     await until(docs.length + 1)
     const answers = posted.filter((m): m is LiveAnswer => 'summary' in m)
     expect(answers.map(a => a.seq)).toEqual([1, 2, 3, 4])
-    for (const [k, a] of answers.entries()) expect(a).toEqual(runLiveForecast(docs[k]!, k + 1))
+    for (const [k, a] of answers.entries()) {
+      const full = runLiveForecast(docs[k]!, k + 1)
+      expect(a).toEqual({ ...full, forecast: focusOn(full.forecast, focus) })
+      expect(a.forecast!.junctions.length).toBe(1) // the focused nozzle's junction, the same as in the full forecast
+      expect(a.forecast!.junctions).toEqual(full.forecast!.junctions.filter(j => j.element === focus))
+    }
     expect(answers[2]!.summary).not.toEqual(answers[1]!.summary)
+    // Another selection: its junctions from the last forecast, as the full forecast has them.
+    const other = docs[3]!.components[9]!.id
+    onmessage({ data: { seq: 4, refocus: true, focus: other } })
+    const moved = posted.find((m): m is FocusAnswer => 'junctions' in m)!
+    expect(moved.junctions).toEqual(runLiveForecast(docs[3]!, 4).forecast!.junctions.filter(j => j.element === other))
     // Rules run after the forecast in their own task and only for the newest document.
     const rules = posted.filter((m): m is RulesAnswer => 'findings' in m)
     expect(rules.map(r => r.seq)).toEqual([4])
