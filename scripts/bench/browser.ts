@@ -157,7 +157,9 @@ async function benchSize(page: Page, labId: string, n: number) {
     const r = window.document.querySelector('[data-test="editor-canvas"]')!.getBoundingClientRect()
     const s = Math.max(v.scale * 8, 0.2)
     canvas.value.setView({ scale: s, tx: r.width / 2 - s * c.position.x, ty: r.height / 2 + s * c.position.y })
-    return { x: r.left + r.width / 2 + 2, y: r.top + r.height / 2 }
+    // into the exposed nozzle (past the supply manifold it starts under); a step array: its nozzle row
+    const into = c.kind === 'step-array' ? c.nozzleLength / 2 : c.nozzleLength - 75
+    return { x: r.left + r.width / 2 + s * into, y: r.top + r.height / 2 }
   })
   await page.waitForTimeout(500)
   await page.evaluate(`(() => {
