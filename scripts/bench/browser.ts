@@ -120,6 +120,7 @@ async function drag(page: Page, target: { x: number; y: number }, ms: number, i0
   const t0 = Date.now()
   let i = i0
   while (Date.now() - t0 < ms) { i++; await page.mouse.move(target.x + 60 * Math.sin(i / 10), target.y + 40 * Math.cos(i / 13)) }
+  await page.mouse.move(target.x + 30, target.y) // released 30 px from where it was taken, so the edit moves it
   return i
 }
 
@@ -149,18 +150,20 @@ async function benchSize(page: Page, labId: string, n: number) {
     try { new PerformanceObserver(l => { for (const e of l.getEntries()) window.__loaf.push(e.duration) }).observe({ type: 'long-animation-frame' }) } catch {}
   })()`)
 
-  // Zoom to 8× the fit around the middle nozzle, as a person editing one would.
-  const target = await page.evaluate(() => {
+  // Zoom to 8× the fit around the middle nozzle, as a person editing one would; before each drag the view is
+  // centred on it again (the previous drag moved it).
+  const aim = (scale: number | null) => page.evaluate((scale) => {
     const { store, canvas } = (window as any).__dwEditor
     const c = store.doc.components[Math.floor(store.doc.components.length / 2)]
     const v = canvas.value.view
     const r = window.document.querySelector('[data-test="editor-canvas"]')!.getBoundingClientRect()
-    const s = Math.max(v.scale * 8, 0.2)
+    const s = scale ?? Math.max(v.scale * 8, 0.2)
     canvas.value.setView({ scale: s, tx: r.width / 2 - s * c.position.x, ty: r.height / 2 + s * c.position.y })
     // into the exposed nozzle (past the supply manifold it starts under); a step array: its nozzle row
     const into = c.kind === 'step-array' ? c.nozzleLength / 2 : c.nozzleLength - 75
-    return { x: r.left + r.width / 2 + s * into, y: r.top + r.height / 2 }
-  })
+    return { x: r.left + r.width / 2 + s * into, y: r.top + r.height / 2, s }
+  }, scale)
+  let target = await aim(null)
   await page.waitForTimeout(500)
   await page.evaluate(`(() => {
     window.__frames = []; let last = performance.now(); window.__recording = true
@@ -175,6 +178,7 @@ async function benchSize(page: Page, labId: string, n: number) {
   const intervals: number[] = await page.evaluate(() => { (window as any).__recording = false; return (window as any).__frames.slice(2) })
   let i = moves
   for (let k = 0; k < 4; k++) {
+    target = await aim(target.s)
     await page.waitForTimeout(300)
     i = await drag(page, target, 500, i)
     releases.push(await release(page))
