@@ -1,22 +1,51 @@
-// The editor's live forecast off the main thread, so a large chip's forecast never holds up a frame. It answers
-// the summary (canvas labels) and the forecast without the network's per-node and per-channel lists, which the
-// editor does not show and which would cost more to copy back than to compute.
+// The editor's live forecast and rule checks off the main thread, so a large chip's forecast never holds up a
+// frame. It answers the summary (canvas labels) and the forecast without the network's per-node and per-channel
+// lists, which the editor does not show and which would cost more to copy back than to compute, and with only the
+// junctions of the focused (selected) element; then, in a task of its own, the design-rule findings of the same
+// document (dropped when a newer edit arrives first).
+//
+// It keeps the document of the previous request: after the first one the page sends only a patch of what the
+// edit changed (liveRun.ts, diffDocument), and when only marks or the chip outline changed, the previous forecast
+// is answered again without solving (the forecast never reads them).
 //
 // Asked to warm up (the page sends the opened chip while it runs the first forecast itself), it forecasts that
 // chip a few times, one run per task, so the JavaScript engine has compiled the forecast code before the person's
 // first edit: on the 512-nozzle chip a first edit's run took 56–70 ms cold and 12–18 ms warmed. A request
 // arriving meanwhile stops the warm-up and is answered at once.
 import type { ChipDocument } from '#shared/schemas/chip'
-import { runLiveForecast, type LiveRequest } from './liveRun'
+import { applyPatch, focusOn, forecastUnchanged, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
 
 const WARM_UP_RUNS = 6
 let warmUp: ReturnType<typeof setTimeout> | undefined
+let rules: ReturnType<typeof setTimeout> | undefined
+let doc: ChipDocument | null = null
+let last: LiveAnswer | null = null
 
-self.onmessage = (e: MessageEvent<LiveRequest>) => {
+self.onmessage = (e: MessageEvent<LiveRequest | FocusRequest>) => {
+  if ('refocus' in e.data) {
+    const f = e.data
+    self.postMessage({ seq: f.seq, focus: f.focus, junctions: focusOn(last?.forecast ?? null, f.focus)?.junctions ?? [] } satisfies FocusAnswer)
+    return
+  }
   clearTimeout(warmUp)
-  const doc = e.data.doc as ChipDocument
-  if (!e.data.warm) { self.postMessage(runLiveForecast(doc, e.data.seq)); return }
-  let left = WARM_UP_RUNS
-  const next = () => { if (left-- > 0) { runLiveForecast(doc, 0); warmUp = setTimeout(next, 0) } }
-  warmUp = setTimeout(next, 0)
+  clearTimeout(rules)
+  const req = e.data
+  const before = doc
+  doc = req.doc ?? (before && req.patch ? applyPatch(before, req.patch) : null)
+  if (!doc) { self.postMessage({ seq: req.seq, forecast: null, summary: null, error: 'The forecast worker lost its document: reload the page' } satisfies LiveAnswer); return }
+  const d = doc
+  if (req.warm) {
+    // The opened chip's findings first (the page shows them), then the warm-up runs.
+    if (req.processId !== undefined) self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId) } satisfies RulesAnswer)
+    let left = WARM_UP_RUNS
+    const next = () => { if (left-- > 0) { runLiveForecast(d, 0); warmUp = setTimeout(next, 0) } }
+    warmUp = setTimeout(next, 0)
+    last = null
+    return
+  }
+  const same = !!(last && before && req.patch && !last.error && forecastUnchanged(before, req.patch))
+  last = same ? { ...last!, seq: req.seq } : runLiveForecast(d, req.seq)
+  // The page gets the junctions of the focused element only; the rest stay here for a later focus request.
+  self.postMessage({ ...last, forecast: focusOn(last.forecast, req.focus) } satisfies LiveAnswer)
+  if (req.processId !== undefined) rules = setTimeout(() => self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId) } satisfies RulesAnswer), 0)
 }

@@ -4,56 +4,109 @@
 import { onScopeDispose, shallowRef, toRaw, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProcess, type Finding } from '~~/geometry/rules'
+import type { Finding } from '~~/geometry/rules'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
-import { runLiveForecast, type LiveAnswer, type LiveRequest } from './liveRun'
+import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
+
+export { designProcess } from './liveRun'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
-
-/** The design's own process for rule checks; the first built-in one only when the design names none we know. */
-export const designProcess = (processId: string | null | undefined): FabricationProcess =>
-  (processId ? findProcess(processId) : undefined) ?? BUILT_IN_PROCESSES[0]!
 
 /** Runs one forecast: in a Web Worker in the browser, in the calling thread where there is none (tests, old browsers). */
 export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAnswer>
 
-/** A runner in a Web Worker that can also be asked to warm up on a document (run it a few times, answer nothing). */
-type WorkerRunner = ForecastRunner & { warm: (doc: ChipDocument) => void }
+/**
+ * The Web Worker (forecast.worker.ts): forecasts, then checks the rules of the same document and answers them
+ * through `onRules`; can be asked to warm up on a document. It keeps the document it was last sent, so each later
+ * request carries only a patch of what changed (liveRun.ts).
+ */
+interface WorkerRunner {
+  run: (doc: ChipDocument, seq: number, processId: string | null, focus: string | null) => Promise<LiveAnswer>
+  warm: (doc: ChipDocument, seq: number, processId: string | null) => void
+  /** The junctions of another element from the worker's last forecast. */
+  refocus: (seq: number, focus: string | null) => void
+  onRules: (f: (a: RulesAnswer) => void) => void
+  onFocus: (f: (a: FocusAnswer) => void) => void
+  stop: () => void
+}
 
 function workerRunner(): WorkerRunner | null {
   if (typeof Worker === 'undefined') return null
   let worker: Worker
   try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
   const waiting = new Map<number, { doc: ChipDocument; done: (a: LiveAnswer) => void }>()
-  worker.onmessage = (e: MessageEvent<LiveAnswer>) => { waiting.get(e.data.seq)?.done(e.data); waiting.delete(e.data.seq) }
+  let rules: (a: RulesAnswer) => void = () => {}
+  let focused: (a: FocusAnswer) => void = () => {}
+  /** The document the worker holds (the last one sent), for the next patch. */
+  let sent: ChipDocument | null = null
+  worker.onmessage = (e: MessageEvent<LiveAnswer | RulesAnswer | FocusAnswer>) => {
+    if ('findings' in e.data) { rules(e.data); return }
+    if ('junctions' in e.data) { focused(e.data); return }
+    waiting.get(e.data.seq)?.done(e.data)
+    waiting.delete(e.data.seq)
+  }
   // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
   let broken = false
   worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq)); waiting.clear() }
-  const run: ForecastRunner = (doc, seq) => new Promise((done) => {
-    if (broken) { done(runLiveForecast(doc, seq)); return }
-    waiting.set(seq, { doc, done })
-    worker.postMessage({ seq, doc: toRaw(doc) } satisfies LiveRequest)
-  })
-  return Object.assign(run, { warm: (doc: ChipDocument) => { if (!broken) worker.postMessage({ seq: 0, doc: toRaw(doc), warm: true } satisfies LiveRequest) } })
+  const send = (doc: ChipDocument, req: Omit<LiveRequest, 'doc' | 'patch'>) => {
+    const raw = toRaw(doc)
+    worker.postMessage({ ...req, ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }) } satisfies LiveRequest)
+    sent = raw
+  }
+  return {
+    run: (doc, seq, processId, focus) => new Promise((done) => {
+      if (broken) { done(runLiveForecast(doc, seq)); return }
+      waiting.set(seq, { doc, done })
+      send(doc, { seq, processId, focus })
+    }),
+    refocus: (seq, focus) => { if (!broken) worker.postMessage({ seq, refocus: true, focus } satisfies FocusRequest) },
+    onFocus: (f) => { focused = f },
+    warm: (doc, seq, processId) => { if (!broken) send(doc, { seq, warm: true, processId }) },
+    onRules: (f) => { rules = f },
+    stop: () => worker.terminate(),
+  }
 }
 const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
+
+/** Up to this many ports, components and channels the first forecast runs in the page (the 512-nozzle chip has 1,540). */
+const IN_PAGE_FIRST_MAX = 2000
+const elementCount = (d: ChipDocument) => d.ports.length + d.components.length + d.channels.length
 
 /** A run taking longer than this shows "updating" (a shorter one would only flicker). */
 const SLOW_MS = 150
 
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner } = {}) {
+/**
+ * `focus`: the element whose junctions `live.forecast.junctions` must hold (the selected part); from the worker
+ * the forecast carries that element's junctions only (focusOn in liveRun.ts), the summary every junction.
+ */
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner; focus?: Ref<string | null> } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
   /** True while a run has taken longer than SLOW_MS, so the panel can say the numbers are being updated. */
   const slow = shallowRef(false)
   let slowTimer: ReturnType<typeof setTimeout> | undefined
   const worker = opts.runner ? null : workerRunner()
-  const runner = opts.runner ?? worker ?? inThread
+  const processId = () => opts.processId?.value ?? null
   let seq = 0
-  // The first forecast runs in the page, right after the chip is drawn, while the worker loads and warms up on
-  // the same document; every later one runs in the worker.
-  let first = !!worker
+  // Rule findings: from the worker, for the newest document it was sent; without one, in the page a moment after
+  // the forecast (they cost more on a large chip).
+  let rulesFor = 0
+  worker?.onRules((a) => { if (a.seq === rulesFor) findings.value = a.findings })
+  // The seq of the forecast shown, and whether it came from the worker (then it holds the focused junctions only).
+  let shown = 0
+  let fromWorker = false
+  let sentFocus: string | null = null
+  const focus = () => opts.focus?.value ?? null
+  worker?.onFocus((a) => {
+    const f = live.value.forecast
+    if (a.seq === shown && f && a.focus === focus()) live.value = { ...live.value, forecast: { ...f, junctions: a.junctions } }
+  })
+  // On a small chip the first forecast runs in the page, right after the chip is drawn, while the worker loads,
+  // checks the rules and warms up on the same document; every later one runs in the worker. A large chip's first
+  // forecast goes to the worker too: on 4,096 nozzles it would hold the page for a second or more.
+  let first = !!worker && !!doc.value && elementCount(doc.value) <= IN_PAGE_FIRST_MAX
   let busy = false
+  if (worker && opts.focus) watch(opts.focus, (id) => { if (fromWorker && !busy) worker.refocus(shown, id) })
   let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
   let rulesTimer: ReturnType<typeof setTimeout> | undefined
@@ -62,17 +115,31 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     if (busy) { pending = d; return }
     busy = true
     slowTimer = setTimeout(() => { slow.value = true }, SLOW_MS)
-    clearTimeout(rulesTimer)
-    rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value)) }, 120)
+    const n = ++seq
     const here = first
-    if (here) worker!.warm(d)
     first = false
-    const a = await (here ? inThread : runner)(d, ++seq)
+    let a: LiveAnswer
+    if (!worker) {
+      clearTimeout(rulesTimer)
+      rulesTimer = setTimeout(() => { findings.value = runLiveRules(d, processId()) }, 120)
+      a = await (opts.runner ?? inThread)(d, n)
+    } else if (here) {
+      rulesFor = n
+      worker.warm(d, n, processId())
+      a = await inThread(d, n)
+    } else {
+      rulesFor = n
+      sentFocus = focus()
+      a = await worker.run(d, n, processId(), sentFocus)
+    }
+    fromWorker = !!worker && !here
     busy = false
     clearTimeout(slowTimer)
     slow.value = false
+    shown = n
     live.value = { forecast: a.forecast, summary: a.summary, error: a.error, at: performance.now() }
     if (pending) { const next = pending; pending = null; run(next) }
+    else if (fromWorker && focus() !== sentFocus) worker!.refocus(n, focus()) // the selection changed meanwhile
   }
   // With a worker the document is sent at once, so the forecast runs while the page redraws the chip; in the
   // page itself it waits for the redraw.
@@ -83,7 +150,7 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true, flush: worker ? 'sync' : 'pre' })
   if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
-  onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer); clearTimeout(slowTimer) })
+  onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer); clearTimeout(slowTimer); worker?.stop() })
   return { live, findings, slow }
 }
 

@@ -1,12 +1,14 @@
-// Canvas drawing for the chip viewer. The world is drawn with one non-zero fill per layer from a Path2D built
-// once per ring list (µm, transformed by the view), so a 512-nozzle chip is a handful of fill calls; markers are
-// drawn in screen pixels on a separate layer so hovering never redraws the chip.
+// Canvas drawing for the chip viewer. The world is drawn with non-zero fills of Path2Ds built once per ring list
+// (µm, transformed by the view): each layer in chunks of neighbouring elements (scene.ts), so what lies outside
+// the view is skipped (culling) and a chunk whose pieces are only a few pixels is drawn simplified, as the boxes
+// of its pieces (level of detail); markers are drawn in screen pixels on a separate layer so hovering never
+// redraws the chip.
 import type { Pair } from '~~/geometry/types'
 import type { CompareOverlay } from './compare'
 import { CALLOUT, FINDING, PIN, type PlacedCallout, type PlacedFinding, type PlacedPin } from './markers'
 import { canvasColors as C, MONO_FONT, SANS_FONT } from './palette'
-import type { ChipScene } from './scene'
-import type { View } from './viewport'
+import type { ChipScene, SceneChunk } from './scene'
+import { visibleBounds, type Bounds, type View, type ViewportSize } from './viewport'
 
 const paths = new WeakMap<object, Path2D>()
 
@@ -57,6 +59,8 @@ function hatchPattern(ctx: CanvasRenderingContext2D): CanvasPattern | null {
 
 export interface WorldState {
   view: View
+  /** The canvas size in CSS pixels: with it, chunks outside the view are not drawn. */
+  size?: ViewportSize
   hiddenLayers: ReadonlySet<string>
   showMarks: boolean
   compare: CompareOverlay | null
@@ -78,19 +82,74 @@ export function drawWorld(ctx: CanvasRenderingContext2D, scene: ChipScene, st: W
     ctx.lineWidth = 1.25 * px
     ctx.stroke(edge)
   }
+  const seen = st.size ? visibleBounds(st.view, st.size) : null
   for (const l of scene.layers) {
     if (st.hiddenLayers.has(l.layerId)) continue
     ctx.fillStyle = st.compare ? C.muted : l.style.fill
-    ctx.fill(ringsPath(l.rings), 'nonzero')
+    fillChunks(ctx, l.chunks, seen, scale)
   }
   if (!st.compare) drawPorts(ctx, scene, st, px)
   if (st.showMarks) {
     ctx.fillStyle = C.marks
-    ctx.fill(ringsPath(scene.marks), 'nonzero')
+    fillChunks(ctx, scene.markChunks, seen, scale)
     drawTexts(ctx, scene)
   }
   if (st.compare) drawCompare(ctx, st.compare, st.outlineBefore, px)
   ctx.restore()
+}
+
+/**
+ * Level of detail (common practice, no source): when every piece of a chunk is under DETAIL_PX CSS pixels its
+ * outline cannot be told from its box, so the boxes are filled (a punch's 70-point circle becomes 4 points); when
+ * the whole chunk is under BLOCK_PX it is one rectangle.
+ */
+export const DETAIL_PX = 3
+export const BLOCK_PX = 2
+
+/** What drawWorld does with a chunk at this view: skip it (outside the view), one box, its pieces' boxes, its rings. */
+export function chunkDetail(chunk: SceneChunk, seen: Bounds | null, scale: number): 'outside' | 'block' | 'boxes' | 'full' {
+  const b = chunk.box
+  if (!(b.maxX >= b.minX)) return 'outside'
+  if (seen && (b.maxX < seen.minX || b.minX > seen.maxX || b.maxY < seen.minY || b.minY > seen.maxY)) return 'outside'
+  if (Math.max(b.maxX - b.minX, b.maxY - b.minY) * scale < BLOCK_PX) return 'block'
+  return chunk.maxSide * scale < DETAIL_PX ? 'boxes' : 'full'
+}
+
+function fillChunks(ctx: CanvasRenderingContext2D, chunks: SceneChunk[], seen: Bounds | null, scale: number): void {
+  for (const c of chunks) {
+    const d = chunkDetail(c, seen, scale)
+    if (d === 'outside') continue
+    if (d === 'block') ctx.fillRect(c.box.minX, c.box.minY, c.box.maxX - c.box.minX, c.box.maxY - c.box.minY)
+    else ctx.fill(d === 'full' ? ringsPath(c.rings) : boxesPath(c.rings), 'nonzero')
+  }
+}
+
+const boxPaths = new WeakMap<object, Path2D>()
+
+/** The boxes of a list of rings, one rectangle each (wound counter-clockwise, as exteriors), built once per list. */
+export function boxesPath(rings: Float64Array[]): Path2D {
+  let p = boxPaths.get(rings)
+  if (!p) {
+    p = new Path2D()
+    for (const r of rings) {
+      let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity
+      for (let i = 0; i < r.length; i += 2) {
+        const x = r[i]!, y = r[i + 1]!
+        if (x < minX) minX = x
+        if (x > maxX) maxX = x
+        if (y < minY) minY = y
+        if (y > maxY) maxY = y
+      }
+      if (!(maxX >= minX)) continue
+      // Holes are dropped: a hole's box would cancel its exterior's fill. Clockwise rings are holes (scene.ts).
+      let a = 0
+      for (let i = 0, j = r.length - 2; i < r.length; j = i, i += 2) a += r[j]! * r[i + 1]! - r[i]! * r[j + 1]!
+      if (a < 0) continue
+      p.moveTo(minX, minY); p.lineTo(maxX, minY); p.lineTo(maxX, maxY); p.lineTo(minX, maxY); p.closePath()
+    }
+    boxPaths.set(rings, p)
+  }
+  return p
 }
 
 function drawPorts(ctx: CanvasRenderingContext2D, scene: ChipScene, st: WorldState, px: number): void {

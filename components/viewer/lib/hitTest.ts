@@ -56,10 +56,14 @@ export function signedArea(ring: Pair[]): number {
   return s / 2
 }
 
+// Pieces are reused across edits (scene.ts keeps every untouched element's pieces), so are their areas.
+const areas = new WeakMap<Polygon, number>()
+const areaOf = (p: Polygon): number => { let a = areas.get(p); if (a === undefined) { a = polygonArea(p); areas.set(p, a) } return a }
+
 /** Builds the index once per document. */
 export function buildElementIndex(elements: Array<{ elementId: string; layerId: string; pieces: Polygon[] }>): ElementIndex {
   const pieces: HitPiece[] = []
-  for (const e of elements) for (const p of e.pieces) if (p[0] && p[0].length >= 3) pieces.push({ elementId: e.elementId, layerId: e.layerId, polygon: p, area: polygonArea(p) })
+  for (const e of elements) for (const p of e.pieces) if (p[0] && p[0].length >= 3) pieces.push({ elementId: e.elementId, layerId: e.layerId, polygon: p, area: areaOf(p) })
   if (pieces.length === 0) return { pieces, tree: null }
   const tree = new Flatbush(pieces.length)
   for (const p of pieces) {

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { effectScope, nextTick, ref } from 'vue'
 import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/chip'
 import { designProcess, useLiveForecast } from '../../../components/editor/lib/liveForecast'
+import type { LiveRequest } from '../../../components/editor/lib/liveRun'
 import { fixtureDocument } from '../../support/factory'
 
 const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
@@ -81,16 +82,21 @@ describe('progress of a slow run', () => {
 
 describe('with a worker', () => {
   it('the first forecast runs in the page while the worker warms up on the same chip; later edits go to the worker', async () => {
-    const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
-    const sent: Array<{ seq: number; warm?: boolean }> = []
-    // A stand-in for the browser's Worker: records what it is sent and answers runs as the real one does.
+    const { applyPatch, runLiveForecast } = await import('../../../components/editor/lib/liveRun')
+    const sent: Array<{ seq: number; warm?: boolean; whole: boolean }> = []
+    // A stand-in for the browser's Worker: records what it is sent and answers runs as the real one does
+    // (keeping the document, applying each patch).
     class FakeWorker {
       onmessage: ((e: { data: unknown }) => void) | null = null
       onerror: (() => void) | null = null
-      postMessage(m: { seq: number; doc: ChipDocument; warm?: boolean }) {
-        sent.push({ seq: m.seq, warm: m.warm })
-        if (!m.warm) setTimeout(() => this.onmessage?.({ data: runLiveForecast(m.doc, m.seq) }), 5)
+      held: ChipDocument | null = null
+      postMessage(m: LiveRequest) {
+        sent.push({ seq: m.seq, warm: m.warm, whole: !!m.doc })
+        this.held = m.doc ?? applyPatch(this.held!, m.patch!)
+        const d = this.held
+        if (!m.warm) setTimeout(() => this.onmessage?.({ data: runLiveForecast(d, m.seq) }), 5)
       }
+      terminate() {}
     }
     const g = globalThis as { Worker?: unknown }
     const before = g.Worker
@@ -101,10 +107,10 @@ describe('with a worker', () => {
       const { live } = scope.run(() => useLiveForecast(d))!
       await wait(30)
       expect(live.value.summary).not.toBeNull()
-      expect(sent).toEqual([{ seq: 0, warm: true }])
+      expect(sent).toEqual([{ seq: 1, warm: true, whole: true }])
       d.value = { ...d.value, name: 'Renamed' }
       await wait(30)
-      expect(sent.at(-1)).toEqual({ seq: 2, warm: undefined })
+      expect(sent.at(-1)).toEqual({ seq: 2, warm: undefined, whole: false }) // a patch, not the whole document
       expect(live.value.forecast!.document.name).toBe('Renamed')
       scope.stop()
     } finally {
