@@ -1,3 +1,5 @@
+import { formatNumber, formatPercent } from '#shared/format/quantity'
+
 // Display helpers for bench results: numbers with their units, and the labels of sources, regimes and kinds.
 export const BENCH_SOURCE_LABELS: Record<string, string> = { typed: 'Typed', csv: 'CSV import', micrograph: 'Micrograph' }
 export const BENCH_KIND_LABELS: Record<string, string> = { 't-junction': 'T-junction', 'flow-focusing': 'Flow-focusing', 'step-nozzle': 'Step nozzle', 'step-array': 'Step array', 'y-junction': 'Y-junction' }
@@ -5,11 +7,11 @@ export const REGIME_COLOURS: Record<string, string> = { squeezing: '#1f6f8b', tr
 
 /** A number to `digits` significant figures, grouped for reading; a dash when missing. */
 export function sig(value: number | null | undefined, digits = 3): string {
-  return value == null || !Number.isFinite(value) ? '—' : Number(value.toPrecision(digits)).toLocaleString('en-GB')
+  return value == null || !Number.isFinite(value) ? '—' : formatNumber(value, digits)
 }
 
 export function percent(value: number | null | undefined, digits = 1): string {
-  return value == null || !Number.isFinite(value) ? '—' : `${(value * 100).toFixed(digits)} %`
+  return value == null || !Number.isFinite(value) ? '—' : formatPercent(value, digits + 2)
 }
 
 /** Nice axis ticks from 0 to above `max`. */

@@ -1,4 +1,5 @@
 // Canvas markers for a revision: forecast labels beside junctions, pins for comment threads, rule findings.
+import { confidenceOf, formatLengthUm } from '#shared/format/quantity'
 import type { ChipDocument } from '~~/shared/schemas/chip'
 import type { RevisionSummary, ThreadView } from '~~/shared/types/designs'
 
@@ -7,7 +8,7 @@ export function forecastLabels(doc: ChipDocument, summary: RevisionSummary) {
   return doc.components.flatMap((c) => {
     const j = byId.get(c.id)
     if (!j) return []
-    const lines = [j.regime ?? '—', j.dropletDiameterUm != null ? `Ø ${Number(j.dropletDiameterUm.toPrecision(2))} µm` : 'Ø —']
+    const lines = [j.regime ?? '—', j.dropletDiameterUm != null ? `Ø ${formatLengthUm(j.dropletDiameterUm, confidenceOf(j.valid))}` : 'Ø —']
     return [{ elementId: c.id, x: c.position.x, y: c.position.y, lines, tone: (j.valid ? 'ok' : 'caution') as 'ok' | 'caution' }]
   })
 }

@@ -3,11 +3,13 @@
 // Pure: the same answer gives the same option.
 import type { EChartsOption } from 'echarts'
 import type { DigitalAssay, Encapsulation, PlanWindow, Recommended, WindowPoint } from '#shared/physics/planner'
+import { formatLengthUm, formatNumber, formatRateHz } from '#shared/format/quantity'
 import { PLOT_COLOURS } from '~~/components/editor/lib/plotOptions'
 
 const FONT = { fontFamily: 'JetBrains Mono, ui-monospace, monospace', fontSize: 10, color: PLOT_COLOURS.ink }
 const NAME_FONT = { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif', fontSize: 11 }
-const sig = (v: number) => (v >= 1e-2 && v < 1e4 ? String(Number(v.toPrecision(3))) : v.toExponential(1))
+/** Numbers through the one formatting module (shared/format/quantity.ts). */
+const sig = (v: number) => formatNumber(v, 3)
 
 /** Axis value in lab units: flows in µL/min, pressures in mbar. */
 export function axisInLabUnits(mode: 'flow' | 'pressure', si: number): number {
@@ -37,7 +39,7 @@ export function windowMapOption(window: PlanWindow, recommended: Recommended | n
   const regimes = [...new Set(window.points.map((p) => p.regime))]
   const tip = (p: WindowPoint) => {
     const [x, y] = pointAxes(window, p)
-    const d = p.dropletDiameter ? `Ø ${sig(p.dropletDiameter.value * 1e6)} µm, ${sig(p.frequency!.value)} Hz` : 'no drops'
+    const d = p.dropletDiameter ? `Ø ${formatLengthUm(p.dropletDiameter.value * 1e6)}, ${formatRateHz(p.frequency!.value)}` : 'no drops'
     return `${axisName('continuous', window.mode.continuous)} ${sig(x)}<br>${axisName('dispersed', window.mode.dispersed)} ${sig(y)}<br>${d}<br>${p.regime}${p.valid ? '' : ' · outside validity'}${p.withinLimits ? '' : ' · above a pressure limit'}`
   }
   // Series are built as plain objects (the data items carry their tooltip text), typed once at the end.
@@ -55,7 +57,7 @@ export function windowMapOption(window: PlanWindow, recommended: Recommended | n
   const label = (v: number, x: number) => axisInLabUnits(x === 0 ? window.mode.continuous : window.mode.dispersed, v)
   for (const c of window.contours) {
     if (c.name === 'diameter-low' || c.name === 'diameter-high' || c.points.length < 2) continue
-    const name = c.name === 'target-diameter' ? `target Ø ${sig(c.level.value * 1e6)} µm` : `minimum rate ${sig(c.level.value)} Hz`
+    const name = c.name === 'target-diameter' ? `target Ø ${formatLengthUm(c.level.value * 1e6)}` : `minimum rate ${formatRateHz(c.level.value)}`
     series.push({ name, type: 'line', showSymbol: false, z: 4, data: c.points.map(([x, y]) => [label(x, 0), label(y, 1)]), lineStyle: { color: c.name === 'target-diameter' ? PLOT_COLOURS.line : PLOT_COLOURS.outside, width: 1.8, type: c.name === 'target-diameter' ? 'solid' : 'dashed' }, itemStyle: { color: c.name === 'target-diameter' ? PLOT_COLOURS.line : PLOT_COLOURS.outside } })
   }
   if (recommended) {
@@ -74,7 +76,7 @@ export function windowMapOption(window: PlanWindow, recommended: Recommended | n
 
 /** Occupancy bars: percentage of drops holding k cells, k = 0…5, each labelled (small shares stay readable). */
 export function occupancyOption(e: Encapsulation): EChartsOption {
-  const pct = (p: number) => (p * 100 >= 0.1 ? (p * 100).toPrecision(3) : (p * 100).toExponential(1))
+  const pct = (p: number) => formatNumber(p * 100, p * 100 >= 0.1 ? 3 : 2)
   return {
     animation: false, textStyle: FONT,
     grid: { left: 44, right: 8, top: 18, bottom: 38 },

@@ -42,6 +42,7 @@ export const OPERATIONS: Operation[] = [
   { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}', tag: 'Designs', permission: 'released:view', summary: 'A revision with its chip document and summary' },
   { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/dxf', tag: 'Designs', permission: 'released:view', query: dxfQuery, summary: 'The revision\'s mask as a DXF file' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/duplicate', tag: 'Designs', permission: 'designs:view', body: duplicateBody, status: 201, summary: 'Copy a revision into a new design' },
+  { method: 'get', path: '/api/labs/{labId}/inbox', tag: 'Review', permission: 'lab:view', summary: 'The caller\'s lab overview: recent designs, revisions waiting for their verdict, their open comment threads', answers: '{ recentDesigns, waitingForMe, myOpenThreads } (empty for a role that sees released work only)' },
   { method: 'get', path: '/api/labs/{labId}/releases', tag: 'Designs', permission: 'released:view', summary: 'Revisions released for fabrication' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/release', tag: 'Review', permission: 'release:manage', body: releaseBody, status: 201, summary: 'Release an approved revision to fabrication' },
   { method: 'patch', path: '/api/labs/{labId}/revisions/{revisionId}/release', tag: 'Review', permission: 'fabrication:report', body: fabStatusBody, summary: 'Report the fabrication status of a release' },

@@ -1,6 +1,7 @@
 // Export and import of a chip document as JSON. The file is the document itself (it carries `version`), so an
 // older export upgrades through the schema's own steps on import.
 import { parseChipDocument, type ChipDocument } from '../schemas/chip'
+import { peopleError } from '../format/fieldLabels'
 
 export const exportDocument = (doc: ChipDocument): string => `${JSON.stringify(doc, null, 2)}\n`
 
@@ -12,7 +13,7 @@ export function importDocument(text: string): { ok: true; doc: ChipDocument } | 
     return { ok: false, message: `This file is not JSON: ${error instanceof Error ? error.message : String(error)}` }
   }
   const parsed = parseChipDocument(json)
-  if (!parsed.ok) return { ok: false, message: parsed.errors.slice(0, 3).map((e) => e.message).join('; ') }
+  if (!parsed.ok) return { ok: false, message: parsed.errors.slice(0, 3).map((e) => peopleError(e, json as Record<string, unknown>)).join('; ') }
   return { ok: true, doc: parsed.document }
 }
 

@@ -4,6 +4,7 @@
 import { onScopeDispose, shallowRef, toRaw, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
+import { confidenceOf, formatFlowUlMin, formatLengthUm, formatPressureMbar } from '#shared/format/quantity'
 import type { Finding } from '~~/geometry/rules'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
 import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
@@ -154,7 +155,6 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   return { live, findings, slow }
 }
 
-const sig = (v: number, n = 2) => Number(v.toPrecision(n))
 
 /**
  * Junction callouts (regime, Ø µm, caution when outside validity) and inlet callouts (pressure and flow; a fault
@@ -167,7 +167,7 @@ export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null,
   for (const j of summary.junctions) {
     const c = comps.get(j.id)
     if (!c) continue
-    const lines = [`${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`, j.dropletDiameterUm != null ? `Ø ${sig(j.dropletDiameterUm)} µm` : 'Ø —']
+    const lines = [`${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`, j.dropletDiameterUm != null ? `Ø ${formatLengthUm(j.dropletDiameterUm, confidenceOf(j.valid))}` : 'Ø —']
     labels.push({ elementId: j.id, x: c.position.x, y: c.position.y, lines, tone: j.valid ? 'ok' : 'caution' })
   }
   const ports = new Map(doc.ports.map(p => [p.id, p]))
@@ -175,7 +175,7 @@ export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null,
     const p = ports.get(i.port)
     if (!p) continue
     const over = i.pressureMbar > bondLimitMbar
-    const lines = [`${over ? '⚠ ' : ''}${sig(i.pressureMbar, 3)} mbar`, `${sig(i.flowUlPerMin, 3)} µL/min`]
+    const lines = [`${over ? '⚠ ' : ''}${formatPressureMbar(i.pressureMbar)}`, formatFlowUlMin(i.flowUlPerMin)]
     labels.push({ elementId: p.id, x: p.position.x, y: p.position.y, lines, tone: over ? 'fault' : 'ok' })
   }
   return labels

@@ -1,5 +1,6 @@
 // What the editor draws over the chip, in screen pixels: grid, selection outlines, the ghost of a drag, the
 // channel being drawn, a measurement and the selection box.
+import { formatLengthUm } from '#shared/format/quantity'
 import { drawHighlight } from '../../viewer/lib/draw'
 import { canvasColors, colors, MONO_FONT } from '../../viewer/lib/palette'
 import { worldPoint, worldToScreen, screenToWorld, screenPoint, type View, type ViewportSize } from '../../viewer/lib/viewport'
@@ -81,8 +82,8 @@ export function drawMeasure(ctx: CanvasRenderingContext2D, view: View, a: PointU
 export const measureText = (a: PointUm, b: PointUm): string => {
   const dx = b.x - a.x
   const dy = b.y - a.y
-  const f = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : v.toFixed(1))
-  return `${f(Math.hypot(dx, dy))} µm  (Δx ${f(dx)}, Δy ${f(dy)} µm)`
+  const f = (v: number) => formatLengthUm(v, 4)
+  return `${f(Math.hypot(dx, dy))}  (Δx ${f(dx)}, Δy ${f(dy)})`
 }
 
 /** The rubber-band box of a box selection, in screen pixels. */

@@ -2,6 +2,7 @@
 // the same numbers give the same option, so a test can read what a plot will show without a browser.
 import type { EChartsOption, TooltipComponentFormatterCallbackParams } from 'echarts'
 import type { RegimeCell, SweepPoint } from '#shared/editor/sweep'
+import { formatNumber } from '#shared/format/quantity'
 
 /** Dropwright's palette (tailwind.config.ts) for the plots. */
 export const PLOT_COLOURS = {
@@ -15,15 +16,16 @@ const tipOf = (f: (x: number, y: number) => string) => (p: TooltipComponentForma
   const v = (Array.isArray(p) ? p[0] : p)?.value as number[]
   return f(v[0]!, v[1]!)
 }
-const sig = (v: number) => (v >= 1e-2 && v < 1e4 ? String(Number(v.toPrecision(3))) : v.toExponential(1))
+/** Axis and tooltip numbers through the one formatting module (shared/format/quantity.ts). */
+const sig = (v: number) => formatNumber(v, 3)
 
-function logAxis(name: string, gap: number) {
+function logAxis(name: string, gap: number, ends = false) {
   return {
     type: 'log' as const, name, nameLocation: 'middle' as const, nameGap: gap, logBase: 10,
     // Hug the data (a flat curve over three empty decades reads as "nothing changes").
     min: (v: { min: number }) => v.min / 1.3, max: (v: { max: number }) => v.max * 1.3,
     nameTextStyle: { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif', fontSize: 11 },
-    axisLabel: { ...FONT, formatter: (v: number) => sig(v), showMinLabel: false, showMaxLabel: false }, axisLine: { lineStyle: { color: PLOT_COLOURS.frame } },
+    axisLabel: { ...FONT, formatter: (v: number) => (ends ? formatNumber(v, 2) : sig(v)), showMinLabel: ends, showMaxLabel: ends }, axisLine: { lineStyle: { color: PLOT_COLOURS.frame } },
     splitLine: { lineStyle: { color: PLOT_COLOURS.grid } }, minorTick: { show: false },
   }
 }
@@ -32,13 +34,17 @@ function logAxis(name: string, gap: number) {
 function diameterAxis(values: number[]) {
   const v = values.filter(x => x > 0 && Number.isFinite(x))
   const log = v.length > 0 && Math.max(...v) / Math.min(...v) > 10
-  const axis = logAxis('droplet diameter, µm', 36)
+  // Labels at both ends too: a log axis within one decade has no decade tick, and a y axis without numbers reads as nothing.
+  const axis = logAxis('droplet diameter Ø, µm', 40, true)
   return log ? axis : { ...axis, type: 'value' as const, logBase: undefined, scale: true, min: undefined, max: undefined, splitNumber: 4 }
 }
 
+/** A legend over the plot naming each marker (the operating point above all). */
+const LEGEND = (data: string[]) => ({ top: 0, left: 'center', itemWidth: 10, itemHeight: 10, textStyle: { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif', fontSize: 11 }, data })
+
 const base = (): EChartsOption => ({
   animation: false, textStyle: FONT,
-  grid: { left: 48, right: 12, top: 14, bottom: 42 },
+  grid: { left: 52, right: 12, top: 26, bottom: 42 },
   tooltip: { trigger: 'item', confine: true, textStyle: { ...FONT, fontSize: 11 } },
 })
 
@@ -49,6 +55,7 @@ export function sizePlotOption({ points, current, xName, xSymbol }: SizePlotInpu
   const tip = (x: number, d: number) => `${xSymbol} = ${sig(x)}<br>Ø ${sig(d)} µm`
   return {
     ...base(),
+    legend: LEGEND(['forecast', 'outside validity', 'operating point']),
     xAxis: logAxis(xName, 26),
     yAxis: diameterAxis(points.map(p => p.diameterUm).concat(current.diameterUm)),
     series: [
@@ -67,16 +74,16 @@ export function regimeMapOption({ cells, current }: RegimeMapInput): EChartsOpti
   return {
     ...base(),
     grid: { left: 48, right: 12, top: 30, bottom: 42 },
-    legend: { top: 0, left: 'center', itemWidth: 10, itemHeight: 10, textStyle: { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif', fontSize: 11 }, data: regimes },
-    xAxis: logAxis('capillary number Ca', 26),
-    yAxis: logAxis('flow-rate ratio φ', 36),
+    legend: LEGEND([...regimes, 'operating point']),
+    xAxis: logAxis('capillary number Ca (dimensionless)', 26, true),
+    yAxis: logAxis('flow-rate ratio Qd/Qc (dimensionless)', 40, true),
     series: [
       ...regimes.map(r => ({
-        name: r, type: 'scatter' as const, symbol: 'rect', symbolSize: 11, data: cells.filter(c => c.regime === r).map(c => [c.ca, c.phi]),
+        name: r, type: 'scatter' as const, symbol: 'rect', symbolSize: Math.max(5, Math.round(150 / Math.sqrt(Math.max(1, cells.length)))), data: cells.filter(c => c.regime === r).map(c => [c.ca, c.phi]),
         itemStyle: { color: PLOT_COLOURS.regimes[r] ?? PLOT_COLOURS.frame, opacity: 0.9 },
-        tooltip: { formatter: tipOf((x, y) => `${r}<br>Ca = ${sig(x)}<br>φ = ${sig(y)}`) },
+        tooltip: { formatter: tipOf((x, y) => `${r}<br>Ca = ${sig(x)}<br>Qd/Qc = ${sig(y)}`) },
       })),
-      { name: 'operating point', type: 'scatter' as const, symbol: 'circle', symbolSize: 13, z: 5, data: [[current.ca, current.phi]], itemStyle: { color: 'rgba(0,0,0,0)', borderColor: '#0f1317', borderWidth: 2.5 }, tooltip: { formatter: tipOf((x, y) => `operating point<br>Ca = ${sig(x)}<br>φ = ${sig(y)}`) } },
+      { name: 'operating point', type: 'scatter' as const, symbol: 'circle', symbolSize: 13, z: 5, data: [[current.ca, current.phi]], itemStyle: { color: 'rgba(0,0,0,0)', borderColor: '#0f1317', borderWidth: 2.5 }, tooltip: { formatter: tipOf((x, y) => `operating point<br>Ca = ${sig(x)}<br>Qd/Qc = ${sig(y)}`) } },
     ],
   }
 }

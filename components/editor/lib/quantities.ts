@@ -1,17 +1,14 @@
-// Forecast quantities (SI inside) shown in the trade's units with sensible significant figures.
+// Forecast quantities (SI inside) shown in the trade's units through the one formatting module.
 import type { Quantity } from '#shared/physics/quantity'
+import { confidenceOf, formatSi } from '#shared/format/quantity'
 
-const sig = (v: number, n = 3) => (v === 0 ? '0' : Math.abs(v) < 1e-3 || Math.abs(v) >= 1e5 ? v.toExponential(n - 1) : String(Number(v.toPrecision(n))))
-
-export function showQuantity(key: string, q: Quantity | { value: unknown; unit?: string }): string {
+/**
+ * One forecast quantity as read on screen. `junctionValid` is whether the junction's size, rate and regime are all
+ * inside their methods' validity: the revision page rounds by that, so the editor does too (same chip, same text).
+ */
+export function showQuantity(key: string, q: Quantity | { value: unknown; unit?: string; valid?: boolean }, junctionValid = true): string {
   const v = q.value
   if (typeof v !== 'number') return String(v)
-  switch (q.unit) {
-    case 'm': return `${sig(v * 1e6)} µm`
-    case 'm^3': return v < 1e-12 ? `${sig(v * 1e15)} pL` : `${sig(v * 1e12)} nL`
-    case 'Hz': return v >= 1000 ? `${sig(v / 1000)} kHz` : `${sig(v)} Hz`
-    case 'Pa': return `${sig(v / 100)} mbar`
-    case '1': case '': return sig(v)
-    default: return key === 'regime' ? String(v) : `${sig(v)} ${q.unit}`
-  }
+  if (key === 'regime') return String(v)
+  return formatSi(v, q.unit ?? '1', confidenceOf((q.valid ?? true) && junctionValid))
 }

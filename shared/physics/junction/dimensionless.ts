@@ -18,7 +18,7 @@ export const WEBER: Method = {
 export const BOND: Method = { id: 'bond-number', source: 'Bo = Δρ g Dh² / γ (Christopher & Anna 2007, J. Phys. D 40, R319)' }
 export const CAPILLARY_LENGTH: Method = { id: 'capillary-length', source: 'ℓc = √(γ / (Δρ g)) (de Gennes, Brochard-Wyart & Quéré 2004, Capillarity and Wetting Phenomena, ch. 2)' }
 export const OHNESORGE: Method = { id: 'ohnesorge-dispersed', source: 'Oh = μd / √(ρd γ L), L = smaller channel dimension (Eggers 1997, Rev. Mod. Phys. 69, 865)' }
-export const RATIO: Method = { id: 'ratio', source: 'definition: λ = μd/μc, φ = Qd/Qc' }
+export const RATIO: Method = { id: 'ratio', source: 'definition: λ = μd/μc, flow-rate ratio Qd/Qc (φ is kept for the dispersed fraction Qd/(Qc + Qd))' }
 
 /** Mean speed of a volume flow through a w × h rectangle. */
 export const meanSpeed = (flow: number, width: Metres, depth: Metres): MetresPerSecond => (flow / (width * depth)) as MetresPerSecond
