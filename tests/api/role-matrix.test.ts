@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { fixtureDocument } from '../support/factory'
 import { ALL_ROLES, labWithDesign } from '../support/designs'
+import { releasedOrder } from '../support/orders'
 import { can, type Permission, type Role } from '../../shared/utils/roles'
 
 // Every lab-scoped route × every role × own lab / another lab. Allowed calls must get past the access check
@@ -28,15 +29,21 @@ const ROUTES: Route[] = [
   { name: 'pin a comment', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/threads`, permission: 'review:comment', body: () => ({ anchor: { x: 1, y: 1 }, body: 'x' }) },
   { name: 'verdict', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/verdicts`, permission: 'review:verdict', body: () => ({ verdict: 'request-changes' }) },
   { name: 'release', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/release`, permission: 'release:manage', body: () => ({}) },
-  { name: 'fab status', method: 'PATCH', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/release`, permission: 'fabrication:report', body: () => ({ fabStatus: 'on-hold' }) },
+  { name: 'list orders', method: 'GET', path: c => `/api/labs/${c.lab.id}/orders`, permission: 'released:view' },
+  { name: 'open an order', method: 'GET', path: c => `/api/labs/${c.lab.id}/orders/${orders.get(c)!.orderId}`, permission: 'released:view' },
+  { name: 'move an order', method: 'POST', path: c => `/api/labs/${c.lab.id}/orders/${orders.get(c)!.orderId}/status`, permission: 'fabrication:report', body: () => ({ status: 'on-hold', note: 'waiting for resist' }) },
+  { name: 'write on an order', method: 'POST', path: c => `/api/labs/${c.lab.id}/orders/${orders.get(c)!.orderId}/messages`, permission: 'released:view', body: () => ({ body: 'matrix' }) },
   { name: 'list releases', method: 'GET', path: c => `/api/labs/${c.lab.id}/releases`, permission: 'released:view' },
 ]
 
 let own: Ctx
 let other: Ctx
+/** Each lab's released revision and its order (the order routes); the design under test stays unreleased. */
+const orders = new Map<Ctx, Awaited<ReturnType<typeof releasedOrder>>>()
 beforeAll(async () => {
   own = await labWithDesign()
   other = await labWithDesign()
+  for (const c of [own, other]) orders.set(c, await releasedOrder(c))
   // a review must be requested before verdicts; the revision stays unreleased (fabricators must not see it)
   await own.as.designer.post(`/api/labs/${own.lab.id}/revisions/${own.revisionId}/review-requests`, { reviewerIds: [own.ids.reviewer] })
 }, 120_000)
