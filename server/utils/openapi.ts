@@ -10,6 +10,7 @@ import { invitationCreate } from '#shared/schemas/invitations'
 import { memberRoleUpdate } from '#shared/schemas/labs'
 import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery, micrographUpdate } from '#shared/schemas/bench'
 import { orderMessage, orderMove, releaseBody } from '#shared/schemas/orders'
+import { asBuiltCreate } from '#shared/schemas/asBuilt'
 import { commentCreate, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '#shared/schemas/review'
 import { PERMISSION_LABELS, type Permission } from '#shared/utils/roles'
 
@@ -45,6 +46,10 @@ export const OPERATIONS: Operation[] = [
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/duplicate', tag: 'Designs', permission: 'designs:view', body: duplicateBody, status: 201, summary: 'Copy a revision into a new design' },
   { method: 'get', path: '/api/labs/{labId}/releases', tag: 'Designs', permission: 'released:view', summary: 'Revisions released for fabrication' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/release', tag: 'Review', permission: 'release:manage', body: releaseBody, status: 201, summary: 'Release an approved revision to fabrication' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/as-built', tag: 'Fabrication', permission: 'released:view', summary: 'The latest as-built report of a released revision beside the drawn chip: forecast, rules and what changed' },
+  { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/as-built', tag: 'Fabrication', permission: 'fabrication:report', body: asBuiltCreate, status: 201, summary: 'Record measured depths per layer and widths at named features (the fab, or the lab with measurements:record)' },
+  { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/as-built/{asBuiltId}/files', tag: 'Fabrication', permission: 'fabrication:report', status: 201, summary: 'Attach a profilometer CSV or a photo (multipart, field "file", checked on its bytes)' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/as-built/{asBuiltId}/files/{fileId}', tag: 'Fabrication', permission: 'released:view', summary: 'Download a file of an as-built report' },
   { method: 'get', path: '/api/labs/{labId}/orders', tag: 'Fabrication', permission: 'released:view', summary: 'The lab\'s fabrication orders (the fab\'s queue)' },
   { method: 'get', path: '/api/labs/{labId}/orders/{orderId}', tag: 'Fabrication', permission: 'released:view', summary: 'An order with its thread and the files the fab needs (DXF per layer, fab sheet)' },
   { method: 'post', path: '/api/labs/{labId}/orders/{orderId}/status', tag: 'Fabrication', permission: 'fabrication:report', body: orderMove, summary: 'Move an order: received → in fabrication → shipped (with a tracking number) → delivered, or on hold with a reason' },

@@ -180,7 +180,7 @@ function plan(route: ApiRoute, s: Setup) {
   const params = {
     labId: s.lab.id, designId: s.main.designId, revisionId: s.main.revisionId, threadId: s.threadId,
     invitationId: s.invitationId, userId: s.people[5]!.id, token: randomBytes(32).toString('base64url'), tokenId: randomUUID(),
-    runId: s.runId, micrographId: randomUUID(), orderId: s.orderId,
+    runId: s.runId, micrographId: randomUUID(), orderId: s.orderId, asBuiltId: randomUUID(),
   }
   const channel = (id: string, from: string, to: string) => ({ id, from, to, width: '100 um', depth: '50 um', length: '10 mm' })
   const plans: Record<string, { client: ApiClient, params?: Partial<typeof params>, templates: unknown[] }> = {
@@ -211,6 +211,11 @@ function plan(route: ApiRoute, s: Setup) {
     'POST /api/labs/[labId]/orders/[orderId]/status': {
       client: fabricator, templates: [{ status: 'on-hold', note: 'n' }, { status: 'received' }, { status: 'in-fabrication', note: 'started' }, { status: 'shipped', trackingNumber: 'TRK-9', note: '' }],
     },
+    'POST /api/labs/[labId]/revisions/[revisionId]/as-built': {
+      client: fabricator, params: { revisionId: s.released.revisionId },
+      templates: [{ depths: [{ layerId: 'ch50', depthUm: 52 }], widths: [{ elementId: 'tj-1', field: 'mainWidth', widthUm: 97 }], note: 'profilometer' }, { widths: [{ elementId: 'oil-feed', field: 'width', widthUm: 101 }] }],
+    },
+    'POST /api/labs/[labId]/revisions/[revisionId]/as-built/[asBuiltId]/files': { client: fabricator, params: { revisionId: s.released.revisionId }, templates: [{}] },
     'POST /api/labs/[labId]/orders/[orderId]/messages': { client: fabricator, templates: [{ body: 'Wafer two is cracked: remake on Monday?' }] },
     'POST /api/labs/[labId]/revisions/[revisionId]/release': {
       client: admin, params: { revisionId: s.toRelease.revisionId },
