@@ -1,7 +1,7 @@
-import type { FabStatus } from '~~/shared/utils/fabStatus'
+import type { OrderStatus } from '~~/shared/fabrication/orderStatus'
 import { defineStore } from 'pinia'
 
-export interface ReleasedRow { revisionId: string, number: number, designName: string, releasedAt: string, fabStatus: FabStatus, fabStatusAt: string }
+export interface ReleasedRow { revisionId: string, number: number, designName: string, releasedAt: string, orderId: string, orderNumber: number, orderStatus: OrderStatus, orderStatusAt: string }
 
 export const useReleasesStore = defineStore('releases', () => {
   const rows = ref<ReleasedRow[]>([])

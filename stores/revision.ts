@@ -1,5 +1,6 @@
 import { defineStore } from 'pinia'
 import type { ReviewState, RevisionDetail } from '~~/shared/types/designs'
+import type { ReleaseBody } from '~~/shared/schemas/orders'
 
 /** One open revision: its document and summary, and its review. */
 export const useRevisionStore = defineStore('revision', () => {
@@ -33,7 +34,6 @@ export const useRevisionStore = defineStore('revision', () => {
     reply: (threadId: string, body: string) => act(`/threads/${threadId}/comments`, 'POST', { body }),
     setResolved: (threadId: string, resolved: boolean) => act(`/threads/${threadId}`, 'PATCH', { resolved }),
     verdict: (verdict: 'approve' | 'request-changes', note: string) => act('/verdicts', 'POST', { verdict, note }),
-    release: (note: string) => act('/release', 'POST', { note }),
-    setFabStatus: (fabStatus: string, note = '') => act('/release', 'PATCH', { fabStatus, note }),
+    release: (body: ReleaseBody) => act('/release', 'POST', body),
   }
 })

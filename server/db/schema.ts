@@ -3,6 +3,7 @@
 import { sql } from 'drizzle-orm'
 import { bigint, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, varchar, type AnyPgColumn } from 'drizzle-orm/pg-core'
 import { ROLES } from '../../shared/utils/roles'
+import { MASK_MEDIA, MASK_POLARITIES, ORDER_STATUSES, SUBSTRATES } from '../../shared/fabrication/orderStatus'
 
 export const roleEnum = pgEnum('role', ROLES)
 export const labKindEnum = pgEnum('lab_kind', ['research', 'fabrication'])
@@ -308,3 +309,73 @@ export const designForecastModes = pgTable('design_forecast_modes', {
 
 export type BenchRun = typeof benchRuns.$inferSelect
 export type BenchMicrograph = typeof benchMicrographs.$inferSelect
+
+// ── fab (issue 15 items 1-4): fabrication orders, their messages, as-built reports and their files ──
+export const orderStatusEnum = pgEnum('order_status', ORDER_STATUSES)
+export const substrateEnum = pgEnum('order_substrate', SUBSTRATES)
+export const maskPolarityEnum = pgEnum('mask_polarity', MASK_POLARITIES)
+export const maskMediumEnum = pgEnum('mask_medium', MASK_MEDIA)
+
+/** What a release asks the fabrication partner to make; one per released revision. */
+export const fabOrders = pgTable('fab_orders', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  revisionId: uuid('revision_id').notNull().unique().references(() => revisions.id, { onDelete: 'cascade' }),
+  releaseId: uuid('release_id').notNull().unique().references(() => releases.id, { onDelete: 'cascade' }),
+  number: integer('number').notNull(),
+  status: orderStatusEnum('status').notNull().default('received'),
+  statusAt: timestamp('status_at', { withTimezone: true }).notNull().defaultNow(),
+  holdReason: text('hold_reason'),
+  quantity: integer('quantity').notNull().default(1),
+  substrate: substrateEnum('substrate').notNull().default('pdms-on-glass'),
+  maskPolarity: maskPolarityEnum('mask_polarity').notNull().default('positive'),
+  maskMedium: maskMediumEnum('mask_medium').notNull().default('film'),
+  dueDate: varchar('due_date', { length: 10 }),
+  poNumber: varchar('po_number', { length: 60 }).notNull().default(''),
+  notes: text('notes').notNull().default(''),
+  trackingNumber: varchar('tracking_number', { length: 80 }),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+}, t => [index('fab_orders_lab_idx').on(t.labId, t.status), uniqueIndex('fab_orders_lab_number_idx').on(t.labId, t.number)])
+
+/** The thread between the lab and the fab on an order; a status move with a note is a message too. */
+export const fabOrderMessages = pgTable('fab_order_messages', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  orderId: uuid('order_id').notNull().references(() => fabOrders.id, { onDelete: 'cascade' }),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  authorId: uuid('author_id').notNull().references(() => users.id),
+  body: text('body').notNull(),
+  /** The status the order moved to with this message, if it was a move. */
+  status: orderStatusEnum('status'),
+  createdAt: createdAt(),
+}, t => [index('fab_order_messages_order_idx').on(t.orderId, t.createdAt)])
+
+/** What was actually made: measured depths per layer and widths at named elements. The latest one counts. */
+export const asBuilts = pgTable('as_builts', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  revisionId: uuid('revision_id').notNull().references(() => revisions.id, { onDelete: 'cascade' }),
+  depths: jsonb('depths').$type<Array<{ layerId: string, depthUm: number }>>().notNull(),
+  widths: jsonb('widths').$type<Array<{ elementId: string, widthUm: number }>>().notNull(),
+  note: text('note').notNull().default(''),
+  /** The as-built chip document and its summary (forecast + rules), computed once when recorded. */
+  document: jsonb('document').$type<Record<string, unknown>>().notNull(),
+  summary: jsonb('summary').$type<Record<string, unknown>>().notNull(),
+  recordedBy: uuid('recorded_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+}, t => [index('as_builts_revision_idx').on(t.revisionId, t.createdAt)])
+
+/** A file of an as-built report (profilometer CSV, photo): bytes in object storage under `objectKey`. */
+export const asBuiltFiles = pgTable('as_built_files', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  asBuiltId: uuid('as_built_id').notNull().references(() => asBuilts.id, { onDelete: 'cascade' }),
+  objectKey: varchar('object_key', { length: 300 }).notNull(),
+  contentType: varchar('content_type', { length: 60 }).notNull(),
+  bytes: integer('bytes').notNull(),
+  fileName: varchar('file_name', { length: 200 }).notNull().default(''),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+}, t => [index('as_built_files_as_built_idx').on(t.asBuiltId)])
+
+export type FabOrder = typeof fabOrders.$inferSelect

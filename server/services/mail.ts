@@ -8,7 +8,7 @@ import { enqueueJob } from '../utils/jobs'
 /** A database handle or a transaction opened on one. */
 export type DbOrTx = Db | Parameters<Parameters<Db['transaction']>[0]>[0]
 
-export const MAIL_KINDS = ['invitation', 'review-requested', 'new-comment', 'verdict', 'released', 'password-reset', 'test'] as const
+export const MAIL_KINDS = ['invitation', 'review-requested', 'new-comment', 'verdict', 'released', 'password-reset', 'test', 'order', 'as-built'] as const
 export type MailKind = (typeof MAIL_KINDS)[number]
 
 export interface MailContent { subject: string, text: string, html?: string | null }

@@ -90,3 +90,39 @@ export function passwordResetMail(p: { name: string, link: string, minutes: numb
     footnote: `The link works once and for ${p.minutes} minutes. If you did not ask for it, ignore this message: your password stays as it is.`,
   })
 }
+
+// ── fabrication orders and as-built reports ──
+const orderLabel = (p: { orderNumber: number, designName: string, revisionNumber: number }) => `order ${p.orderNumber} (${revisionLabel(p.designName, p.revisionNumber)})`
+
+export function orderMovedMail(p: { orderNumber: number, designName: string, revisionNumber: number, actorName: string, statusLabel: string, note: string, trackingNumber: string | null, link: string }): MailContent {
+  return render({
+    subject: `${p.statusLabel}: ${orderLabel(p)}`,
+    lines: [
+      `${p.actorName} moved ${orderLabel(p)} to "${p.statusLabel}".`,
+      p.trackingNumber ? `Tracking number: ${p.trackingNumber}` : '',
+      p.note,
+    ],
+    action: { label: 'Open the order', link: p.link },
+  })
+}
+
+export function orderMessageMail(p: { orderNumber: number, designName: string, revisionNumber: number, actorName: string, excerpt: string, link: string }): MailContent {
+  const excerpt = p.excerpt.length > 280 ? `${p.excerpt.slice(0, 279)}…` : p.excerpt
+  return render({
+    subject: `New message on ${orderLabel(p)}`,
+    lines: [`${p.actorName} wrote on ${orderLabel(p)}:`, excerpt],
+    action: { label: 'Open the order', link: p.link },
+  })
+}
+
+export function asBuiltMail(p: { designName: string, revisionNumber: number, actorName: string, changes: string[], warnings: number, link: string }): MailContent {
+  return render({
+    subject: `As-built recorded: ${revisionLabel(p.designName, p.revisionNumber)}`,
+    lines: [
+      `${p.actorName} recorded what was actually made of ${revisionLabel(p.designName, p.revisionNumber)}; the forecast was recomputed on the as-built chip.`,
+      ...p.changes.slice(0, 8),
+      p.warnings ? `${p.warnings === 1 ? 'One change exceeds' : `${p.warnings} changes exceed`} the forecast method's uncertainty: check before the experiment.` : 'No change exceeds the forecast method\'s uncertainty.',
+    ],
+    action: { label: 'Compare as-built and as-designed', link: p.link },
+  })
+}

@@ -1,7 +1,7 @@
 // Everything a review page shows for one revision, in one read.
 import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
-import { comments, commentThreads, memberships, releases, reviewRequests, users, verdicts } from '../db/schema'
+import { comments, commentThreads, fabOrders, memberships, releases, reviewRequests, users, verdicts } from '../db/schema'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { ReviewState, ThreadView, VerdictView } from '#shared/types/designs'
@@ -23,14 +23,14 @@ export async function getReviewState(caller: LabCaller, revisionId: string): Pro
   const members = await db.select({ userId: users.id, name: users.name, role: memberships.role }).from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId)).where(eq(memberships.labId, caller.lab.labId)).orderBy(users.name)
   const releasedBy = alias(users, 'released_by')
-  const [release] = await db.select({ releasedAt: releases.releasedAt, releasedBy: releasedBy.name, fabStatus: releases.fabStatus, fabStatusAt: releases.fabStatusAt, note: releases.note })
-    .from(releases).innerJoin(releasedBy, eq(releasedBy.id, releases.releasedBy)).where(eq(releases.revisionId, revisionId))
+  const [release] = await db.select({ releasedAt: releases.releasedAt, releasedBy: releasedBy.name, note: releases.note, orderId: fabOrders.id, orderNumber: fabOrders.number, orderStatus: fabOrders.status, orderStatusAt: fabOrders.statusAt })
+    .from(releases).innerJoin(releasedBy, eq(releasedBy.id, releases.releasedBy)).innerJoin(fabOrders, eq(fabOrders.releaseId, releases.id)).where(eq(releases.revisionId, revisionId))
   return {
     status: revision.status, statusChangedAt: revision.statusChangedAt.toISOString(), statusChangedBy: changer,
     requests: insider ? requests : [], verdicts: insider ? [...latest.values()] : [],
     threads: insider ? await listThreads(revisionId) : [],
     reviewers: insider ? members.filter(m => can(m.role, 'review:verdict')) : [],
-    release: release ? { ...release, releasedAt: release.releasedAt.toISOString(), fabStatusAt: release.fabStatusAt.toISOString() } : null,
+    release: release ? { ...release, releasedAt: release.releasedAt.toISOString(), orderStatusAt: release.orderStatusAt.toISOString() } : null,
   }
 }
 

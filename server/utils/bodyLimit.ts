@@ -29,6 +29,8 @@ export const ROUTE_BODIES: BodyRule[] = [
   // Bench results (issue 13): runs as JSON or a CSV of sizes (up to 4 MB of text); micrographs as a multipart upload.
   { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/bench-runs$/, limit: MAX_DOCUMENT_BYTES, types: [JSON_TYPE, 'text/csv'] },
   { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/bench-runs\/[^/]+\/micrographs$/, limit: MAX_UPLOAD_BYTES, types: ['multipart/form-data'] },
+  // As-built reports (issue 15): a profilometer CSV or a photo per upload, up to the micrograph limit.
+  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/as-built\/[^/]+\/files$/, limit: MAX_UPLOAD_BYTES, types: ['multipart/form-data'] },
 ]
 
 export const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])

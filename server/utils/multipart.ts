@@ -18,3 +18,12 @@ export async function readMicrographForm(event: H3Event): Promise<{ file: { byte
   if (!file || file.bytes.byteLength === 0) throw bad('The form has no file in its "image" field: choose a PNG, JPEG or TIFF micrograph')
   return { file, fields }
 }
+
+/** One file part named `field` (an as-built report's profilometer CSV or photo). */
+export async function readFileForm(event: H3Event, field: string, hint: string): Promise<{ bytes: Uint8Array, fileName: string }> {
+  await readLimitedBody(event)
+  const parts = await readMultipartFormData(event)
+  const part = parts?.find(p => p.name === field && p.filename !== undefined)
+  if (!part || part.data.length === 0) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: hint })
+  return { bytes: new Uint8Array(part.data), fileName: part.filename || field }
+}

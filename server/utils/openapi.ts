@@ -9,7 +9,9 @@ import { planDocumentRequest, planJunctionRequest } from '#shared/schemas/plan'
 import { invitationCreate } from '#shared/schemas/invitations'
 import { memberRoleUpdate } from '#shared/schemas/labs'
 import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery, micrographUpdate } from '#shared/schemas/bench'
-import { commentCreate, fabStatusBody, releaseBody, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '#shared/schemas/review'
+import { orderMessage, orderMove, releaseBody } from '#shared/schemas/orders'
+import { asBuiltCreate } from '#shared/schemas/asBuilt'
+import { commentCreate, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '#shared/schemas/review'
 import { PERMISSION_LABELS, type Permission } from '#shared/utils/roles'
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete'
@@ -17,7 +19,7 @@ export interface Operation {
   method: Method
   path: string // OpenAPI style: /api/labs/{labId}/designs
   summary: string
-  tag: 'Forecast' | 'Labs' | 'Designs' | 'Review' | 'Members' | 'Bench'
+  tag: 'Forecast' | 'Labs' | 'Designs' | 'Review' | 'Members' | 'Bench' | 'Fabrication'
   permission?: Permission
   body?: z.ZodType
   query?: z.ZodObject
@@ -45,7 +47,15 @@ export const OPERATIONS: Operation[] = [
   { method: 'get', path: '/api/labs/{labId}/inbox', tag: 'Review', permission: 'lab:view', summary: 'The caller\'s lab overview: recent designs, revisions waiting for their verdict, their open comment threads', answers: '{ recentDesigns, waitingForMe, myOpenThreads } (empty for a role that sees released work only)' },
   { method: 'get', path: '/api/labs/{labId}/releases', tag: 'Designs', permission: 'released:view', summary: 'Revisions released for fabrication' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/release', tag: 'Review', permission: 'release:manage', body: releaseBody, status: 201, summary: 'Release an approved revision to fabrication' },
-  { method: 'patch', path: '/api/labs/{labId}/revisions/{revisionId}/release', tag: 'Review', permission: 'fabrication:report', body: fabStatusBody, summary: 'Report the fabrication status of a release' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/as-built', tag: 'Fabrication', permission: 'released:view', summary: 'The latest as-built report of a released revision beside the drawn chip: forecast, rules and what changed' },
+  { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/as-built', tag: 'Fabrication', permission: 'fabrication:report', body: asBuiltCreate, status: 201, summary: 'Record measured depths per layer and widths at named features (the fab, or the lab with measurements:record)' },
+  { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/as-built/{asBuiltId}/files', tag: 'Fabrication', permission: 'fabrication:report', status: 201, summary: 'Attach a profilometer CSV or a photo (multipart, field "file", checked on its bytes)' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/as-built/{asBuiltId}/files/{fileId}', tag: 'Fabrication', permission: 'released:view', summary: 'Download a file of an as-built report' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/fab-sheet.pdf', tag: 'Fabrication', permission: 'released:view', summary: 'The fab sheet as a PDF: the chip to scale, layers and depths, mask, process, findings, operating point and cautions' },
+  { method: 'get', path: '/api/labs/{labId}/orders', tag: 'Fabrication', permission: 'released:view', summary: 'The lab\'s fabrication orders (the fab\'s queue)' },
+  { method: 'get', path: '/api/labs/{labId}/orders/{orderId}', tag: 'Fabrication', permission: 'released:view', summary: 'An order with its thread and the files the fab needs (DXF per layer, fab sheet)' },
+  { method: 'post', path: '/api/labs/{labId}/orders/{orderId}/status', tag: 'Fabrication', permission: 'fabrication:report', body: orderMove, summary: 'Move an order: received → in fabrication → shipped (with a tracking number) → delivered, or on hold with a reason' },
+  { method: 'post', path: '/api/labs/{labId}/orders/{orderId}/messages', tag: 'Fabrication', permission: 'released:view', body: orderMessage, status: 201, summary: 'Write to the order\'s thread between lab and fab' },
   { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/review', tag: 'Review', permission: 'released:view', summary: 'Review state, verdicts and comment threads of a revision' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/review-requests', tag: 'Review', permission: 'designs:edit', body: reviewRequestBody, status: 201, summary: 'Ask lab members to review a revision' },
   { method: 'post', path: '/api/labs/{labId}/revisions/{revisionId}/verdicts', tag: 'Review', permission: 'review:verdict', body: verdictBody, status: 201, summary: 'Approve or request changes' },

@@ -1,6 +1,5 @@
-// Payloads of review: requests, comment threads pinned to the geometry, verdicts and the release.
+// Payloads of review: requests, comment threads pinned to the geometry, verdicts (the release: schemas/orders.ts).
 import { z } from 'zod'
-import { FAB_STATUSES } from '../utils/fabStatus'
 import { labParams } from './labs'
 import { safeText } from './text'
 
@@ -18,5 +17,3 @@ export const commentCreate = z.object({ body })
 export const threadUpdate = z.object({ resolved: z.boolean() })
 const note = safeText(undefined, 'Note').max(2000, 'A note is at most 2000 characters').default('')
 export const verdictBody = z.object({ verdict: z.enum(['approve', 'request-changes']), note })
-export const releaseBody = z.object({ note })
-export const fabStatusBody = z.object({ fabStatus: z.enum(FAB_STATUSES), note })

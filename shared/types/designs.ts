@@ -1,4 +1,4 @@
-import type { FabStatus } from '../utils/fabStatus'
+import type { OrderStatus } from '../fabrication/orderStatus'
 import type { Role } from '../utils/roles'
 
 export type RevisionStatus = 'draft' | 'in-review' | 'changes-requested' | 'approved' | 'released'
@@ -49,5 +49,5 @@ export interface ReviewState {
   verdicts: VerdictView[]
   threads: ThreadView[]
   reviewers: ReviewerOption[]
-  release: { releasedAt: string, releasedBy: string, fabStatus: FabStatus, fabStatusAt: string, note: string } | null
+  release: { releasedAt: string, releasedBy: string, note: string, orderId: string, orderNumber: number, orderStatus: OrderStatus, orderStatusAt: string } | null
 }

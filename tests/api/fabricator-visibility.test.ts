@@ -11,6 +11,7 @@ let ctx: Ctx
 let released: string
 let unreleased: string[]
 let threadId: string
+let orderId: string
 
 async function save(parentId: string, message: string) {
   const res = await ctx.as.designer.post(`/api/labs/${ctx.lab.id}/designs/${ctx.designId}/revisions`, { parentId, message, document: fixtureDocument() })
@@ -25,7 +26,9 @@ beforeAll(async () => {
   const base = `/api/labs/${ctx.lab.id}/revisions/${released}`
   expect((await ctx.as.designer.post(`${base}/review-requests`, { reviewerIds: [ctx.ids.reviewer] })).status).toBe(200)
   expect((await ctx.as.reviewer.post(`${base}/verdicts`, { verdict: 'approve' })).status).toBe(200)
-  expect((await ctx.as.admin.post(`${base}/release`, { note: 'go' })).status).toBe(200)
+  const release = await ctx.as.admin.post(`${base}/release`, { note: 'go' })
+  expect(release.status).toBe(200)
+  orderId = release.json.orderId
   const r3 = await save(released, 'after the release') // the design's latest, unreleased
   const thread = await ctx.as.designer.post(`/api/labs/${ctx.lab.id}/revisions/${r1}/threads`, { anchor: { x: 1, y: 1 }, body: 'draft note' })
   expect(thread.status).toBe(201)
@@ -34,7 +37,8 @@ beforeAll(async () => {
 }, 120_000)
 
 const WRITE_BODIES: Record<string, unknown> = {
-  'PATCH /api/labs/[labId]/revisions/[revisionId]/release': { fabStatus: 'in-fabrication', note: 'started' },
+  'POST /api/labs/[labId]/orders/[orderId]/status': { status: 'in-fabrication', note: 'started' },
+  'POST /api/labs/[labId]/orders/[orderId]/messages': { body: 'started' },
 }
 // Signing in and out change the session, not what a revision says.
 // Routes that end the walker's own session (it would walk the rest signed out).
@@ -59,7 +63,7 @@ describe('a fabricator\'s answers carry nothing about unreleased revisions', () 
       for (const revisionId of [released, ...unreleased]) {
         const path = fill(route.template, {
           labId: ctx.lab.id, designId: ctx.designId, revisionId, threadId, userId: ctx.ids.fabricator,
-          invitationId: randomUUID(), token: 'not-a-token', tokenId: randomUUID(), runId: randomUUID(), micrographId: randomUUID(),
+          invitationId: randomUUID(), token: 'not-a-token', tokenId: randomUUID(), runId: randomUUID(), micrographId: randomUUID(), orderId, asBuiltId: randomUUID(), fileId: randomUUID(),
         })
         const res = await ctx.as.fabricator.request(route.method, path, route.method === 'GET' ? undefined : (WRITE_BODIES[key] ?? {}))
         // An error answer repeats the address the fabricator sent: an id they typed themselves is not a leak.
@@ -76,7 +80,7 @@ describe('a fabricator\'s answers carry nothing about unreleased revisions', () 
     expect(answers).toEqual(expect.arrayContaining([
       'GET /api/labs/[labId]/releases', 'GET /api/labs/[labId]/revisions/[revisionId]',
       'GET /api/labs/[labId]/revisions/[revisionId]/review', 'GET /api/labs/[labId]/revisions/[revisionId]/dxf',
-      'PATCH /api/labs/[labId]/revisions/[revisionId]/release', 'GET /api/labs',
+      'GET /api/labs/[labId]/orders', 'GET /api/labs/[labId]/orders/[orderId]', 'POST /api/labs/[labId]/orders/[orderId]/status', 'GET /api/labs',
     ]))
     expect(Object.keys(seen).filter(s => Number(s) >= 500), JSON.stringify(seen)).toEqual([])
   }, 60_000)

@@ -163,13 +163,13 @@ async function setUp(baseURL: string) {
     await ok(designer.post(`${labPath}/revisions/${r}/review-requests`, { reviewerIds: [people[2]!.id] }), 'review request')
   }
   for (const r of [toRelease.revisionId, released.revisionId]) await ok(reviewer.post(`${labPath}/revisions/${r}/verdicts`, { verdict: 'approve' }), 'approve')
-  await ok(admin.post(`${labPath}/revisions/${released.revisionId}/release`, {}), 'release')
+  const order = await ok<{ orderId: string }>(admin.post(`${labPath}/revisions/${released.revisionId}/release`, {}), 'release')
   const thread = await ok<{ threadId: string }>(designer.post(`${labPath}/revisions/${main.revisionId}/threads`, { anchor: { x: 1, y: 1 }, body: 'fuzz' }), 'thread')
   await ok(admin.post(`${labPath}/invitations`, { email: `fuzz-${randomUUID().slice(0, 8)}@test.example`, role: 'designer' }), 'invite')
   const invitations = await ok<Array<{ id: string }>>(admin.get(`${labPath}/invitations`), 'invitations')
   const run = await ok<{ id: string }>(designer.post(`${labPath}/revisions/${main.revisionId}/bench-runs`, { source: 'typed', values: [50, 51, 52] }), 'bench run')
   return {
-    lab, people, doc, main, renamed, toRelease, released, threadId: thread.threadId, invitationId: invitations[0]!.id, runId: run.id,
+    lab, people, doc, main, renamed, toRelease, released, threadId: thread.threadId, invitationId: invitations[0]!.id, runId: run.id, orderId: order.orderId,
     clients: { admin, designer, fabricator, leaver, anonymous: new ApiClient(baseURL) },
   }
 }
@@ -180,7 +180,7 @@ function plan(route: ApiRoute, s: Setup) {
   const params = {
     labId: s.lab.id, designId: s.main.designId, revisionId: s.main.revisionId, threadId: s.threadId,
     invitationId: s.invitationId, userId: s.people[5]!.id, token: randomBytes(32).toString('base64url'), tokenId: randomUUID(),
-    runId: s.runId, micrographId: randomUUID(),
+    runId: s.runId, micrographId: randomUUID(), orderId: s.orderId, asBuiltId: randomUUID(),
   }
   const channel = (id: string, from: string, to: string) => ({ id, from, to, width: '100 um', depth: '50 um', length: '10 mm' })
   const plans: Record<string, { client: ApiClient, params?: Partial<typeof params>, templates: unknown[] }> = {
@@ -208,10 +208,19 @@ function plan(route: ApiRoute, s: Setup) {
     'DELETE /api/labs/[labId]/members/[userId]': { client: admin, params: { userId: s.people[4]!.id }, templates: [{}] },
     'PATCH /api/labs/[labId]/members/[userId]': { client: admin, templates: [{ role: 'experimenter' }, { role: 'reviewer' }] },
     'POST /api/labs/[labId]/revisions/[revisionId]/duplicate': { client: admin, templates: [{ targetLabId: s.lab.id, name: 'Fuzzed copy' }] },
-    'PATCH /api/labs/[labId]/revisions/[revisionId]/release': {
-      client: fabricator, params: { revisionId: s.released.revisionId }, templates: [{ fabStatus: 'on-hold', note: 'n' }, { fabStatus: 'released' }],
+    'POST /api/labs/[labId]/orders/[orderId]/status': {
+      client: fabricator, templates: [{ status: 'on-hold', note: 'n' }, { status: 'received' }, { status: 'in-fabrication', note: 'started' }, { status: 'shipped', trackingNumber: 'TRK-9', note: '' }],
     },
-    'POST /api/labs/[labId]/revisions/[revisionId]/release': { client: admin, params: { revisionId: s.toRelease.revisionId }, templates: [{ note: 'go' }] },
+    'POST /api/labs/[labId]/revisions/[revisionId]/as-built': {
+      client: fabricator, params: { revisionId: s.released.revisionId },
+      templates: [{ depths: [{ layerId: 'ch50', depthUm: 52 }], widths: [{ elementId: 'tj-1', field: 'mainWidth', widthUm: 97 }], note: 'profilometer' }, { widths: [{ elementId: 'oil-feed', field: 'width', widthUm: 101 }] }],
+    },
+    'POST /api/labs/[labId]/revisions/[revisionId]/as-built/[asBuiltId]/files': { client: fabricator, params: { revisionId: s.released.revisionId }, templates: [{}] },
+    'POST /api/labs/[labId]/orders/[orderId]/messages': { client: fabricator, templates: [{ body: 'Wafer two is cracked: remake on Monday?' }] },
+    'POST /api/labs/[labId]/revisions/[revisionId]/release': {
+      client: admin, params: { revisionId: s.toRelease.revisionId },
+      templates: [{ note: 'go' }, { note: 'go', order: { quantity: 4, substrate: 'glass', maskPolarity: 'negative', maskMedium: 'chrome', dueDate: '2027-02-01', poNumber: 'PO-1', notes: 'n' } }],
+    },
     'POST /api/labs/[labId]/revisions/[revisionId]/review-requests': { client: admin, templates: [{ reviewerIds: [s.people[2]!.id, s.people[0]!.id] }] },
     'POST /api/labs/[labId]/revisions/[revisionId]/threads': { client: admin, templates: [{ anchor: { x: 100, y: 200, elementId: 'tj-1' }, body: 'Is this *wide* enough?' }] },
     'PATCH /api/labs/[labId]/revisions/[revisionId]/threads/[threadId]': { client: admin, templates: [{ resolved: true }, { resolved: false }] },

@@ -54,8 +54,11 @@ describe('review, release and the fabricator\'s view (real server, real PostgreS
     expect(dxf.status).toBe(200)
     expect(dxf.headers.get('content-disposition')).toMatch(/cell-drops-t-junction_r1_all-layers_mirrored\.dxf/)
     expect(String(dxf.json)).toContain('$INSUNITS')
-    expect((await as.fabricator.patch(`${base}/release`, { fabStatus: 'in-fabrication' })).json.fabStatus).toBe('in-fabrication')
-    expect((await as.designer.patch(`${base}/release`, { fabStatus: 'shipped' })).status).toBe(403)
+    const orderId = seen.release.orderId as string
+    const orderPath = `/api/labs/${lab.id}/orders/${orderId}`
+    expect((await as.fabricator.post(`${orderPath}/status`, { status: 'in-fabrication' })).json.status).toBe('in-fabrication')
+    expect((await as.designer.post(`${orderPath}/status`, { status: 'shipped', trackingNumber: 'T1' })).status).toBe(403)
+    expect((await as.fabricator.get(`${base}/review`)).json.release.orderStatus).toBe('in-fabrication')
     expect((await as.fabricator.post(`${base}/threads`, { anchor: { x: 0, y: 0 }, body: 'hi' })).status).toBe(403)
   })
 

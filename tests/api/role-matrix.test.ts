@@ -1,12 +1,13 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { fixtureDocument } from '../support/factory'
 import { ALL_ROLES, labWithDesign } from '../support/designs'
+import { releasedOrder } from '../support/orders'
 import { can, type Permission, type Role } from '../../shared/utils/roles'
 
 // Every lab-scoped route × every role × own lab / another lab. Allowed calls must get past the access check
 // (any status but 401, 403 and 404); forbidden ones get 403; another lab's ids always give 404.
 type Ctx = Awaited<ReturnType<typeof labWithDesign>>
-interface Route { name: string, method: string, path: (c: Ctx) => string, permission: Permission, body?: (c: Ctx) => unknown }
+interface Route { name: string, method: string, path: (c: Ctx) => string, permission: Permission, body?: (c: Ctx) => unknown, allowed?: (role: Role) => boolean, released?: boolean }
 
 const ROUTES: Route[] = [
   { name: 'list members', method: 'GET', path: c => `/api/labs/${c.lab.id}/members`, permission: 'members:view' },
@@ -28,15 +29,24 @@ const ROUTES: Route[] = [
   { name: 'pin a comment', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/threads`, permission: 'review:comment', body: () => ({ anchor: { x: 1, y: 1 }, body: 'x' }) },
   { name: 'verdict', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/verdicts`, permission: 'review:verdict', body: () => ({ verdict: 'request-changes' }) },
   { name: 'release', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/release`, permission: 'release:manage', body: () => ({}) },
-  { name: 'fab status', method: 'PATCH', path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/release`, permission: 'fabrication:report', body: () => ({ fabStatus: 'on-hold' }) },
+  { name: 'as-built report', method: 'GET', path: c => `/api/labs/${c.lab.id}/revisions/${orders.get(c)!.revisionId}/as-built`, permission: 'released:view', released: true },
+  // The fab records what it made, or the lab on receipt (who records measurements).
+  { name: 'record an as-built', method: 'POST', path: c => `/api/labs/${c.lab.id}/revisions/${orders.get(c)!.revisionId}/as-built`, permission: 'released:view', allowed: r => can(r, 'fabrication:report') || can(r, 'measurements:record'), body: () => ({ depths: [{ layerId: 'ch50', depthUm: 51 }] }), released: true },
+  { name: 'list orders', method: 'GET', path: c => `/api/labs/${c.lab.id}/orders`, permission: 'released:view' },
+  { name: 'open an order', method: 'GET', path: c => `/api/labs/${c.lab.id}/orders/${orders.get(c)!.orderId}`, permission: 'released:view' },
+  { name: 'move an order', method: 'POST', path: c => `/api/labs/${c.lab.id}/orders/${orders.get(c)!.orderId}/status`, permission: 'fabrication:report', body: () => ({ status: 'on-hold', note: 'waiting for resist' }) },
+  { name: 'write on an order', method: 'POST', path: c => `/api/labs/${c.lab.id}/orders/${orders.get(c)!.orderId}/messages`, permission: 'released:view', body: () => ({ body: 'matrix' }) },
   { name: 'list releases', method: 'GET', path: c => `/api/labs/${c.lab.id}/releases`, permission: 'released:view' },
 ]
 
 let own: Ctx
 let other: Ctx
+/** Each lab's released revision and its order (the order routes); the design under test stays unreleased. */
+const orders = new Map<Ctx, Awaited<ReturnType<typeof releasedOrder>>>()
 beforeAll(async () => {
   own = await labWithDesign()
   other = await labWithDesign()
+  for (const c of [own, other]) orders.set(c, await releasedOrder(c))
   // a review must be requested before verdicts; the revision stays unreleased (fabricators must not see it)
   await own.as.designer.post(`/api/labs/${own.lab.id}/revisions/${own.revisionId}/review-requests`, { reviewerIds: [own.ids.reviewer] })
 }, 120_000)
@@ -44,12 +54,12 @@ beforeAll(async () => {
 describe('role matrix: every route × role × lab', () => {
   for (const route of ROUTES) {
     for (const role of ALL_ROLES) {
-      const allowed = can(role, route.permission)
+      const allowed = route.allowed ? route.allowed(role) : can(role, route.permission)
       it(`${route.name}: ${role} ${allowed ? 'passes' : 'is refused'} in their lab, and gets 404 in another`, async () => {
         const api = own.as[role as Role]
         const res = await api.request(route.method, route.path(own), route.body?.(own))
         // Someone who only sees released work (the fabricator) finds an unreleased revision simply not there.
-        const unseen = !can(role, 'designs:view') && route.path(own).includes('/revisions/')
+        const unseen = !route.released && !can(role, 'designs:view') && route.path(own).includes('/revisions/')
         if (unseen && (allowed || route.permission === 'designs:view')) expect(res.status).toBe(404)
         else if (allowed) expect([401, 403, 404], `${res.status} ${JSON.stringify(res.json)}`).not.toContain(res.status)
         else expect(res.status).toBe(403)

@@ -94,29 +94,29 @@ describe('state machines under races (real server, real PostgreSQL)', () => {
     expect((await api.get(`/api/labs/${lab.id}/invitations`)).json.filter((i: { email: string }) => i.email === email)).toHaveLength(1)
   })
 
-  it('fabrication status moves are guarded: of two racing moves one applies, and received is final', async () => {
+  it('order status moves are guarded: of two racing moves one applies, and delivered is final', async () => {
     const { as, base } = await approvedRevision()
-    expect((await as.admin.post(`${base}/release`, {})).status).toBe(200)
-    const [hold, start] = await Promise.all([
-      as.fabricator.patch(`${base}/release`, { fabStatus: 'on-hold', note: 'waiting for wafers' }),
-      as.fabricator.patch(`${base}/release`, { fabStatus: 'in-fabrication' }),
-    ])
-    expect([hold.status, start.status].sort()).toEqual([200, 200]) // released → on-hold → in-fabrication is allowed either way
-    expect((await as.fabricator.patch(`${base}/release`, { fabStatus: 'received' })).status).toBe(409) // not shipped yet
-    const shipped = await Promise.all(Array.from({ length: 5 }, () => as.fabricator.patch(`${base}/release`, { fabStatus: 'shipped' })))
-    const state = (await as.designer.get(`${base}/review`)).json.release.fabStatus
+    const released = await as.admin.post(`${base}/release`, {})
+    expect(released.status).toBe(200)
+    const order = `${base.replace(/\/revisions\/.*/, '')}/orders/${released.json.orderId}/status`
+    const move = (status: string, extra: Record<string, string> = {}) => as.fabricator.post(order, { status, ...extra })
+    const [hold, start] = await Promise.all([move('on-hold', { note: 'waiting for wafers' }), move('in-fabrication')])
+    expect([hold.status, start.status].sort()).toEqual([200, 200]) // received → on-hold → in-fabrication is allowed either way
+    expect((await move('delivered')).status).toBe(409) // not shipped yet
+    const shipped = await Promise.all(Array.from({ length: 5 }, () => move('shipped', { trackingNumber: 'TRK-1' })))
+    const state = (await as.designer.get(`${base}/review`)).json.release.orderStatus
     // From in-fabrication exactly one of five "shipped" moves applies; from on-hold none may (it must restart first).
     expect(shipped.filter(s => s.status === 200)).toHaveLength(state === 'shipped' ? 1 : 0)
     if (state !== 'shipped') {
-      expect(shipped[0]!.json.message).toMatch(/on hold: it cannot move to shipped/)
-      expect((await as.fabricator.patch(`${base}/release`, { fabStatus: 'in-fabrication' })).status).toBe(200)
-      expect((await as.fabricator.patch(`${base}/release`, { fabStatus: 'shipped' })).status).toBe(200)
+      expect(shipped[0]!.json.message).toMatch(/"On hold": it cannot move to "Shipped"/)
+      expect((await move('in-fabrication')).status).toBe(200)
+      expect((await move('shipped', { trackingNumber: 'TRK-1' })).status).toBe(200)
     } else {
-      expect(shipped.find(s => s.status === 409)!.json.message).toMatch(/shipped: it cannot move to shipped/)
+      expect(shipped.find(s => s.status === 409)!.json.message).toMatch(/"Shipped": it cannot move to "Shipped"/)
     }
-    expect((await as.fabricator.patch(`${base}/release`, { fabStatus: 'received' })).status).toBe(200)
-    const final = await as.fabricator.patch(`${base}/release`, { fabStatus: 'in-fabrication' })
+    expect((await move('delivered')).status).toBe(200)
+    const final = await move('in-fabrication')
     expect(final.status).toBe(409)
-    expect(final.json.message).toMatch(/received is final/)
+    expect(final.json.message).toMatch(/delivered is final/)
   })
 })

@@ -145,6 +145,8 @@ describe('review story in Chromium', () => {
     await hydrated(admin)
     await admin.click('[data-test="revision-r4"]')
     await admin.click('[data-test="release"]')
+    await admin.click('[data-test="release-review"]') // the order form, then the confirmation (a release cannot be undone)
+    await admin.click('[data-test="release-confirm-yes"]')
     await admin.waitForSelector('[data-test="release-info"]')
 
     const fab = await as('fabricator')

@@ -6,7 +6,8 @@ import { parseChipDocument } from '#shared/schemas/chip'
 import { designCreate, designListQuery, designUpdate, duplicateBody, dxfQuery, revisionCreate } from '#shared/schemas/designs'
 import { junctionRequest, networkRequest, documentRequest } from '#shared/schemas/forecast'
 import { invitationAccept, invitationCreate, invitationTokenParams, newAccount } from '#shared/schemas/invitations'
-import { commentCreate, fabStatusBody, releaseBody, threadCreate, verdictBody } from '#shared/schemas/review'
+import { commentCreate, threadCreate, verdictBody } from '#shared/schemas/review'
+import { orderMessage, orderMove, releaseBody } from '#shared/schemas/orders'
 import { safeText, textProblem } from '#shared/schemas/text'
 import { loadDocumentFixture } from './load-fixture'
 
@@ -27,8 +28,9 @@ const SAMPLES: Array<[string, z.ZodType, unknown]> = [
   ['threadCreate', threadCreate, { anchor: { x: 0, y: 0, elementId: 'tj-1' }, body: 'look here' }],
   ['commentCreate', commentCreate, { body: 'ok' }],
   ['verdictBody', verdictBody, { verdict: 'approve', note: 'fine' }],
-  ['releaseBody', releaseBody, { note: 'go' }],
-  ['fabStatusBody', fabStatusBody, { fabStatus: 'in-fabrication', note: 'started' }],
+  ['releaseBody', releaseBody, { note: 'go', order: { poNumber: 'PO-7', notes: 'two wafers', dueDate: '2027-01-31' } }],
+  ['orderMove', orderMove, { status: 'shipped', note: 'sent', trackingNumber: 'TRK-1' }],
+  ['orderMessage', orderMessage, { body: 'When will it ship?' }],
   ['junctionRequest', junctionRequest, {
     junction: { kind: 't-junction', mainWidth: '100 um', depth: '50 um' },
     continuous: { name: 'oil', viscosity: '3 mPa*s', density: '800 kg/m^3' }, dispersed: { liquid: 'water' },
@@ -41,7 +43,7 @@ const SAMPLES: Array<[string, z.ZodType, unknown]> = [
   ['documentRequest', documentRequest, { document: {}, operatingPoint: 'op-1' }],
 ]
 /** Fixed choices and formats (enums, literals, UUIDs): refused too, by their own message. */
-const CHOICES = new Set(['parentId', 'targetLabId', 'role', 'verdict', 'fabStatus', 'kind', 'units', 'mode', 'unit', 'phase', 'resistanceMethod', 'surfactant'])
+const CHOICES = new Set(['parentId', 'targetLabId', 'role', 'verdict', 'status', 'kind', 'units', 'mode', 'unit', 'phase', 'resistanceMethod', 'surfactant'])
 
 function stringLeaves(v: unknown, path: (string | number)[] = []): (string | number)[][] {
   if (typeof v === 'string') return [path]

@@ -1,5 +1,5 @@
 import { revisionParams } from '#shared/schemas/designs'
-import { releaseBody } from '#shared/schemas/review'
+import { releaseBody } from '#shared/schemas/orders'
 import { releaseRevision } from '../../../../../services/releases'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'
@@ -7,6 +7,6 @@ import { validBody, validParams } from '../../../../../utils/validate'
 export default defineEventHandler(async (event) => {
   const { labId, revisionId } = validParams(event, revisionParams)
   const caller = requireLabPermission(event, labId, 'release:manage')
-  const { note } = await validBody(event, releaseBody)
-  return releaseRevision(caller, revisionId, note)
+  const { note, order } = await validBody(event, releaseBody)
+  return releaseRevision(caller, revisionId, note, order)
 })

@@ -1,0 +1,10 @@
+import { labParams } from '#shared/schemas/labs'
+import { listOrders } from '../../../../services/orders'
+import { requireLabPermission } from '../../../../utils/access'
+import { validParams } from '../../../../utils/validate'
+
+export default defineEventHandler(async (event) => {
+  const { labId } = validParams(event, labParams)
+  const caller = requireLabPermission(event, labId, 'released:view')
+  return listOrders(caller)
+})
