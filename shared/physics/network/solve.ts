@@ -81,13 +81,18 @@ function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, s
 /** Sparse solve: PCG preconditioned by the exact envelope Cholesky factor when the envelope is narrow, else by a zero-fill (modified) incomplete Cholesky factor, Jacobi as the last resort. */
 export function solveNetwork(problem: NetworkProblem): NetworkSolution {
   const net = indexNetwork(problem)
-  const system = assemble(net)
-  const { apply, name } = preconditioner(system)
+  const { x, solver, iterations, residual } = solveSystem(assemble(net))
+  return finish(problem, net, x, solver, iterations, residual)
+}
+
+/** The matrix part of a solve (ordering, factor, PCG) on an assembled system; the benchmark times it against SciPy. */
+export function solveSystem(system: ReducedSystem, known?: Ordering): { x: Float64Array; solver: SolverName; iterations: number; residual: number } {
+  const { apply, name } = preconditioner(system, known)
   const result = pcg(system.matrix, system.rhs, apply)
   if (!result.converged) {
     throw new NetworkError('not-converged', `The network solve stopped at relative residual ${result.residual.toExponential(2)} after ${result.iterations} iterations; check for channels whose resistances differ by more than ~10¹² and merge or drop them`)
   }
-  return finish(problem, net, result.x, name, result.iterations, result.residual)
+  return { x: result.x, solver: name, iterations: result.iterations, residual: result.residual }
 }
 
 /** Dense Gaussian elimination on the same system — for the benchmark and cross-checks only. */
@@ -130,11 +135,7 @@ export class NetworkResolver {
     })
     const system = assemble(net)
     this.known ??= ordering(system)
-    const { apply, name } = preconditioner(system, this.known)
-    const result = pcg(system.matrix, system.rhs, apply)
-    if (!result.converged) {
-      throw new NetworkError('not-converged', `The network solve stopped at relative residual ${result.residual.toExponential(2)} after ${result.iterations} iterations; check for channels whose resistances differ by more than ~10¹² and merge or drop them`)
-    }
-    return finish({ channels: this.problem.channels, sources }, net, result.x, name, result.iterations, result.residual, this.sourceIndex)
+    const { x, solver, iterations, residual } = solveSystem(system, this.known)
+    return finish({ channels: this.problem.channels, sources }, net, x, solver, iterations, residual, this.sourceIndex)
   }
 }
