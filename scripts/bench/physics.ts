@@ -190,11 +190,16 @@ export async function run(): Promise<void> {
   const answer = forecastDocument(chip)
   const forecast = answer.junctions.filter((j) => j.forecast).length
   const docMs = median(() => forecastDocument(chip), 21)
+  // On a shared machine the wall-clock median counts time other processes held the core: CPU time per run too.
+  const cpuStart = process.cpuUsage()
+  for (let i = 0; i < 21; i++) forecastDocument(chip)
+  const cpuUsed = process.cpuUsage(cpuStart)
+  const docCpuMs = (cpuUsed.user + cpuUsed.system) / 1000 / 21
   const json = JSON.parse(JSON.stringify(chip))
   const parseMs = median(() => parseChipDocument(json), 7)
   const { coupling } = answer.network
   const windows = answer.network.operatingWindow
-  console.log(`forecastDocument, two-phase: ${answer.network.channels.length} channels, ${answer.junctions.length} junctions (${forecast} forecast), ${answer.network.solver.name}: ${docMs.toFixed(2)} ms median (target < 30 ms)`)
+  console.log(`forecastDocument, two-phase: ${answer.network.channels.length} channels, ${answer.junctions.length} junctions (${forecast} forecast), ${answer.network.solver.name}: ${docMs.toFixed(2)} ms median, ${docCpuMs.toFixed(2)} ms CPU per run (target < 20 ms: ${docMs < 20 ? 'met' : docCpuMs < 20 ? 'met in CPU time only' : 'NOT met'})`)
   console.log(`  coupled drops–flows iteration: ${coupling.iterations} iterations, ${coupling.converged ? 'converged' : 'NOT converged'} (change ${coupling.change.toExponential(2)} < tolerance ${coupling.tolerance}); ${windows.length} pressure windows, e.g. ${windows[0] ? `${windows[0].port} ${(windows[0].from.value / 100).toFixed(1)}–${(windows[0].to.value / 100).toFixed(1)} mbar (${windows[0].limitedBy})` : 'none'}`)
   const dropShare = answer.network.channels.reduce((max, c) => Math.max(max, c.dropletShare), 0)
   console.log(`  largest share of a channel's pressure drop added by drops: ${(100 * dropShare).toFixed(2)} %`)
