@@ -48,6 +48,24 @@ async function largeLab(): Promise<string> {
   }
 }
 
+/** The database's own time for the first page's query and the count (EXPLAIN ANALYZE), apart from HTTP and load. */
+async function explainFirstPage(labId: string): Promise<string> {
+  const client = new pg.Client({ connectionString: databaseUrl })
+  await client.connect()
+  try {
+    const time = async (query: string) => {
+      const plan = (await client.query<{ 'QUERY PLAN': string }>(`explain (analyze, format text) ${query}`, [labId])).rows.map(r => r['QUERY PLAN'])
+      return `${plan.find(line => line.startsWith('Execution Time'))?.replace('Execution Time: ', '')} (${/Index Scan|Index Only Scan/.test(plan.join()) ? 'index' : 'sequential scan'})`
+    }
+    const page = await time(`select d.id, d.name, r.number, r.status, u.name from designs d left join revisions r on r.id = d.latest_revision_id
+      left join users u on u.id = r.author_id where d.lab_id = $1 and d.archived_at is null order by d.updated_at desc, d.id desc limit 50`)
+    const count = await time('select count(*) from designs d where d.lab_id = $1 and d.archived_at is null')
+    return `first page ${page}, count ${count}`
+  } finally {
+    await client.end()
+  }
+}
+
 const server = await startServer({ databaseUrl, name: 'bench-api', env: { DW_MAIL_WORKER: '0' } })
 const base = server.baseURL
 try {
@@ -60,6 +78,7 @@ try {
   const largeLabId = await largeLab()
   const firstPage = await fetch(`${base}/api/labs/${largeLabId}/designs`, { headers })
   console.log(`lab of ${LARGE_LAB_DESIGNS.toLocaleString('en-GB')} designs ready in ${(performance.now() - seeded).toFixed(0)} ms; first page: ${(await firstPage.json() as unknown[]).length} rows of X-Total-Count ${firstPage.headers.get('x-total-count')}`)
+  console.log(`  in the database alone: ${await explainFirstPage(largeLabId)}`)
   const document = generateParallelChip({ nozzles: 512, name: 'Bench chip, 512 nozzles' })
   const t0 = performance.now()
   const created = await json(`/api/labs/${labId}/designs`, 'POST', { name: `Bench ${new Date().toISOString()}`, document })
