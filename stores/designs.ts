@@ -2,7 +2,7 @@ import { defineStore } from 'pinia'
 import type { ActivityEntry, DesignOriginView, DesignRow, RevisionRow } from '~~/shared/types/designs'
 import type { DesignCreate } from '~~/shared/schemas/designs'
 
-export interface DesignListQuery { q?: string, status?: string, kind?: string, archived?: 'true' | 'false', sort?: 'updated' | 'name' | 'created', dir?: 'asc' | 'desc' }
+export interface DesignListQuery { q?: string, status?: string, kind?: string, archived?: 'true' | 'false', sort?: 'updated' | 'name' | 'created', dir?: 'asc' | 'desc', page?: number, pageSize?: number }
 export interface DesignDetail {
   design: { id: string, name: string, description: string, processId: string, createdBy: string, createdById: string, createdAt: string, updatedAt: string, archived: boolean, latestRevisionId: string | null, origin: DesignOriginView | null }
   revisions: RevisionRow[]
@@ -12,13 +12,19 @@ export interface DesignDetail {
 /** A lab's designs and the open design. */
 export const useDesignsStore = defineStore('designs', () => {
   const rows = ref<DesignRow[]>([])
+  const paging = ref({ total: 0, page: 1, pageSize: 50 })
   const detail = ref<DesignDetail | null>(null)
   const { busy, problem, run } = useApiCall()
   const headers = () => useRequestHeaders(['cookie'])
 
   async function load(labId: string, query: DesignListQuery = {}) {
     const clean = Object.fromEntries(Object.entries(query).filter(([, v]) => v !== undefined && v !== ''))
-    await run(async () => { rows.value = await $fetch<DesignRow[]>(`/api/labs/${labId}/designs`, { query: clean, headers: headers() }) })
+    await run(async () => {
+      // One page of rows; the server puts the total and the page it answered in headers.
+      const res = await $fetch.raw<DesignRow[]>(`/api/labs/${labId}/designs`, { query: clean, headers: headers() })
+      rows.value = res._data ?? []
+      paging.value = { total: Number(res.headers.get('x-total-count') ?? rows.value.length), page: Number(res.headers.get('x-page') ?? 1), pageSize: Number(res.headers.get('x-page-size') ?? rows.value.length) }
+    })
   }
 
   async function loadDetail(labId: string, designId: string) {
@@ -43,5 +49,5 @@ export const useDesignsStore = defineStore('designs', () => {
     return saved
   }
 
-  return { rows, detail, busy, problem, load, loadDetail, create, setArchived, duplicate, uploadRevision }
+  return { rows, paging, detail, busy, problem, load, loadDetail, create, setArchived, duplicate, uploadRevision }
 })

@@ -102,7 +102,13 @@ export const designs = pgTable('designs', {
   /** Junction kinds of the latest revision, kept here so the design list never reads revision summaries. */
   junctionKinds: text('junction_kinds').array().notNull().default(sql`'{}'::text[]`),
   origin: jsonb('origin').$type<DesignOrigin>(),
-}, t => [index('designs_lab_idx').on(t.labId, t.updatedAt)])
+}, t => [
+  // The designs list (server/services/designs.ts): one index per sort order, ending in id for the tie-break, so a
+  // page of a 10,000-design lab is read off the index in either direction.
+  index('designs_lab_updated_idx').on(t.labId, t.updatedAt, t.id),
+  index('designs_lab_name_idx').on(t.labId, t.name, t.id),
+  index('designs_lab_created_idx').on(t.labId, t.createdAt, t.id),
+])
 
 /** Immutable: a database trigger refuses any change to a revision's content and any delete. */
 export const revisions = pgTable('revisions', {

@@ -16,12 +16,23 @@ import { summarizeOffThread } from '../utils/summaryWorker'
 import { starterDocument } from './starterDocument'
 
 // The list is the most read query: a named prepared statement per sort order (planned once per connection), every
-// filter a nullable placeholder.
+// filter a nullable placeholder, one page at a time (offset + limit) with the total counted by a second prepared
+// statement on the same filters (the join to revisions only when the status filter needs it). Indexes
+// `designs_lab_<sort>_idx` (lab, archived, sort key, id) serve every order, so a page reads its rows off the index.
 const ORDER = { updated: designs.updatedAt, name: designs.name, created: designs.createdAt } as const
 type ListQuery = z.infer<typeof designListQuery>
 const like = sql.placeholder('like')
 const status = sql.placeholder('status')
 const kind = sql.placeholder('kind')
+
+function listFilters() {
+  return [
+    eq(designs.labId, sql.placeholder('labId')),
+    sql`(${designs.archivedAt} is not null) = ${sql.placeholder('archived')}`,
+    sql`(${like}::text is null or ${designs.name} ilike ${like})`,
+    sql`(${kind}::text is null or ${kind} = any(${designs.junctionKinds}))`,
+  ]
+}
 
 function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
   return useDb().select({
@@ -31,28 +42,39 @@ function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
   }).from(designs)
     .leftJoin(revisions, eq(revisions.id, designs.latestRevisionId))
     .leftJoin(users, eq(users.id, revisions.authorId))
-    .where(and(
-      eq(designs.labId, sql.placeholder('labId')),
-      sql`(${designs.archivedAt} is not null) = ${sql.placeholder('archived')}`,
-      sql`(${like}::text is null or ${designs.name} ilike ${like})`,
-      sql`(${status}::revision_status is null or ${revisions.status} = ${status})`,
-      sql`(${kind}::text is null or ${kind} = any(${designs.junctionKinds}))`,
-    ))
-    .orderBy(dir === 'asc' ? asc(ORDER[sort]) : desc(ORDER[sort]), designs.id)
-    .limit(500)
+    .where(and(...listFilters(), sql`(${status}::revision_status is null or ${revisions.status} = ${status})`))
+    .orderBy(dir === 'asc' ? asc(ORDER[sort]) : desc(ORDER[sort]), dir === 'asc' ? asc(designs.id) : desc(designs.id))
+    .limit(sql.placeholder('limit'))
+    .offset(sql.placeholder('offset'))
     .prepare(`dw_designs_${sort}_${dir}`)
 }
 const lists = new Map<string, ReturnType<typeof prepareList>>()
 
-export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<DesignRow[]> {
+const countAll = () => useDb().select({ total: sql<number>`count(*)::int` }).from(designs).where(and(...listFilters())).prepare('dw_designs_count')
+const countByStatus = () => useDb().select({ total: sql<number>`count(*)::int` }).from(designs)
+  .innerJoin(revisions, eq(revisions.id, designs.latestRevisionId))
+  .where(and(...listFilters(), sql`${revisions.status} = ${status}`)).prepare('dw_designs_count_status')
+let counts: { all: ReturnType<typeof countAll>; byStatus: ReturnType<typeof countByStatus> } | undefined
+
+export interface DesignPage { rows: DesignRow[]; total: number; page: number; pageSize: number }
+
+export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<DesignPage> {
   const dir = query.dir === 'asc' ? 'asc' : 'desc'
   const key = `${query.sort}-${dir}`
   const list = lists.get(key) ?? lists.set(key, prepareList(query.sort, dir)).get(key)!
-  const rows = await list.execute({
-    labId: caller.lab.labId, archived: query.archived === 'true', status: query.status ?? null, kind: query.kind ?? null,
+  counts ??= { all: countAll(), byStatus: countByStatus() }
+  const filters = {
+    labId: caller.lab.labId, archived: query.archived === 'true', kind: query.kind ?? null,
     like: query.q ? `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%` : null,
-  })
-  return rows.map(r => ({ ...r, updatedAt: r.updatedAt.toISOString(), authorName: r.authorName ?? '', origin: r.origin ?? null }))
+  }
+  const [rows, [counted]] = await Promise.all([
+    list.execute({ ...filters, status: query.status ?? null, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
+    query.status ? counts.byStatus.execute({ ...filters, status: query.status }) : counts.all.execute(filters),
+  ])
+  return {
+    rows: rows.map(r => ({ ...r, updatedAt: r.updatedAt.toISOString(), authorName: r.authorName ?? '', origin: r.origin ?? null })),
+    total: counted?.total ?? 0, page: query.page, pageSize: query.pageSize,
+  }
 }
 
 export async function createDesign(caller: LabCaller, body: z.infer<typeof designCreate>) {

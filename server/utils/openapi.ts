@@ -35,7 +35,7 @@ export const OPERATIONS: Operation[] = [
   { method: 'post', path: '/api/v1/plan', tag: 'Forecast', summary: 'Plan a droplet generator: from a target droplet to an operating window, a recommended point, geometry, loading and a run plan', body: z.union([planJunctionRequest, planDocumentRequest]), answers: 'window, recommended, geometry, encapsulation, each quantity with its method and source (docs/planner.md)' },
   { method: 'get', path: '/api/v1/liquids', tag: 'Forecast', summary: 'The built-in liquids, pairs and surfactants, each value with its source' },
   { method: 'get', path: '/api/labs', tag: 'Labs', summary: 'The labs the caller works in (with a token: the token\'s lab)' },
-  { method: 'get', path: '/api/labs/{labId}/designs', tag: 'Designs', permission: 'designs:view', query: designListQuery, summary: 'List the lab\'s designs' },
+  { method: 'get', path: '/api/labs/{labId}/designs', tag: 'Designs', permission: 'designs:view', query: designListQuery, summary: 'List the lab\'s designs, one page at a time', answers: 'the page\'s design rows (an array); the total in the X-Total-Count header, with X-Page and X-Page-Size' },
   { method: 'post', path: '/api/labs/{labId}/designs', tag: 'Designs', permission: 'designs:edit', body: designCreate, status: 201, summary: 'Create a design with its first revision', answers: '{ designId, revisionId }' },
   { method: 'get', path: '/api/labs/{labId}/designs/{designId}', tag: 'Designs', permission: 'designs:view', summary: 'A design with its latest revision and activity' },
   { method: 'patch', path: '/api/labs/{labId}/designs/{designId}', tag: 'Designs', permission: 'designs:edit', body: designUpdate, summary: 'Rename, archive or restore a design' },

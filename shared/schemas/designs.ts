@@ -27,6 +27,10 @@ export const designUpdate = z.object({
   archived: z.boolean().optional(),
 })
 
+/** Designs per page of the list (default), the largest page size a caller may ask for, and the last page number. */
+export const DESIGN_PAGE_SIZE = 50
+export const MAX_DESIGN_PAGE_SIZE = 200
+export const MAX_DESIGN_PAGE = 10_000
 export const designListQuery = z.object({
   q: safeText(undefined, 'Search text').max(120, 'Search text is at most 120 characters').optional(),
   status: z.enum(['draft', 'in-review', 'changes-requested', 'approved', 'released']).optional(),
@@ -34,7 +38,11 @@ export const designListQuery = z.object({
   archived: z.enum(['true', 'false']).default('false'),
   sort: z.enum(['updated', 'name', 'created']).default('updated'),
   dir: z.enum(['asc', 'desc']).default('desc'),
+  /** 1-based page of `pageSize` rows in the chosen order; the answer's X-Total-Count header gives the total. */
+  page: z.coerce.number('Page must be a whole number from 1').int('Page must be a whole number from 1').min(1, 'Page must be a whole number from 1').max(MAX_DESIGN_PAGE, `Page is at most ${MAX_DESIGN_PAGE}: narrow the list with a search or filter`).default(1),
+  pageSize: z.coerce.number('Page size must be a whole number from 1 to 200').int('Page size must be a whole number from 1 to 200').min(1, 'Page size must be a whole number from 1 to 200').max(MAX_DESIGN_PAGE_SIZE, `Page size is at most ${MAX_DESIGN_PAGE_SIZE} designs`).default(DESIGN_PAGE_SIZE),
 })
+export type DesignListQueryParsed = z.infer<typeof designListQuery>
 
 export const revisionCreate = z.object({
   /** The revision this one was edited from; must be the latest unless `branch` is set. */

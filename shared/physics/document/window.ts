@@ -43,9 +43,10 @@ export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, 
     const offset = Float64Array.from(solved.offset)
     const zeros = new Float64Array(offset.length)
     const closed = new Set<number>()
+    const fedIndex = new Set(fed.map((f) => f.k))
     compiled.junctions.forEach((j, k) => {
       const arm = solved.arms[k]!
-      const mine = fed.some((f) => f.k === k)
+      const mine = fedIndex.has(k)
       if (arm.barrier !== undefined && (mine || arm.state === 'open')) offset[j.dispersed] = arm.barrier
       else if (arm.state === 'below-barrier') closed.add(j.dispersed)
     })

@@ -18,23 +18,33 @@ export interface IndexedNetwork {
   unknownCount: number
 }
 
-function nodeIndex(problem: NetworkProblem): Map<string, number> {
+/** Numbers the nodes in order of first appearance and fills each channel's end indices (one map lookup per end). */
+function nodeIndex(problem: NetworkProblem, from: Int32Array, to: Int32Array): Map<string, number> {
   const index = new Map<string, number>()
-  problem.channels.forEach((channel, k) => {
+  const channels = problem.channels
+  for (let k = 0; k < channels.length; k++) {
+    const channel = channels[k]!
     if (!(channel.resistance > 0) || !Number.isFinite(channel.resistance)) {
       throw new NetworkError('bad-resistance', `Channel "${channel.id}" has resistance ${channel.resistance}; it must be finite and > 0 — check its width, depth and length`, { channelIndex: k })
     }
     if (channel.from === channel.to) {
       throw new NetworkError('self-loop', `Channel "${channel.id}" starts and ends at node "${channel.from}"; connect it to two different nodes`, { channelIndex: k })
     }
-    if (!index.has(channel.from)) index.set(channel.from, index.size)
-    if (!index.has(channel.to)) index.set(channel.to, index.size)
-  })
+    let a = index.get(channel.from)
+    if (a === undefined) index.set(channel.from, (a = index.size))
+    let b = index.get(channel.to)
+    if (b === undefined) index.set(channel.to, (b = index.size))
+    from[k] = a
+    to[k] = b
+  }
   return index
 }
 
 export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
-  const index = nodeIndex(problem)
+  const m = problem.channels.length
+  const from = new Int32Array(m)
+  const to = new Int32Array(m)
+  const index = nodeIndex(problem, from, to)
   const n = index.size
   const fixedPressure = new Float64Array(n).fill(Number.NaN)
   const injected = new Float64Array(n)
@@ -57,14 +67,9 @@ export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
       injected[i] = injected[i]! + source.flow
     }
   })
-  const m = problem.channels.length
-  const from = new Int32Array(m)
-  const to = new Int32Array(m)
   const conductance = new Float64Array(m)
   const offset = new Float64Array(m)
   problem.channels.forEach((channel, k) => {
-    from[k] = index.get(channel.from)!
-    to[k] = index.get(channel.to)!
     conductance[k] = 1 / channel.resistance
     if (channel.offset !== undefined) {
       if (!Number.isFinite(channel.offset)) throw new NetworkError('bad-resistance', `Channel "${channel.id}" has pressure offset ${channel.offset}; it must be finite`, { channelIndex: k })
