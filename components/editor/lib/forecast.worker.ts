@@ -15,7 +15,7 @@ let warmUp: ReturnType<typeof setTimeout> | undefined
 self.onmessage = (e: MessageEvent<LiveRequest>) => {
   clearTimeout(warmUp)
   const doc = e.data.doc as ChipDocument
-  if (!e.data.warm) { self.postMessage(runLiveForecast(doc, e.data.seq)); return }
+  if (!e.data.warm) { self.postMessage(runLiveForecast(doc, e.data.seq, e.data.lab)); return }
   let left = WARM_UP_RUNS
   const next = () => { if (left-- > 0) { runLiveForecast(doc, 0); warmUp = setTimeout(next, 0) } }
   warmUp = setTimeout(next, 0)

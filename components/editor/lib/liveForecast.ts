@@ -4,18 +4,19 @@
 import { onScopeDispose, shallowRef, toRaw, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProcess, type Finding } from '~~/geometry/rules'
+import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type FabricationProcess, type Finding, type LabProcessData } from '~~/geometry/rules'
+import type { LabLiquidsData } from '#shared/physics/liquids'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
 import { runLiveForecast, type LiveAnswer, type LiveRequest } from './liveRun'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
 
 /** The design's own process for rule checks; the first built-in one only when the design names none we know. */
-export const designProcess = (processId: string | null | undefined): FabricationProcess =>
-  (processId ? findProcess(processId) : undefined) ?? BUILT_IN_PROCESSES[0]!
+export const designProcess = (processId: string | null | undefined, lab: readonly LabProcessData[] = []): FabricationProcess =>
+  (processId ? findProcessIn(processId, lab) : undefined) ?? BUILT_IN_PROCESSES[0]!
 
 /** Runs one forecast: in a Web Worker in the browser, in the calling thread where there is none (tests, old browsers). */
-export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAnswer>
+export type ForecastRunner = (doc: ChipDocument, seq: number, lab?: LabLiquidsData | null) => Promise<LiveAnswer>
 
 /** A runner in a Web Worker that can also be asked to warm up on a document (run it a few times, answer nothing). */
 type WorkerRunner = ForecastRunner & { warm: (doc: ChipDocument) => void }
@@ -24,24 +25,27 @@ function workerRunner(): WorkerRunner | null {
   if (typeof Worker === 'undefined') return null
   let worker: Worker
   try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
-  const waiting = new Map<number, { doc: ChipDocument; done: (a: LiveAnswer) => void }>()
+  const waiting = new Map<number, { doc: ChipDocument; lab?: LabLiquidsData | null; done: (a: LiveAnswer) => void }>()
   worker.onmessage = (e: MessageEvent<LiveAnswer>) => { waiting.get(e.data.seq)?.done(e.data); waiting.delete(e.data.seq) }
   // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
   let broken = false
-  worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq)); waiting.clear() }
-  const run: ForecastRunner = (doc, seq) => new Promise((done) => {
-    if (broken) { done(runLiveForecast(doc, seq)); return }
-    waiting.set(seq, { doc, done })
-    worker.postMessage({ seq, doc: toRaw(doc) } satisfies LiveRequest)
+  worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq, w.lab)); waiting.clear() }
+  const run: ForecastRunner = (doc, seq, lab) => new Promise((done) => {
+    if (broken) { done(runLiveForecast(doc, seq, lab)); return }
+    waiting.set(seq, { doc, lab, done })
+    worker.postMessage({ seq, doc: toRaw(doc), lab: lab ? toRaw(lab) : null } satisfies LiveRequest)
   })
   return Object.assign(run, { warm: (doc: ChipDocument) => { if (!broken) worker.postMessage({ seq: 0, doc: toRaw(doc), warm: true } satisfies LiveRequest) } })
 }
-const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
+const inThread: ForecastRunner = async (doc, seq, lab) => runLiveForecast(doc, seq, lab)
 
 /** A run taking longer than this shows "updating" (a shorter one would only flicker). */
 const SLOW_MS = 150
 
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner } = {}) {
+/** `lab`: the lab's own liquids, pairs and processes (plain data, GET /api/v1/liquids?lab=); null → built-in only. */
+export type LiveLab = LabLiquidsData & { processes: LabProcessData[] }
+
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner; lab?: Ref<LiveLab | null> } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
   /** True while a run has taken longer than SLOW_MS, so the panel can say the numbers are being updated. */
@@ -63,11 +67,12 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     busy = true
     slowTimer = setTimeout(() => { slow.value = true }, SLOW_MS)
     clearTimeout(rulesTimer)
-    rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value)) }, 120)
+    rulesTimer = setTimeout(() => { findings.value = checkDesignRules(d, designProcess(opts.processId?.value, opts.lab?.value?.processes)) }, 120)
     const here = first
     if (here) worker!.warm(d)
     first = false
-    const a = await (here ? inThread : runner)(d, ++seq)
+    const lab = opts.lab?.value ? { liquids: opts.lab.value.liquids, pairs: opts.lab.value.pairs } : null
+    const a = await (here ? inThread : runner)(d, ++seq, lab)
     busy = false
     clearTimeout(slowTimer)
     slow.value = false
@@ -83,6 +88,7 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true, flush: worker ? 'sync' : 'pre' })
   if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
+  if (opts.lab) watch(opts.lab, () => { if (doc.value) run(doc.value) })
   onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer); clearTimeout(slowTimer) })
   return { live, findings, slow }
 }
