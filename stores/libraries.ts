@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import type { LibraryEntryCreateBody, LibraryEntryUpdateBody, LibraryEntryView } from '~~/shared/schemas/libraries'
-import type { LabLibraryListing } from '~~/shared/types/libraries'
+import type { LabLibraryListing, ReforecastAnswer } from '~~/shared/types/libraries'
 
 /** The lab's own library (entries for the Libraries page; the merged listing for the editor's pickers). */
 export const useLibrariesStore = defineStore('libraries', () => {
@@ -62,5 +62,14 @@ export const useLibrariesStore = defineStore('libraries', () => {
     }
   }
 
-  return { entries, listing, problem, busy, load, loadListing, save, archive }
+  /** The revision forecast again with the lab's current library, beside the stored one. */
+  async function reforecast(labId: string, revisionId: string): Promise<{ answer: ReforecastAnswer | null, problem: ApiProblem | null }> {
+    try {
+      return { answer: await $fetch<ReforecastAnswer>(`/api/labs/${labId}/revisions/${revisionId}/reforecast`), problem: null }
+    } catch (error) {
+      return { answer: null, problem: toApiProblem(error) }
+    }
+  }
+
+  return { entries, listing, problem, busy, load, loadListing, save, archive, reforecast }
 })

@@ -35,6 +35,6 @@ export function checkDesignRules(doc: ChipDocument, process: FabricationProcess,
   return all.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || a.id.localeCompare(b.id))
 }
 
-export { BUILT_IN_PROCESSES, findProcess, findProcessIn, labProcess, processesWith, type LabProcessData } from './processes'
+export { BUILT_IN_PROCESSES, findProcess, findProcessIn, labProcess, processFromSnapshot, processesWith, type LabProcessData } from './processes'
 export type { FabricationProcess, Finding, Severity } from './types'
 export { classifyLiquid } from './liquids'

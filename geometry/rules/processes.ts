@@ -57,3 +57,11 @@ export function processesWith(lab: readonly LabProcessData[] = []): readonly Fab
 export function findProcessIn(id: string, lab: readonly LabProcessData[] = []): FabricationProcess | undefined {
   return processesWith(lab).find((p) => p.id === id)
 }
+
+/** The process a revision was checked with, rebuilt from the snapshot stored in its summary (rule values only). */
+export function processFromSnapshot(snapshot: { id: string; name: string; values: Record<string, number | string> }): FabricationProcess {
+  const { material, ...rest } = snapshot.values
+  const numbers = Object.fromEntries(Object.entries(rest).filter(([, v]) => typeof v === 'number')) as Record<string, number>
+  const base = BUILT_IN_PROCESSES[0]!
+  return { ...base, ...numbers, id: snapshot.id, name: snapshot.name, material: (material as FabricationProcess['material']) ?? base.material, sources: Object.fromEntries(Object.keys(base.sources).map((k) => [k, 'as stored with the revision'])) }
+}

@@ -1,11 +1,11 @@
 // Re-forecast a saved revision with the lab's current library: the stored summary is never changed (revisions are
 // immutable); the answer shows both and what differs, so a library edit is visible before anyone saves again.
 import type { RevisionSummary } from '#shared/types/designs'
+import type { ForecastDifference, ReforecastAnswer } from '#shared/types/libraries'
 import type { LabCaller } from '../utils/access'
 import { summarizeWithLibrary } from './libraries'
 import { getRevision } from './revisions'
 
-export interface ForecastDifference { what: string, stored: number | string | null, current: number | string | null, unit: string }
 
 const close = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b))
 
@@ -47,7 +47,7 @@ export function summaryDifferences(stored: RevisionSummary, current: RevisionSum
   return out
 }
 
-export async function reforecastRevision(caller: LabCaller, revisionId: string) {
+export async function reforecastRevision(caller: LabCaller, revisionId: string): Promise<ReforecastAnswer> {
   const revision = await getRevision(caller, revisionId)
   const current = await summarizeWithLibrary(revision.document as never, revision.summary.processId, caller.lab.labId)
   return { revisionId, stored: revision.summary, current, differences: summaryDifferences(revision.summary, current) }
