@@ -4,12 +4,15 @@
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
-import { makeLab, TEST_PASSWORD } from '../support/factory'
+import { ApiClient } from '../support/api'
+import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
 let admin: Page
 let designer: Page
 let labId: string
+let adminApi: ApiClient
+let designerApi: ApiClient
 
 beforeAll(async () => {
   browser = await launch()
@@ -18,6 +21,8 @@ beforeAll(async () => {
   admin = await newPage(browser)
   await signInAs(admin, people[0]!.email, TEST_PASSWORD)
   await admin.waitForURL(/\/labs\//)
+  adminApi = await new ApiClient().signIn(people[0]!.email, TEST_PASSWORD)
+  designerApi = await new ApiClient().signIn(people[1]!.email, TEST_PASSWORD)
   designer = await newPage(browser)
   await signInAs(designer, people[1]!.email, TEST_PASSWORD)
   await designer.waitForURL(/\/labs\//)
@@ -64,5 +69,31 @@ describe('libraries page', () => {
     await shot(designer, 'libraries-new-design')
     await designer.click('[data-test="design-create-submit"]')
     await designer.waitForURL(/\/designs\/[0-9a-f-]{36}/)
+  })
+
+  it('the editor lists the lab oil marked (lab); the revision page re-forecasts with the current library and shows the difference', async () => {
+    const pair = await adminApi.post(`/api/labs/${labId}/libraries`, { kind: 'pair', liquids: ['water', 'lab-bench-oil-9'], surfactant: 'bench-mix', interfacialTensionMNPerM: 4, source: 'measured in our lab' })
+    expect(pair.status).toBe(201)
+    const doc = fixtureDocument()
+    doc.operatingPoints[0].continuousLiquid = { liquid: 'lab-bench-oil-9' }
+    doc.operatingPoints[0].surfactant = 'bench-mix'
+    const made = await designerApi.post(`/api/labs/${labId}/designs`, { name: 'Bench oil chip', document: doc })
+    expect(made.status).toBe(201)
+
+    await designer.goto(`/labs/${labId}/designs/${made.json.designId}/edit`)
+    await hydrated(designer)
+    await designer.waitForSelector('[data-test="editor-canvas"] canvas')
+    await expect.poll(() => designer.locator('[data-test="op-continuous"] option', { hasText: 'Bench oil, lot 9 (lab)' }).count()).toBe(1)
+    expect(await designer.locator('[data-test="op-continuous"]').inputValue()).toBe('lab-bench-oil-9')
+
+    expect((await adminApi.patch(`/api/labs/${labId}/libraries/${pair.json.id}`, { kind: 'pair', liquids: ['water', 'lab-bench-oil-9'], surfactant: 'bench-mix', interfacialTensionMNPerM: 2, source: 'measured in our lab' })).status).toBe(200)
+    await designer.goto(`/labs/${labId}/revisions/${made.json.revisionId}`)
+    await hydrated(designer)
+    expect(await designer.locator('[data-test="snapshot-tension"]').textContent()).toContain('γ = 4 mN/m (the lab\'s library)')
+    await designer.click('[data-test="reforecast-run"]')
+    const table = designer.locator('[data-test="reforecast-differences"]')
+    await table.waitFor()
+    expect(await table.textContent()).toContain('Interfacial tension')
+    await shot(designer, 'libraries-reforecast')
   })
 })
