@@ -3,6 +3,7 @@ import { sql } from 'drizzle-orm'
 import { DEMO_ACCOUNTS, DEMO_LABS, DEMO_PASSWORD } from '../server/db/demo'
 import { seedDemoBench } from '../server/db/demoBench'
 import { seedDemoOrders } from '../server/db/demoOrders'
+import { seedDemoLibrary } from '../server/db/demoLibrary'
 import { seedDemoDesigns } from '../server/db/seedDesigns'
 import { labs, memberships, users } from '../server/db/schema'
 import { closeDb, useDb } from '../server/utils/db'
@@ -34,6 +35,7 @@ for (const account of DEMO_ACCOUNTS) {
 }
 
 const person = (role: string) => userIds.get(`${role}@quillmere.example`)!
+await seedDemoLibrary(db, labIds.get('quillmere')!, person('admin'))
 await seedDemoDesigns(db, labIds.get('quillmere')!, { admin: person('admin'), designer: person('designer'), reviewer: person('reviewer'), experimenter: person('experimenter') })
 await seedDemoOrders(db, labIds.get('quillmere')!, { admin: person('admin'), fabricator: userIds.get('fabricator@brackenfold.example')! })
 

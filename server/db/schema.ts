@@ -385,3 +385,26 @@ export const asBuiltFiles = pgTable('as_built_files', {
 }, t => [index('as_built_files_as_built_idx').on(t.asBuiltId)])
 
 export type FabOrder = typeof fabOrders.$inferSelect
+
+// ── libraries (issue 15 items 5-6): the lab's own liquids, liquid pairs and fabrication processes ──
+/**
+ * One entry of a lab's library. `kind` is liquid | pair | process; `key` is the id documents use ("lab-…" for
+ * liquids and processes, "<a>/<b>/<surfactant>" for pairs), unique per lab and kind; `data` holds the values in
+ * the shape of shared/schemas/libraries.ts (validated there). Archived entries stay, so old documents still name them.
+ */
+export const labLibraryEntries = pgTable('lab_library_entries', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
+  kind: varchar('kind', { length: 16 }).notNull(),
+  key: varchar('key', { length: 200 }).notNull(),
+  name: varchar('name', { length: 200 }).notNull(),
+  source: text('source').notNull(),
+  data: jsonb('data').$type<Record<string, unknown>>().notNull(),
+  archivedAt: timestamp('archived_at', { withTimezone: true }),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+  updatedBy: uuid('updated_by').notNull().references(() => users.id),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('lab_library_entries_key_idx').on(t.labId, t.kind, t.key)])
+
+export type LabLibraryEntry = typeof labLibraryEntries.$inferSelect

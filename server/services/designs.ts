@@ -12,7 +12,7 @@ import type { z } from 'zod'
 import { logActivity } from './activity'
 import { assertNotArchived, findDesign } from './designGuards'
 import { validDocument } from './documents'
-import { summarizeOffThread } from '../utils/summaryWorker'
+import { summarizeWithLibrary } from './libraries'
 import { starterDocument } from './starterDocument'
 
 // The list is the most read query: a named prepared statement per sort order (planned once per connection), every
@@ -78,9 +78,9 @@ export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<
 }
 
 export async function createDesign(caller: LabCaller, body: z.infer<typeof designCreate>) {
-  const document = body.document === undefined ? starterDocument(body.name) : validDocument(body.document)
+  const document = body.document === undefined ? starterDocument(body.name, body.starter) : validDocument(body.document)
   const processId = body.processId ?? 'film-mask-soft-litho'
-  const summary = await summarizeOffThread(document, processId)
+  const summary = await summarizeWithLibrary(document, processId, caller.lab.labId, { requireProcess: true })
   return useDb().transaction(async (tx) => {
     const [design] = await tx.insert(designs).values({
       labId: caller.lab.labId, name: body.name, description: body.description, processId, createdBy: caller.userId, revisionCount: 1,

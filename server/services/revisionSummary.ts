@@ -1,14 +1,18 @@
-// What the server stores beside each revision: junction kinds, counts, rule findings and the forecast summary.
-// Computed once when the revision is saved (revisions are immutable, so it never goes stale).
+// What the server stores beside each revision: junction kinds, counts, rule findings, the forecast summary and the
+// library values used (a snapshot). Computed once when the revision is saved (revisions are immutable, so it never
+// goes stale); the lab's library is passed in as plain data (`lab`) and merged with the built-in entries.
+import { mergeLibrary } from '#shared/physics/liquids'
 import type { ChipDocument } from '#shared/schemas/chip'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcess } from '../../geometry/rules'
+import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type LabProcessData } from '../../geometry/rules'
 import type { RevisionSummary } from '#shared/types/designs'
-import { forecastSummary } from './forecastSummary'
+import { forecastSummary, liquidSnapshotOf } from './forecastSummary'
+import type { LabLibraryData } from './libraries'
 
 const JUNCTION_KINDS = new Set(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction'])
 
-export function summarizeRevision(doc: ChipDocument, processId: string): RevisionSummary {
-  const process = findProcess(processId) ?? BUILT_IN_PROCESSES[0]!
+export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
+  const process = findProcessIn(processId, (lab?.processes ?? []) as LabProcessData[]) ?? BUILT_IN_PROCESSES[0]!
+  const library = mergeLibrary(lab)
   let findings = { errors: 0, warnings: 0, infos: 0 }
   try {
     for (const f of checkDesignRules(doc, process)) {
@@ -20,11 +24,15 @@ export function summarizeRevision(doc: ChipDocument, processId: string): Revisio
     findings = { errors: 1, warnings: 0, infos: 0 }
     console.error('[summary] design rules failed:', error)
   }
+  const { sources: _sources, id, name, ...values } = process as typeof process & { origin?: 'lab' }
+  void _sources
+  const { origin, ...ruleValues } = values as typeof values & { origin?: 'lab' }
   return {
     junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(k => JUNCTION_KINDS.has(k)))].sort(),
     counts: { channels: doc.channels.length, components: doc.components.length, ports: doc.ports.length, layers: doc.layers.length },
-    ...forecastSummary(doc),
+    ...forecastSummary(doc, library),
     findings,
     processId: process.id,
+    library: { ...liquidSnapshotOf(doc, library), process: { id, name, origin: origin ?? 'built-in', values: ruleValues } },
   }
 }

@@ -11,7 +11,7 @@ import type { revisionCreate } from '#shared/schemas/designs'
 import type { z } from 'zod'
 import { archivedDesign, assertNotArchived, findDesign, findVisibleRevision, notFound, seenRevisionId } from './designGuards'
 import { validDocument } from './documents'
-import { summarizeOffThread } from '../utils/summaryWorker'
+import { summarizeWithLibrary } from './libraries'
 
 const rowColumns = {
   id: revisions.id, designId: revisions.designId, number: revisions.number, parentId: revisions.parentId, message: revisions.message,
@@ -54,7 +54,7 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
   // A parent that is already not the latest never becomes it again: such a save ends in 409 below, so it skips the
   // summary (the expensive part) and leaves the geometry workers to saves that can win.
   const stale = !body.branch && design.latestRevisionId !== body.parentId
-  const summary = stale ? null : await summarizeOffThread(document, design.processId)
+  const summary = stale ? null : await summarizeWithLibrary(document, design.processId, caller.lab.labId)
   // One connection from begin to commit (DEVELOPERS.md, "Database work"): the loser of a race reads what came
   // after its parent on the connection that holds the lock, never through a second checkout.
   return withClient(async (client) => {

@@ -1,5 +1,12 @@
-// A new design starts from a small, valid chip: one T-junction, two inlets, one outlet (invented example values).
+// A new design starts from a small, valid chip (invented example values): one T-junction (the default), one
+// flow-focusing cross, or one step emulsifier; each has two inlet phases, one outlet and an operating point that
+// forecasts cleanly on the built-in liquids (tests/unit/starters.test.ts).
 import { requireChipDocument, type ChipDocument } from '#shared/schemas/chip'
+import { STARTER_KINDS } from '#shared/schemas/designs'
+import { FLOW_FOCUSING_STARTER, STEP_EMULSIFIER_STARTER } from './starterDocuments'
+
+export const STARTERS = STARTER_KINDS
+export type StarterKind = (typeof STARTERS)[number]
 
 const STARTER = {
   "version": 1,
@@ -27,11 +34,17 @@ const STARTER = {
     {"id": "label", "kind": "text", "position": {"x": 6500, "y": 500}, "text": "DW TJ 01", "height": 300, "layerIds": []},
   ],
   "operatingPoints": [
-    {"id": "op-1", "name": "Cells in 40 um drops", "temperatureC": 22, "continuousLiquid": {"liquid": "n-hexadecane"}, "dispersedLiquid": {"liquid": "water"}, "surfactant": "sorbitan-monooleate", "inlets": [{"portId": "oil-in", "mode": "flow", "value": 10, "unit": "uL/min"}, {"portId": "water-in", "mode": "flow", "value": 5, "unit": "uL/min"}]},
+    {"id": "op-1", "name": "Cells in 40 um drops", "temperatureC": 22, "continuousLiquid": {"liquid": "n-hexadecane"}, "dispersedLiquid": {"liquid": "water"}, "surfactant": "sorbitan-monooleate", "inlets": [{"portId": "oil-in", "mode": "flow", "value": 3, "unit": "uL/min"}, {"portId": "water-in", "mode": "flow", "value": 1.5, "unit": "uL/min"}]},
   ],
   "activeOperatingPoint": "op-1",
 }
 
-export function starterDocument(name: string): ChipDocument {
-  return requireChipDocument({ ...STARTER, name })
+const BY_KIND: Record<StarterKind, Record<string, unknown>> = {
+  't-junction': STARTER,
+  'flow-focusing': FLOW_FOCUSING_STARTER,
+  'step-emulsifier': STEP_EMULSIFIER_STARTER,
+}
+
+export function starterDocument(name: string, kind: StarterKind = 't-junction'): ChipDocument {
+  return requireChipDocument({ ...BY_KIND[kind], name })
 }

@@ -12,6 +12,7 @@ import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery
 import { orderMessage, orderMove, releaseBody } from '#shared/schemas/orders'
 import { asBuiltCreate } from '#shared/schemas/asBuilt'
 import { commentCreate, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '#shared/schemas/review'
+import { forecastQuery, libraryArchiveBody, libraryEntryCreateBody, libraryEntryUpdateBody, liquidsQuery } from '#shared/schemas/libraries'
 import { PERMISSION_LABELS, type Permission } from '#shared/utils/roles'
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete'
@@ -31,9 +32,14 @@ export interface Operation {
 const forecastBody = z.union([junctionRequest, networkRequest, documentRequest])
 
 export const OPERATIONS: Operation[] = [
-  { method: 'post', path: '/api/v1/forecast', tag: 'Forecast', summary: 'Forecast droplets for a junction, a channel network or a chip document', body: forecastBody, answers: 'the forecast, each quantity with its method and source (docs/forecast-api.md)' },
+  { method: 'post', path: '/api/v1/forecast', tag: 'Forecast', summary: 'Forecast droplets for a junction, a channel network or a chip document (with ?lab= the lab\'s own liquids and pairs too)', body: forecastBody, query: forecastQuery, answers: 'the forecast, each quantity with its method and source (docs/forecast-api.md)' },
   { method: 'post', path: '/api/v1/plan', tag: 'Forecast', summary: 'Plan a droplet generator: from a target droplet to an operating window, a recommended point, geometry, loading and a run plan', body: z.union([planJunctionRequest, planDocumentRequest]), answers: 'window, recommended, geometry, encapsulation, each quantity with its method and source (docs/planner.md)' },
-  { method: 'get', path: '/api/v1/liquids', tag: 'Forecast', summary: 'The built-in liquids, pairs and surfactants, each value with its source' },
+  { method: 'get', path: '/api/v1/liquids', tag: 'Forecast', query: liquidsQuery, summary: 'The built-in liquids, pairs and surfactants, each value with its source; with ?lab= also that lab\'s own entries and processes (origin "lab")' },
+  { method: 'get', path: '/api/labs/{labId}/libraries', tag: 'Labs', permission: 'designs:view', summary: 'The lab\'s own liquids, liquid pairs and fabrication processes (archived ones included)' },
+  { method: 'post', path: '/api/labs/{labId}/libraries', tag: 'Labs', permission: 'libraries:manage', body: libraryEntryCreateBody, status: 201, summary: 'Add a liquid, a liquid pair or a fabrication process to the lab\'s library' },
+  { method: 'patch', path: '/api/labs/{labId}/libraries/{entryId}', tag: 'Labs', permission: 'libraries:manage', body: libraryEntryUpdateBody, summary: 'Change the values of one library entry (saved revisions keep theirs)' },
+  { method: 'post', path: '/api/labs/{labId}/libraries/{entryId}/archive', tag: 'Labs', permission: 'libraries:manage', body: libraryArchiveBody, summary: 'Archive or restore one library entry' },
+  { method: 'get', path: '/api/labs/{labId}/revisions/{revisionId}/reforecast', tag: 'Designs', permission: 'designs:view', summary: 'The revision forecast again with the lab\'s current library, beside the stored forecast, with the differences' },
   { method: 'get', path: '/api/labs', tag: 'Labs', summary: 'The labs the caller works in (with a token: the token\'s lab)' },
   { method: 'get', path: '/api/labs/{labId}/designs', tag: 'Designs', permission: 'designs:view', query: designListQuery, summary: 'List the lab\'s designs, one page at a time', answers: 'the page\'s design rows (an array); the total in the X-Total-Count header, with X-Page and X-Page-Size' },
   { method: 'post', path: '/api/labs/{labId}/designs', tag: 'Designs', permission: 'designs:edit', body: designCreate, status: 201, summary: 'Create a design with its first revision', answers: '{ designId, revisionId }' },

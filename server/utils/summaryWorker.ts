@@ -18,6 +18,8 @@ import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
 import type { ForecastResult, PlanResult } from '../workers/geometry'
 import { runPlan, type PlanAnswer } from '#shared/physics/planner'
+import { mergeLibrary, type LabLiquidsData } from '#shared/physics/liquids'
+import type { LabLibraryData } from '../services/libraries'
 import { useConfig } from './config'
 import { assertJsonDepth } from './jsonDepth'
 
@@ -125,10 +127,10 @@ const chipTooLarge = (doc: unknown): string => {
 }
 
 /** The summary stored beside a new revision (design rules + forecast). */
-export function summarizeOffThread(document: ChipDocument, processId: string): Promise<RevisionSummary> {
+export function summarizeOffThread(document: ChipDocument, processId: string, lab?: LabLibraryData | null): Promise<RevisionSummary> {
   const p = usePool()
-  if (!p) return Promise.resolve(summarizeRevision(document, processId))
-  return runTask(p, 'summary', { document, processId }, { doing: 'Checking this chip (design rules and forecast)', tooLarge: chipTooLarge(document) })
+  if (!p) return Promise.resolve(summarizeRevision(document, processId, lab))
+  return runTask(p, 'summary', { document, processId, lab: lab ?? null }, { doing: 'Checking this chip (design rules and forecast)', tooLarge: chipTooLarge(document) })
 }
 
 /** The mask DXF of a revision; a geometry that cannot be exported is a 400 naming the elements. */
@@ -143,15 +145,15 @@ export async function dxfOffThread(revision: RevisionDetail, options: { mirror: 
 }
 
 /** POST /api/v1/forecast: a junction, a network or a chip document; a bad request is a 400 naming each field. */
-export async function forecastOffThread(request: unknown): Promise<ForecastAnswer> {
+export async function forecastOffThread(request: unknown, lab?: LabLiquidsData | null): Promise<ForecastAnswer> {
   assertJsonDepth(request)
   const p = usePool()
   let result: ForecastResult
   if (p) {
-    result = await runTask<ForecastResult>(p, 'forecast', request, { doing: 'The forecast', tooLarge: 'the request is too large' })
+    result = await runTask<ForecastResult>(p, 'forecast', { request, lab: lab ?? null }, { doing: 'The forecast', tooLarge: 'the request is too large' })
   } else {
     try {
-      result = { ok: true, answer: runForecast(request) }
+      result = { ok: true, answer: runForecast(request, lab ? mergeLibrary(lab) : undefined) }
     } catch (error) {
       if (!(error instanceof ForecastInputError)) throw error
       result = { ok: false, message: error.message, issues: error.issues }

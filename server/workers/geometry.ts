@@ -5,6 +5,8 @@
 import { setPriority } from 'node:os'
 import { ForecastInputError, runForecast, type ForecastAnswer } from '#shared/physics/forecast'
 import { runPlan, type PlanAnswer } from '#shared/physics/planner'
+import { mergeLibrary, type LabLiquidsData } from '#shared/physics/liquids'
+import type { LabLibraryData } from '../services/libraries'
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { RevisionSummary } from '#shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
@@ -17,8 +19,8 @@ try {
   setPriority(useConfig().geometry.nice)
 } catch { /* not allowed here: run at the same priority */ }
 
-export function summary(job: { document: ChipDocument, processId: string }): RevisionSummary {
-  return summarizeRevision(job.document, job.processId)
+export function summary(job: { document: ChipDocument, processId: string, lab?: LabLibraryData | null }): RevisionSummary {
+  return summarizeRevision(job.document, job.processId, job.lab)
 }
 
 export function dxf(job: MaskInput): MaskResult {
@@ -30,9 +32,10 @@ export type ForecastResult =
   | { ok: true, answer: ForecastAnswer }
   | { ok: false, message: string, issues: ForecastInputError['issues'] }
 
-export function forecast(request: unknown): ForecastResult {
+/** The request and, when a lab was named, that lab's liquids and pairs (plain data, merged here). */
+export function forecast(job: { request: unknown, lab?: LabLiquidsData | null }): ForecastResult {
   try {
-    return { ok: true, answer: runForecast(request) }
+    return { ok: true, answer: runForecast(job.request, job.lab ? mergeLibrary(job.lab) : undefined) }
   } catch (error) {
     if (error instanceof ForecastInputError) return { ok: false, message: error.message, issues: error.issues }
     throw error

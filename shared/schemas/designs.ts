@@ -4,6 +4,14 @@ import { BUILT_IN_PROCESSES } from '../../geometry/rules/processes'
 import { labParams } from './labs'
 import { safeText } from './text'
 
+/** The starter chips a new design may begin from (server/services/starterDocument.ts). */
+export const STARTER_KINDS = ['t-junction', 'flow-focusing', 'step-emulsifier'] as const
+export const STARTER_LABELS: Record<(typeof STARTER_KINDS)[number], string> = {
+  't-junction': 'T-junction (one cross-flow junction)',
+  'flow-focusing': 'Flow-focusing cross (oil from both sides)',
+  'step-emulsifier': 'Step emulsifier (a shallow nozzle into a deep reservoir)',
+}
+
 export const designParams = labParams.extend({ designId: z.uuid('Design id must be a UUID') })
 export const revisionParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID') })
 export const compareParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID'), otherId: z.uuid('Revision id must be a UUID') })
@@ -14,9 +22,12 @@ const message = safeText(undefined, 'Message').trim().min(1, 'Say what changed i
 export const designCreate = z.object({
   name,
   description: safeText(undefined, 'Description').max(2000, 'A description is at most 2000 characters').default(''),
-  processId: safeText().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id), 'Choose one of the fabrication processes').optional(),
+  /** A built-in process, or one of the lab's own ("lab-…", checked against the lab's library on the server). */
+  processId: safeText().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id) || /^lab-[a-z0-9][a-z0-9-]{0,46}$/.test(id), 'Choose one of the fabrication processes').optional(),
   /** A chip document (validated by the chip schema on the server); omitted → a starter document. */
   document: z.unknown().optional(),
+  /** Which starter chip when no document is given (default the T-junction). */
+  starter: z.enum(STARTER_KINDS, { error: `Starter must be one of ${STARTER_KINDS.join(', ')}` }).optional(),
   message: message.default('First revision'),
 })
 export type DesignCreate = z.input<typeof designCreate>

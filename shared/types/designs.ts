@@ -14,6 +14,21 @@ export interface RevisionSummary {
   forecastError: string | null
   findings: { errors: number, warnings: number, infos: number }
   processId: string
+  /** The library values this revision was forecast and checked with (absent on summaries stored before it was kept). */
+  library?: LibrarySnapshot
+}
+
+/** A liquid as the forecast used it: SI-free display units and where the values came from. */
+export interface LiquidSnapshot { id: string | null, name: string, origin: 'built-in' | 'lab' | 'given', viscosityMPaS: number, densityKgPerM3: number, source: string }
+/** What a revision was forecast with, so a later library edit never changes its numbers. */
+export interface LibrarySnapshot {
+  operatingPoint: string | null
+  temperatureC: number | null
+  continuous: LiquidSnapshot | null
+  dispersed: LiquidSnapshot | null
+  surfactant: string | null
+  interfacialTension: { mNPerM: number, origin: 'built-in' | 'lab' | 'given', source: string } | null
+  process: { id: string, name: string, origin: 'built-in' | 'lab', values: Record<string, number | string> }
 }
 
 export interface DesignOriginView { revisionId: string, designId: string, designName: string, revisionNumber: number, authorName: string, labName: string }

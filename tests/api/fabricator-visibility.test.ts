@@ -63,7 +63,7 @@ describe('a fabricator\'s answers carry nothing about unreleased revisions', () 
       for (const revisionId of [released, ...unreleased]) {
         const path = fill(route.template, {
           labId: ctx.lab.id, designId: ctx.designId, revisionId, threadId, userId: ctx.ids.fabricator,
-          invitationId: randomUUID(), token: 'not-a-token', tokenId: randomUUID(), runId: randomUUID(), micrographId: randomUUID(), orderId, asBuiltId: randomUUID(), fileId: randomUUID(),
+          invitationId: randomUUID(), token: 'not-a-token', tokenId: randomUUID(), runId: randomUUID(), micrographId: randomUUID(), orderId, asBuiltId: randomUUID(), fileId: randomUUID(), entryId: randomUUID(),
         })
         const res = await ctx.as.fabricator.request(route.method, path, route.method === 'GET' ? undefined : (WRITE_BODIES[key] ?? {}))
         // An error answer repeats the address the fabricator sent: an id they typed themselves is not a leak.

@@ -15,6 +15,9 @@ import forecastExample from '../fixtures/forecast/t-junction-request.json'
 
 import type { Role } from '../../shared/utils/roles'
 
+/** A lab liquid with a two-row temperature table (invented values). */
+const LAB_LIQUID = { kind: 'liquid', key: 'fuzz-base-oil', name: 'Fuzz base oil', source: 'measured in our lab', table: [{ temperatureC: 20, viscosityMPaS: 4.8, densityKgPerM3: 905, surfaceTensionMNPerM: 21 }, { temperatureC: 40, viscosityMPaS: 3.2, densityKgPerM3: 890, surfaceTensionMNPerM: 19.5 }] }
+
 /** The forecast example without its flows: a plan request's junction part. */
 const { flow: _flow, ...planJunction } = forecastExample as Record<string, unknown>
 
@@ -168,8 +171,9 @@ async function setUp(baseURL: string) {
   await ok(admin.post(`${labPath}/invitations`, { email: `fuzz-${randomUUID().slice(0, 8)}@test.example`, role: 'designer' }), 'invite')
   const invitations = await ok<Array<{ id: string }>>(admin.get(`${labPath}/invitations`), 'invitations')
   const run = await ok<{ id: string }>(designer.post(`${labPath}/revisions/${main.revisionId}/bench-runs`, { source: 'typed', values: [50, 51, 52] }), 'bench run')
+  const entry = await ok<{ id: string }>(admin.post(`${labPath}/libraries`, LAB_LIQUID), 'library entry')
   return {
-    lab, people, doc, main, renamed, toRelease, released, threadId: thread.threadId, invitationId: invitations[0]!.id, runId: run.id, orderId: order.orderId,
+    lab, people, doc, main, renamed, toRelease, released, threadId: thread.threadId, invitationId: invitations[0]!.id, runId: run.id, orderId: order.orderId, entryId: entry.id,
     clients: { admin, designer, fabricator, leaver, anonymous: new ApiClient(baseURL) },
   }
 }
@@ -180,7 +184,7 @@ function plan(route: ApiRoute, s: Setup) {
   const params = {
     labId: s.lab.id, designId: s.main.designId, revisionId: s.main.revisionId, threadId: s.threadId,
     invitationId: s.invitationId, userId: s.people[5]!.id, token: randomBytes(32).toString('base64url'), tokenId: randomUUID(),
-    runId: s.runId, micrographId: randomUUID(), orderId: s.orderId, asBuiltId: randomUUID(),
+    runId: s.runId, micrographId: randomUUID(), orderId: s.orderId, asBuiltId: randomUUID(), entryId: s.entryId,
   }
   const channel = (id: string, from: string, to: string) => ({ id, from, to, width: '100 um', depth: '50 um', length: '10 mm' })
   const plans: Record<string, { client: ApiClient, params?: Partial<typeof params>, templates: unknown[] }> = {
@@ -236,6 +240,16 @@ function plan(route: ApiRoute, s: Setup) {
     'POST /api/labs/[labId]/bench-runs/[runId]/micrographs': { client: admin, templates: [{ umPerPx: 0.8 }] },
     'PATCH /api/labs/[labId]/bench-runs/[runId]/micrographs/[micrographId]': { client: admin, templates: [{ excluded: [1, 2] }] },
     'PUT /api/labs/[labId]/calibrations/forecast-mode': { client: admin, templates: [{ designId: s.main.designId, mode: 'lab-calibrated' }, { designId: s.main.designId, mode: 'model' }] },
+    'POST /api/labs/[labId]/libraries': {
+      client: admin,
+      templates: [
+        { ...LAB_LIQUID, key: 'fuzz-oil' },
+        { kind: 'pair', liquids: ['water', 'lab-fuzz-oil'], surfactant: 'fuzz-surfactant', interfacialTensionMNPerM: 4.2, source: 'measured in our lab' },
+        { kind: 'process', key: 'fuzz-process', name: 'Fuzz process', material: 'PDMS', minFeature: 10, minGap: 10, minDepth: 5, maxDepth: 100, maxWidthToDepth: 15, maxWallDepthToWidth: 4, portEdgeDistance: 1000, portSpacing: 1000, bondPressureLimitMbar: 1500, source: 'measured in our lab' },
+      ],
+    },
+    'PATCH /api/labs/[labId]/libraries/[entryId]': { client: admin, templates: [{ kind: 'liquid', name: 'Fuzz oil, new lot', source: 'measured in our lab', table: [{ temperatureC: 20, viscosityMPaS: 5, densityKgPerM3: 900 }] }] },
+    'POST /api/labs/[labId]/libraries/[entryId]/archive': { client: admin, templates: [{ archived: true }, { archived: false }] },
     'POST /api/v1/forecast': {
       client: admin,
       templates: [

@@ -6,15 +6,16 @@ import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
 import { confidenceOf, formatFlowUlMin, formatLengthUm, formatPressureMbar } from '#shared/format/quantity'
 import type { Finding } from '~~/geometry/rules'
+import type { LabLiquidsData } from '#shared/physics/liquids'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
-import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveRequest, type RulesAnswer } from './liveRun'
+import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveLab, type LiveRequest, type RulesAnswer } from './liveRun'
 
-export { designProcess } from './liveRun'
+export { designProcess, type LiveLab } from './liveRun'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
 
 /** Runs one forecast: in a Web Worker in the browser, in the calling thread where there is none (tests, old browsers). */
-export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAnswer>
+export type ForecastRunner = (doc: ChipDocument, seq: number, lab?: LabLiquidsData | null) => Promise<LiveAnswer>
 
 /**
  * The Web Worker (forecast.worker.ts): forecasts, then checks the rules of the same document and answers them
@@ -22,8 +23,8 @@ export type ForecastRunner = (doc: ChipDocument, seq: number) => Promise<LiveAns
  * request carries only a patch of what changed (liveRun.ts).
  */
 interface WorkerRunner {
-  run: (doc: ChipDocument, seq: number, processId: string | null, focus: string | null) => Promise<LiveAnswer>
-  warm: (doc: ChipDocument, seq: number, processId: string | null) => void
+  run: (doc: ChipDocument, seq: number, processId: string | null, focus: string | null, lab: LiveLab | null) => Promise<LiveAnswer>
+  warm: (doc: ChipDocument, seq: number, processId: string | null, lab: LiveLab | null) => void
   /** The junctions of another element from the worker's last forecast. */
   refocus: (seq: number, focus: string | null) => void
   onRules: (f: (a: RulesAnswer) => void) => void
@@ -35,11 +36,13 @@ function workerRunner(): WorkerRunner | null {
   if (typeof Worker === 'undefined') return null
   let worker: Worker
   try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
-  const waiting = new Map<number, { doc: ChipDocument; done: (a: LiveAnswer) => void }>()
+  const waiting = new Map<number, { doc: ChipDocument; lab: LiveLab | null; done: (a: LiveAnswer) => void }>()
   let rules: (a: RulesAnswer) => void = () => {}
   let focused: (a: FocusAnswer) => void = () => {}
   /** The document the worker holds (the last one sent), for the next patch. */
   let sent: ChipDocument | null = null
+  /** The lab library the worker holds (undefined: none sent yet). */
+  let sentLab: LiveLab | null | undefined
   worker.onmessage = (e: MessageEvent<LiveAnswer | RulesAnswer | FocusAnswer>) => {
     if ('findings' in e.data) { rules(e.data); return }
     if ('junctions' in e.data) { focused(e.data); return }
@@ -48,26 +51,28 @@ function workerRunner(): WorkerRunner | null {
   }
   // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
   let broken = false
-  worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq)); waiting.clear() }
-  const send = (doc: ChipDocument, req: Omit<LiveRequest, 'doc' | 'patch'>) => {
+  worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq, w.lab)); waiting.clear() }
+  const send = (doc: ChipDocument, lab: LiveLab | null, req: Omit<LiveRequest, 'doc' | 'patch' | 'lab'>) => {
     const raw = toRaw(doc)
-    worker.postMessage({ ...req, ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }) } satisfies LiveRequest)
+    const withLab = lab !== sentLab ? { lab: lab ? toRaw(lab) : null } : {}
+    worker.postMessage({ ...req, ...withLab, ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }) } satisfies LiveRequest)
     sent = raw
+    sentLab = lab
   }
   return {
-    run: (doc, seq, processId, focus) => new Promise((done) => {
-      if (broken) { done(runLiveForecast(doc, seq)); return }
-      waiting.set(seq, { doc, done })
-      send(doc, { seq, processId, focus })
+    run: (doc, seq, processId, focus, lab) => new Promise((done) => {
+      if (broken) { done(runLiveForecast(doc, seq, lab)); return }
+      waiting.set(seq, { doc, lab, done })
+      send(doc, lab, { seq, processId, focus })
     }),
     refocus: (seq, focus) => { if (!broken) worker.postMessage({ seq, refocus: true, focus } satisfies FocusRequest) },
     onFocus: (f) => { focused = f },
-    warm: (doc, seq, processId) => { if (!broken) send(doc, { seq, warm: true, processId }) },
+    warm: (doc, seq, processId, lab) => { if (!broken) send(doc, lab, { seq, warm: true, processId }) },
     onRules: (f) => { rules = f },
     stop: () => worker.terminate(),
   }
 }
-const inThread: ForecastRunner = async (doc, seq) => runLiveForecast(doc, seq)
+const inThread: ForecastRunner = async (doc, seq, lab) => runLiveForecast(doc, seq, lab)
 
 /** Up to this many ports, components and channels the first forecast runs in the page (the 512-nozzle chip has 1,540). */
 const IN_PAGE_FIRST_MAX = 2000
@@ -78,9 +83,10 @@ const SLOW_MS = 150
 
 /**
  * `focus`: the element whose junctions `live.forecast.junctions` must hold (the selected part); from the worker
- * the forecast carries that element's junctions only (focusOn in liveRun.ts), the summary every junction.
+ * the forecast carries that element's junctions only (focusOn in liveRun.ts), the summary every junction. `lab`:
+ * the lab's own liquids, pairs and processes (GET /api/v1/liquids?lab=); null → built-in only.
  */
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner; focus?: Ref<string | null> } = {}) {
+export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner; focus?: Ref<string | null>; lab?: Ref<LiveLab | null> } = {}) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
   /** True while a run has taken longer than SLOW_MS, so the panel can say the numbers are being updated. */
@@ -117,21 +123,22 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     busy = true
     slowTimer = setTimeout(() => { slow.value = true }, SLOW_MS)
     const n = ++seq
+    const lab = opts.lab?.value ?? null
     const here = first
     first = false
     let a: LiveAnswer
     if (!worker) {
       clearTimeout(rulesTimer)
-      rulesTimer = setTimeout(() => { findings.value = runLiveRules(d, processId()) }, 120)
-      a = await (opts.runner ?? inThread)(d, n)
+      rulesTimer = setTimeout(() => { findings.value = runLiveRules(d, processId(), lab) }, 120)
+      a = await (opts.runner ?? inThread)(d, n, lab)
     } else if (here) {
       rulesFor = n
-      worker.warm(d, n, processId())
-      a = await inThread(d, n)
+      worker.warm(d, n, processId(), lab)
+      a = await inThread(d, n, lab)
     } else {
       rulesFor = n
       sentFocus = focus()
-      a = await worker.run(d, n, processId(), sentFocus)
+      a = await worker.run(d, n, processId(), sentFocus, lab)
     }
     fromWorker = !!worker && !here
     busy = false
@@ -151,6 +158,7 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
   }, { immediate: true, flush: worker ? 'sync' : 'pre' })
   if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
+  if (opts.lab) watch(opts.lab, () => { if (doc.value) run(doc.value) })
   onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer); clearTimeout(slowTimer); worker?.stop() })
   return { live, findings, slow }
 }

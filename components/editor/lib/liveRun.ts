@@ -2,14 +2,19 @@
 // document patches the page sends the worker instead of the whole document after every edit.
 import type { ChipDocument } from '#shared/schemas/chip'
 import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcess, type FabricationProcess, type Finding } from '~~/geometry/rules'
+import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type FabricationProcess, type Finding, type LabProcessData } from '~~/geometry/rules'
+import { mergeLibrary, type LabLiquidsData, type LiquidLibrary } from '#shared/physics/liquids'
+
+/** The lab's own liquids, pairs and processes (plain data, GET /api/v1/liquids?lab=); null → built-in only. */
+export type LiveLab = LabLiquidsData & { processes: LabProcessData[] }
 
 /**
  * `doc`: the whole document (the first request, or after a reset); `patch`: what changed since the previous
  * request's document. `warm`: run the document a few times to let the engine compile the forecast code, answer
- * nothing. `processId`: also check the design rules of that process, answered after the forecast.
+ * nothing. `processId`: also check the design rules of that process, answered after the forecast. `lab`: the lab's
+ * library, sent when it changes (the worker keeps the last one; undefined = unchanged).
  */
-export interface LiveRequest { seq: number; doc?: ChipDocument; patch?: DocPatch; warm?: boolean; processId?: string | null; focus?: string | null }
+export interface LiveRequest { seq: number; doc?: ChipDocument; patch?: DocPatch; warm?: boolean; processId?: string | null; focus?: string | null; lab?: LiveLab | null }
 /** Only a change of the focused element: answer its junctions from the last forecast (a FocusAnswer). */
 export interface FocusRequest { seq: number; refocus: true; focus: string | null }
 export interface FocusAnswer { seq: number; focus: string | null; junctions: DocumentForecast['junctions'] }
@@ -30,9 +35,19 @@ export function focusOn(f: DocumentForecast | null, focus: string | null | undef
   return f && { ...f, junctions: focus ? f.junctions.filter(j => j.element === focus) : [] }
 }
 
-export function runLiveForecast(doc: ChipDocument, seq: number): LiveAnswer {
+let merged: { lab: string; library: LiquidLibrary } | undefined
+/** The merged library, rebuilt only when the lab's liquids or pairs change. */
+function libraryFor(lab: LabLiquidsData | null | undefined): LiquidLibrary | undefined {
+  if (!lab) return undefined
+  const key = JSON.stringify([lab.liquids, lab.pairs])
+  if (merged?.lab !== key) merged = { lab: key, library: mergeLibrary({ liquids: lab.liquids, pairs: lab.pairs }) }
+  return merged.library
+}
+
+export function runLiveForecast(doc: ChipDocument, seq: number, lab?: LabLiquidsData | null): LiveAnswer {
   try {
-    const forecast = forecastDocument(doc)
+    const library = libraryFor(lab)
+    const forecast = forecastDocument(doc, undefined, library ? { library } : {})
     // Parts and channels not wired yet are left out by the forecast itself, with a warning naming each.
     const left = forecast.warnings.filter(w => w.code === 'component-unconnected' || w.code === 'channels-unconnected').map(w => (w as { element?: string }).element)
     const note = left.length ? `Not yet connected, so not forecast: ${left.join(', ')}` : null
@@ -43,10 +58,11 @@ export function runLiveForecast(doc: ChipDocument, seq: number): LiveAnswer {
 }
 
 /** The design's own process for rule checks; the first built-in one only when the design names none we know. */
-export const designProcess = (processId: string | null | undefined): FabricationProcess =>
-  (processId ? findProcess(processId) : undefined) ?? BUILT_IN_PROCESSES[0]!
+export const designProcess = (processId: string | null | undefined, lab: readonly LabProcessData[] = []): FabricationProcess =>
+  (processId ? findProcessIn(processId, lab) : undefined) ?? BUILT_IN_PROCESSES[0]!
 
-export const runLiveRules = (doc: ChipDocument, processId: string | null | undefined): Finding[] => checkDesignRules(doc, designProcess(processId))
+export const runLiveRules = (doc: ChipDocument, processId: string | null | undefined, lab?: LiveLab | null): Finding[] =>
+  checkDesignRules(doc, designProcess(processId, lab?.processes))
 
 // ── Patches ──────────────────────────────────────────────────────────────────────────────────────────────────
 // The editor changes a document by copying only what an edit touches (shared/editor): every other element and

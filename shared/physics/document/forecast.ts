@@ -13,7 +13,7 @@ import type { DocumentForecast, DocumentForecastOptions } from './types'
  * Throws ForecastInputError whose issues name the element (`document.channels[3]`) and the fix.
  */
 export function forecastDocument(doc: ChipDocument, operatingPointId?: string, options: DocumentForecastOptions = {}): DocumentForecast {
-  const op = resolveOperatingPoint(doc, operatingPointId)
+  const op = resolveOperatingPoint(doc, operatingPointId, options.library)
   const compiled = compileDocument(doc, op)
   const solved = solveTwoPhase(doc, compiled, op, options)
   const network = networkAnswer(compiled, solved, op, options)

@@ -2,6 +2,7 @@
 import { forecastDocument } from './forecast'
 import { parseDocumentRequest } from './request'
 import type { DocumentForecast } from './types'
+import type { LiquidLibrary } from '../liquids'
 
 export { forecastDocument } from './forecast'
 export { summarizeForecast, type ForecastSummary } from './summary'
@@ -13,7 +14,7 @@ export { documentForecastRequest } from './request'
 export type { CompiledDocument, DocumentChannel, DocumentForecast, DocumentForecastOptions, DocumentJunction, DocumentJunctionKind, DocumentNetwork, DocumentWarning, OperatingWindow } from './types'
 
 /** `{ "document": <chip document>, "operatingPoint"?: id, "limits"?, "resistanceMethod"? }` → DocumentForecast. */
-export function runDocumentForecast(request: unknown): DocumentForecast {
+export function runDocumentForecast(request: unknown, library?: LiquidLibrary): DocumentForecast {
   const { document, operatingPoint, options } = parseDocumentRequest(request)
-  return forecastDocument(document, operatingPoint, options)
+  return forecastDocument(document, operatingPoint, library ? { ...options, library } : options)
 }

@@ -2,7 +2,7 @@
 import type { ChipDocument, LiquidRef, OperatingPoint } from '../../schemas/chip'
 import { ForecastInputError } from '../errors'
 import { resolveLiquid, resolveTension, type LiquidSpec } from '../forecast/resolve'
-import { SURFACTANTS, type LiquidProperties, type Surfactant } from '../liquids'
+import { BUILT_IN_LIBRARY, type LiquidLibrary, type LiquidProperties } from '../liquids'
 import { INPUT, quantity, type Quantity, type Warning } from '../quantity'
 import { UNIT, ZERO_CELSIUS, type Kelvin } from '../units'
 import { documentPath } from './paths'
@@ -50,13 +50,13 @@ function rehome(error: unknown, from: string, to: string): never {
   throw error
 }
 
-export function resolveOperatingPoint(doc: ChipDocument, id?: string): ResolvedOperatingPoint {
+export function resolveOperatingPoint(doc: ChipDocument, id?: string, library: LiquidLibrary = BUILT_IN_LIBRARY): ResolvedOperatingPoint {
   const { point, index } = chooseOperatingPoint(doc, id)
   const base = documentPath(['operatingPoints', index])
   const temperature = (point.temperatureC + ZERO_CELSIUS) as Kelvin
   const resolve = (ref: LiquidRef, field: 'continuousLiquid' | 'dispersedLiquid') => {
     try {
-      return resolveLiquid(liquidSpec(ref), temperature, field)
+      return resolveLiquid(liquidSpec(ref), temperature, field, library)
     } catch (error) {
       return rehome(error, field, `${base}.${field}`)
     }
@@ -73,12 +73,12 @@ export function resolveOperatingPoint(doc: ChipDocument, id?: string): ResolvedO
   }
   const surfactant = point.surfactant ?? 'none'
   const fix = `give "interfacialTensionMNPerM" at ${base} (e.g. 5 for a surfactant-laden pair)`
-  if (!SURFACTANTS.includes(surfactant as Surfactant)) {
-    resolved.tensionProblem = { code: 'tension-missing', message: `Operating point "${point.id}" names surfactant "${surfactant}", which is not in the library (${SURFACTANTS.join(', ')}): ${fix}; junctions are not forecast until then` }
+  if (!library.surfactants.includes(surfactant)) {
+    resolved.tensionProblem = { code: 'tension-missing', message: `Operating point "${point.id}" names surfactant "${surfactant}", which is not in the library (${library.surfactants.join(', ')}): ${fix}; junctions are not forecast until then` }
     return resolved
   }
   try {
-    resolved.interfacialTension = resolveTension(undefined, continuous.liquid, dispersed.liquid, surfactant as Surfactant)
+    resolved.interfacialTension = resolveTension(undefined, continuous.liquid, dispersed.liquid, surfactant, library)
   } catch (error) {
     if (!(error instanceof ForecastInputError)) throw error
     resolved.tensionProblem = { code: 'tension-missing', message: `Operating point "${point.id}": the interfacial tension of ${dispersed.liquid.id ?? dispersed.liquid.name} in ${continuous.liquid.id ?? continuous.liquid.name} with surfactant "${surfactant}" is not in the library; ${fix}; junctions are not forecast until then` }

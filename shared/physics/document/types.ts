@@ -1,6 +1,6 @@
 // Shapes of a chip-document forecast: the compiled network (SI) and the answer.
 import type { JunctionForecast } from '../forecast/types'
-import type { LiquidProperties } from '../liquids'
+import type { LiquidLibrary, LiquidProperties } from '../liquids'
 import type { Margin, Uniformity } from '../network'
 import type { Method, Quantity, Warning } from '../quantity'
 
@@ -138,4 +138,6 @@ export interface DocumentForecastOptions {
   resistanceMethod?: 'series' | 'approximate'
   /** Cap on the coupled drops–flows iterations (default COUPLING_MAX_ITERATIONS); for tests of the fallback. */
   maxCouplingIterations?: number
+  /** Liquids and pairs to look ids up in: built-in (default) or merged with a lab's (`mergeLibrary`). */
+  library?: LiquidLibrary
 }

@@ -1,5 +1,6 @@
 // A parsed junction request → resolved SI inputs → forecast.
 import { junctionRequest, type JunctionRequest } from '../../schemas/forecast'
+import { BUILT_IN_LIBRARY, type LiquidLibrary } from '../liquids'
 import type { Warning } from '../quantity'
 import type { Kelvin } from '../units'
 import { forecastJunction } from './junction'
@@ -9,11 +10,11 @@ import type { JunctionForecast, ResolvedJunction } from './types'
 
 export const DEFAULT_TEMPERATURE = 293.15 as Kelvin
 
-export function resolveJunctionRequest(request: JunctionRequest): { junction: ResolvedJunction; warnings: Warning[] } {
+export function resolveJunctionRequest(request: JunctionRequest, library: LiquidLibrary = BUILT_IN_LIBRARY): { junction: ResolvedJunction; warnings: Warning[] } {
   const temperature = (request.temperature ?? DEFAULT_TEMPERATURE) as Kelvin
-  const continuous = resolveLiquid(request.continuous, temperature, 'continuous')
-  const dispersed = resolveLiquid(request.dispersed, temperature, 'dispersed')
-  const tension = resolveTension(request.interfacialTension, continuous.liquid, dispersed.liquid, request.surfactant ?? 'none')
+  const continuous = resolveLiquid(request.continuous, temperature, 'continuous', library)
+  const dispersed = resolveLiquid(request.dispersed, temperature, 'dispersed', library)
+  const tension = resolveTension(request.interfacialTension, continuous.liquid, dispersed.liquid, request.surfactant ?? 'none', library)
   const junction: ResolvedJunction = {
     kind: request.junction.kind,
     mainWidth: request.junction.mainWidth,
@@ -31,8 +32,8 @@ export function resolveJunctionRequest(request: JunctionRequest): { junction: Re
   return { junction, warnings: [...continuous.warnings, ...dispersed.warnings] }
 }
 
-export function runJunctionForecast(input: unknown): JunctionForecast {
+export function runJunctionForecast(input: unknown, library: LiquidLibrary = BUILT_IN_LIBRARY): JunctionForecast {
   const request = parseOrThrow(junctionRequest, input)
-  const { junction, warnings } = resolveJunctionRequest(request)
+  const { junction, warnings } = resolveJunctionRequest(request, library)
   return forecastJunction(junction, warnings)
 }

@@ -8,7 +8,7 @@ import { UNIT, type Kelvin, type Metres, type PascalSeconds } from '../units'
 import { parseOrThrow } from './issues'
 import { DEFAULT_TEMPERATURE } from './junctionRequest'
 import { resolveLiquid } from './resolve'
-import type { LiquidProperties } from '../liquids'
+import { BUILT_IN_LIBRARY, type LiquidLibrary, type LiquidProperties } from '../liquids'
 
 export const KIRCHHOFF: Method = {
   id: 'kirchhoff-sparse-pcg',
@@ -53,10 +53,10 @@ export function solveOrExplain(problem: Parameters<typeof solveNetwork>[0], pref
   }
 }
 
-export function runNetworkForecast(input: unknown): NetworkForecast {
+export function runNetworkForecast(input: unknown, library: LiquidLibrary = BUILT_IN_LIBRARY): NetworkForecast {
   const { network } = parseOrThrow(networkRequest, input)
   const temperature = (network.temperature ?? DEFAULT_TEMPERATURE) as Kelvin
-  const { liquid, warnings } = resolveLiquid(network.liquid, temperature, 'network.liquid')
+  const { liquid, warnings } = resolveLiquid(network.liquid, temperature, 'network.liquid', library)
   const viscosity = liquid.viscosity.value as PascalSeconds
   const method = network.resistanceMethod ?? 'series'
   const resistances = network.channels.map((channel) => channelResistance(channel, viscosity, method))

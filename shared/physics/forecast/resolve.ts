@@ -1,6 +1,6 @@
 // Resolves the liquids and the interfacial tension of a request into properties with their sources.
 import { ForecastInputError } from '../errors'
-import { findLiquid, findPair, LIQUIDS, PAIRS, type LiquidProperties, type Surfactant } from '../liquids'
+import { BUILT_IN_LIBRARY, findLiquid, findPair, type LiquidLibrary, type LiquidProperties } from '../liquids'
 import { INPUT, quantity, type Quantity, type Warning } from '../quantity'
 import { UNIT, type Kelvin } from '../units'
 
@@ -8,11 +8,11 @@ export type LiquidSpec =
   | { liquid: string; massFraction?: number }
   | { name?: string; viscosity: number; density: number; surfaceTension?: number }
 
-export function resolveLiquid(spec: LiquidSpec, temperature: Kelvin, path: string): { liquid: LiquidProperties; warnings: Warning[] } {
+export function resolveLiquid(spec: LiquidSpec, temperature: Kelvin, path: string, library: LiquidLibrary = BUILT_IN_LIBRARY): { liquid: LiquidProperties; warnings: Warning[] } {
   if ('liquid' in spec) {
-    const entry = findLiquid(spec.liquid)
+    const entry = findLiquid(spec.liquid, library.liquids)
     if (!entry) {
-      const known = LIQUIDS.map((liquid) => `"${liquid.id}"`).join(', ')
+      const known = library.liquids.map((liquid) => `"${liquid.id}"`).join(', ')
       throw new ForecastInputError([{ path: `${path}.liquid`, message: `unknown liquid "${spec.liquid}"; use one of ${known} or give viscosity and density explicitly` }])
     }
     const needsFraction = entry.parameters.includes('massFraction')
@@ -34,11 +34,11 @@ export function resolveLiquid(spec: LiquidSpec, temperature: Kelvin, path: strin
 }
 
 /** The given tension, else the library pair's, else an error saying how to provide it. */
-export function resolveTension(given: number | undefined, continuous: LiquidProperties, dispersed: LiquidProperties, surfactant: Surfactant): Quantity {
+export function resolveTension(given: number | undefined, continuous: LiquidProperties, dispersed: LiquidProperties, surfactant: string, library: LiquidLibrary = BUILT_IN_LIBRARY): Quantity {
   if (given !== undefined) return quantity(given, UNIT.tension, INPUT)
-  const pair = continuous.id && dispersed.id ? findPair(continuous.id, dispersed.id, surfactant) : undefined
-  if (pair) return quantity(pair.interfacialTension, UNIT.tension, { id: 'library-pair', source: pair.source })
-  const known = PAIRS.map((p) => `${p.liquids[0]}/${p.liquids[1]} (${p.surfactant})`).join(', ')
+  const pair = continuous.id && dispersed.id ? findPair(continuous.id, dispersed.id, surfactant, library.pairs) : undefined
+  if (pair) return quantity(pair.interfacialTension, UNIT.tension, { id: pair.origin === 'lab' ? 'lab-library-pair' : 'library-pair', source: pair.source })
+  const known = library.pairs.map((p) => `${p.liquids[0]}/${p.liquids[1]} (${p.surfactant})`).join(', ')
   throw new ForecastInputError([
     {
       path: 'interfacialTension',

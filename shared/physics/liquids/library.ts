@@ -25,6 +25,8 @@ export interface LiquidProperties {
 export interface LibraryLiquid {
   id: string
   name: string
+  /** 'lab' for an entry of the lab's own library; absent for a built-in one. */
+  origin?: 'lab'
   /** Extra parameters the liquid needs besides temperature. */
   parameters: readonly 'massFraction'[]
   temperatureRange: { min: number; max: number }
@@ -121,6 +123,6 @@ function tabulated(oil: TabulatedLiquid): LibraryLiquid {
 
 export const LIQUIDS: readonly LibraryLiquid[] = [water, glycerolWater, ...OILS.map(tabulated)]
 
-export function findLiquid(id: string): LibraryLiquid | undefined {
-  return LIQUIDS.find((liquid) => liquid.id === id)
+export function findLiquid(id: string, liquids: readonly LibraryLiquid[] = LIQUIDS): LibraryLiquid | undefined {
+  return liquids.find((liquid) => liquid.id === id)
 }

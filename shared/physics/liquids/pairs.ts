@@ -7,9 +7,12 @@ export const SURFACTANTS: readonly Surfactant[] = ['none', 'sorbitan-monooleate'
 export interface LiquidPair {
   /** Aqueous (dispersed) liquid id and oil (continuous) liquid id; lookup is order-free. */
   liquids: readonly [string, string]
-  surfactant: Surfactant
+  /** A built-in surfactant, or one a lab names in its own pairs. */
+  surfactant: Surfactant | (string & {})
   interfacialTension: NewtonsPerMetre
   source: string
+  /** 'lab' for a pair of the lab's own library. */
+  origin?: 'lab'
 }
 
 const MEMORY = 'typical value, from memory'
@@ -29,8 +32,8 @@ export const PAIRS: readonly LiquidPair[] = [
   { liquids: ['water', 'perfluorinated-oil'], surfactant: 'fluorinated-block-copolymer', interfacialTension: 5e-3 as NewtonsPerMetre, source: `water/perfluorinated oil with ~2 wt% PFPE–PEG block copolymer ≈ 3–6 mN/m (${MEMORY})` },
 ]
 
-export function findPair(a: string, b: string, surfactant: Surfactant): LiquidPair | undefined {
-  return PAIRS.find(
+export function findPair(a: string, b: string, surfactant: string, pairs: readonly LiquidPair[] = PAIRS): LiquidPair | undefined {
+  return pairs.find(
     (pair) =>
       pair.surfactant === surfactant &&
       ((pair.liquids[0] === a && pair.liquids[1] === b) || (pair.liquids[0] === b && pair.liquids[1] === a)),
