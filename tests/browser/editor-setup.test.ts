@@ -46,7 +46,7 @@ describe('editor set-up in Chromium', () => {
     await page.fill('[data-test="field-width"]', '10')
     await page.press('[data-test="field-width"]', 'Enter')
     // The finding on the channel alone (another one names the junction it meets as well).
-    const finding = page.locator('[data-test="findings-panel"] button').filter({ hasText: 'water-feed · at' }).filter({ hasNotText: 'tj-1' })
+    const finding = page.locator('[data-test="findings-panel"] button').filter({ hasText: 'Channel “water-feed” · at' }).filter({ hasNotText: 'tj-1' })
     await expect.poll(() => finding.count()).toBeGreaterThan(0)
     expect(await page.locator('[data-test="findings-panel"]').textContent()).toMatch(/film-mask/i)
     await page.locator('[data-test="editor-canvas"]').focus()

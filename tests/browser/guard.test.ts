@@ -44,10 +44,13 @@ describe('page guards and role menus in Chromium', () => {
     await signInAs(page, 'fabricator@brackenfold.example')
     await page.waitForURL(/\/labs\//)
     const quillmere = await labOptionValue(page, 'Quillmere')
+    // The lab's address lands a fabricator on the released revisions, their work; the menu offers only it and orders.
     await page.goto(`/labs/${quillmere}`)
-    await expect.poll(() => page.textContent('[data-test="lab-role"]')).toBe('Fabricator')
+    await page.waitForURL(new RegExp(`/labs/${quillmere}/releases$`))
+    await page.waitForSelector('[data-test="nav-orders"]')
     expect(await page.locator('[data-test="nav-members"]').count()).toBe(0)
-    expect(await page.locator('[data-test="nav-overview"]').count()).toBe(1)
+    expect(await page.locator('[data-test="nav-designs"]').count()).toBe(0)
+    expect(await page.locator('[data-test="nav-releases"]').count()).toBe(1)
     await shot(page, 'fabricator-lab')
     // typing the address of a page the role may not open shows "not allowed", and the API says 403
     await page.goto(`/labs/${quillmere}/members`)

@@ -15,8 +15,12 @@ export function mailTo(address: string): ArrivedMail[] {
     .filter(m => m.to.includes(wanted))
 }
 
-/** The first message to `address` (the nth with `index`), polling until it arrives or `timeoutMs` passes. */
-export async function waitForMail(address: string, { timeoutMs = 10_000, index = 0 } = {}): Promise<ArrivedMail> {
+/**
+ * The first message to `address` (the nth with `index`), polling until it arrives or `timeoutMs` passes. Mail goes
+ * out one at a time, in order (mail.send, concurrency 1): behind a burst of the other tests' e-mail (≈ 170 a minute
+ * in CI) a message can take over 10 s.
+ */
+export async function waitForMail(address: string, { timeoutMs = 20_000, index = 0 } = {}): Promise<ArrivedMail> {
   const until = Date.now() + timeoutMs
   for (;;) {
     const found = mailTo(address)[index]
