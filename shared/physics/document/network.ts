@@ -18,14 +18,18 @@ export const SINGLE_PHASE: Method = {
   source: 'Every channel carries the continuous phase at the operating point\'s temperature; droplets\' added resistance (Fuerstman et al. 2007, Lab Chip 7, 1479) and dispersed-phase viscosity in feed lines are neglected',
 }
 
+const DROPLET_ADDED: Method = { id: 'droplet-added-pressure', source: `${CONFINED_DROPS.source}; ${DILUTE_DROPS.source}` }
+
 export function networkAnswer(compiled: CompiledDocument, solved: TwoPhaseSolution, op: ResolvedOperatingPoint, options: DocumentForecastOptions): DocumentNetwork {
-  const { solution, resistance, dropletPressure, offset, phases, viscosity, coupling } = solved
+  const { solution, resistance, dropletPressure, offset, phases, coupling } = solved
   const warnings: DocumentWarning[] = [...op.warnings, ...compiled.warnings, ...solved.warnings]
   const valid = coupling.converged
-  const pressureAt = new Map(solution.nodeIds.map((id, i) => [id, solution.pressure[i]!]))
-  const sourceFlow = new Map(solution.sources.map((s) => [s.node, s.flow]))
+  // Each source node's pressure and flow, as the solve reports them (no map over every node).
+  const atSource = new Map(solution.sources.map((s) => [s.node, s]))
   const rectMethod = channelResistance({ id: '', from: '', to: '', width: 1, depth: 1, length: 1 }, 1 as PascalSeconds, options.resistanceMethod ?? 'series').method
   const flowMethod = { id: `${KIRCHHOFF.id}+${TWO_PHASE.id}`, source: `${KIRCHHOFF.source}; ${TWO_PHASE.source}` }
+  // One method object per kind, not one per channel (2,564 on the 512-nozzle chip).
+  const withDrops = { id: `${rectMethod.id}+drops`, source: `${rectMethod.source}; ${CONFINED_DROPS.source}; ${DILUTE_DROPS.source}` }
   const answer: DocumentNetwork = {
     liquid: op.continuous,
     approximation: TWO_PHASE,
@@ -42,13 +46,12 @@ export function networkAnswer(compiled: CompiledDocument, solved: TwoPhaseSoluti
         liquid,
         viscosity: liquid === 'dispersed' ? op.dispersed.viscosity : op.continuous.viscosity,
         flow: quantity(q, UNIT.flow, flowMethod, valid),
-        resistance: quantity(resistance[k]!, UNIT.resistance, dropletPressure[k]! > 0 ? { id: `${rectMethod.id}+drops`, source: `${rectMethod.source}; ${CONFINED_DROPS.source}; ${DILUTE_DROPS.source}` } : rectMethod, valid),
+        resistance: quantity(resistance[k]!, UNIT.resistance, dropletPressure[k]! > 0 ? withDrops : rectMethod, valid),
         pressureDrop: quantity(drop, UNIT.pressure, flowMethod, valid),
-        dropletPressureDrop: quantity(Math.sign(q) * dropletPressure[k]!, UNIT.pressure, { id: 'droplet-added-pressure', source: `${CONFINED_DROPS.source}; ${DILUTE_DROPS.source}` }, valid),
+        dropletPressureDrop: quantity(Math.sign(q) * dropletPressure[k]!, UNIT.pressure, DROPLET_ADDED, valid),
         dropletShare: drop !== 0 ? Math.min(1, dropletPressure[k]! / Math.abs(drop)) : 0,
       }
       if (offset[k]! > 0) channel.entryBarrier = quantity(offset[k]!, UNIT.pressure, ENTRY_BARRIER)
-      void viscosity
       return channel
     }),
     inlets: compiled.sources.filter((s) => s.kind === 'inlet').map((s) => ({
@@ -56,10 +59,10 @@ export function networkAnswer(compiled: CompiledDocument, solved: TwoPhaseSoluti
       node: s.node,
       mode: s.mode,
       phase: phases.inletPhase.get(s.port) ?? 'continuous',
-      pressure: quantity(pressureAt.get(s.node)!, UNIT.pressure, flowMethod, valid),
-      flow: quantity(sourceFlow.get(s.node)!, UNIT.flow, flowMethod, valid),
+      pressure: quantity(atSource.get(s.node)!.pressure, UNIT.pressure, flowMethod, valid),
+      flow: quantity(atSource.get(s.node)!.flow, UNIT.flow, flowMethod, valid),
     })),
-    outlets: compiled.sources.filter((s) => s.kind === 'outlet').map((s) => ({ port: s.port, node: s.node, flow: quantity(-sourceFlow.get(s.node)!, UNIT.flow, flowMethod, valid) })),
+    outlets: compiled.sources.filter((s) => s.kind === 'outlet').map((s) => ({ port: s.port, node: s.node, flow: quantity(-atSource.get(s.node)!.flow, UNIT.flow, flowMethod, valid) })),
     uniformity: uniformity(compiled, solution.flow),
     solver: { name: solution.solver, iterations: solution.iterations, residual: solution.residual },
     coupling,

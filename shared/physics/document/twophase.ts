@@ -88,7 +88,7 @@ export function resolvedAt(j: CompiledJunction, op: ResolvedOperatingPoint, qc: 
 }
 
 /** Drops per second and drop volume flux entering each emulsion channel, carried downhill from every junction. */
-function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseMap, pressure: Float64Array, flow: Float64Array, op: ResolvedOperatingPoint, zero: number): { rate: Float64Array; volume: Float64Array } {
+function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseMap, flow: Float64Array, op: ResolvedOperatingPoint, zero: number): { rate: Float64Array; volume: Float64Array } {
   const { channels, junctions } = compiled
   const rate = new Float64Array(channels.length)
   const volume = new Float64Array(channels.length)
@@ -109,17 +109,25 @@ function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseM
     any = true
   })
   if (!any) return { rate, volume }
-  // Outgoing emulsion channels per node (by flow direction), nodes visited from the highest pressure down.
+  // Outgoing emulsion channels per node (by flow direction). Flow runs downhill, so these edges form a DAG:
+  // nodes are visited in topological order (Kahn 1962, Commun. ACM 5, 558), each after all that feed it.
   const outStart = new Int32Array(nodes.count + 1)
   const upstream = (k: number) => (flow[k]! > 0 ? nodes.from[k]! : nodes.to[k]!)
+  const downstream = (k: number) => (flow[k]! > 0 ? nodes.to[k]! : nodes.from[k]!)
   const carries = (k: number) => phases.phase[k] === 'emulsion' && Math.abs(flow[k]!) > zero
-  for (let k = 0; k < channels.length; k++) if (carries(k)) outStart[upstream(k) + 1]!++
+  const waiting = new Int32Array(nodes.count)
+  for (let k = 0; k < channels.length; k++) if (carries(k)) (outStart[upstream(k) + 1]!++, waiting[downstream(k)]!++)
   for (let i = 0; i < nodes.count; i++) outStart[i + 1]! += outStart[i]!
   const fill = outStart.slice(0, nodes.count)
   const outList = new Int32Array(outStart[nodes.count]!)
   for (let k = 0; k < channels.length; k++) if (carries(k)) outList[fill[upstream(k)]!++] = k
-  const order = Int32Array.from({ length: nodes.count }, (_, i) => i).sort((a, b) => pressure[b]! - pressure[a]!)
-  for (const node of order) {
+  const ready = new Int32Array(nodes.count)
+  let head = 0
+  let tail = 0
+  for (let i = 0; i < nodes.count; i++) if (waiting[i] === 0) ready[tail++] = i
+  while (head < tail) {
+    const node = ready[head++]!
+    for (let e = outStart[node]!; e < outStart[node + 1]!; e++) if (--waiting[downstream(outList[e]!)]! === 0) ready[tail++] = downstream(outList[e]!)
     const r = inRate[node]!
     if (r <= 0 || outStart[node] === outStart[node + 1]) continue
     const v = inVolume[node]!
@@ -130,7 +138,7 @@ function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseM
       const share = Math.abs(flow[k]!) / total
       rate[k] = r * share
       volume[k] = v * share
-      const next = flow[k]! > 0 ? nodes.to[k]! : nodes.from[k]!
+      const next = downstream(k)
       inRate[next]! += r * share
       inVolume[next]! += v * share
     }
@@ -295,7 +303,7 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
       }
     }
     previous = Float64Array.from(flow)
-    const drops = carryDrops(compiled, nodes, phases, pressure, flow, op, zero)
+    const drops = carryDrops(compiled, nodes, phases, flow, op, zero)
     let any = false
     for (let k = 0; k < n; k++) {
       const q = Math.abs(flow[k]!)

@@ -4,7 +4,7 @@ import { ENTRY_BARRIER, entryBarrier, LAPLACE_PLUG, laplacePlug } from '../junct
 import { DISPERSED_FRACTION, dispersedFraction, GENERATION_RATE, generationRate, PLUG_VOLUME, SPHERE_EQUIVALENT, sphereEquivalentDiameter, TRAIN_SPACING, trainSpacing } from '../junction/plugVolume'
 import { classifyRegime, type Regime } from '../junction/regime'
 import { STEP_DIAMETER_FACTOR, STEP_WETTING } from '../junction/step'
-import { INPUT, quantity, type Warning } from '../quantity'
+import { INPUT, quantity, type Method, type Warning } from '../quantity'
 import { UNIT, type CubicMetres, type CubicMetresPerSecond, type KilogramsPerCubicMetre, type Metres, type NewtonsPerMetre, type PascalSeconds, type Radians } from '../units'
 import { estimateSize } from './size'
 import type { JunctionForecast, ResolvedJunction } from './types'
@@ -38,6 +38,25 @@ export function dropTrain(j: ResolvedJunction): { volume: number; frequency: num
   // A step nozzle's size does not depend on the regime (d ≈ 4h); skip classifying it.
   const volume = j.kind === 'step' ? (Math.PI / 6) * (STEP_DIAMETER_FACTOR * j.depth) ** 3 : estimateSize(j, breakupGroups(j).regime, true).volume
   return { volume, frequency: j.flowDispersed / volume }
+}
+
+interface TrainMethods { volume: Method; diameter: Method; frequency: Method; spacing: Method }
+const trainMethodsOf = new WeakMap<Method, TrainMethods>()
+
+/** The methods of the quantities derived from a size law, built once per law (not per junction per forecast). */
+function trainMethods(size: Method): TrainMethods {
+  let methods = trainMethodsOf.get(size)
+  if (!methods) {
+    const train = `${size.id}+${GENERATION_RATE.id}`
+    methods = {
+      volume: { id: `${size.id}+${PLUG_VOLUME.id}`, source: `${size.source}; ${PLUG_VOLUME.source}` },
+      diameter: { id: `${size.id}+${SPHERE_EQUIVALENT.id}`, source: `${size.source}; ${SPHERE_EQUIVALENT.source}` },
+      frequency: { id: train, source: `${size.source}; ${GENERATION_RATE.source}` },
+      spacing: { id: `${train}+${TRAIN_SPACING.id}`, source: `${size.source}; ${TRAIN_SPACING.source}` },
+    }
+    trainMethodsOf.set(size, methods)
+  }
+  return methods
 }
 
 export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] = []): JunctionForecast {
@@ -82,7 +101,7 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
   if (!propertiesValid) warnings.push({ code: 'properties-out-of-range', message: 'A liquid property is outside its correlation\'s range (see inputs); every size is marked invalid' })
   const volume = size.volume as CubicMetres
   const frequency = generationRate(qd, volume)
-  const train = [size.method.id, GENERATION_RATE.id].join('+')
+  const methods = trainMethods(size.method)
 
   const forecast: JunctionForecast = {
     inputs: {
@@ -103,9 +122,9 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
     flowRateRatio: quantity(qd / qc, UNIT.none, D.RATIO),
     laplacePressure: quantity(laplacePlug(gamma, w, h), UNIT.pressure, LAPLACE_PLUG),
     regime,
-    dropletVolume: quantity(volume, UNIT.volume, size.length === undefined ? size.method : { id: `${size.method.id}+${PLUG_VOLUME.id}`, source: `${size.method.source}; ${PLUG_VOLUME.source}` }, sizeValid),
-    dropletDiameter: quantity(sphereEquivalentDiameter(volume), UNIT.length, { id: `${size.method.id}+${SPHERE_EQUIVALENT.id}`, source: `${size.method.source}; ${SPHERE_EQUIVALENT.source}` }, sizeValid),
-    frequency: quantity(frequency, UNIT.frequency, { id: train, source: `${size.method.source}; ${GENERATION_RATE.source}` }, sizeValid),
+    dropletVolume: quantity(volume, UNIT.volume, size.length === undefined ? size.method : methods.volume, sizeValid),
+    dropletDiameter: quantity(sphereEquivalentDiameter(volume), UNIT.length, methods.diameter, sizeValid),
+    frequency: quantity(frequency, UNIT.frequency, methods.frequency, sizeValid),
     dispersedFraction: quantity(dispersedFraction(qc, qd), UNIT.none, DISPERSED_FRACTION),
     warnings,
   }
@@ -114,7 +133,7 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
   if (rhoD !== rhoC) forecast.capillaryLength = quantity(D.capillaryLength(rhoD - rhoC, gamma), UNIT.length, D.CAPILLARY_LENGTH)
   if (size.length !== undefined) {
     forecast.dropletLength = quantity(size.length, UNIT.length, size.method, sizeValid)
-    forecast.spacing = quantity(trainSpacing(qc, qd, w, h, frequency), UNIT.length, { id: `${train}+${TRAIN_SPACING.id}`, source: `${size.method.source}; ${TRAIN_SPACING.source}` }, sizeValid)
+    forecast.spacing = quantity(trainSpacing(qc, qd, w, h, frequency), UNIT.length, methods.spacing, sizeValid)
   }
   return forecast
 }
