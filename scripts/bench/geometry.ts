@@ -4,22 +4,23 @@
 // document the schema accepts and what its summary and DXF take.
 import { multiPolygonArea } from '~~/geometry/area'
 import { planParallelChip, planTJunctionChip } from '~~/geometry/arrays'
-import { exportDxf } from '~~/geometry/dxf'
-import { buildOutlines, mergePiecesSingleSweep } from '~~/geometry/outlines'
-import { BUILT_IN_PROCESSES, checkDesignRules } from '~~/geometry/rules'
+import { BUILT_IN_PROCESSES } from '~~/geometry/rules'
 import { documentPieceCount, parseChipDocument } from '~~/shared/schemas/chip'
 import { summarizeRevision } from '~~/server/services/revisionSummary'
 import { maskFile } from '~~/server/services/mask'
 import { largestAcceptedDocument } from '~~/tests/unit/schemas/largest'
 import { counted } from '~~/shared/utils/counted'
+import { importShipped } from './shipped'
 import { timed } from './timing'
 
 const mm = (um: number) => (um / 1000).toFixed(1)
 
 export async function run(): Promise<void> {
   const process = BUILT_IN_PROCESSES[0]!
+  // Timed as shipped: the server's geometry worker is an esbuild bundle (scripts/bench/shipped.ts).
+  const { buildOutlines, checkDesignRules, exportDxf, mergePiecesSingleSweep } = await importShipped<typeof import('./core')>('scripts/bench/core.ts')
   const rows: { n: number; outline: number; rules: number; dxf: number }[] = []
-  console.log('geometry: parallel step-nozzle chips (median of runs, ms)')
+  console.log('geometry: parallel step-nozzle chips (median of runs, ms; the core as shipped, an esbuild bundle)')
   // Warm-up pass so the 512 figures are not the JIT's first compile (that would flatter the growth ratio).
   for (let i = 0; i < 3; i++) {
     const w = planParallelChip({ nozzles: 512 }).document

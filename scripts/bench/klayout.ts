@@ -12,11 +12,12 @@ import { fileURLToPath } from 'node:url'
 import { multiPolygonArea } from '~~/geometry/area'
 import { planParallelChip } from '~~/geometry/arrays'
 import { documentPieces } from '~~/geometry/outlines/elements'
-import { buildOutlines, mergePieces } from '~~/geometry/outlines'
+import { buildOutlines } from '~~/geometry/outlines'
 import { exportDxf } from '~~/geometry/dxf'
 import { depthLayerName } from '~~/geometry/dxf/layer-names'
 import type { Polygon } from '~~/geometry/types'
 import { DBU_PER_UM, toDbu } from '~~/geometry/units'
+import { importShipped } from './shipped'
 import { median } from './timing'
 
 const KLAYOUT = process.env.KLAYOUT ?? '/usr/bin/klayout'
@@ -111,7 +112,8 @@ export async function run(): Promise<void> {
     console.log(`klayout: not installed at ${KLAYOUT} — side-by-side merge benchmark skipped (apt-get install klayout)`)
     return
   }
-  console.log('klayout: merge of the same raw pieces, median of three, merge only (load excluded)')
+  console.log('klayout: merge of the same raw pieces, median of three, merge only (load excluded); ours as shipped (an esbuild bundle)')
+  const { mergePieces } = await importShipped<typeof import('./core')>('scripts/bench/core.ts')
   // Warm-up: a one-run warm-up leaves Clipper2's code unoptimised for the first size (512 read 5× slow).
   const warm = rawPieces(512)
   for (let i = 0; i < 5; i++) for (const pieces of warm.values()) mergePieces(pieces)
