@@ -1,5 +1,5 @@
 // A 20 MB micrograph upload against the designs list: p50, p90 and p97.5 of GET /api/labs/:labId/designs at 10 connections,
-// first alone, then while 20 MB uncompressed TIFF micrographs are uploaded and measured one after another. The
+// flat out and at a steady 200 req/s, first alone, then while 20 MB uncompressed TIFF micrographs are uploaded and measured one after another. The
 // measurement runs in the imaging worker and decoding in sharp's own threads, so the list should not slow beyond
 // noise. Not a test: `npm run bench:upload`.
 import autocannon from 'autocannon'
@@ -8,6 +8,8 @@ import { renderMicrograph, scatterDrops } from '../../shared/imaging/synthetic'
 import { startServer } from '../../tests/support/instance'
 
 const DURATION_S = Number(process.env.DW_BENCH_SECONDS ?? 10)
+/** The steady load: about a tenth of what the list serves flat out here (common practice for latency, no source). */
+const STEADY_RATE = Number(process.env.DW_BENCH_RATE ?? 200)
 const server = await startServer({ databaseUrl: process.env.DATABASE_URL!, name: 'bench-upload', env: { DW_MAIL_WORKER: '0' } })
 const base = server.baseURL
 try {
@@ -25,8 +27,12 @@ try {
   const tiff = await sharp(Buffer.from(image.data), { raw: { width: size, height: size, channels: 1 } }).toColourspace('b-w').tiff({ compression: 'none' }).toBuffer()
   console.log(`[upload] micrograph: ${size} × ${size} px TIFF, ${(tiff.length / 1e6).toFixed(1)} MB, ${separated.length} drops`)
 
-  const list = () => autocannon({ url: `${base}/api/labs/${labId}/designs`, connections: 10, duration: DURATION_S, headers: { cookie } })
+  // Flat out (10 connections, as fast as the server answers) the list shares the 2 cores with the measurement, so
+  // its throughput falls whatever runs where; at a steady rate well inside capacity (other people browsing while
+  // one uploads) the latency shows whether the upload blocks anyone.
+  const list = (rate?: number) => autocannon({ url: `${base}/api/labs/${labId}/designs`, connections: 10, duration: DURATION_S, headers: { cookie }, ...(rate ? { overallRate: rate } : {}) })
   const quiet = await list()
+  const quietSteady = await list(STEADY_RATE)
   let uploads = 0
   let uploadMs = 0
   let stop = false
@@ -44,11 +50,14 @@ try {
     }
   })()
   const busy = await list()
+  const busySteady = await list(STEADY_RATE)
   stop = true
   await uploading
   const row = (name: string, r: autocannon.Result) => `${name}p50 ${r.latency.p50} ms, p90 ${r.latency.p90} ms, p97.5 ${r.latency.p97_5} ms (autocannon has no p95), ${r.requests.average} req/s`
   console.log(`[upload] designs list alone       ${row('', quiet)}`)
-  console.log(`[upload] designs list, uploading  ${row('', busy)}; ${uploads} uploads of 20 MB measured, ${(uploadMs / Math.max(1, uploads) / 1000).toFixed(1)} s each`)
+  console.log(`[upload] designs list, uploading  ${row('', busy)}`)
+  console.log(`[upload] at ${STEADY_RATE} req/s, alone      ${row('', quietSteady)}`)
+  console.log(`[upload] at ${STEADY_RATE} req/s, uploading  ${row('', busySteady)}; ${uploads} uploads of 20 MB measured in all, ${(uploadMs / Math.max(1, uploads) / 1000).toFixed(1)} s each`)
 } finally {
   await server.stop()
 }
