@@ -139,3 +139,15 @@ export function namedMessage(doc: Doc, message: string): string {
     return whole
   })
 }
+
+/** Units of the document's numeric fields by their key, as the chip document stores them (lengths in µm). */
+const FIELD_UNITS: Record<string, string> = {
+  rotation: '°', angle: '°', contactAngleDeg: '°', temperatureC: '°C', interfacialTensionMNPerM: 'mN/m', viscosityMPaS: 'mPa·s', densityKgPerM3: 'kg/m³',
+  nozzleCount: '', turns: '', massFraction: '', version: '',
+}
+/** The unit of a field path ("mainWidth" → "µm", "rotation" → "°"); '' for a plain count or fraction. */
+export function fieldUnit(path: string): string {
+  const last = [...pathSteps(path)].reverse().find(s => typeof s === 'string') as string | undefined
+  if (!last) return ''
+  return FIELD_UNITS[last] ?? 'µm'
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { describePath, describePathText, elementName, nameOfId, namedMessage, pathSteps, peopleError, plainMessage } from '#shared/format/fieldLabels'
+import { describePath, describePathText, elementName, fieldUnit, nameOfId, namedMessage, pathSteps, peopleError, plainMessage } from '#shared/format/fieldLabels'
 import { parseChipDocument } from '#shared/schemas/chip'
 import { fixtureDocument } from '../../support/factory'
 
@@ -68,5 +68,10 @@ describe('schema paths in people\'s words', () => {
     expect(nameOfId(doc, 'op-1')).toBe('Operating point “Cells in 40 um drops”')
     expect(nameOfId(doc, 'ch50')).toBe('Layer “Channels”')
     expect(nameOfId(doc, 'tj-1')).toBe('T-junction “tj-1”')
+  })
+
+  it('every numeric field has its unit', () => {
+    expect(['mainWidth', 'position.x', 'outline.width', 'channels.0.width', 'depth'].map(fieldUnit)).toEqual(['µm', 'µm', 'µm', 'µm', 'µm'])
+    expect(['rotation', 'temperatureC', 'interfacialTensionMNPerM', 'continuousLiquid.viscosityMPaS', 'nozzleCount'].map(fieldUnit)).toEqual(['°', '°C', 'mN/m', 'mPa·s', ''])
   })
 })
