@@ -41,11 +41,16 @@ export function pathSteps(path: string | readonly PropertyKey[]): Array<string |
 type Doc = Record<string, unknown> | null | undefined
 interface ElementLike { id?: unknown; kind?: unknown; name?: unknown; portId?: unknown }
 
+/** Collections whose elements carry a name of their own beside the id (a channel's is optional). */
+const NAMED = new Set(['operatingPoints', 'layers', 'channels'])
+const ownName = (collection: string, el: ElementLike | undefined): string | null =>
+  NAMED.has(collection) && typeof el?.name === 'string' && el.name.trim() !== '' ? el.name : typeof el?.id === 'string' && el.id !== '' ? el.id : null
+
 /** "T-junction “tj-1”", "Inlet “oil-in”", "Operating point “Day 1”": the kind and the element's own name. */
 export function elementName(collection: string, el: ElementLike | undefined, index?: number): string {
   const kind = typeof el?.kind === 'string' ? KIND_NAMES[el.kind] : undefined
   const noun = kind ?? COLLECTION_NAMES[collection] ?? collection
-  const own = typeof el?.name === 'string' && el.name !== '' && collection === 'operatingPoints' ? el.name : typeof el?.id === 'string' && el.id !== '' ? el.id : null
+  const own = ownName(collection, el)
   if (own) return `${noun} “${own}”`
   return index === undefined ? noun : `${noun} ${index + 1}`
 }
@@ -118,4 +123,31 @@ export function nameOfId(doc: Doc, id: string): string {
     if (el) return elementName(collection, el)
   }
   return id === 'outline' ? 'Chip outline' : id
+}
+
+/**
+ * A message from the rules or the core with the ids it quotes (`Operating point "op-1"`, `layer "ch25"`) replaced by
+ * the element's own name (`Operating point “Beads at 4:1 oil”`, `layer “Channels”`) where it has one. Ids of
+ * elements without a name of their own (parts, ports) are their name and stay as they are.
+ */
+export function namedMessage(doc: Doc, message: string): string {
+  return message.replace(/"([^"\s]{1,64})"/g, (whole, id: string) => {
+    for (const collection of NAMED) {
+      const el = (doc?.[collection] as ElementLike[] | undefined)?.find(e => e?.id === id)
+      if (el) { const own = ownName(collection, el); return own && own !== id ? `“${own}”` : whole }
+    }
+    return whole
+  })
+}
+
+/** Units of the document's numeric fields by their key, as the chip document stores them (lengths in µm). */
+const FIELD_UNITS: Record<string, string> = {
+  rotation: '°', angle: '°', contactAngleDeg: '°', temperatureC: '°C', interfacialTensionMNPerM: 'mN/m', viscosityMPaS: 'mPa·s', densityKgPerM3: 'kg/m³',
+  nozzleCount: '', turns: '', massFraction: '', version: '',
+}
+/** The unit of a field path ("mainWidth" → "µm", "rotation" → "°"); '' for a plain count or fraction. */
+export function fieldUnit(path: string): string {
+  const last = [...pathSteps(path)].reverse().find(s => typeof s === 'string') as string | undefined
+  if (!last) return ''
+  return FIELD_UNITS[last] ?? 'µm'
 }

@@ -9,7 +9,7 @@ const row = (n: number, parent: number | null) => ({ id: `r${n}`, designId: 'd',
 describe('DesignRevisions', () => {
   it('marks a branch with its origin, writes sizes without exponents and counts in words', () => {
     const w = mount(DesignRevisions, { props: { revisions: [row(1, null), row(2, 1), row(3, 1)] as never, labId: 'l', latestId: 'r3' }, global: { stubs: { NuxtLink: { template: '<a><slot /></a>' }, DesignStatusBadge: true } } })
-    expect(w.find('[data-test="branch-r3"]').text()).toBe('from r1')
+    expect(w.find('[data-test="branch-r3"]').text()).toBe('branched from r1')
     expect(w.find('[data-test="branch-r2"]').exists()).toBe(false)
     expect(w.text()).toContain('110 µm')
     expect(w.text()).not.toMatch(/e\+/)

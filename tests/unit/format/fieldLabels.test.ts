@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { describePath, describePathText, elementName, pathSteps, peopleError, plainMessage } from '#shared/format/fieldLabels'
+import { describePath, describePathText, elementName, fieldUnit, nameOfId, namedMessage, pathSteps, peopleError, plainMessage } from '#shared/format/fieldLabels'
 import { parseChipDocument } from '#shared/schemas/chip'
 import { fixtureDocument } from '../../support/factory'
 
@@ -53,5 +53,25 @@ describe('schema paths in people\'s words', () => {
     expect(lines.some(l => /^Channel “[^”]+” · Width: .*-3/.test(l))).toBe(true)
     expect(lines.some(l => /^Port “[^”]+” · Kind: /.test(l))).toBe(true)
     for (const l of lines) expect(l).not.toMatch(/channels\.\d|ports\[|\{ "|received undefined/)
+  })
+
+  it('an id in a finding becomes the element\'s own name where it has one', () => {
+    // The fixture: operating point op-1 "Cells in 40 um drops", layer ch50 "Channels", channels named by id only.
+    expect(namedMessage(doc, 'Operating point "op-1": the continuous liquid is not classified'))
+      .toBe('Operating point “Cells in 40 um drops”: the continuous liquid is not classified')
+    expect(namedMessage(doc, 'Gap of 20 µm on layer "ch50", below the process minimum')).toBe('Gap of 20 µm on layer “Channels”, below the process minimum')
+    expect(namedMessage(doc, 'Channel "water-feed" is 100 µm wide where it joins terminal "dispersed" of "tj-1"'))
+      .toBe('Channel "water-feed" is 100 µm wide where it joins terminal "dispersed" of "tj-1"')
+    const named = { ...doc, channels: (doc.channels as Array<Record<string, unknown>>).map(c => (c.id === 'water-feed' ? { ...c, name: 'Water feed' } : c)) }
+    expect(namedMessage(named, 'Channel "water-feed" is 100 µm wide')).toBe('Channel “Water feed” is 100 µm wide')
+    expect(nameOfId(named, 'water-feed')).toBe('Channel “Water feed”')
+    expect(nameOfId(doc, 'op-1')).toBe('Operating point “Cells in 40 um drops”')
+    expect(nameOfId(doc, 'ch50')).toBe('Layer “Channels”')
+    expect(nameOfId(doc, 'tj-1')).toBe('T-junction “tj-1”')
+  })
+
+  it('every numeric field has its unit', () => {
+    expect(['mainWidth', 'position.x', 'outline.width', 'channels.0.width', 'depth'].map(fieldUnit)).toEqual(['µm', 'µm', 'µm', 'µm', 'µm'])
+    expect(['rotation', 'temperatureC', 'interfacialTensionMNPerM', 'continuousLiquid.viscosityMPaS', 'nozzleCount'].map(fieldUnit)).toEqual(['°', '°C', 'mN/m', 'mPa·s', ''])
   })
 })
