@@ -1,6 +1,8 @@
 // The font the mask DXF outlines its text with: IBM Plex Sans Medium (latin), the woff shipped in
 // @fontsource/ibm-plex-sans, parsed once per process (or worker thread) by fontkit 2 (reads TTF, OTF, WOFF, WOFF2).
 // geometry/ stays pure: it gets the parsed font through the OutlineFont interface.
+// eslint-disable-next-line @typescript-eslint/triple-slash-reference -- fontkit ships no types, and every tsconfig that reaches this file (server, app via scripts/tests) must see them
+/// <reference path="./fontkit.d.ts" />
 import { readFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { join } from 'node:path'

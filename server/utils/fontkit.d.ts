@@ -1,4 +1,4 @@
-// fontkit ships no types; the part server/utils/labelFont.ts uses.
+// fontkit ships no types; the part labelFont.ts (beside it) uses.
 declare module 'fontkit' {
   export interface FontkitGlyph { id: number, advanceWidth: number, path: { commands: { command: string, args: number[] }[] } }
   export interface FontkitFont {
