@@ -4,6 +4,7 @@ import type { ChipOutlines } from '../outlines'
 import { buildOutlines, mergePieces } from '../outlines'
 import type { MultiPolygon, Pair } from '../types'
 import { asciiText, depthLayerName, MARKS_LAYER_NAME, OUTLINE_LAYER, TEXT_LAYER } from './layer-names'
+import { textOutlines, type OutlineFont } from './text-outline'
 
 export interface DxfOptions {
   /** Mirror left–right about the chip's centre (for the mould). */
@@ -15,6 +16,13 @@ export interface DxfOptions {
   date?: string
   /** Reuse outlines already built. */
   outlines?: ChipOutlines
+  /**
+   * Text on the text layer: `outline` (the default) draws each glyph as closed polylines from `font`, which a
+   * plotter or mask writer prints; `font` writes DXF TEXT entities (ASCII), which only CAD programs show.
+   * Without a `font` to outline with, text is written as TEXT entities.
+   */
+  text?: 'outline' | 'font'
+  font?: OutlineFont
 }
 
 export interface DxfLayerSummary { name: string; depth?: number; polygons: MultiPolygon }
@@ -73,21 +81,29 @@ export function exportDxf(doc: ChipDocument, options: DxfOptions = {}): string {
   }
   if (include(TEXT_LAYER)) {
     d.setActiveLayer(TEXT_LAYER)
-    for (const t of o.texts) {
-      const [x, y] = tx([t.position.x, t.position.y])
-      const s = asciiText(t.text)
-      if (s) d.drawText(x, y, t.height, 0, s)
+    const font = options.text !== 'font' ? options.font : undefined
+    // Outlines are drawn in the chip's frame, then mirrored point by point (glyphs read backwards on the mould,
+    // right way round on the cast chip); a reflection reverses the rings, so they are turned back to CCW/CW.
+    const drawText = (x: number, y: number, h: number, s: string) => {
+      if (font) {
+        for (const r of textOutlines(font, s, x, y, h)) d.drawPolyline((options.mirror ? [...r].reverse() : r).map(tx), true)
+      } else {
+        const a = asciiText(s)
+        const [px, py] = tx([x, y])
+        if (a) d.drawText(px, py, h, 0, a)
+      }
     }
+    for (const t of o.texts) drawText(t.position.x, t.position.y, t.height, t.text)
     const ys = ring ? ring.map((p) => p[1]) : [0]
     const x0 = ring ? Math.min(...ring.map((p) => p[0])) : 0
     const h = 250
     const lines = [
-      `Design: ${asciiText(doc.name) || 'untitled'}`,
-      `Revision: ${asciiText(options.revision ?? 'draft')}`,
-      `Date: ${asciiText(options.date ?? new Date().toISOString().slice(0, 10))}`,
+      `Design: ${doc.name.trim() || 'untitled'}`,
+      `Revision: ${options.revision ?? 'draft'}`,
+      `Date: ${options.date ?? new Date().toISOString().slice(0, 10)}`,
       `Units: micrometres. Layers: ${layers.filter((l) => l.depth !== undefined).map((l) => l.name).join(', ')}${options.mirror ? '. Mirrored for the mould' : ''}`,
     ]
-    lines.forEach((line, i) => d.drawText(x0, Math.min(...ys) - (i + 2) * h * 1.6, h, 0, line))
+    lines.forEach((line, i) => drawText(x0, Math.min(...ys) - (i + 2) * h * 1.6, h, line))
   }
   return d.toDxfString()
 }

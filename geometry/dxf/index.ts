@@ -1,3 +1,5 @@
 export { exportDxf, dxfLayers } from './export'
 export type { DxfOptions, DxfLayerSummary } from './export'
 export { depthLayerName, OUTLINE_LAYER, MARKS_LAYER_NAME, TEXT_LAYER } from './layer-names'
+export { textOutlines, flattenGlyph, bezierSegments, TEXT_CHORD_TOLERANCE_UM } from './text-outline'
+export type { OutlineFont, ShapedGlyph, GlyphCommand } from './text-outline'

@@ -1,8 +1,9 @@
 // The mask file of a revision: merged, closed outlines per depth layer in micrometres (geometry/dxf).
-// Pure (no h3, no I/O): it runs in a geometry worker (server/workers/geometry.ts), and in-thread without one.
+// No h3 (the label font is read once per thread by server/utils/labelFont.ts): it runs in a geometry worker (server/workers/geometry.ts), and in-thread without one.
 import { buildOutlines } from '../../geometry/outlines'
 import { exportDxf } from '../../geometry/dxf'
 import type { ChipDocument } from '#shared/schemas/chip'
+import { labelFont } from '../utils/labelFont'
 
 /** What the worker needs of a revision (it is copied to the worker thread). */
 export interface MaskInput {
@@ -11,6 +12,8 @@ export interface MaskInput {
   createdAt: string
   designName: string
   mirror: boolean
+  /** Text as outlines (default) or DXF TEXT entities. */
+  text?: 'outline' | 'font'
   layers?: string[]
 }
 
@@ -27,7 +30,8 @@ export function maskFile(input: MaskInput): MaskResult {
     return { ok: false, message: `This revision's geometry cannot be exported: ${outlines.problems.map(p => p.message).join('; ')}` }
   }
   const date = input.createdAt.slice(0, 10)
-  const dxf = exportDxf(doc, { mirror: input.mirror, layers: input.layers, revision: `r${input.number}`, date, outlines })
+  const dxf = exportDxf(doc, { mirror: input.mirror, layers: input.layers, revision: `r${input.number}`, date, outlines,
+    text: input.text ?? 'outline', font: input.text === 'font' ? undefined : labelFont() })
   const layerSet = input.layers?.length ? input.layers.map(slug).join('+') : 'all-layers'
   const filename = `${slug(input.designName)}_r${input.number}_${layerSet}${input.mirror ? '_mirrored' : ''}.dxf`
   return { ok: true, dxf, filename }

@@ -134,7 +134,7 @@ export function summarizeOffThread(document: ChipDocument, processId: string, la
 }
 
 /** The mask DXF of a revision; a geometry that cannot be exported is a 400 naming the elements. */
-export async function dxfOffThread(revision: RevisionDetail, options: { mirror: boolean, layers?: string[] }): Promise<{ dxf: string, filename: string }> {
+export async function dxfOffThread(revision: RevisionDetail, options: { mirror: boolean, text: 'outline' | 'font', layers?: string[] }): Promise<{ dxf: string, filename: string }> {
   const input: MaskInput = { document: revision.document, number: revision.number, createdAt: revision.createdAt, designName: revision.designName, ...options }
   const p = usePool()
   const result = p

@@ -12,12 +12,18 @@ import type { RevisionSummary } from '#shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
 import { useConfig } from '../utils/config'
+import { labelFont } from '../utils/labelFont'
 
 // Below the request thread: on Linux a nice value is per thread, so on a busy machine the event loop that answers
 // requests gets the CPU first and a long geometry task waits (DW_GEOMETRY_NICE, default 10; 0 keeps it equal).
 try {
   setPriority(useConfig().geometry.nice)
 } catch { /* not allowed here: run at the same priority */ }
+
+// The mask DXF's label font, parsed as the thread starts rather than on its first DXF (~0.1 s once).
+try {
+  labelFont()
+} catch { /* the DXF route reports it if the font cannot be read */ }
 
 export function summary(job: { document: ChipDocument, processId: string, lab?: LabLibraryData | null }): RevisionSummary {
   return summarizeRevision(job.document, job.processId, job.lab)

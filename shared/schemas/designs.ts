@@ -73,4 +73,6 @@ export const dxfQuery = z.object({
   mirror: z.enum(['true', 'false']).default('false'),
   /** Comma-separated layer ids or DXF layer names; all layers when omitted. */
   layers: safeText(undefined, 'Layer list').max(500, 'The layer list is at most 500 characters').optional(),
+  /** Text as closed outlines (the default: every plotter prints them) or as DXF TEXT entities in a font. */
+  text: z.enum(['outline', 'font'], { error: 'Text must be "outline" (letters drawn as shapes) or "font" (DXF text entities)' }).default('outline'),
 })

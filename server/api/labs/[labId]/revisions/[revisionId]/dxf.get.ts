@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const caller = requireLabPermission(event, labId, 'released:view')
   const query = validQuery(event, dxfQuery)
   const { dxf, filename } = await dxfOffThread(await getRevision(caller, revisionId, { open: true }), {
-    mirror: query.mirror === 'true', layers: query.layers?.split(',').map(s => s.trim()).filter(Boolean),
+    mirror: query.mirror === 'true', text: query.text, layers: query.layers?.split(',').map(s => s.trim()).filter(Boolean),
   })
   setResponseHeaders(event, { 'content-type': 'application/dxf; charset=utf-8', 'content-disposition': `attachment; filename="${filename}"` })
   return dxf
