@@ -82,7 +82,6 @@ export const passwordResets = pgTable('password_resets', {
 
 export const revisionStatusEnum = pgEnum('revision_status', ['draft', 'in-review', 'changes-requested', 'approved', 'released'])
 export const verdictEnum = pgEnum('verdict', ['approve', 'request-changes'])
-export const fabStatusEnum = pgEnum('fab_status', ['released', 'in-fabrication', 'shipped', 'received', 'on-hold'])
 
 /** Where a duplicated design came from, as it read when it was duplicated (the origin may be in another lab). */
 export interface DesignOrigin { revisionId: string, designId: string, designName: string, revisionNumber: number, authorName: string, labName: string }
@@ -172,8 +171,6 @@ export const releases = pgTable('releases', {
   labId: uuid('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
   releasedBy: uuid('released_by').notNull().references(() => users.id),
   releasedAt: timestamp('released_at', { withTimezone: true }).notNull().defaultNow(),
-  fabStatus: fabStatusEnum('fab_status').notNull().default('released'),
-  fabStatusAt: timestamp('fab_status_at', { withTimezone: true }).notNull().defaultNow(),
   note: text('note').notNull().default(''),
 }, t => [index('releases_lab_idx').on(t.labId)])
 

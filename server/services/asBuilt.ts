@@ -82,6 +82,7 @@ export async function getAsBuilt(caller: LabCaller, revisionId: string) {
   return {
     revision: { id: revisionId, number: r.head.number, status: r.head.status, designName: r.designName },
     layers: r.document.layers.map(l => ({ id: l.id, name: l.name, depthUm: l.depth })),
+    document: r.document,
     measurable: measurableWidths(r.document),
     designed: r.summary,
     asBuilt: latest && summary

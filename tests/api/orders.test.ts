@@ -98,9 +98,15 @@ describe('fabrication orders (real server, real PostgreSQL)', () => {
     const rev = { id: (await c.as.designer.post(`/api/labs/${c.lab.id}/designs`, { name: 'Released before orders' })).json.revisionId as string }
     await sql('update revisions set status = $2 where id = $1', [rev.id, 'released'])
     const admin = (await sql<{ user_id: string }>('select user_id from memberships where lab_id = $1 and role = $2', [c.lab.id, 'admin']))[0]!.user_id
-    await sql(`insert into releases (revision_id, lab_id, released_by, released_at, fab_status, fab_status_at, note) values ($1, $2, $3, now() - interval '1 day', 'received', now(), 'Two wafers')`, [rev!.id, c.lab.id, admin])
-    const migration = readFileSync('server/db/migrations/0011_fab-orders-from-releases.sql', 'utf8')
-    for (const statement of migration.split('--> statement-breakpoint')) await sql(statement)
+    // Migration 0014 dropped the old status columns; they come back (as text, nullable) only while 0011 is replayed.
+    await sql('alter table releases add column if not exists fab_status text, add column if not exists fab_status_at timestamptz')
+    try {
+      await sql(`insert into releases (revision_id, lab_id, released_by, released_at, fab_status, fab_status_at, note) values ($1, $2, $3, now() - interval '1 day', 'received', now(), 'Two wafers')`, [rev!.id, c.lab.id, admin])
+      const migration = readFileSync('server/db/migrations/0011_fab-orders-from-releases.sql', 'utf8')
+      for (const statement of migration.split('--> statement-breakpoint')) await sql(statement)
+    } finally {
+      await sql('alter table releases drop column if exists fab_status, drop column if exists fab_status_at')
+    }
     const [order] = await sql<{ id: string, status: string, notes: string, number: number }>('select id, status, notes, number from fab_orders where revision_id = $1', [rev!.id])
     expect(order).toMatchObject({ status: 'delivered', notes: 'Two wafers' })
     expect(order!.number).toBe(2) // after the lab's existing order
