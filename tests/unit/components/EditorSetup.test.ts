@@ -38,6 +38,26 @@ describe('EditorLayers', () => {
   })
 })
 
+describe('EditorOperatingPoint: typing while the forecast updates', () => {
+  it('keeps what is being typed in an inlet box and the temperature when the panel re-renders before Enter', async () => {
+    const w = mount(EditorOperatingPoint, { props: { document: doc() } })
+    const box = w.get('[data-test^="inlet-value-"]')
+    const input = box.element as HTMLInputElement
+    input.value = '-1'
+    await box.trigger('input')
+    const temperature = w.get('[data-test="op-temperature"]')
+    ;(temperature.element as HTMLInputElement).value = '3'
+    await temperature.trigger('input')
+    // A live forecast answer arrives: new props, the rows re-render (Vue re-applies every bound value).
+    await w.setProps({ document: doc(), solution: {} })
+    expect(input.value).toBe('-1')
+    expect((temperature.element as HTMLInputElement).value).toBe('3')
+    await box.trigger('change')
+    expect(w.get('[data-test^="inlet-error-"]').text()).toContain('must be ≥ 0')
+    expect(w.emitted('inlet')).toBeUndefined()
+  })
+})
+
 describe('EditorOperatingPoint: several named points', () => {
   it('adds a point from the active one, renames it, and cannot remove the only one', async () => {
     const w = mount(EditorOperatingPoint, { props: { document: doc() } })
