@@ -3,7 +3,7 @@
 // design from the revision page, gets an e-mail, and downloads the fab sheet as a PDF.
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
+import { hydrated, launch, memberEmails, shot, signedInPage } from '../support/browser'
 import { labWithDesign } from '../support/designs'
 import { TEST_PASSWORD } from '../support/factory'
 import { mailTo } from '../support/mail'
@@ -17,17 +17,11 @@ beforeAll(async () => {
   browser = await launch()
   c = await labWithDesign()
   revisionId = (await releasedOrder(c)).revisionId
-  emails = Object.fromEntries((await c.as.admin.get(`/api/labs/${c.lab.id}/members`)).json.map((m: { role: string, email: string }) => [m.role, m.email]))
+  emails = await memberEmails(c.as.admin, c.lab.id)
 }, 120_000)
 afterAll(async () => { await browser?.close() })
 
-async function as(role: string): Promise<Page> {
-  const page = await newPage(browser)
-  await signInAs(page, emails[role]!, TEST_PASSWORD)
-  await page.waitForURL(/\/labs\//)
-  await hydrated(page)
-  return page
-}
+const as = (role: string): Promise<Page> => signedInPage(browser, emails[role]!, TEST_PASSWORD)
 
 /** Screen point of a world point (µm) on the fixture chip (10 × 7 mm), fitted into the viewer with a 24 px margin. */
 async function at(page: Page, x: number, y: number) {

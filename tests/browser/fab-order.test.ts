@@ -2,7 +2,7 @@
 // finds the order in the queue, starts it and ships it with a tracking number.
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
+import { hydrated, launch, memberEmails, shot, signedInPage } from '../support/browser'
 import { labWithDesign } from '../support/designs'
 import { TEST_PASSWORD } from '../support/factory'
 
@@ -15,17 +15,11 @@ beforeAll(async () => {
   const base = `/api/labs/${c.lab.id}/revisions/${c.revisionId}`
   await c.as.designer.post(`${base}/review-requests`, { reviewerIds: [c.ids.reviewer] })
   await c.as.reviewer.post(`${base}/verdicts`, { verdict: 'approve' })
-  emails = Object.fromEntries((await c.as.admin.get(`/api/labs/${c.lab.id}/members`)).json.map((m: { role: string, email: string }) => [m.role, m.email]))
+  emails = await memberEmails(c.as.admin, c.lab.id)
 }, 120_000)
 afterAll(async () => { await browser?.close() })
 
-async function as(role: string): Promise<Page> {
-  const page = await newPage(browser)
-  await signInAs(page, emails[role]!, TEST_PASSWORD)
-  await page.waitForURL(/\/labs\//)
-  await hydrated(page)
-  return page
-}
+const as = (role: string): Promise<Page> => signedInPage(browser, emails[role]!, TEST_PASSWORD)
 
 describe('release with an order, then the fab ships it (real Chromium)', () => {
   it('admin confirms the release; fabricator moves the order to shipped with a tracking number', async () => {

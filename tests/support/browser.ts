@@ -25,6 +25,21 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
   await page.click('button[type=submit]')
 }
 
+/** A new page signed in as `email`, on its lab's landing page, hydrated. */
+export async function signedInPage(browser: Browser, email: string, password = DEMO_PASSWORD): Promise<Page> {
+  const page = await newPage(browser)
+  await signInAs(page, email, password)
+  await page.waitForURL(/\/labs\//)
+  await hydrated(page)
+  return page
+}
+
+/** Role → e-mail of a lab's members, as its admin sees them (tests whose lab has one person per role). */
+export async function memberEmails(admin: { get: (path: string) => Promise<{ json: unknown }> }, labId: string): Promise<Record<string, string>> {
+  const members = (await admin.get(`/api/labs/${labId}/members`)).json as { role: string, email: string }[]
+  return Object.fromEntries(members.map((m) => [m.role, m.email]))
+}
+
 export const shot = (page: Page, name: string) => page.screenshot({ path: `test-results/${name}.png`, fullPage: true })
 
 /** Resolves once Nuxt has hydrated the page, so a click reaches Vue and not the browser's own form submission. */

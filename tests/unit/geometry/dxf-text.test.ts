@@ -1,9 +1,6 @@
-import { execFileSync, spawnSync } from 'node:child_process'
-import { mkdtempSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import DxfParser from 'dxf-parser'
 import { describe, expect, it } from 'vitest'
+import { ezdxfReport } from '../../support/ezdxf'
 import { bezierSegments, exportDxf, flattenGlyph, TEXT_CHORD_TOLERANCE_UM } from '~~/geometry/dxf'
 import { signedArea } from '~~/geometry/vec'
 import type { Pair } from '~~/geometry/types'
@@ -65,20 +62,10 @@ describe('mask DXF text as outlines (default)', () => {
   })
 
   it('read back by ezdxf: audit clean, no TEXT/MTEXT, every polyline on TEXT closed', () => {
-    const probe = spawnSync('/usr/bin/python3', ['-c', 'import ezdxf'])
-    if (probe.status !== 0) {
-      throw new Error('ezdxf is missing: run `apt-get update && apt-get install -y python3-ezdxf` (Debian /usr/bin/python3)')
-    }
-    const dir = mkdtempSync(join(tmpdir(), 'dw-dxf-text-'))
-    const file = join(dir, 'chip.dxf')
-    writeFileSync(file, outlined(true))
-    const script = [
-      'import sys, json', 'from ezdxf import recover',
-      'doc, auditor = recover.readfile(sys.argv[1])', 'auditor = doc.audit()', 'msp = doc.modelspace()',
+    const out = ezdxfReport<{ polylines: number }>(outlined(true), [
       'pl = msp.query(\'LWPOLYLINE[layer=="TEXT"]\')',
       'print(json.dumps({"errors": len(auditor.errors), "text": len(msp.query("TEXT MTEXT")), "polylines": len(pl), "open": sum(1 for e in pl if not e.closed)}))',
-    ].join('\n')
-    const out = JSON.parse(execFileSync('/usr/bin/python3', ['-c', script, file], { encoding: 'utf8' }))
+    ])
     expect(out).toMatchObject({ errors: 0, text: 0, open: 0 })
     expect(out.polylines).toBeGreaterThan(10)
   })

@@ -1,9 +1,6 @@
-import { execFileSync, spawnSync } from 'node:child_process'
-import { mkdtempSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import DxfParser from 'dxf-parser'
 import { describe, expect, it } from 'vitest'
+import { ezdxfReport } from '../../support/ezdxf'
 import { multiPolygonArea } from '~~/geometry/area'
 import { exportDxf, dxfLayers } from '~~/geometry/dxf'
 import { generateParallelChip } from '~~/geometry/arrays'
@@ -67,20 +64,10 @@ describe('DXF export read back with dxf-parser', () => {
 
 describe('DXF export audited by ezdxf (Debian python3-ezdxf)', () => {
   it('audit has no errors, units are µm, every polyline is closed', () => {
-    const probe = spawnSync('/usr/bin/python3', ['-c', 'import ezdxf'])
-    if (probe.status !== 0) {
-      throw new Error('ezdxf is missing: run `apt-get update && apt-get install -y python3-ezdxf` (Debian /usr/bin/python3)')
-    }
-    const dir = mkdtempSync(join(tmpdir(), 'dw-dxf-'))
-    const file = join(dir, 'chip.dxf')
-    writeFileSync(file, exportDxf(docs['parallel-48'], { mirror: true, date: '2026-03-01' }))
-    const script = [
-      'import sys, json', 'from ezdxf import recover',
-      'doc, auditor = recover.readfile(sys.argv[1])', 'auditor = doc.audit()',
-      'pl = doc.modelspace().query("LWPOLYLINE")',
+    const out = ezdxfReport<{ polylines: number }>(exportDxf(docs['parallel-48'], { mirror: true, date: '2026-03-01' }), [
+      'pl = msp.query("LWPOLYLINE")',
       'print(json.dumps({"errors": len(auditor.errors), "units": doc.header.get("$INSUNITS"), "polylines": len(pl), "open": sum(1 for e in pl if not e.closed)}))',
-    ].join('\n')
-    const out = JSON.parse(execFileSync('/usr/bin/python3', ['-c', script, file], { encoding: 'utf8' }))
+    ])
     expect(out).toMatchObject({ errors: 0, units: 13, open: 0 })
     expect(out.polylines).toBeGreaterThan(0)
   })
