@@ -91,9 +91,10 @@ export async function getAsBuilt(caller: LabCaller, revisionId: string) {
   }
 }
 
-/** The as-built document of a revision, when one was recorded (bench runs forecast on it). */
-export async function latestAsBuiltDocument(labId: string, revisionId: string): Promise<unknown | null> {
-  const [row] = await useDb().select({ document: asBuilts.document }).from(asBuilts)
+/** The latest as-built report of a revision, when one was recorded: bench runs forecast on its chip. */
+export async function latestAsBuiltChip(labId: string, revisionId: string) {
+  const [row] = await useDb().select({ id: asBuilts.id, document: asBuilts.document, createdAt: asBuilts.createdAt, recordedByName: users.name, depths: asBuilts.depths, widths: asBuilts.widths })
+    .from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
     .where(and(eq(asBuilts.revisionId, revisionId), eq(asBuilts.labId, labId))).orderBy(desc(asBuilts.createdAt)).limit(1)
-  return row?.document ?? null
+  return row ?? null
 }

@@ -3,7 +3,8 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import { createError, type H3Event } from 'h3'
 import { describeSample } from '#shared/physics/calibration/stats'
-import { SIZE_UNITS, type BenchRunCreate, benchRunCreate } from '#shared/schemas/bench'
+import type { benchRunCreate, BenchRunCreate } from '#shared/schemas/bench';
+import { SIZE_UNITS } from '#shared/schemas/bench'
 import { parseSizeColumn } from '#shared/schemas/benchCsv'
 import { can, type Permission } from '#shared/utils/roles'
 import type { z } from 'zod'
@@ -11,7 +12,8 @@ import { benchMicrographs, benchRuns, revisions, users } from '../db/schema'
 import { requireLabPermission, type LabCaller } from '../utils/access'
 import { useDb } from '../utils/db'
 import { logActivity } from './activity'
-import { predictRun, type RunPrediction } from './benchForecast'
+import { latestAsBuiltChip } from './asBuilt'
+import { benchChip, predictRun, type RunPrediction } from './benchForecast'
 import { assertNotArchived, findVisibleRevision, notFound } from './designGuards'
 
 /**
@@ -56,8 +58,10 @@ export async function listBenchRuns(caller: LabCaller, revisionId: string) {
   const micrographs = runs.length
     ? await db.select().from(benchMicrographs).where(and(eq(benchMicrographs.labId, caller.lab.labId), inArray(benchMicrographs.runId, runs.map(r => r.run.id)))).orderBy(asc(benchMicrographs.createdAt))
     : []
+  const report = await latestAsBuiltChip(caller.lab.labId, revisionId)
   return {
     revision: { id: revision.id, designId: revision.designId, number: revision.number, status: revision.status },
+    asBuilt: report ? { id: report.id, reportedAt: report.createdAt.toISOString(), recordedByName: report.recordedByName, depths: report.depths, widths: report.widths } : null,
     runs: runs.map(({ run, ranByName }) => runJson({ ...run, ranByName }, micrographs.filter(m => m.runId === run.id))),
   }
 }
@@ -103,7 +107,9 @@ export async function createBenchRun(caller: LabCaller, revisionId: string, inpu
   assertNotArchived(revision)
   const values = runValues(input)
   const [doc] = await db.select({ document: revisions.document }).from(revisions).where(eq(revisions.id, revisionId))
-  const predicted = await predictRun(doc!.document, input.operatingPointId, input.junctionId, input.conditions, input.asBuilt)
+  const { document, chip } = await benchChip(caller.lab.labId, revisionId, doc!.document, input)
+  const forecast = await predictRun(document, input.operatingPointId, input.junctionId, input.conditions)
+  const predicted = forecast && { ...forecast, chip }
   const run = await db.transaction(async (tx) => {
     const [row] = await tx.insert(benchRuns).values({
       labId: caller.lab.labId, designId: revision.designId, revisionId,

@@ -57,3 +57,37 @@ export function applyAsBuilt(doc: ChipDocument, m: AsBuiltMeasurements): ChipDoc
   })
   return { ...doc, layers, channels, components: components as ChipDocument['components'] }
 }
+
+/**
+ * The component fields behind a junction's forecast widths, main then dispersed inlet (as compiled in
+ * shared/physics/document/components.ts). Step nozzles have one width: the nozzle's.
+ */
+export const JUNCTION_WIDTH_FIELDS: Record<string, { main: string, inlet?: string }> = {
+  't-junction': { main: 'mainWidth', inlet: 'inletWidth' },
+  'y-junction': { main: 'outletWidth', inlet: 'dispersedWidth' },
+  'flow-focusing': { main: 'orificeWidth', inlet: 'dispersedWidth' },
+  'step-nozzle': { main: 'nozzleWidth' },
+  'step-array': { main: 'nozzleWidth' },
+}
+
+/** Sizes measured at the bench on the chip a run was made on, µm. */
+export interface BenchSizes { mainWidthUm?: number, inletWidthUm?: number, depthUm?: number }
+
+/**
+ * The chip with the sizes measured at the bench on one junction: its width fields, and the depth of its layer
+ * (every feature on that layer is as deep). `junctionId` may name one nozzle of an array (`sa-1[3]`): the sizes
+ * apply to the array's component. Without a junction id, the first junction on the chip.
+ */
+export function applyBenchSizes(doc: ChipDocument, junctionId: string | undefined, sizes: BenchSizes): ChipDocument {
+  const elementId = junctionId?.replace(/\[\d+\]$/, '')
+  const component = doc.components.find(c => (elementId ? c.id === elementId : c.kind in JUNCTION_WIDTH_FIELDS))
+  if (!component) throw new AsBuiltError('junctionId', elementId ? `No junction "${elementId}" on this chip` : 'This chip has no junction to measure')
+  const fields = JUNCTION_WIDTH_FIELDS[component.kind]
+  if (!fields) throw new AsBuiltError('junctionId', `"${component.name ?? component.id}" is not a junction`)
+  if (sizes.inletWidthUm !== undefined && !fields.inlet) throw new AsBuiltError('asBuilt.inletWidthUm', `A ${component.kind.replace('-', ' ')} has one width, the nozzle's: give it as the width at the junction`)
+  const widths: MeasuredWidth[] = []
+  if (sizes.mainWidthUm !== undefined) widths.push({ elementId: component.id, field: fields.main, widthUm: sizes.mainWidthUm })
+  if (sizes.inletWidthUm !== undefined) widths.push({ elementId: component.id, field: fields.inlet!, widthUm: sizes.inletWidthUm })
+  const depths = sizes.depthUm !== undefined ? [{ layerId: component.layerId, depthUm: sizes.depthUm }] : []
+  return applyAsBuilt(doc, { depths, widths })
+}

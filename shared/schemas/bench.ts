@@ -37,7 +37,10 @@ export const benchConditions = z.object({
 }).strict()
 export type BenchConditions = z.infer<typeof benchConditions>
 
-/** As-built sizes of the chip the run was made on, µm (from the fabricator's report or measured). */
+/**
+ * Sizes measured at the bench on the chip the run was made on, µm: the junction's width(s) and its layer's depth.
+ * They replace the drawn (or fabricator-reported) values in the run's forecast.
+ */
 export const asBuilt = z.object({
   mainWidthUm: z.number().positive({ error: 'As-built width must be > 0 µm' }).max(100_000).optional(),
   inletWidthUm: z.number().positive({ error: 'As-built inlet width must be > 0 µm' }).max(100_000).optional(),
@@ -63,6 +66,8 @@ export const benchRunCreate = z.object({
   junctionId: elementId.optional(),
   conditions: benchConditions.default({}),
   asBuilt: asBuilt.optional(),
+  /** The chip the forecast is computed on: as built (the latest as-built report; the default when one exists) or as drawn. */
+  chip: z.enum(['as-built', 'as-drawn'], { error: 'Chip must be "as-built" or "as-drawn"' }).optional(),
   quantity: z.enum(['diameter', 'plug-length'], { error: 'Quantity must be "diameter" or "plug-length"' }).default('diameter'),
   /** typed: `values` (with `unit`); csv: `csv`; micrograph: none yet (sizes come from the uploaded micrographs). */
   source: z.enum(['typed', 'csv', 'micrograph'], { error: 'Source must be "typed", "csv" or "micrograph"' }),

@@ -6,6 +6,8 @@ import type { LabCalibration } from '../physics/calibration/lab'
 export interface BenchPrediction {
   junctionId: string, kind: string, diameterUm: number, regime: string, method: string, valid: boolean
   flowRatio: number, forecastFlowRatio: number, atBenchFlows: boolean, mainWidthUm: number, depthUm: number, uncertainty: number, uncertaintySource: string
+  /** The chip the forecast ran on (absent on runs recorded before as-built chips were used). */
+  chip?: { basis: 'as-built' | 'as-drawn', asBuiltId: string | null, reportedAt: string | null, benchSizes: boolean }
 }
 
 export interface BenchMicrographInfo {
@@ -22,7 +24,12 @@ export interface BenchRunInfo {
   micrographs: BenchMicrographInfo[]
 }
 
-export interface BenchRunList { revision: { id: string, designId: string, number: number, status: string }, runs: BenchRunInfo[] }
+export interface BenchRunList {
+  revision: { id: string, designId: string, number: number, status: string }
+  /** The latest as-built report of the revision: new runs forecast on it unless told "as drawn". */
+  asBuilt: { id: string, reportedAt: string, recordedByName: string, depths: { layerId: string, depthUm: number }[], widths: { elementId: string, widthUm: number }[] } | null
+  runs: BenchRunInfo[]
+}
 
 export interface MicrographResult { micrograph: BenchMicrographInfo, drops: DetectedDrop[], summary: SampleSummary | null, method: string | null }
 

@@ -61,7 +61,7 @@ describe('bench results in the browser', () => {
     await page.keyboard.press('Enter')
     expect(await page.textContent('[data-test="micrograph-stats"]')).toContain('n = 11')
     await page.click('[data-test="save-exclusions"]')
-    await expect.poll(() => page.textContent('[data-test="bench-run-2"]')).toMatch(/Micrograph\s*11/)
+    await expect.poll(() => page.textContent('[data-test="bench-run-2"]')).toMatch(/Micrograph\s*Chip as drawn\s*11/)
     await shot(page, 'bench-micrograph')
 
     // Measured against forecast, the fitted α with its interval, and the switch.
