@@ -3,7 +3,7 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import { createError, type H3Event } from 'h3'
 import { describeSample } from '#shared/physics/calibration/stats'
-import type { benchRunCreate, BenchRunCreate } from '#shared/schemas/bench';
+import type { benchRunCreate, BenchRunCreate } from '#shared/schemas/bench'
 import { SIZE_UNITS } from '#shared/schemas/bench'
 import { parseSizeColumn } from '#shared/schemas/benchCsv'
 import { can, type Permission } from '#shared/utils/roles'
