@@ -11,6 +11,10 @@ import { measureDrops, type Measurement } from '#shared/imaging/measure'
 import { MAX_MICROGRAPH_PIXELS, MICROGRAPH_TYPES } from '#shared/schemas/bench'
 import { useConfig } from '../utils/config'
 
+// One libvips thread per image operation: decoding, thumbnailing and re-encoding a 20 MB micrograph would
+// otherwise take every core of the machine at once, and the requests answered beside it wait.
+sharp.concurrency(1)
+
 const badImage = (message: string) => createError({ statusCode: 415, statusMessage: 'Unsupported Media Type', message })
 
 /** The image type read from the bytes; anything but PNG, JPEG or TIFF is refused whatever its name says. */
