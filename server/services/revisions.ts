@@ -1,10 +1,10 @@
 // Revisions are immutable: a save always inserts a new one. Optimistic concurrency: a save whose parent is no
 // longer the design's latest revision gets 409 with what changed since, unless it asks to branch.
-import { and, asc, eq } from 'drizzle-orm'
+import { and, asc, eq, gt, sql } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
 import { createError } from 'h3'
-import { designs, revisions, users } from '../db/schema'
-import { useDb, withClient } from '../utils/db'
+import { activity, designs, revisions, users } from '../db/schema'
+import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { RevisionDetail, RevisionRow, RevisionSummary } from '#shared/types/designs'
 import type { revisionCreate } from '#shared/schemas/designs'
@@ -56,18 +56,20 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
   const stale = !body.branch && design.latestRevisionId !== body.parentId
   const summary = stale ? null : await summarizeWithLibrary(document, design.processId, caller.lab.labId)
   // One connection from begin to commit (DEVELOPERS.md, "Database work"): the loser of a race reads what came
-  // after its parent on the connection that holds the lock, never through a second checkout.
-  return withClient(async (client) => {
+  // after its parent through `tx`, on the connection that holds the lock, never through a second checkout.
+  return useDb().transaction(async (tx) => {
     // Lock the design row: concurrent saves on one design queue here, and the parent check below sees the truth.
-    const { rows: [locked] } = await client.query<{ latest: string | null, count: number, parent: number | null, archived: boolean }>({
-      name: 'dw-save-lock', text: LOCK_SQL, values: [designId, body.parentId],
-    })
+    const parentNumber = tx.select({ number: revisions.number }).from(revisions).where(and(eq(revisions.id, body.parentId), eq(revisions.designId, designs.id)))
+    const [locked] = await tx.select({
+      latest: designs.latestRevisionId, count: designs.revisionCount,
+      archived: sql<boolean>`${designs.archivedAt} is not null`, parent: sql<number | null>`(${parentNumber})`,
+    }).from(designs).where(eq(designs.id, designId)).for('no key update').prepare('dw_save_lock').execute()
     if (!locked) throw notFound('design')
     if (locked.archived) throw archivedDesign()
     if (locked.parent === null) throw notFound('parent revision for this design')
     if (!body.branch && locked.latest !== body.parentId) {
-      const { rows } = await client.query<RawRow>({ name: 'dw-save-since', text: SINCE_SQL, values: [designId, locked.parent] })
-      const since = rows.map(toRow)
+      const since = (await tx.select(rowColumns).from(revisions).innerJoin(users, eq(users.id, revisions.authorId))
+        .where(and(eq(revisions.designId, designId), gt(revisions.number, locked.parent))).orderBy(asc(revisions.number))).map(toRow)
       throw createError({
         statusCode: 409, statusMessage: 'Conflict',
         message: `Revision ${locked.parent} is no longer the latest: ${since.map(r => `r${r.number} by ${r.authorName} ("${r.message}")`).join(', ')} came after it. Reload, or save yours as a branch.`,
@@ -76,34 +78,16 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
     }
     if (!summary) throw new Error('a save without a summary reached the insert') // unreachable: stale saves end in 409 above
     const number = locked.count + 1
-    const action = body.branch ? 'revision.branched' : 'revision.saved'
-    const { rows: [revision] } = await client.query<{ id: string }>({
-      name: 'dw-save-insert', text: INSERT_SQL,
-      values: [designId, caller.lab.labId, number, body.parentId, caller.userId, body.message, JSON.stringify(document), JSON.stringify(summary),
-        summary.junctionKinds, action, JSON.stringify({ number, parent: locked.parent, message: body.message })],
-    })
-    return { revisionId: revision!.id, number }
+    // One round trip for the busiest write: the revision, the design's head and the activity line together.
+    const rev = tx.$with('rev').as(tx.insert(revisions).values({
+      designId, labId: caller.lab.labId, number, parentId: body.parentId, authorId: caller.userId, message: body.message, document, summary,
+    }).returning({ id: revisions.id }))
+    const head = tx.$with('head').as(tx.update(designs).set({ latestRevisionId: sql`(select id from ${rev})`, revisionCount: number, updatedAt: sql`now()`, junctionKinds: summary.junctionKinds })
+      .where(eq(designs.id, designId)).returning({ id: designs.id }))
+    const [saved] = await tx.with(rev, head).insert(activity).values({
+      labId: caller.lab.labId, designId, revisionId: sql`(select id from ${rev})`, actorId: caller.userId,
+      action: body.branch ? 'revision.branched' : 'revision.saved', detail: { number, parent: locked.parent, message: body.message },
+    }).returning({ revisionId: activity.revisionId }).prepare('dw_save_insert').execute()
+    return { revisionId: saved!.revisionId!, number }
   })
 }
-
-// One round trip each (the save is the busiest write): lock + parent check, then revision + design + activity.
-const LOCK_SQL = `
-  select d.latest_revision_id as latest, d.revision_count as count, d.archived_at is not null as archived,
-         (select p.number from revisions p where p.id = $2 and p.design_id = d.id) as parent
-    from designs d where d.id = $1 for no key update`
-const SINCE_SQL = `
-  select r.id, r.design_id as "designId", r.number, r.parent_id as "parentId", r.message, u.name as "authorName",
-         r.created_at as "createdAt", r.status, r.status_changed_at as "statusChangedAt", r.summary
-    from revisions r join users u on u.id = r.author_id
-   where r.design_id = $1 and r.number > $2 order by r.number`
-const INSERT_SQL = `
-  with rev as (
-    insert into revisions (design_id, lab_id, number, parent_id, author_id, message, document, summary)
-    values ($1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb) returning id),
-  upd as (
-    update designs set latest_revision_id = (select id from rev), revision_count = $3, updated_at = now(), junction_kinds = $9
-     where id = $1),
-  act as (
-    insert into activity (lab_id, design_id, revision_id, actor_id, action, detail)
-    select $2, $1, id, $5, $10, $11::jsonb from rev)
-  select id from rev`

@@ -47,30 +47,10 @@ export function useDb(): Db {
   return db
 }
 
-/** The pg pool, for the few hot queries kept as named prepared statements (planned once per connection). */
+/** The pg pool itself (the health probe's `select 1`). */
 export function usePool(): pg.Pool {
   useDb()
   return pool!
-}
-
-/**
- * One connection, one transaction, for the hot paths written as plain SQL: everything between begin and commit
- * goes through `client`, never a second checkout (a second checkout while holding a lock is how pools wedge).
- */
-export async function withClient<T>(work: (client: pg.PoolClient) => Promise<T>): Promise<T> {
-  const client = await usePool().connect()
-  let broken: Error | undefined
-  try {
-    await client.query('begin')
-    const result = await work(client)
-    await client.query('commit')
-    return result
-  } catch (error) {
-    await client.query('rollback').catch((e: Error) => { broken = e })
-    throw error
-  } finally {
-    client.release(broken) // a connection that cannot even roll back is destroyed, not reused
-  }
 }
 
 export async function closeDb(): Promise<void> {

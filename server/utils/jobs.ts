@@ -49,7 +49,7 @@ interface Definition {
   options: Required<Omit<JobDefinitionOptions, 'deadLetter'>> & { deadLetter: string | null }
 }
 
-/** A transaction to write the job in: a Drizzle transaction or a pg client inside `withClient`. */
+/** A transaction to write the job in: a Drizzle transaction, a db, or a pg client inside a transaction. */
 export type JobTransaction = Tx | Db | pg.PoolClient
 
 export interface EnqueueOptions {
