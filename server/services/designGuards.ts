@@ -26,12 +26,17 @@ export async function holdOpenDesign(tx: Tx, designId: string): Promise<void> {
   assertNotArchived(design)
 }
 
+/** The one visibility rule of revisions: the lab's designs for most roles; released ones only for a fabricator. */
+export function mayOpenRevision(caller: LabCaller, status: string | null | undefined): boolean {
+  return can(caller.lab.role, 'designs:view') || status === 'released'
+}
+
 /**
  * Another revision's id as the caller may see it: a fabricator only learns of released revisions, so the id of an
  * unreleased one (a parent, the design's latest) becomes null in their answers.
  */
 export function seenRevisionId(caller: LabCaller, id: string | null, status: string | null | undefined): string | null {
-  return id !== null && (can(caller.lab.role, 'designs:view') || status === 'released') ? id : null
+  return id !== null && mayOpenRevision(caller, status) ? id : null
 }
 
 export async function findDesign(db: Db, caller: LabCaller, designId: string) {
@@ -56,7 +61,6 @@ export async function findVisibleRevision(db: Db, caller: LabCaller, revisionId:
   const [revision] = await db.select({ ...revisionHead, archivedAt: designs.archivedAt }).from(revisions)
     .innerJoin(designs, eq(designs.id, revisions.designId))
     .where(and(eq(revisions.id, revisionId), eq(revisions.labId, caller.lab.labId)))
-  if (!revision) throw notFound('revision')
-  if (!can(caller.lab.role, 'designs:view') && revision.status !== 'released') throw notFound('revision')
+  if (!revision || !mayOpenRevision(caller, revision.status)) throw notFound('revision')
   return revision
 }

@@ -9,8 +9,7 @@ import { createError } from 'h3'
 import { designs, labs, revisions } from '../db/schema'
 import type { Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { can } from '#shared/utils/roles'
-import { notFound, revisionHead, type RevisionHead } from './designGuards'
+import { mayOpenRevision, notFound, revisionHead, type RevisionHead } from './designGuards'
 
 export const conflict = (message: string, data?: Record<string, unknown>) => createError({ statusCode: 409, statusMessage: 'Conflict', message, data })
 
@@ -30,6 +29,6 @@ export async function lockRevision(tx: Tx, caller: LabCaller, revisionId: string
     .where(and(eq(revisions.id, revisionId), eq(designs.labId, caller.lab.labId))).for('share', { of: designs })
   if (!design) throw notFound('revision')
   const [revision] = await tx.select(revisionHead).from(revisions).where(eq(revisions.id, revisionId)).for('no key update')
-  if (!revision || (!can(caller.lab.role, 'designs:view') && revision.status !== 'released')) throw notFound('revision')
+  if (!revision || !mayOpenRevision(caller, revision.status)) throw notFound('revision')
   return { ...revision, archived: design.archivedAt !== null }
 }

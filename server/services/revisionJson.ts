@@ -7,8 +7,7 @@ import { designs, revisions, users } from '../db/schema'
 import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
-import { can } from '#shared/utils/roles'
-import { notFound, seenRevisionId } from './designGuards'
+import { mayOpenRevision, notFound, seenRevisionId } from './designGuards'
 
 const MAX_ENTRIES = useConfig().geometry.revisionCache
 const content = new Map<string, { document: string, summary: string }>()
@@ -47,8 +46,7 @@ function prepareHead() {
 
 export async function revisionJson(caller: LabCaller, revisionId: string): Promise<string> {
   const [head] = await (headQuery ??= prepareHead()).execute({ revisionId, labId: caller.lab.labId })
-  // Same rule as findVisibleRevision: a fabricator sees released revisions only.
-  if (!head || (!can(caller.lab.role, 'designs:view') && head.status !== 'released')) throw notFound('revision')
+  if (!head || !mayOpenRevision(caller, head.status)) throw notFound('revision')
   const { document, summary } = await contentOf(head.id)
   const fields = {
     id: head.id, designId: head.designId, number: head.number, parentId: seenRevisionId(caller, head.parentId, head.parentStatus), message: head.message,
