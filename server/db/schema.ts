@@ -3,6 +3,7 @@
 import { sql } from 'drizzle-orm'
 import { bigint, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, varchar, type AnyPgColumn } from 'drizzle-orm/pg-core'
 import { ROLES } from '../../shared/utils/roles'
+import { REVISION_STATUSES } from '../../shared/utils/revisionStatus'
 import { MASK_MEDIA, MASK_POLARITIES, ORDER_STATUSES, SUBSTRATES } from '../../shared/fabrication/orderStatus'
 
 export const roleEnum = pgEnum('role', ROLES)
@@ -80,7 +81,7 @@ export const passwordResets = pgTable('password_resets', {
   usedAt: timestamp('used_at', { withTimezone: true }),
 }, t => [index('password_resets_user_idx').on(t.userId, t.createdAt)])
 
-export const revisionStatusEnum = pgEnum('revision_status', ['draft', 'in-review', 'changes-requested', 'approved', 'released'])
+export const revisionStatusEnum = pgEnum('revision_status', REVISION_STATUSES)
 export const verdictEnum = pgEnum('verdict', ['approve', 'request-changes'])
 
 /** Where a duplicated design came from, as it read when it was duplicated (the origin may be in another lab). */

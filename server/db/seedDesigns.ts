@@ -5,10 +5,11 @@ import { requireChipDocument } from '../../shared/schemas/chip'
 import { summarizeRevision } from '../services/revisionSummary'
 import type { Db } from '../utils/db'
 import { demoDesigns } from './demo-designs'
+import type { RevisionStatus } from '../../shared/utils/revisionStatus'
 import { activity, comments, commentThreads, designs, releases, reviewRequests, revisions, verdicts } from './schema'
 
 type People = Record<'admin' | 'designer' | 'reviewer' | 'experimenter', string>
-type Status = 'draft' | 'in-review' | 'changes-requested' | 'approved' | 'released'
+type Status = RevisionStatus
 
 // Per design, the status of each revision, oldest first.
 const HISTORY: Status[][] = [['changes-requested', 'approved', 'released'], ['changes-requested', 'approved'], ['in-review']]

@@ -2,13 +2,13 @@
 // library values used (a snapshot). Computed once when the revision is saved (revisions are immutable, so it never
 // goes stale); the lab's library is passed in as plain data (`lab`) and merged with the built-in entries.
 import { mergeLibrary } from '#shared/physics/liquids'
+import { isJunctionKind } from '#shared/utils/junctionKinds'
 import type { ChipDocument } from '#shared/schemas/chip'
 import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type LabProcessData } from '../../geometry/rules'
 import type { RevisionSummary } from '#shared/types/designs'
 import { forecastSummary, liquidSnapshotOf } from './forecastSummary'
 import type { LabLibraryData } from './libraries'
 
-const JUNCTION_KINDS = new Set(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction'])
 
 export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
   const process = findProcessIn(processId, (lab?.processes ?? []) as LabProcessData[]) ?? BUILT_IN_PROCESSES[0]!
@@ -28,7 +28,7 @@ export function summarizeRevision(doc: ChipDocument, processId: string, lab?: La
   void _sources
   const { origin, ...ruleValues } = values as typeof values & { origin?: 'lab' }
   return {
-    junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(k => JUNCTION_KINDS.has(k)))].sort(),
+    junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(isJunctionKind))].sort(),
     counts: { channels: doc.channels.length, components: doc.components.length, ports: doc.ports.length, layers: doc.layers.length },
     ...forecastSummary(doc, library),
     findings,

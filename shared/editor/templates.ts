@@ -2,16 +2,13 @@
 // chosen as sensible defaults, not taken from a source; the designer sets exact numbers in the inspector.
 import type { Component, ChipDocument } from '../schemas/chip'
 import type { PointUm } from './types'
+import { JUNCTION_KINDS, kindLabel, type JunctionKind } from '../utils/junctionKinds'
 
-export type PlaceableKind = 't-junction' | 'flow-focusing' | 'step-nozzle' | 'y-junction' | 'serpentine'
+/** Parts placed one at a time from the palette: every junction kind but the array (drawn by the array planner). */
+export type PlaceableKind = Exclude<JunctionKind, 'step-array'> | 'serpentine'
 
-export const PLACEABLE: Array<{ kind: PlaceableKind; label: string }> = [
-  { kind: 't-junction', label: 'T-junction' },
-  { kind: 'flow-focusing', label: 'Flow-focusing cross' },
-  { kind: 'step-nozzle', label: 'Step nozzle' },
-  { kind: 'y-junction', label: 'Y-junction' },
-  { kind: 'serpentine', label: 'Serpentine' },
-]
+const PLACEABLE_KINDS: PlaceableKind[] = [...JUNCTION_KINDS.filter((k): k is Exclude<JunctionKind, 'step-array'> => k !== 'step-array'), 'serpentine']
+export const PLACEABLE: Array<{ kind: PlaceableKind; label: string }> = PLACEABLE_KINDS.map(kind => ({ kind, label: kind === 'serpentine' ? 'Serpentine' : kindLabel(kind) }))
 
 /** A new component of `kind` at `position` on `layerId` (step parts need a deeper `reservoirLayerId`). */
 export function componentTemplate(kind: PlaceableKind, id: string, position: PointUm, layerId: string, reservoirLayerId?: string): Component {

@@ -1,10 +1,10 @@
 // Schema paths in people's words: `components.0.mainWidth` → T-junction "tj-1", Main channel width. The API keeps
 // its paths (for scripts); every screen a person reads goes through these helpers. Pure: no Vue, no I/O.
+import { JUNCTION_KIND_LABELS } from '../utils/junctionKinds'
 
 /** What each kind of element is called on screen. */
 export const KIND_NAMES: Record<string, string> = {
-  't-junction': 'T-junction', 'flow-focusing': 'Flow-focusing cross', 'y-junction': 'Y-junction', 'step-nozzle': 'Step nozzle',
-  'step-array': 'Step nozzle array', 'serpentine': 'Serpentine', 'filter': 'Filter', 'cross': 'Alignment cross', 'text': 'Text',
+  ...JUNCTION_KIND_LABELS, 'serpentine': 'Serpentine', 'filter': 'Filter', 'cross': 'Alignment cross', 'text': 'Text',
   'inlet': 'Inlet', 'outlet': 'Outlet',
 }
 

@@ -1,5 +1,7 @@
 // Payloads of the designs and revisions API. One schema per payload, shared by forms and routes.
 import { z } from 'zod'
+import { JUNCTION_KINDS } from '../utils/junctionKinds'
+import { REVISION_STATUSES } from '../utils/revisionStatus'
 import { BUILT_IN_PROCESSES } from '../../geometry/rules/processes'
 import { labParams } from './labs'
 import { safeText } from './text'
@@ -44,8 +46,8 @@ export const MAX_DESIGN_PAGE_SIZE = 200
 export const MAX_DESIGN_PAGE = 10_000
 export const designListQuery = z.object({
   q: safeText(undefined, 'Search text').max(120, 'Search text is at most 120 characters').optional(),
-  status: z.enum(['draft', 'in-review', 'changes-requested', 'approved', 'released']).optional(),
-  kind: z.enum(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction']).optional(),
+  status: z.enum(REVISION_STATUSES).optional(),
+  kind: z.enum(JUNCTION_KINDS).optional(),
   archived: z.enum(['true', 'false']).default('false'),
   sort: z.enum(['updated', 'name', 'created']).default('updated'),
   dir: z.enum(['asc', 'desc']).default('desc'),

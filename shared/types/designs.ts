@@ -1,7 +1,7 @@
 import type { OrderStatus } from '../fabrication/orderStatus'
 import type { Role } from '../utils/roles'
 
-export type RevisionStatus = 'draft' | 'in-review' | 'changes-requested' | 'approved' | 'released'
+export type { RevisionStatus } from '../utils/revisionStatus'
 
 export interface JunctionSummary { id: string, kind: string, regime: string | null, dropletDiameterUm: number | null, frequencyHz: number | null, valid: boolean }
 export interface RevisionSummary {

@@ -2,6 +2,7 @@
 // consistent winding (so one non-zero fill per layer draws the union of its pieces without seams), marks, text,
 // ports, the chip edge, the bounds and the hit-test index. Pure: no canvas, no Vue.
 import type { ChipDocument } from '#shared/schemas/chip'
+import { kindLabel } from '#shared/utils/junctionKinds'
 import { chipOutlineRing, documentPieces, MARKS_LAYER } from '~~/geometry/outlines/elements'
 import type { ElementKind, GeometryProblem, Pair, Polygon } from '~~/geometry/types'
 import { buildElementIndex, signedArea, type ElementIndex } from './hitTest'
@@ -163,14 +164,10 @@ export function buildScene(doc: ChipDocument): ChipScene {
   }
 }
 
-const KIND_NAMES: Record<string, string> = {
-  't-junction': 'T-junction', 'flow-focusing': 'flow-focusing cross', 'step-nozzle': 'step nozzle', 'step-array': 'step nozzle array',
-  'y-junction': 'Y-junction', 'serpentine': 'serpentine',
-}
 
 function titles(doc: ChipDocument): Map<string, string> {
   const m = new Map<string, string>()
-  for (const c of doc.components) m.set(c.id, `${c.id} · ${KIND_NAMES[c.kind] ?? c.kind}`)
+  for (const c of doc.components) m.set(c.id, `${c.id} · ${c.kind === 'serpentine' ? 'serpentine' : kindLabel(c.kind, 'inline')}`)
   for (const c of doc.channels) m.set(c.id, `${c.id} · channel, ${c.width} µm wide`)
   for (const p of doc.ports) m.set(p.id, `${p.id} · ${p.kind}${p.feed ? ` (${p.feed.phase} phase)` : ''}, ${p.punchDiameter} µm punch`)
   return m

@@ -3,9 +3,10 @@ import type { JunctionForecast } from '../forecast/types'
 import type { LiquidLibrary, LiquidProperties } from '../liquids'
 import type { Margin, Uniformity } from '../network'
 import type { Method, Quantity, Warning } from '../quantity'
+import type { JunctionKind } from '../../utils/junctionKinds'
 
 /** The document kinds that break drops; every nozzle of a step array is its own junction. */
-export type DocumentJunctionKind = 't-junction' | 'flow-focusing' | 'step-nozzle' | 'step-array' | 'y-junction'
+export type DocumentJunctionKind = JunctionKind
 
 /** One straight hydraulic element of the compiled chip, in SI. */
 export interface CompiledChannel {
