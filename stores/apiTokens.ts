@@ -9,7 +9,7 @@ export const useApiTokensStore = defineStore('apiTokens', () => {
   const created = ref<NewApiToken | null>(null)
 
   async function load() {
-    tokens.value = (await run(() => $fetch<ApiTokenInfo[]>('/api/account/tokens', { headers: useRequestHeaders(['cookie']) }))) ?? tokens.value
+    tokens.value = (await run(() => useRequestFetch()<ApiTokenInfo[]>('/api/account/tokens'))) ?? tokens.value
   }
 
   async function create(body: TokenCreate) {

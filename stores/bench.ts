@@ -13,10 +13,10 @@ export const useBenchStore = defineStore('bench', () => {
 
   async function load(lab: string, revisionId: string) {
     labId.value = lab
-    const headers = useRequestHeaders(['cookie'])
+    const api = useRequestFetch()
     await run(async () => {
-      list.value = await $fetch<BenchRunList>(`/api/labs/${lab}/revisions/${revisionId}/bench-runs`, { headers })
-      calibration.value = await $fetch<CalibrationAnswer>(`/api/labs/${lab}/calibrations`, { headers, query: { designId: list.value.revision.designId } })
+      list.value = await api<BenchRunList>(`/api/labs/${lab}/revisions/${revisionId}/bench-runs`)
+      calibration.value = await api<CalibrationAnswer>(`/api/labs/${lab}/calibrations`, { query: { designId: list.value.revision.designId } })
     })
   }
 

@@ -7,9 +7,9 @@ export const useCompareStore = defineStore('compare', () => {
   const older = ref<RevisionDetail | null>(null)
   const { busy, problem, run } = useApiCall()
   async function load(labId: string, a: string, b: string) {
-    const headers = useRequestHeaders(['cookie'])
+    const api = useRequestFetch()
     await run(async () => {
-      const [x, y] = await Promise.all([a, b].map(id => $fetch<RevisionDetail>(`/api/labs/${labId}/revisions/${id}`, { headers })))
+      const [x, y] = await Promise.all([a, b].map(id => api<RevisionDetail>(`/api/labs/${labId}/revisions/${id}`)))
       ;[older.value, newer.value] = x!.number <= y!.number ? [x!, y!] : [y!, x!]
     })
   }

@@ -15,6 +15,7 @@ export const useDesignsStore = defineStore('designs', () => {
   const paging = ref({ total: 0, page: 1, pageSize: 50 })
   const detail = ref<DesignDetail | null>(null)
   const { busy, problem, run } = useApiCall()
+  // The page's rows come with paging headers, so this one call needs $fetch.raw (useRequestFetch() has no .raw).
   const headers = () => useRequestHeaders(['cookie'])
 
   async function load(labId: string, query: DesignListQuery = {}) {
@@ -28,7 +29,7 @@ export const useDesignsStore = defineStore('designs', () => {
   }
 
   async function loadDetail(labId: string, designId: string) {
-    await run(async () => { detail.value = await $fetch<DesignDetail>(`/api/labs/${labId}/designs/${designId}`, { headers: headers() }) })
+    await run(async () => { detail.value = await useRequestFetch()<DesignDetail>(`/api/labs/${labId}/designs/${designId}`) })
   }
 
   const create = (labId: string, body: DesignCreate) =>

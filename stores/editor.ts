@@ -50,15 +50,15 @@ export const useEditorStore = defineStore('editor', () => {
 
   async function load(lab: string, design: string, fromRevisionId?: string) {
     designId.value = design
-    const headers = useRequestHeaders(['cookie'])
+    const api = useRequestFetch()
     await run(async () => {
       let revisionId = fromRevisionId
       if (!revisionId) {
-        const d = await $fetch<{ design: { latestRevisionId: string | null } }>(`/api/labs/${lab}/designs/${design}`, { headers })
+        const d = await api<{ design: { latestRevisionId: string | null } }>(`/api/labs/${lab}/designs/${design}`)
         revisionId = d.design.latestRevisionId ?? undefined
       }
       if (!revisionId) throw createError({ statusCode: 404, message: 'This design has no revision to edit yet' })
-      const r = await $fetch<RevisionDetail & { designId?: string }>(`/api/labs/${lab}/revisions/${revisionId}`, { headers })
+      const r = await api<RevisionDetail & { designId?: string }>(`/api/labs/${lab}/revisions/${revisionId}`)
       const parsed = parseChipDocument(r.document)
       if (!parsed.ok) throw createError({ statusCode: 422, message: `This revision's document does not open: ${parsed.errors[0]!.message}` })
       open(r, parsed.document)

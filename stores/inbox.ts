@@ -6,7 +6,7 @@ export const useInboxStore = defineStore('inbox', () => {
   const inbox = ref<ReviewInbox | null>(null)
   const { busy, problem, run } = useApiCall()
   async function load(labId: string) {
-    await run(async () => { inbox.value = await $fetch<ReviewInbox>(`/api/labs/${labId}/inbox`, { headers: useRequestHeaders(['cookie']) }) })
+    await run(async () => { inbox.value = await useRequestFetch()<ReviewInbox>(`/api/labs/${labId}/inbox`) })
   }
   return { inbox, busy, problem, load }
 })

@@ -17,7 +17,7 @@ export const useInvitationLinkStore = defineStore('invitationLink', () => {
       return
     }
     try {
-      info.value = await $fetch<InvitationInfo>(`/api/invitations/${token}`, { headers: useRequestHeaders(['cookie']) })
+      info.value = await useRequestFetch()<InvitationInfo>(`/api/invitations/${token}`)
     } catch (error) {
       problem.value = toApiProblem(error)
     }

@@ -13,7 +13,7 @@ export const useInvitationsStore = defineStore('invitations', () => {
     labId.value = lab
     lastSentTo.value = null
     await run(async () => {
-      pending.value = await $fetch<PendingInvitation[]>(`/api/labs/${lab}/invitations`, { headers: useRequestHeaders(['cookie']) })
+      pending.value = await useRequestFetch()<PendingInvitation[]>(`/api/labs/${lab}/invitations`)
     })
   }
 

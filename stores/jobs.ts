@@ -11,7 +11,7 @@ export const useJobsStore = defineStore('jobs', () => {
     busy.value = true
     problem.value = null
     try {
-      failed.value = (await $fetch<{ jobs: FailedJob[] }>(`/api/labs/${labId}/jobs/failed`, { headers: useRequestHeaders(['cookie']) })).jobs
+      failed.value = (await useRequestFetch()<{ jobs: FailedJob[] }>(`/api/labs/${labId}/jobs/failed`)).jobs
     } catch (error) {
       problem.value = toApiProblem(error)
     } finally {

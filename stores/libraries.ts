@@ -14,7 +14,7 @@ export const useLibrariesStore = defineStore('libraries', () => {
     busy.value = true
     problem.value = null
     try {
-      entries.value = (await $fetch<{ entries: LibraryEntryView[] }>(`/api/labs/${labId}/libraries`, { headers: useRequestHeaders(['cookie']) })).entries
+      entries.value = (await useRequestFetch()<{ entries: LibraryEntryView[] }>(`/api/labs/${labId}/libraries`)).entries
     } catch (error) {
       problem.value = toApiProblem(error)
     } finally {
@@ -26,7 +26,7 @@ export const useLibrariesStore = defineStore('libraries', () => {
   async function loadListing(labId: string, force = false) {
     if (!force && listingLab.value === labId && listing.value) return listing.value
     try {
-      listing.value = await $fetch<LabLibraryListing>(`/api/v1/liquids?lab=${labId}`, { headers: useRequestHeaders(['cookie']) })
+      listing.value = await useRequestFetch()<LabLibraryListing>(`/api/v1/liquids?lab=${labId}`)
       listingLab.value = labId
     } catch {
       listing.value = null // the pickers fall back to the built-in library

@@ -10,7 +10,7 @@ export const useMembersStore = defineStore('members', () => {
   async function load(lab: string) {
     labId.value = lab
     await run(async () => {
-      members.value = await $fetch<LabMember[]>(`/api/labs/${lab}/members`, { headers: useRequestHeaders(['cookie']) })
+      members.value = await useRequestFetch()<LabMember[]>(`/api/labs/${lab}/members`)
     })
   }
 

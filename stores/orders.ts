@@ -7,13 +7,12 @@ export const useOrdersStore = defineStore('orders', () => {
   const rows = ref<OrderRow[]>([])
   const order = ref<OrderDetailView | null>(null)
   const { busy, problem, run } = useApiCall()
-  const headers = () => useRequestHeaders(['cookie'])
 
   async function load(labId: string) {
-    await run(async () => { rows.value = await $fetch<OrderRow[]>(`/api/labs/${labId}/orders`, { headers: headers() }) })
+    await run(async () => { rows.value = await useRequestFetch()<OrderRow[]>(`/api/labs/${labId}/orders`) })
   }
   async function open(labId: string, orderId: string) {
-    await run(async () => { order.value = await $fetch<OrderDetailView>(`/api/labs/${labId}/orders/${orderId}`, { headers: headers() }) })
+    await run(async () => { order.value = await useRequestFetch()<OrderDetailView>(`/api/labs/${labId}/orders/${orderId}`) })
   }
   async function act(labId: string, orderId: string, path: string, body: Record<string, unknown>) {
     const url: string = `/api/labs/${labId}/orders/${orderId}/${path}`

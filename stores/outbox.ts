@@ -11,7 +11,7 @@ export const useOutboxStore = defineStore('outbox', () => {
   async function checkAvailable() {
     if (available.value !== null) return
     try {
-      available.value = (await $fetch<{ available: boolean }>('/api/dev/outbox', { headers: useRequestHeaders(['cookie']) })).available
+      available.value = (await useRequestFetch()<{ available: boolean }>('/api/dev/outbox')).available
     } catch {
       // signed out or offline: ask again later
     }
@@ -21,7 +21,7 @@ export const useOutboxStore = defineStore('outbox', () => {
     busy.value = true
     problem.value = null
     try {
-      box.value = await $fetch<LabOutbox>(`/api/labs/${labId}/outbox`, { headers: useRequestHeaders(['cookie']) })
+      box.value = await useRequestFetch()<LabOutbox>(`/api/labs/${labId}/outbox`)
     } catch (error) {
       problem.value = toApiProblem(error)
     } finally {

@@ -7,7 +7,7 @@ export const useReleasesStore = defineStore('releases', () => {
   const rows = ref<ReleasedRow[]>([])
   const { busy, problem, run } = useApiCall()
   async function load(labId: string) {
-    await run(async () => { rows.value = await $fetch<ReleasedRow[]>(`/api/labs/${labId}/releases`, { headers: useRequestHeaders(['cookie']) }) })
+    await run(async () => { rows.value = await useRequestFetch()<ReleasedRow[]>(`/api/labs/${labId}/releases`) })
   }
   return { rows, busy, problem, load }
 })

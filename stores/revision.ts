@@ -12,9 +12,9 @@ export const useRevisionStore = defineStore('revision', () => {
 
   async function load(labId: string, revisionId: string) {
     const url = `/api/labs/${labId}/revisions/${revisionId}`
-    const headers = useRequestHeaders(['cookie'])
+    const api = useRequestFetch()
     await run(async () => {
-      const [r, s] = await Promise.all([$fetch<RevisionDetail>(url, { headers }), $fetch<ReviewState>(`${url}/review`, { headers })])
+      const [r, s] = await Promise.all([api<RevisionDetail>(url), api<ReviewState>(`${url}/review`)])
       revision.value = r
       review.value = s
     })
