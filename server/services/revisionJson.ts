@@ -3,26 +3,22 @@
 // prepared query. A fabricator's answer names no unreleased revision (`seenRevisionId`).
 import { and, eq, sql } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
+import { LRUCache } from 'lru-cache'
 import { designs, revisions, users } from '../db/schema'
 import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { mayOpenRevision, notFound, seenRevisionId } from './designGuards'
 
-const MAX_ENTRIES = useConfig().geometry.revisionCache
-const content = new Map<string, { document: string, summary: string }>()
+// The least recently used revisions leave first (DW_REVISION_CACHE entries).
+const content = new LRUCache<string, { document: string, summary: string }>({ max: useConfig().geometry.revisionCache })
 
 async function contentOf(revisionId: string) {
   const hit = content.get(revisionId)
-  if (hit) {
-    content.delete(revisionId) // keep the most recently used last
-    content.set(revisionId, hit)
-    return hit
-  }
+  if (hit) return hit
   const [row] = await useDb().select({ document: sql<string>`${revisions.document}::text`, summary: sql<string>`${revisions.summary}::text` })
     .from(revisions).where(eq(revisions.id, revisionId))
   content.set(revisionId, row!)
-  if (content.size > MAX_ENTRIES) content.delete(content.keys().next().value!)
   return row!
 }
 
