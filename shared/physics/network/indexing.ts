@@ -4,6 +4,8 @@ import type { NetworkProblem } from './types'
 
 export interface IndexedNetwork {
   nodeIds: string[]
+  /** Node id → its index in `nodeIds` (the map the numbering built; kept so results need not rebuild it). */
+  nodeIndex: Map<string, number>
   /** Per channel: node indices and conductance 1/R. */
   from: Int32Array
   to: Int32Array
@@ -81,7 +83,7 @@ export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
   const unknownIndex = new Int32Array(n)
   let unknownCount = 0
   for (let i = 0; i < n; i++) unknownIndex[i] = Number.isNaN(fixedPressure[i]!) ? unknownCount++ : -1
-  return { nodeIds, from, to, conductance, offset, fixedPressure, injected, unknownIndex, unknownCount }
+  return { nodeIds, nodeIndex: index, from, to, conductance, offset, fixedPressure, injected, unknownIndex, unknownCount }
 }
 
 /** Every node must reach a fixed-pressure node through channels, or its pressure is undetermined. */

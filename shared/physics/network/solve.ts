@@ -79,9 +79,8 @@ function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, s
     outflow[net.from[k]!]! += q
     outflow[net.to[k]!]! -= q
   }
-  const index = sourceIndex ? undefined : new Map(net.nodeIds.map((id, i) => [id, i]))
   const sources = problem.sources.map((source, k) => {
-    const i = sourceIndex ? sourceIndex[k]! : index!.get(source.node)!
+    const i = sourceIndex ? sourceIndex[k]! : net.nodeIndex.get(source.node)!
     return { node: source.node, pressure: pressure[i]!, flow: 'flow' in source ? source.flow : outflow[i]! }
   })
   return { nodeIds: net.nodeIds, pressure, flow, sources, solver, iterations, residual }
@@ -125,8 +124,7 @@ export class NetworkResolver {
 
   constructor(private readonly problem: NetworkProblem) {
     this.net = indexNetwork(problem)
-    const index = new Map(this.net.nodeIds.map((id, i) => [id, i]))
-    this.sourceIndex = problem.sources.map((source) => index.get(source.node)!)
+    this.sourceIndex = problem.sources.map((source) => this.net.nodeIndex.get(source.node)!)
   }
 
   solve(resistance: ArrayLike<number>, offset?: ArrayLike<number>, sources: NetworkProblem['sources'] = this.problem.sources): NetworkSolution {
