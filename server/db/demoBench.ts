@@ -22,8 +22,11 @@ export async function seedDemoBench(db: Db, labId: string, people: { designer: s
   const existing = await db.select({ id: benchRuns.id }).from(benchRuns).where(eq(benchRuns.revisionId, target.id))
   if (existing.length) return existing.length
   const opId = (target.document as { operatingPoints?: { id: string }[] }).operatingPoints?.[0]?.id
+  // The demo chip has no as-built report: its runs are forecast on the chip as drawn, and say so.
+  const asDrawn = { basis: 'as-drawn', asBuiltId: null, reportedAt: null, benchSizes: false } as const
+  const onDrawn = (p: Awaited<ReturnType<typeof predictRun>>) => (p ? { ...p, chip: asDrawn } : null) as unknown as Record<string, unknown> | null
   const predicted = await predictRun(target.document, opId, undefined, {})
-  const base = { labId, designId: target.designId, revisionId: target.id, operatingPointId: opId ?? null, junctionId: predicted?.junctionId ?? null, predicted: predicted as unknown as Record<string, unknown> | null }
+  const base = { labId, designId: target.designId, revisionId: target.id, operatingPointId: opId ?? null, junctionId: predicted?.junctionId ?? null, predicted: onDrawn(predicted) }
 
   // The lab's "true" chip: drops 12 % above the forecast at the design's flow ratio, on the line L/w = 1 + α Qd/Qc.
   const w = predicted?.mainWidthUm ?? 100
@@ -40,7 +43,7 @@ export async function seedDemoBench(db: Db, labId: string, people: { designer: s
   const halfConditions = { continuousFlow: { value: 10, unit: 'uL/min' as const }, dispersedFlow: { value: +(10 * x2).toPrecision(4), unit: 'uL/min' as const } }
   const halfPrediction = await predictRun(target.document, opId, undefined, halfConditions)
   await db.insert(benchRuns).values({
-    ...base, predicted: halfPrediction as unknown as Record<string, unknown> | null, conditions: halfConditions,
+    ...base, predicted: onDrawn(halfPrediction), conditions: halfConditions,
     quantity: 'diameter', source: 'typed', valuesUm: typed, count: s.count, meanUm: s.mean, sdUm: s.sd, cv: s.cv,
     notes: 'Demo: measured by hand on the first chip of the batch, at half the dispersed flow (invented data).', ranBy: people.experimenter, ranAt: new Date(Date.now() - 3 * 86_400_000),
   })
