@@ -73,3 +73,25 @@ export function pointInRing(p: Pair, ring: readonly Pair[]): boolean {
   }
   return inside
 }
+
+/** Inside a polygon's exterior ring and outside every hole (rings as in `Polygon`: outer first). */
+export function pointInPolygon(p: Pair, polygon: readonly (readonly Pair[])[]): boolean {
+  const [outer, ...holes] = polygon
+  if (!outer || !pointInRing(p, outer)) return false
+  return !holes.some((h) => pointInRing(p, h))
+}
+
+/** Distance from a point to a polygon's boundary, 0 inside it. */
+export function distanceToPolygon(p: Pair, polygon: readonly (readonly Pair[])[]): number {
+  if (pointInPolygon(p, polygon)) return 0
+  let best = Infinity
+  for (const ring of polygon) {
+    for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) best = Math.min(best, length(sub(p, closestOnSegment(p, ring[j]!, ring[i]!))))
+  }
+  return best
+}
+
+/** Unsigned area of the exterior ring minus the holes'. */
+export function polygonArea(polygon: readonly (readonly Pair[])[]): number {
+  return polygon.reduce((s, ring, i) => s + (i === 0 ? 1 : -1) * Math.abs(signedArea(ring)), 0)
+}

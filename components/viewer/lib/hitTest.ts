@@ -1,60 +1,17 @@
 // Which element is under a point: point-in-polygon on the element pieces (µm), with a flatbush index on the
 // pieces' boxes so a 512-nozzle chip answers in microseconds.
 import Flatbush from 'flatbush'
-import type { Pair, Polygon } from '~~/geometry/types'
+import type { Polygon } from '~~/geometry/types'
+import { distanceToPolygon as distanceTo, pointInPolygon as inPolygon, polygonArea, signedArea } from '~~/geometry/vec'
 
 export interface HitPiece { elementId: string; layerId: string; polygon: Polygon; area: number }
 
 export interface ElementIndex { pieces: HitPiece[]; tree: Flatbush | null }
 
-/** Even-odd point-in-ring test (ring open or closed). */
-export function pointInRing(x: number, y: number, ring: Pair[]): boolean {
-  let inside = false
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const [xi, yi] = ring[i]!
-    const [xj, yj] = ring[j]!
-    if ((yi > y) !== (yj > y) && x < ((xj - xi) * (y - yi)) / (yj - yi) + xi) inside = !inside
-  }
-  return inside
-}
-
-/** Inside the exterior ring and outside every hole. */
-export function pointInPolygon(x: number, y: number, polygon: Polygon): boolean {
-  const [outer, ...holes] = polygon
-  if (!outer || !pointInRing(x, y, outer)) return false
-  return !holes.some((h) => pointInRing(x, y, h))
-}
-
-/** Distance from a point to the polygon's boundary, 0 when inside. */
-export function distanceToPolygon(x: number, y: number, polygon: Polygon): number {
-  if (pointInPolygon(x, y, polygon)) return 0
-  let best = Infinity
-  for (const ring of polygon) {
-    for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-      best = Math.min(best, segmentDistance(x, y, ring[j]!, ring[i]!))
-    }
-  }
-  return best
-}
-
-function segmentDistance(x: number, y: number, a: Pair, b: Pair): number {
-  const dx = b[0] - a[0]
-  const dy = b[1] - a[1]
-  const len2 = dx * dx + dy * dy
-  const t = len2 > 0 ? Math.max(0, Math.min(1, ((x - a[0]) * dx + (y - a[1]) * dy) / len2)) : 0
-  return Math.hypot(x - (a[0] + t * dx), y - (a[1] + t * dy))
-}
-
-/** Unsigned area of the exterior ring minus holes. */
-export function polygonArea(polygon: Polygon): number {
-  return polygon.reduce((s, ring, i) => s + (i === 0 ? 1 : -1) * Math.abs(signedArea(ring)), 0)
-}
-
-export function signedArea(ring: Pair[]): number {
-  let s = 0
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) s += ring[j]![0] * ring[i]![1] - ring[i]![0] * ring[j]![1]
-  return s / 2
-}
+// The point tests are geometry's own (geometry/vec.ts); this file keeps the index over the pieces.
+export const pointInPolygon = (x: number, y: number, polygon: Polygon): boolean => inPolygon([x, y], polygon)
+export const distanceToPolygon = (x: number, y: number, polygon: Polygon): number => distanceTo([x, y], polygon)
+export { polygonArea, signedArea }
 
 // Pieces are reused across edits (scene.ts keeps every untouched element's pieces), so are their areas.
 const areas = new WeakMap<Polygon, number>()
