@@ -2,7 +2,9 @@ import Flatbush from 'flatbush'
 import type { Polygon } from '../types'
 
 /** Bounding box of a piece's exterior ring (holes lie inside it): [minX, minY, maxX, maxY]. */
-export function pieceBox(p: Polygon): [number, number, number, number] {
+export type Box = [number, number, number, number]
+
+export function pieceBox(p: Polygon): Box {
   let x0 = Infinity; let y0 = Infinity; let x1 = -Infinity; let y1 = -Infinity
   for (const [x, y] of p[0] ?? []) {
     if (x < x0) x0 = x
@@ -18,12 +20,13 @@ export function pieceBox(p: Polygon): [number, number, number, number] {
  * connected components of the box-overlap graph (flatbush box queries, then union–find with path halving and
  * union by index). Pieces in different groups cannot touch, so each group can be merged on its own and the
  * results simply collected — a piece inside another group's hole stays a separate island, as in one union.
- * O(n log n + k) for k overlapping box pairs. Groups and their members keep input order.
+ * O(n log n + k) for k overlapping box pairs. Groups and their members keep input order. `known`: the pieces'
+ * boxes when the caller has them (e.g. snapped to the grid).
  */
-export function pieceClusters(pieces: readonly Polygon[], margin: number): number[][] {
+export function pieceClusters(pieces: readonly Polygon[], margin: number, known?: readonly Box[]): number[][] {
   const n = pieces.length
   if (n === 0) return []
-  const boxes = pieces.map(pieceBox)
+  const boxes = known ?? pieces.map(pieceBox)
   const index = new Flatbush(n)
   for (const [x0, y0, x1, y1] of boxes) index.add(x0, y0, x1, y1)
   index.finish()

@@ -1,8 +1,8 @@
 import polygonClipping from 'polygon-clipping'
 import type { MultiPolygon, Pair, Polygon, Ring } from '../types'
 import { closedUnion, toPaths } from '../clip'
-import { DBU_PER_UM, snapPair } from '../units'
-import { pieceClusters } from './clusters'
+import { DBU_PER_UM, fromDbu, snapPair, toDbu } from '../units'
+import { pieceBox, pieceClusters, type Box } from './clusters'
 
 export interface MergeResult {
   merged: MultiPolygon
@@ -61,11 +61,18 @@ function convexAlone(p: Polygon): Polygon | null {
 }
 
 /** Lowest-leftmost vertex of each part first: a stable order that does not depend on how pieces were grouped. */
-function byPosition(a: Polygon, b: Polygon): number {
+function byPosition(parts: MultiPolygon): MultiPolygon {
   const lowest = (p: Polygon) => p[0]!.reduce((m, q) => (q[0] < m[0] || (q[0] === m[0] && q[1] < m[1]) ? q : m))
-  const pa = lowest(a)
-  const pb = lowest(b)
-  return pa[0] - pb[0] || pa[1] - pb[1]
+  const keyed = parts.map(p => ({ p, at: lowest(p) }))
+  keyed.sort((a, b) => a.at[0] - b.at[0] || a.at[1] - b.at[1])
+  return keyed.map(k => k.p)
+}
+
+const onGrid = (v: number) => fromDbu(toDbu(v))
+/** A piece's box on the grid: rounding is monotonic, so it is the box of the snapped piece without snapping every point. */
+const snappedBox = (p: Polygon): Box => {
+  const [x0, y0, x1, y1] = pieceBox(p)
+  return [onGrid(x0), onGrid(y0), onGrid(x1), onGrid(y1)]
 }
 
 /**
@@ -78,14 +85,13 @@ function byPosition(a: Polygon, b: Polygon): number {
  * whole layer (geometry/README.md, "Engine"). A lone strictly convex piece needs no union at all.
  */
 export function mergePieces(polys: readonly Polygon[]): MergeResult {
-  const snapped = polys.map((p) => p.map((r) => r.map(snapPair)))
   const merged: MultiPolygon = []
   let error: string | undefined
   let failedAt: Pair | undefined
   // Margin: one database unit, so pieces that touch after snapping are in one cluster.
-  for (const ids of pieceClusters(snapped, 2 / DBU_PER_UM)) {
+  for (const ids of pieceClusters(polys, 2 / DBU_PER_UM, polys.map(snappedBox))) {
     try {
-      const alone = ids.length === 1 ? convexAlone(snapped[ids[0]!]!) : null
+      const alone = ids.length === 1 ? convexAlone(polys[ids[0]!]!.map((r) => r.map(snapPair))) : null
       if (alone) merged.push(alone)
       else merged.push(...closedUnion(toPaths(ids.map((i) => polys[i]!)), CLOSE))
     } catch (e) {
@@ -94,8 +100,8 @@ export function mergePieces(polys: readonly Polygon[]): MergeResult {
       failedAt ??= polys[ids[0]!]?.[0]?.[0]
     }
   }
-  merged.sort(byPosition)
-  return error === undefined ? { merged } : { merged, error, ...(failedAt ? { failedAt } : {}) }
+  const ordered = byPosition(merged)
+  return error === undefined ? { merged: ordered } : { merged: ordered, error, ...(failedAt ? { failedAt } : {}) }
 }
 
 const SINGLE_SWEEP_CHUNK = 2000
