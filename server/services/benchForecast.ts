@@ -6,9 +6,7 @@ import { applyBenchSizes, AsBuiltError } from '#shared/fabrication/asBuilt'
 import type { DocumentForecast } from '#shared/physics/forecast'
 import type { BenchConditions, BenchRunCreate } from '#shared/schemas/bench'
 import { chipDocument, type ChipDocument } from '#shared/schemas/chip'
-import { garsteckiLength, GARSTECKI_SQUEEZING, vanSteijnVolume, VAN_STEIJN_SQUEEZING } from '#shared/physics/junction/tJunction'
-import { plugVolume } from '#shared/physics/junction/plugVolume'
-import type { Metres } from '#shared/physics/units'
+import { benchPoint, hasBenchSettings } from '#shared/physics/calibration/benchPoint'
 import { forecastOffThread } from '../utils/summaryWorker'
 import { latestAsBuiltChip } from './asBuilt'
 
@@ -29,14 +27,14 @@ export interface RunPrediction {
   regime: string
   method: string
   valid: boolean
-  /** Qd/Qc at the bench when both flows were typed, else the forecast's. */
+  /** Qd/Qc of the forecast compared with: at the bench when flows or pressures were typed, else as designed. */
   flowRatio: number
   forecastFlowRatio: number
   /** The junction's main width and depth on the chip the forecast ran on (as built, with the bench's sizes). */
   mainWidthUm: number
   depthUm: number
   chip?: ChipBasis
-  /** False when flows were typed but the forecast could only be had at the design's operating point. */
+  /** False when bench settings were typed but the forecast could only be had at the design's operating point. */
   atBenchFlows: boolean
   /** Relative uncertainty the band on the plot shows (± fraction). */
   uncertainty: number
@@ -45,8 +43,6 @@ export interface RunPrediction {
 
 /** ±20 %: the spread usually seen between scaling-law forecasts and measured drops (common practice, no source). */
 export const DEFAULT_UNCERTAINTY = 0.2
-
-const toUlPerMin = (f: { value: number, unit: string }) => f.unit === 'uL/min' ? f.value : f.unit === 'uL/h' ? f.value / 60 : f.value / 1000
 
 const badChip = (issues: Array<{ path: string, message: string }>) => createError({
   statusCode: 400, statusMessage: 'Bad Request', data: { issues },
@@ -76,42 +72,46 @@ export async function benchChip(labId: string, revisionId: string, drawn: unknow
   return { document, chip: { basis: report ? 'as-built' : 'as-drawn', asBuiltId: report?.id ?? null, reportedAt: report?.createdAt.toISOString() ?? null, benchSizes } }
 }
 
-export async function predictRun(document: unknown, operatingPointId: string | undefined, junctionId: string | undefined, conditions: BenchConditions): Promise<RunPrediction | null> {
-  let answer: DocumentForecast
+async function forecastAt(document: unknown, operatingPointId: string | undefined): Promise<DocumentForecast | null> {
   try {
-    answer = await forecastOffThread(operatingPointId ? { document, operatingPoint: operatingPointId } : { document }) as DocumentForecast
+    return await forecastOffThread(operatingPointId ? { document, operatingPoint: operatingPointId } : { document }) as DocumentForecast
   } catch {
     return null
   }
-  const junction = answer.junctions.find(j => (junctionId ? j.id === junctionId : j.forecast !== null))
-  const f = junction?.forecast
-  if (!junction || !f) return null
-  const typedRatio = conditions.continuousFlow && conditions.dispersedFlow ? toUlPerMin(conditions.dispersedFlow) / toUlPerMin(conditions.continuousFlow) : null
-  const w = f.inputs.junction.mainWidth.value as Metres
-  const win = f.inputs.junction.inletWidth.value as Metres
-  const h = f.inputs.junction.depth.value as Metres
-  // A T-junction's squeezing size at the flow ratio really set at the bench (the forecast's own law); other kinds
-  // keep the forecast at the design's operating point, and say so.
-  let diameter = f.dropletDiameter.value
-  let atBenchFlows = typedRatio === null
-  if (typedRatio !== null && junction.kind === 't-junction') {
-    const method = f.dropletDiameter.method
-    const volume = method.startsWith(VAN_STEIJN_SQUEEZING.id) ? vanSteijnVolume(w, win, h, typedRatio)
-      : method.startsWith(GARSTECKI_SQUEEZING.id) ? plugVolume(garsteckiLength(w, f.inputs.model.alpha ?? 1, typedRatio), w, h) : null
-    if (volume !== null) { diameter = Math.cbrt((6 * volume) / Math.PI); atBenchFlows = true }
+}
+
+/**
+ * The forecast a run is compared with: the chip at the design's operating point, then, when the run typed flows,
+ * pressures or a temperature, at the operating point as set at the bench (`benchPoint`), for every junction kind.
+ * When the bench point gives no forecast for the junction (below its entry barrier, say), the design's point is
+ * kept and `atBenchFlows` says so.
+ */
+export async function predictRun(document: unknown, operatingPointId: string | undefined, junctionId: string | undefined, conditions: BenchConditions): Promise<RunPrediction | null> {
+  const designed = await forecastAt(document, operatingPointId)
+  const pick = (answer: DocumentForecast | null) => answer?.junctions.find(j => (junctionId ? j.id === junctionId : j.forecast !== null))
+  const designJunction = pick(designed)
+  if (!designJunction?.forecast) return null
+  let junction = designJunction
+  let atBenchFlows = !hasBenchSettings(conditions)
+  if (!atBenchFlows) {
+    const phases = new Map(designed!.network.inlets.map(i => [i.port, i.phase] as const))
+    const bench = benchPoint(document as ChipDocument, operatingPointId, conditions, phases)
+    const atBench = bench ? pick(await forecastAt(bench.document, bench.operatingPointId)) : undefined
+    if (atBench?.forecast && atBench.id === designJunction.id) { junction = atBench; atBenchFlows = true }
   }
+  const f = junction.forecast!
   return {
     junctionId: junction.id,
     kind: junction.kind,
-    diameterUm: diameter * 1e6,
+    diameterUm: f.dropletDiameter.value * 1e6,
     atBenchFlows,
     regime: f.regime.value,
     method: f.dropletDiameter.method,
     valid: f.dropletDiameter.valid && f.regime.valid,
-    flowRatio: typedRatio ?? f.flowRateRatio.value,
-    forecastFlowRatio: f.flowRateRatio.value,
-    mainWidthUm: w * 1e6,
-    depthUm: h * 1e6,
+    flowRatio: f.flowRateRatio.value,
+    forecastFlowRatio: designJunction.forecast.flowRateRatio.value,
+    mainWidthUm: f.inputs.junction.mainWidth.value * 1e6,
+    depthUm: f.inputs.junction.depth.value * 1e6,
     uncertainty: DEFAULT_UNCERTAINTY,
     uncertaintySource: 'common practice, no source: scaling-law forecasts of droplet size are usually within ±20 %',
   }

@@ -34,7 +34,11 @@ export const benchConditions = z.object({
   continuousLiquid: shortText('Continuous liquid').optional(),
   dispersedLiquid: shortText('Dispersed liquid').optional(),
   surfactant: shortText('Surfactant').optional(),
-}).strict()
+}).strict().superRefine((c, ctx) => {
+  // An inlet is driven by flow or by pressure, not both: a phase gets one of the two.
+  if (c.continuousFlow && c.continuousPressureMbar !== undefined) ctx.addIssue({ code: 'custom', path: ['continuousPressureMbar'], message: 'Give the continuous phase its flow or its pressure, not both' })
+  if (c.dispersedFlow && c.dispersedPressureMbar !== undefined) ctx.addIssue({ code: 'custom', path: ['dispersedPressureMbar'], message: 'Give the dispersed phase its flow or its pressure, not both' })
+})
 export type BenchConditions = z.infer<typeof benchConditions>
 
 /**

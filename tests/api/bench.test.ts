@@ -147,4 +147,20 @@ describe('the forecast a run is compared with', () => {
     // Twice the dispersed flow in squeezing makes a longer plug, so a larger sphere-equivalent drop.
     expect(typed.json.predicted.diameterUm).toBeGreaterThan(design.json.predicted.diameterUm * 1.05)
   })
+
+  it('is recomputed at a pressure and a temperature typed at the bench, and refuses a flow and a pressure for one phase', async () => {
+    const design = (await s.as.designer.post(`${base}/revisions/${s.revisionId}/bench-runs`, { source: 'typed', values: [50], operatingPointId: 'op-1' })).json.predicted
+    const pressed = await s.as.designer.post(`${base}/revisions/${s.revisionId}/bench-runs`, {
+      source: 'typed', values: [50], operatingPointId: 'op-1', conditions: { dispersedPressureMbar: 400, temperatureC: 35 },
+    })
+    expect(pressed.status, JSON.stringify(pressed.json)).toBe(201)
+    expect(pressed.json.predicted.atBenchFlows).toBe(true)
+    expect(pressed.json.predicted.forecastFlowRatio).toBeCloseTo(design.forecastFlowRatio, 9)
+    expect(pressed.json.predicted.flowRatio).not.toBeCloseTo(design.flowRatio, 3)
+    const both = await s.as.designer.post(`${base}/revisions/${s.revisionId}/bench-runs`, {
+      source: 'typed', values: [50], conditions: { dispersedFlow: { value: 2, unit: 'uL/min' }, dispersedPressureMbar: 40 },
+    })
+    expect(both.status).toBe(400)
+    expect(both.json.message).toContain('Give the dispersed phase its flow or its pressure, not both')
+  })
 })

@@ -1,6 +1,6 @@
 // A lab member records a bench run on a released chip the fab has reported as built, in Chromium: the form offers
-// the as-built chip first and says what was reported, a measured size typed wrong is refused beside its field with
-// nothing recorded, and the recorded run says which chip its forecast ran on.
+// the as-built chip first and says what was reported, a measured size or a bench temperature typed wrong is refused
+// beside its field with nothing recorded, and the recorded run says which chip its forecast ran on.
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { hydrated, launch, memberEmails, shot, signedInPage } from '../support/browser'
@@ -35,6 +35,12 @@ describe('bench runs on the as-built chip, in the browser', () => {
     expect(await page.inputValue('[data-test="bench-values"]')).toBe('47.5 48.1 48.9')
 
     await page.fill('[data-test="bench-size-depth"]', '')
+    // A bench temperature out of range is refused beside its field, nothing recorded.
+    await page.fill('[data-test="bench-temperature"]', '200')
+    await page.click('[data-test="bench-submit"]')
+    await expect.poll(() => page.locator('[data-test="bench-temperature"] + [role="alert"]').textContent()).toBe('Temperature must be between −20 °C and 150 °C')
+    expect(await page.locator('[data-test="bench-run-1"]').count()).toBe(0)
+    await page.fill('[data-test="bench-temperature"]', '')
     await page.click('[data-test="bench-submit"]')
     await page.locator('[data-test="bench-run-1"]').waitFor()
     expect(await page.textContent('[data-test="bench-run-1"] [data-test="bench-chip-of-run"]')).toBe('Chip as built')
