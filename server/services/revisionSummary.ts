@@ -3,7 +3,7 @@
 // goes stale); the lab's library is passed in as plain data (`lab`) and merged with the built-in entries.
 import { mergeLibrary } from '#shared/physics/liquids'
 import type { ChipDocument } from '#shared/schemas/chip'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type LabProcessData } from '../../geometry/rules'
+import { checkDesignRules, processSnapshot, resolveProcess, type LabProcessData } from '../../geometry/rules'
 import type { RevisionSummary } from '#shared/types/designs'
 import { forecastSummary, liquidSnapshotOf } from './forecastSummary'
 import type { LabLibraryData } from './libraries'
@@ -11,7 +11,7 @@ import type { LabLibraryData } from './libraries'
 const JUNCTION_KINDS = new Set(['t-junction', 'flow-focusing', 'step-nozzle', 'step-array', 'y-junction'])
 
 export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
-  const process = findProcessIn(processId, (lab?.processes ?? []) as LabProcessData[]) ?? BUILT_IN_PROCESSES[0]!
+  const process = resolveProcess(processId, (lab?.processes ?? []) as LabProcessData[])
   const library = mergeLibrary(lab)
   let findings = { errors: 0, warnings: 0, infos: 0 }
   try {
@@ -24,15 +24,12 @@ export function summarizeRevision(doc: ChipDocument, processId: string, lab?: La
     findings = { errors: 1, warnings: 0, infos: 0 }
     console.error('[summary] design rules failed:', error)
   }
-  const { sources: _sources, id, name, ...values } = process as typeof process & { origin?: 'lab' }
-  void _sources
-  const { origin, ...ruleValues } = values as typeof values & { origin?: 'lab' }
   return {
     junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(k => JUNCTION_KINDS.has(k)))].sort(),
     counts: { channels: doc.channels.length, components: doc.components.length, ports: doc.ports.length, layers: doc.layers.length },
     ...forecastSummary(doc, library),
     findings,
     processId: process.id,
-    library: { ...liquidSnapshotOf(doc, library), process: { id, name, origin: origin ?? 'built-in', values: ruleValues } },
+    library: { ...liquidSnapshotOf(doc, library), process: processSnapshot(process) },
   }
 }
