@@ -15,7 +15,7 @@ import { findVisibleRevision } from './designGuards'
 import { labLibraryData } from './libraries'
 import { FAB_SHEET_CAUTIONS, lengthLabel, MASK_RESOLUTION_UM, scaleBarUm } from '#shared/fabrication/cautions'
 import { measurableWidths } from '#shared/fabrication/asBuilt'
-import { inletLine, locationLine, processLine, processSourceLine, storedLength, temperatureLine } from '#shared/fabrication/fabSheet'
+import { inletLine, locationLine, phasesLine, processLine, processSourceLine, storedLength } from '#shared/fabrication/fabSheet'
 import { namedMessage } from '#shared/format/fieldLabels'
 import { MASK_MEDIUM_LABELS, MASK_POLARITY_LABELS, SUBSTRATE_LABELS } from '#shared/fabrication/orderStatus'
 import { chipDocument, type ChipDocument } from '#shared/schemas/chip'
@@ -45,7 +45,7 @@ export async function fabSheetFacts(caller: LabCaller, revisionId: string) {
   // only a summary kept before the snapshot existed looks its process up among the built-in ones and the lab's.
   const summary = row!.summary as unknown as RevisionSummary
   const process = revisionProcess(summary, summary.library?.process ? [] : (await labLibraryData(db, caller.lab.labId)).processes)
-  return { head, doc, designName: row!.designName, process, release: release ?? null, order: order ?? null, approval: approval ?? null, labName: caller.lab.name }
+  return { head, doc, designName: row!.designName, process, library: summary.library ?? null, release: release ?? null, order: order ?? null, approval: approval ?? null, labName: caller.lab.name }
 }
 
 type Facts = Awaited<ReturnType<typeof fabSheetFacts>>
@@ -116,8 +116,7 @@ export function renderFabSheet(f: Facts): Promise<Buffer> {
   const op = f.doc.operatingPoints.find(o => o.id === f.doc.activeOperatingPoint) ?? f.doc.operatingPoints[0]
   if (op) {
     heading(`Operating point "${op.name}"`)
-    const liquid = (ref: unknown) => (ref && typeof ref === 'object' && 'liquid' in ref ? String((ref as { liquid: string }).liquid) : 'custom properties')
-    pdf.text(`Continuous phase ${liquid(op.continuousLiquid)}, dispersed phase ${liquid(op.dispersedLiquid)}${op.surfactant ? `, surfactant ${op.surfactant}` : ''}, ${temperatureLine(op.temperatureC)}.`)
+    pdf.text(`${phasesLine(op, f.library)}.`)
     for (const i of op.inlets) pdf.text(inletLine(i))
   }
 

@@ -3,6 +3,7 @@
 import { processValuesSource } from '../../geometry/rules/processes'
 import type { FabricationProcess } from '../../geometry/rules/types'
 import { formatDocumentValue, formatLengthUm, formatPressureMbar } from '../format/quantity'
+import type { LibrarySnapshot } from '../types/designs'
 
 /** A length stored in the document (µm), as entered: "50 µm", "10 mm". */
 export const storedLength = (um: number): string => formatLengthUm(um, 'input')
@@ -22,6 +23,22 @@ export function inletLine(i: { portId: string, mode: string, value: number, unit
 
 /** A temperature stored in °C: "22 °C". */
 export const temperatureLine = (c: number): string => formatDocumentValue(c, 'degC')
+
+interface PhasesOf { id: string, continuousLiquid: unknown, dispersedLiquid: unknown, surfactant?: string | null, temperatureC: number }
+
+/**
+ * "Continuous phase Test oil, lot 1, dispersed phase water, surfactant our-mix, 22 °C": the liquids of the active
+ * operating point by the names stored with the revision (a lab's own liquid by its name, not its "lab-…" id).
+ */
+export function phasesLine(op: PhasesOf, library?: LibrarySnapshot | null): string {
+  const name = (ref: unknown, stored: LibrarySnapshot['continuous'] | undefined) => {
+    if (!ref || typeof ref !== 'object' || !('liquid' in ref)) return 'custom properties'
+    const id = String((ref as { liquid: string }).liquid)
+    return library?.operatingPoint === op.id && stored?.id === id ? stored.name : id
+  }
+  const surfactant = op.surfactant ? `, surfactant ${op.surfactant}` : ''
+  return `Continuous phase ${name(op.continuousLiquid, library?.continuous)}, dispersed phase ${name(op.dispersedLiquid, library?.dispersed)}${surfactant}, ${temperatureLine(op.temperatureC)}`
+}
 
 /** Where a finding sits on the chip, to the micrometre: "at x 4.8 mm, y 3 mm". */
 export const locationLine = (p: { x: number, y: number }): string => `at x ${storedLength(Math.round(p.x))}, y ${storedLength(Math.round(p.y))}`

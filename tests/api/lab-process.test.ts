@@ -74,6 +74,7 @@ describe('a design on the lab\'s own process', () => {
     // The inlet settings through shared/format: "oil-in: flow rate 10 µL/min" (the fixture's operating point).
     expect(pdf).toContain('oil-in: flow rate 10 µL/min')
     expect(pdf).toContain('water-in: flow rate 5 µL/min')
+    expect(pdf).toContain('Continuous phase n-hexadecane, dispersed phase water, surfactant sorbitan-monooleate, 22 °C.')
 
     const page = await printableText(s.as.fabricator, s.lab.id, revisionId)
     expect(page).toContain(LINE)

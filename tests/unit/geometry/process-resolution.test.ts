@@ -2,7 +2,7 @@
 // process of a revision from the values stored with it (a later library edit never changes a released sheet).
 import { describe, expect, it } from 'vitest'
 import { BUILT_IN_PROCESSES, labProcess, processFromSnapshot, processSnapshot, processValuesSource, resolveProcess, revisionProcess, snapshotAsLabData, type LabProcessData } from '~~/geometry/rules'
-import { inletLine, processLine, processSourceLine, temperatureLine } from '#shared/fabrication/fabSheet'
+import { inletLine, phasesLine, processLine, processSourceLine, temperatureLine } from '#shared/fabrication/fabSheet'
 
 // Invented values: a lab's own fine-feature process.
 const FINE: LabProcessData = { id: 'lab-fine', name: 'Our fine SU-8 process', material: 'PDMS', minFeature: 5, minGap: 6, minDepth: 2, maxDepth: 80, maxWidthToDepth: 12, maxWallDepthToWidth: 3, portEdgeDistance: 900, portSpacing: 800, bondPressureLimitMbar: 1500, source: 'measured in our lab' }
@@ -56,5 +56,15 @@ describe('fab sheet lines', () => {
     expect(inletLine({ portId: 'water-in', mode: 'pressure', value: 1234.5678, unit: 'mbar' })).toBe('water-in: pressure 1234.57 mbar')
     expect(inletLine({ portId: 'water-in', mode: 'flow', value: 0.1 + 0.2, unit: 'uL/h' })).toBe('water-in: flow rate 0.3 µL/h')
     expect(temperatureLine(22)).toBe('22 °C')
+  })
+
+  it('name the active operating point\'s liquids as stored with the revision (a lab liquid by its name, not its id)', () => {
+    const op = { id: 'op-1', continuousLiquid: { liquid: 'lab-test-oil' }, dispersedLiquid: { liquid: 'water' }, surfactant: 'our-mix', temperatureC: 22 }
+    const stored = { id: 'lab-test-oil', name: 'Test oil, lot 1', origin: 'lab' as const, viscosityMPaS: 6, densityKgPerM3: 830, source: 'measured in our lab' }
+    const library = { operatingPoint: 'op-1', temperatureC: 22, continuous: stored, dispersed: { ...stored, id: 'water', name: 'water', origin: 'built-in' as const }, surfactant: 'our-mix', interfacialTension: null, process: processSnapshot(BUILT_IN_PROCESSES[0]!) }
+    expect(phasesLine(op, library)).toBe('Continuous phase Test oil, lot 1, dispersed phase water, surfactant our-mix, 22 °C')
+    // Another operating point than the one stored, or no snapshot: the ids as the document names them.
+    expect(phasesLine({ ...op, id: 'op-2' }, library)).toBe('Continuous phase lab-test-oil, dispersed phase water, surfactant our-mix, 22 °C')
+    expect(phasesLine({ ...op, continuousLiquid: { viscosityMPaS: 5 }, surfactant: null }, null)).toBe('Continuous phase custom properties, dispersed phase water, 22 °C')
   })
 })
