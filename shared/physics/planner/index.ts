@@ -59,7 +59,7 @@ function processOf(id: string | undefined, context: PlanContext): FabricationPro
   if (!id) return known[0]!
   const found = findProcessIn(id, context.lab?.processes ?? [])
   if (found) return found
-  const hint = context.lab ? '' : ' (a lab\'s own process needs the lab named: POST /api/v1/plan?lab=<lab id>)'
+  const hint = context.lab ? '' : ' (a lab\'s own process needs its lab: POST /api/v1/plan?lab=<lab id>, or npm run plan -- --process-file=<file>)'
   throw new ForecastInputError([{ path: 'process', message: `"${id}" is not a fabrication process here${hint}: use one of ${known.map((p) => `"${p.id}"`).join(', ')}` }])
 }
 

@@ -32,7 +32,7 @@ describe('planner on a lab process', () => {
 
   it('refuses a lab process it was not given, naming the field and listing only what the caller may use', () => {
     const unnamed = refusal(() => runPlan(request)) as Array<{ path: string, message: string }>
-    expect(unnamed).toEqual([{ path: 'process', message: expect.stringContaining('"lab-coarse" is not a fabrication process here (a lab\'s own process needs the lab named') }])
+    expect(unnamed).toEqual([{ path: 'process', message: expect.stringContaining('"lab-coarse" is not a fabrication process here (a lab\'s own process needs its lab: POST /api/v1/plan?lab=<lab id>, or npm run plan -- --process-file=<file>)') }])
     const other = refusal(() => runPlan({ ...request, process: 'lab-theirs' }, { lab })) as Array<{ path: string, message: string }>
     expect(other[0]!.path).toBe('process')
     expect(other[0]!.message).toBe('"lab-theirs" is not a fabrication process here: use one of "film-mask-soft-litho", "chrome-mask-soft-litho", "lab-coarse"')
