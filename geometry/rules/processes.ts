@@ -100,7 +100,7 @@ export function processFromSnapshot(snapshot: ProcessSnapshot): FabricationProce
   const numbers = Object.fromEntries(Object.entries(rest).filter(([, v]) => typeof v === 'number')) as Record<string, number>
   const builtIn = snapshot.origin === 'lab' ? undefined : findProcess(snapshot.id)
   const base = builtIn ?? BUILT_IN_PROCESSES[0]!
-  const cited = snapshot.origin === 'lab' ? `${snapshot.source ?? 'the lab\'s own values'} (the lab's library, as stored with the revision)` : 'as stored with the revision'
+  const cited = snapshot.origin === 'lab' ? `${snapshot.source ?? 'the lab\'s own values'}; the lab's library, as stored with the revision` : 'as stored with the revision'
   const sources = builtIn ? builtIn.sources : Object.fromEntries(Object.keys(base.sources).map((k) => [k, cited]))
   const process = { ...base, ...numbers, id: snapshot.id, name: snapshot.name, material: (material as FabricationProcess['material']) ?? base.material, sources }
   return snapshot.origin === 'lab' ? { ...process, origin: 'lab' } : process

@@ -69,7 +69,7 @@ describe('a design on the lab\'s own process', () => {
   it('the PDF and the printable fab sheet carry that process\'s name, values and source, not a built-in one\'s', async () => {
     const pdf = await pdfText(s.as.fabricator, s.lab.id, revisionId)
     expect(pdf).toContain(LINE)
-    expect(pdf).toContain('values: measured in our lab')
+    expect(pdf).toContain('values: measured in our lab; the lab\'s library, as stored with the revision')
     expect(pdf).not.toMatch(/Film-mask soft lithography|Chrome-mask soft lithography/)
     // The inlet settings through shared/format: "oil-in: flow rate 10 µL/min" (the fixture's operating point).
     expect(pdf).toContain('oil-in: flow rate 10 µL/min')
@@ -78,7 +78,7 @@ describe('a design on the lab\'s own process', () => {
 
     const page = await printableText(s.as.fabricator, s.lab.id, revisionId)
     expect(page).toContain(LINE)
-    expect(page).toContain('values: measured in our lab')
+    expect(page).toContain('values: measured in our lab; the lab\'s library, as stored with the revision')
     expect(page).not.toMatch(/Film-mask soft lithography|Chrome-mask soft lithography/)
     expect(page).toContain('oil-in: flow rate 10 µL/min')
     expect(page).toContain('22 °C')
