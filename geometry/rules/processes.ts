@@ -38,13 +38,16 @@ export function findProcess(id: string): FabricationProcess | undefined {
 /** How a lab's own process id looks ("lab-" and the short id the admin gave it). */
 export const LAB_PROCESS_ID = /^lab-[a-z0-9][a-z0-9-]{0,46}$/
 
+/** How a lab process's values cite the lab's source: "measured in our lab (the lab's library)". */
+const LAB_CITED = " (the lab's library)"
+
 /** The rule values of a lab's own process, as the lab keeps them (lengths in µm). */
 export type LabProcessData = Omit<FabricationProcess, 'sources'> & { source: string }
 
 /** A lab's process as a rule input: every value carries the lab's source. */
 export function labProcess(data: LabProcessData): FabricationProcess & { origin: 'lab' } {
   const { source, ...values } = data
-  const cited = `${source} (the lab's library)`
+  const cited = `${source}${LAB_CITED}`
   const sources = Object.fromEntries(
     ['minFeature', 'minGap', 'minDepth', 'maxDepth', 'maxWidthToDepth', 'maxWallDepthToWidth', 'portEdgeDistance', 'portSpacing', 'bondPressureLimitMbar'].map((k) => [k, cited]),
   )
@@ -88,7 +91,6 @@ export function processSnapshot(process: FabricationProcess): ProcessSnapshot {
   return snapshot
 }
 
-const LAB_CITED = " (the lab's library)"
 const labSourceOf = (p: FabricationProcess): string => (p.sources.minFeature ?? '').replace(LAB_CITED, '')
 
 /**
