@@ -1,7 +1,7 @@
 // Runs planner requests in a Web Worker so a window scan never freezes the page; in the page itself where there
 // is no worker (tests of components, old browsers). Only the latest request's answer is kept.
 import { onBeforeUnmount, ref, shallowRef, toRaw } from 'vue'
-import type { PlanAnswer } from '#shared/physics/planner'
+import type { PlanAnswer, PlanContext } from '#shared/physics/planner'
 import { runPlanRequest, type PlanJob, type PlanResult } from '~~/utils/plannerRun'
 
 export function usePlanner() {
@@ -33,13 +33,13 @@ export function usePlanner() {
     return worker
   }
 
-  /** Starts a plan; a newer call supersedes an older one still running. */
-  function plan(request: unknown) {
+  /** Starts a plan; a newer call supersedes an older one still running. `lab`: the lab's library the request may name. */
+  function plan(request: unknown, lab?: PlanContext['lab']) {
     seq++
     busy.value = true
     error.value = null
     started = performance.now()
-    const job: PlanJob = { seq, request: JSON.parse(JSON.stringify(toRaw(request))) }
+    const job: PlanJob = { seq, request: JSON.parse(JSON.stringify(toRaw(request))), lab: lab ? JSON.parse(JSON.stringify(toRaw(lab))) : null }
     const w = ensureWorker()
     if (w) w.postMessage(job)
     else setTimeout(() => done(runPlanRequest(job)), 0)

@@ -38,7 +38,7 @@ export function checkDesignRules(doc: ChipDocument, process: FabricationProcess,
   return all.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || a.id.localeCompare(b.id))
 }
 
-export { BUILT_IN_PROCESSES, findProcess, findProcessIn, labProcess, processFromSnapshot, processesWith, type LabProcessData } from './processes'
+export { BUILT_IN_PROCESSES, findProcess, findProcessIn, labProcess, processFromSnapshot, processSnapshot, processValuesSource, processesWith, resolveProcess, revisionProcess, snapshotAsLabData, type LabProcessData, type ProcessSnapshot } from './processes'
 export type { FabricationProcess, Finding, Severity } from './types'
 export type { SpacingMethod } from './layer-spacing'
 export { classifyLiquid } from './liquids'

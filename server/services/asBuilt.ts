@@ -10,6 +10,7 @@ import { appOrigin } from '../utils/origin'
 import { summarizeOffThread } from '../utils/summaryWorker'
 import { logActivity } from './activity'
 import { findVisibleRevision } from './designGuards'
+import { labLibraryData } from './libraries'
 import { conflict } from './locks'
 import { queueMailTo } from './mail'
 import { asBuiltMail } from './mailTemplates'
@@ -19,6 +20,7 @@ import { chipDocument, type ChipDocument } from '#shared/schemas/chip'
 import type { AsBuiltCreate } from '#shared/schemas/asBuilt'
 import type { RevisionSummary } from '#shared/types/designs'
 import { can } from '#shared/utils/roles'
+import { snapshotAsLabData } from '../../geometry/rules'
 
 /** The fab reports what it made; the lab may record it on receipt (who records bench measurements). */
 export function assertMayRecord(caller: LabCaller): void {
@@ -33,6 +35,17 @@ async function releasedRevision(caller: LabCaller, revisionId: string) {
   const [row] = await db.select({ document: revisions.document, summary: revisions.summary, processId: designs.processId, designName: designs.name, designCreator: designs.createdBy })
     .from(revisions).innerJoin(designs, eq(designs.id, revisions.designId)).where(eq(revisions.id, revisionId))
   return { head, ...row!, document: chipDocument.parse(row!.document) as ChipDocument, summary: row!.summary as unknown as RevisionSummary }
+}
+
+/**
+ * The as-built chip checked as the drawn one was: with the process values stored with the revision (a lab's own
+ * process too, as it was then) and the lab's liquids and pairs.
+ */
+async function summarizeAsBuilt(built: ChipDocument, designed: RevisionSummary, labId: string): Promise<RevisionSummary> {
+  const lab = await labLibraryData(useDb(), labId)
+  const stored = designed.library?.process ? snapshotAsLabData(designed.library.process) : null
+  const processes = stored ? [stored, ...lab.processes.filter(p => p.id !== stored.id)] : lab.processes
+  return summarizeOffThread(built, designed.processId, { ...lab, processes })
 }
 
 const invalid = (issues: Array<{ path: string, message: string }>) => createError({
@@ -53,8 +66,8 @@ export async function recordAsBuilt(caller: LabCaller, revisionId: string, body:
     if (error instanceof ZodError) throw invalid(error.issues.map(i => ({ path: `document.${i.path.join('.')}`, message: `As built, ${i.message}` })))
     throw error
   }
-  const summary = await summarizeOffThread(built, r.processId)
-  const changes = asBuiltChanges(r.summary, summary)
+  const summary = await summarizeAsBuilt(built, r.summary, caller.lab.labId)
+  const changes = asBuiltChanges(r.summary, summary, r.document)
   const id = await useDb().transaction(async (tx) => {
     const [row] = await tx.insert(asBuilts).values({ labId: caller.lab.labId, revisionId, depths: body.depths, widths: body.widths, note: body.note, document: built as unknown as Record<string, unknown>, summary: summary as unknown as Record<string, unknown>, recordedBy: caller.userId }).returning({ id: asBuilts.id })
     await logActivity(tx, { labId: caller.lab.labId, designId: r.head.designId, revisionId, actorId: caller.userId, action: 'as-built.recorded', detail: { warnings: changes.filter(c => c.exceeds).length } })
@@ -86,7 +99,7 @@ export async function getAsBuilt(caller: LabCaller, revisionId: string) {
     measurable: measurableWidths(r.document),
     designed: r.summary,
     asBuilt: latest && summary
-      ? { id: latest.id, depths: latest.depths, widths: latest.widths, note: latest.note, recordedBy: latest.recordedBy, createdAt: latest.createdAt.toISOString(), summary, changes: asBuiltChanges(r.summary, summary), files }
+      ? { id: latest.id, depths: latest.depths, widths: latest.widths, note: latest.note, recordedBy: latest.recordedBy, createdAt: latest.createdAt.toISOString(), summary, changes: asBuiltChanges(r.summary, summary, r.document), files }
       : null,
   }
 }

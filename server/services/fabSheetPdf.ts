@@ -7,15 +7,19 @@ import { join } from 'node:path'
 import { and, desc, eq } from 'drizzle-orm'
 import PDFDocument from 'pdfkit'
 import { buildOutlines } from '../../geometry/outlines'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcess } from '../../geometry/rules'
+import { checkDesignRules, revisionProcess } from '../../geometry/rules'
 import { designs, fabOrders, releases, revisions, users, verdicts } from '../db/schema'
 import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { findVisibleRevision } from './designGuards'
+import { labLibraryData } from './libraries'
 import { FAB_SHEET_CAUTIONS, lengthLabel, MASK_RESOLUTION_UM, scaleBarUm } from '#shared/fabrication/cautions'
 import { measurableWidths } from '#shared/fabrication/asBuilt'
+import { inletLine, locationLine, phasesLine, processLine, processSourceLine, storedLength } from '#shared/fabrication/fabSheet'
+import { namedMessage } from '#shared/format/fieldLabels'
 import { MASK_MEDIUM_LABELS, MASK_POLARITY_LABELS, SUBSTRATE_LABELS } from '#shared/fabrication/orderStatus'
 import { chipDocument, type ChipDocument } from '#shared/schemas/chip'
+import type { RevisionSummary } from '#shared/types/designs'
 
 /** pdfkit reads TrueType, OpenType and WOFF (fontkit); the woff files ship in @fontsource/ibm-plex-sans. */
 function fontFile(weight: 400 | 700): Buffer {
@@ -30,14 +34,18 @@ function fontFile(weight: 400 | 700): Buffer {
 export async function fabSheetFacts(caller: LabCaller, revisionId: string) {
   const db = useDb()
   const head = await findVisibleRevision(db, caller, revisionId)
-  const [row] = await db.select({ document: revisions.document, summary: revisions.summary, designName: designs.name, processId: designs.processId })
+  const [row] = await db.select({ document: revisions.document, summary: revisions.summary, designName: designs.name })
     .from(revisions).innerJoin(designs, eq(designs.id, revisions.designId)).where(eq(revisions.id, revisionId))
   const [release] = await db.select({ at: releases.releasedAt, by: users.name }).from(releases).innerJoin(users, eq(users.id, releases.releasedBy)).where(eq(releases.revisionId, revisionId))
   const [order] = await db.select().from(fabOrders).where(eq(fabOrders.revisionId, revisionId))
   const [approval] = await db.select({ name: users.name, at: verdicts.createdAt }).from(verdicts).innerJoin(users, eq(users.id, verdicts.reviewerId))
     .where(and(eq(verdicts.revisionId, revisionId), eq(verdicts.verdict, 'approve'))).orderBy(desc(verdicts.createdAt)).limit(1)
   const doc = chipDocument.parse(row!.document) as ChipDocument
-  return { head, doc, designName: row!.designName, process: findProcess(row!.processId) ?? BUILT_IN_PROCESSES[0]!, release: release ?? null, order: order ?? null, approval: approval ?? null, labName: caller.lab.name }
+  // The process the revision was checked with, as stored with it (a library edit after the release changes nothing);
+  // only a summary kept before the snapshot existed looks its process up among the built-in ones and the lab's.
+  const summary = row!.summary as unknown as RevisionSummary
+  const process = revisionProcess(summary, summary.library?.process ? [] : (await labLibraryData(db, caller.lab.labId)).processes)
+  return { head, doc, designName: row!.designName, process, library: summary.library ?? null, release: release ?? null, order: order ?? null, approval: approval ?? null, labName: caller.lab.name }
 }
 
 type Facts = Awaited<ReturnType<typeof fabSheetFacts>>
@@ -85,32 +93,31 @@ export function renderFabSheet(f: Facts): Promise<Buffer> {
   }
 
   heading('Layers and depths')
-  for (const l of f.doc.layers) pdf.text(`${l.name}: ${l.depth} µm deep (DXF layer CH-${l.depth}um)`)
+  for (const l of f.doc.layers) pdf.text(`${l.name}: ${storedLength(l.depth)} deep (DXF layer CH-${l.depth}um)`)
   pdf.text('Drawing units: micrometres. Mirror the mask for the mold only if your process needs it.')
 
   heading('Mask')
   const medium = f.order?.maskMedium ?? 'film'
   pdf.text(`${MASK_MEDIUM_LABELS[medium]}; polarity: ${MASK_POLARITY_LABELS[f.order?.maskPolarity ?? 'positive'].toLowerCase()}.`)
-  pdf.text(`Mask resolution about ${MASK_RESOLUTION_UM[medium]} µm (${medium}; common practice, no source).`)
+  pdf.text(`Mask resolution about ${storedLength(MASK_RESOLUTION_UM[medium])} (${medium}; common practice, no source).`)
   const smallest = Math.min(...measurableWidths(f.doc).map(w => w.designedUm))
-  if (Number.isFinite(smallest)) pdf.text(`Smallest feature drawn: ${smallest} µm wide${smallest < MASK_RESOLUTION_UM[medium] ? ' — finer than this mask resolves: use chrome' : ''}.`)
+  if (Number.isFinite(smallest)) pdf.text(`Smallest feature drawn: ${storedLength(smallest)} wide${smallest < MASK_RESOLUTION_UM[medium] ? ' — finer than this mask resolves: use chrome' : ''}.`)
 
   heading('Process')
   const p = f.process
-  pdf.text(`${p.name}: minimum feature ${p.minFeature} µm, minimum gap ${p.minGap} µm, depth window ${p.minDepth}–${p.maxDepth} µm, bond limit ${p.bondPressureLimitMbar} mbar (values: common practice, no source).`)
+  pdf.text(`${processLine(p)} (${processSourceLine(p)}).`)
 
   heading('Design-rule findings')
   const findings = checkDesignRules(f.doc, p)
   if (!findings.length) pdf.text('No findings.')
-  for (const x of findings.slice(0, 30)) pdf.text(`${x.severity}: ${x.message} (${Math.round(x.location.x)}, ${Math.round(x.location.y)} µm)`)
+  for (const x of findings.slice(0, 30)) pdf.text(`${x.severity}: ${namedMessage(f.doc as never, x.message)} (${locationLine(x.location)})`)
   if (findings.length > 30) pdf.text(`… and ${findings.length - 30} more (see the revision page).`)
 
   const op = f.doc.operatingPoints.find(o => o.id === f.doc.activeOperatingPoint) ?? f.doc.operatingPoints[0]
   if (op) {
     heading(`Operating point "${op.name}"`)
-    const liquid = (ref: unknown) => (ref && typeof ref === 'object' && 'liquid' in ref ? String((ref as { liquid: string }).liquid) : 'custom properties')
-    pdf.text(`Continuous phase ${liquid(op.continuousLiquid)}, dispersed phase ${liquid(op.dispersedLiquid)}${op.surfactant ? `, surfactant ${op.surfactant}` : ''}, ${op.temperatureC} °C.`)
-    for (const i of op.inlets) pdf.text(`${i.portId}: ${i.mode} ${i.value} ${i.unit.replace('uL', 'µL')}`)
+    pdf.text(`${phasesLine(op, f.library)}.`)
+    for (const i of op.inlets) pdf.text(inletLine(i))
   }
 
   heading('Cautions')

@@ -4,14 +4,14 @@
 import { mergeLibrary } from '#shared/physics/liquids'
 import { isJunctionKind } from '#shared/utils/junctionKinds'
 import type { ChipDocument } from '#shared/schemas/chip'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type LabProcessData } from '../../geometry/rules'
+import { checkDesignRules, processSnapshot, resolveProcess, type LabProcessData } from '../../geometry/rules'
 import type { RevisionSummary } from '#shared/types/designs'
 import { forecastSummary, liquidSnapshotOf } from './forecastSummary'
 import type { LabLibraryData } from './libraries'
 
 
 export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
-  const process = findProcessIn(processId, (lab?.processes ?? []) as LabProcessData[]) ?? BUILT_IN_PROCESSES[0]!
+  const process = resolveProcess(processId, (lab?.processes ?? []) as LabProcessData[])
   const library = mergeLibrary(lab)
   let findings = { errors: 0, warnings: 0, infos: 0 }
   try {
@@ -24,15 +24,12 @@ export function summarizeRevision(doc: ChipDocument, processId: string, lab?: La
     findings = { errors: 1, warnings: 0, infos: 0 }
     console.error('[summary] design rules failed:', error)
   }
-  const { sources: _sources, id, name, ...values } = process as typeof process & { origin?: 'lab' }
-  void _sources
-  const { origin, ...ruleValues } = values as typeof values & { origin?: 'lab' }
   return {
     junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(isJunctionKind))].sort(),
     counts: { channels: doc.channels.length, components: doc.components.length, ports: doc.ports.length, layers: doc.layers.length },
     ...forecastSummary(doc, library),
     findings,
     processId: process.id,
-    library: { ...liquidSnapshotOf(doc, library), process: { id, name, origin: origin ?? 'built-in', values: ruleValues } },
+    library: { ...liquidSnapshotOf(doc, library), process: processSnapshot(process) },
   }
 }

@@ -12,7 +12,7 @@ import { benchRunCreate, calibrationQuery, forecastModeBody, micrographFileQuery
 import { orderMessage, orderMove, releaseBody } from '#shared/schemas/orders'
 import { asBuiltCreate } from '#shared/schemas/asBuilt'
 import { commentCreate, reviewRequestBody, threadCreate, threadUpdate, verdictBody } from '#shared/schemas/review'
-import { forecastQuery, libraryArchiveBody, libraryEntryCreateBody, libraryEntryUpdateBody, liquidsQuery } from '#shared/schemas/libraries'
+import { forecastQuery, libraryArchiveBody, libraryEntryCreateBody, libraryEntryUpdateBody, liquidsQuery, planQuery } from '#shared/schemas/libraries'
 import { PERMISSION_LABELS, type Permission } from '#shared/utils/roles'
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete'
@@ -33,7 +33,7 @@ const forecastBody = z.union([junctionRequest, networkRequest, documentRequest])
 
 export const OPERATIONS: Operation[] = [
   { method: 'post', path: '/api/v1/forecast', tag: 'Forecast', summary: 'Forecast droplets for a junction, a channel network or a chip document (with ?lab= the lab\'s own liquids and pairs too)', body: forecastBody, query: forecastQuery, answers: 'the forecast, each quantity with its method and source (docs/forecast-api.md)' },
-  { method: 'post', path: '/api/v1/plan', tag: 'Forecast', summary: 'Plan a droplet generator: from a target droplet to an operating window, a recommended point, geometry, loading and a run plan', body: z.union([planJunctionRequest, planDocumentRequest]), answers: 'window, recommended, geometry, encapsulation, each quantity with its method and source (docs/planner.md)' },
+  { method: 'post', path: '/api/v1/plan', tag: 'Forecast', summary: 'Plan a droplet generator: from a target droplet to an operating window, a recommended point, geometry, loading and a run plan (with ?lab= the lab\'s own liquids, pairs and processes too)', body: z.union([planJunctionRequest, planDocumentRequest]), query: planQuery, answers: 'window, recommended, geometry, encapsulation, each quantity with its method and source (docs/planner.md)' },
   { method: 'get', path: '/api/v1/liquids', tag: 'Forecast', query: liquidsQuery, summary: 'The built-in liquids, pairs and surfactants, each value with its source; with ?lab= also that lab\'s own entries and processes (origin "lab")' },
   { method: 'get', path: '/api/labs/{labId}/libraries', tag: 'Labs', permission: 'designs:view', summary: 'The lab\'s own liquids, liquid pairs and fabrication processes (archived ones included)' },
   { method: 'post', path: '/api/labs/{labId}/libraries', tag: 'Labs', permission: 'libraries:manage', body: libraryEntryCreateBody, status: 201, summary: 'Add a liquid, a liquid pair or a fabrication process to the lab\'s library' },

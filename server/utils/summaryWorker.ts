@@ -17,7 +17,7 @@ import type { RevisionDetail, RevisionSummary } from '#shared/types/designs'
 import { maskFile, type MaskInput, type MaskResult } from '../services/mask'
 import { summarizeRevision } from '../services/revisionSummary'
 import type { ForecastResult, PlanResult } from '../workers/geometry'
-import { runPlan, type PlanAnswer } from '#shared/physics/planner'
+import { runPlan, type PlanAnswer, type PlanContext } from '#shared/physics/planner'
 import { mergeLibrary, type LabLiquidsData } from '#shared/physics/liquids'
 import type { LabLibraryData } from '../services/libraries'
 import { useConfig } from './config'
@@ -163,16 +163,19 @@ export async function forecastOffThread(request: unknown, lab?: LabLiquidsData |
   return result.answer
 }
 
-/** POST /api/v1/plan: a window scan of one junction or a chip's junction; a bad request is a 400 naming each field. */
-export async function planOffThread(request: unknown): Promise<PlanAnswer> {
+/**
+ * POST /api/v1/plan: a window scan of one junction or a chip's junction; a bad request is a 400 naming each field.
+ * `lab`: the caller's lab's own liquids, pairs and processes (the route checked the caller belongs to it).
+ */
+export async function planOffThread(request: unknown, lab?: PlanContext['lab']): Promise<PlanAnswer> {
   assertJsonDepth(request)
   const p = usePool()
   let result: PlanResult
   if (p) {
-    result = await runTask<PlanResult>(p, 'plan', request, { doing: 'The plan', tooLarge: 'the chip or the search grid is too large' })
+    result = await runTask<PlanResult>(p, 'plan', { request, lab: lab ?? null }, { doing: 'The plan', tooLarge: 'the chip or the search grid is too large' })
   } else {
     try {
-      result = { ok: true, answer: runPlan(request) }
+      result = { ok: true, answer: runPlan(request, { lab: lab ?? null }) }
     } catch (error) {
       if (!(error instanceof ForecastInputError)) throw error
       result = { ok: false, message: error.message, issues: error.issues }

@@ -4,7 +4,7 @@
 // .output/server/workers/geometry.mjs by scripts/build-workers.mjs when Nitro has compiled.
 import { setPriority } from 'node:os'
 import { ForecastInputError, runForecast, type ForecastAnswer } from '#shared/physics/forecast'
-import { runPlan, type PlanAnswer } from '#shared/physics/planner'
+import { runPlan, type PlanAnswer, type PlanContext } from '#shared/physics/planner'
 import { mergeLibrary, type LabLiquidsData } from '#shared/physics/liquids'
 import type { LabLibraryData } from '../services/libraries'
 import type { ChipDocument } from '#shared/schemas/chip'
@@ -52,10 +52,10 @@ export type PlanResult =
   | { ok: true, answer: PlanAnswer }
   | { ok: false, message: string, issues: ForecastInputError['issues'] }
 
-/** POST /api/v1/plan: the planner's window scan (one forecast per point) with its refusals as data. */
-export function plan(request: unknown): PlanResult {
+/** POST /api/v1/plan: the planner's window scan (one forecast per point) with its refusals as data; `lab`: the caller's lab's library. */
+export function plan(job: { request: unknown, lab?: PlanContext['lab'] }): PlanResult {
   try {
-    return { ok: true, answer: runPlan(request) }
+    return { ok: true, answer: runPlan(job.request, { lab: job.lab ?? null }) }
   } catch (error) {
     if (error instanceof ForecastInputError) return { ok: false, message: error.message, issues: error.issues }
     throw error

@@ -2,7 +2,7 @@
 import { z } from 'zod'
 import { JUNCTION_KINDS } from '../utils/junctionKinds'
 import { REVISION_STATUSES } from '../utils/revisionStatus'
-import { BUILT_IN_PROCESSES } from '../../geometry/rules/processes'
+import { BUILT_IN_PROCESSES, LAB_PROCESS_ID } from '../../geometry/rules/processes'
 import { labParams } from './labs'
 import { safeText } from './text'
 
@@ -25,7 +25,7 @@ export const designCreate = z.object({
   name,
   description: safeText(undefined, 'Description').max(2000, 'A description is at most 2000 characters').default(''),
   /** A built-in process, or one of the lab's own ("lab-…", checked against the lab's library on the server). */
-  processId: safeText().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id) || /^lab-[a-z0-9][a-z0-9-]{0,46}$/.test(id), 'Choose one of the fabrication processes').optional(),
+  processId: safeText().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id) || LAB_PROCESS_ID.test(id), 'Choose one of the fabrication processes').optional(),
   /** A chip document (validated by the chip schema on the server); omitted → a starter document. */
   document: z.unknown().optional(),
   /** Which starter chip when no document is given (default the T-junction). */

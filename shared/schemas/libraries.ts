@@ -103,6 +103,8 @@ export const libraryArchiveBody = z.strictObject({ archived: z.boolean({ error: 
 export const liquidsQuery = z.strictObject({ lab: z.uuid('lab must be the UUID of a lab you are a member of').optional() })
 /** POST /api/v1/forecast?lab=<uuid>: forecast with that lab's liquids and pairs too. */
 export const forecastQuery = liquidsQuery
+/** POST /api/v1/plan?lab=<uuid>: plan with that lab's liquids, pairs and processes too. */
+export const planQuery = liquidsQuery
 
 /** One entry as the API shows it. */
 export interface LibraryEntryView {

@@ -3,7 +3,7 @@
 // optional encapsulation, digital-assay and run questions. Parsed output is SI throughout.
 import { unit as mathUnit } from 'mathjs'
 import { z } from 'zod'
-import { BUILT_IN_PROCESSES } from '../../geometry/rules/processes'
+import { BUILT_IN_PROCESSES, LAB_PROCESS_ID } from '../../geometry/rules/processes'
 import { junctionRequest } from './forecast'
 import { quantityField } from './quantity'
 import { safeText, textProblem } from './text'
@@ -98,8 +98,9 @@ export const planRun = z.strictObject({
   minutes: z.number().gt(0, 'run.minutes must be > 0').max(PLAN_LIMITS.minutes, `run.minutes is at most ${PLAN_LIMITS.minutes}`).optional(),
 }).refine((r) => (r.droplets === undefined) !== (r.minutes === undefined), 'give exactly one of "droplets" (a count) or "minutes"')
 
-const processId = safeText().max(64).refine((id) => BUILT_IN_PROCESSES.some((p) => p.id === id), {
-  message: `use one of the fabrication processes ${BUILT_IN_PROCESSES.map((p) => `"${p.id}"`).join(', ')}`,
+/** A built-in process or a lab's own ("lab-…"); which lab processes exist is the planner's to check (it is given them). */
+const processId = safeText().max(64).refine((id) => BUILT_IN_PROCESSES.some((p) => p.id === id) || LAB_PROCESS_ID.test(id), {
+  message: `use one of the fabrication processes ${BUILT_IN_PROCESSES.map((p) => `"${p.id}"`).join(', ')} or one of your lab's ("lab-…")`,
 })
 
 const planQuestions = {

@@ -28,7 +28,8 @@ export interface LibrarySnapshot {
   dispersed: LiquidSnapshot | null
   surfactant: string | null
   interfacialTension: { mNPerM: number, origin: 'built-in' | 'lab' | 'given', source: string } | null
-  process: { id: string, name: string, origin: 'built-in' | 'lab', values: Record<string, number | string> }
+  /** `source`: the lab's source for its own process (kept since the fab sheets print it). */
+  process: { id: string, name: string, origin: 'built-in' | 'lab', values: Record<string, number | string>, source?: string }
 }
 
 export interface DesignOriginView { revisionId: string, designId: string, designName: string, revisionNumber: number, authorName: string, labName: string }

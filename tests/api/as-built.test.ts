@@ -42,7 +42,11 @@ describe('as-built reports (real server, PostgreSQL, fake S3)', () => {
     const designer = await emailOf(c.lab.id, 'designer')
     await expect.poll(() => mailTo(designer).some(m => m.subject.startsWith('As-built recorded: "Released')), { timeout: 20_000 }).toBe(true)
     const mail = mailTo(designer).find(m => m.subject.startsWith('As-built recorded'))!
-    expect(mail.text).toMatch(/Inlet pressure at oil-in .*: .* mbar \(\+\d+ %\) — beyond the method's uncertainty/)
+    // In people's words: the inlet and the operating point by their names (the fixture's "op-1" is "Cells in 40 um drops").
+    expect(mail.text).toMatch(/Pressure at inlet “oil-in”, operating point “Cells in 40 um drops”: [\d.\u202F]+ → [\d.\u202F]+ mbar \(\+\d+ %\) — beyond the method's uncertainty/)
+    expect(mail.text).toMatch(/Droplet diameter at T-junction “tj-1”, operating point “Cells in 40 um drops”: [\d.]+ → [\d.]+ µm \(−\d+ %\)/)
+    expect(mail.text).not.toContain('op-1')
+    expect(seen.asBuilt.changes.find((x: { what: string }) => x.what === 'inlet-pressure').label).toBe('Pressure at inlet “oil-in”, operating point “Cells in 40 um drops”')
   }, 60_000)
 
   it('attaches a profilometer CSV, refuses other bytes whatever their name, and names bad measurements', async () => {

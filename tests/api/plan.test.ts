@@ -1,5 +1,7 @@
 import { spawn } from 'node:child_process'
-import { readFileSync } from 'node:fs'
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { ApiClient, signedIn } from '../support/api'
 import example from '../fixtures/plan/t-junction-plan.json' // the example of docs/planner.md
@@ -58,12 +60,32 @@ describe('POST /api/v1/plan and npm run plan (real server)', () => {
     expect(bad.stderr).toMatch(/target\.tolerance/)
     expect(notJson.status).toBe(2)
   }, 120_000)
+
+  it('the command line plans on a lab\'s own process from --process-file, and names a bad value in it', async () => {
+    // Invented values: a coarse process whose smallest feature is 40 µm.
+    const coarse = { id: 'lab-coarse', name: 'Our coarse milling process', material: 'thermoplastic', minFeature: 40, minGap: 40, minDepth: 20, maxDepth: 300, maxWidthToDepth: 10, maxWallDepthToWidth: 3, portEdgeDistance: 1500, portSpacing: 1500, bondPressureLimitMbar: 3000, source: 'measured in our lab' }
+    const dir = mkdtempSync(join(tmpdir(), 'dw-plan-'))
+    writeFileSync(join(dir, 'good.json'), JSON.stringify([coarse]))
+    writeFileSync(join(dir, 'bad.json'), JSON.stringify([{ ...coarse, minFeature: -1 }]))
+    const request = JSON.stringify({ ...example, search: { points: 4 }, process: 'lab-coarse' })
+    const [ok, without, bad] = await Promise.all([
+      runPlan(request, [`--process-file=${join(dir, 'good.json')}`]),
+      runPlan(request),
+      runPlan(request, [`--process-file=${join(dir, 'bad.json')}`]),
+    ])
+    expect(ok.status, ok.stderr).toBe(0)
+    for (const g of JSON.parse(ok.stdout).geometry) expect(g.process).toMatchObject({ id: 'lab-coarse', name: 'Our coarse milling process' })
+    expect(without.status).toBe(2)
+    expect(without.stderr).toMatch(/process: "lab-coarse" is not a fabrication process here .*--process-file/)
+    expect(bad.status).toBe(2)
+    expect(bad.stderr).toContain('--process-file: [0].minFeature: Smallest feature must be above 0 µm')
+  }, 120_000)
 })
 
-/** `npm run --silent plan < input`, run as the script does (the project's own tsx, no npx lookup). */
-function runPlan(input: string): Promise<{ status: number | null, stdout: string, stderr: string }> {
+/** `npm run --silent plan [-- args] < input`, run as the script does (the project's own tsx, no npx lookup). */
+function runPlan(input: string, args: string[] = []): Promise<{ status: number | null, stdout: string, stderr: string }> {
   return new Promise((resolve) => {
-    const child = spawn('node_modules/.bin/tsx', ['scripts/plan.ts'])
+    const child = spawn('node_modules/.bin/tsx', ['scripts/plan.ts', ...args])
     let stdout = ''
     let stderr = ''
     child.stdout.on('data', (c) => (stdout += c))

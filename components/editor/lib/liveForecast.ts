@@ -10,7 +10,7 @@ import type { LabLiquidsData } from '#shared/physics/liquids'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
 import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveLab, type LiveRequest, type RulesAnswer } from './liveRun'
 
-export { designProcess, type LiveLab } from './liveRun'
+export type { LiveLab } from './liveRun'
 
 export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
 

@@ -2,7 +2,7 @@
 // document patches the page sends the worker instead of the whole document after every edit.
 import type { ChipDocument } from '#shared/schemas/chip'
 import { forecastDocument, summarizeForecast, type DocumentForecast, type ForecastSummary } from '#shared/physics/document'
-import { BUILT_IN_PROCESSES, checkDesignRules, findProcessIn, type FabricationProcess, type Finding, type LabProcessData } from '~~/geometry/rules'
+import { checkDesignRules, resolveProcess, type Finding, type LabProcessData } from '~~/geometry/rules'
 import { mergeLibrary, type LabLiquidsData, type LiquidLibrary } from '#shared/physics/liquids'
 
 /** The lab's own liquids, pairs and processes (plain data, GET /api/v1/liquids?lab=); null → built-in only. */
@@ -57,12 +57,8 @@ export function runLiveForecast(doc: ChipDocument, seq: number, lab?: LabLiquids
   }
 }
 
-/** The design's own process for rule checks; the first built-in one only when the design names none we know. */
-export const designProcess = (processId: string | null | undefined, lab: readonly LabProcessData[] = []): FabricationProcess =>
-  (processId ? findProcessIn(processId, lab) : undefined) ?? BUILT_IN_PROCESSES[0]!
-
 export const runLiveRules = (doc: ChipDocument, processId: string | null | undefined, lab?: LiveLab | null): Finding[] =>
-  checkDesignRules(doc, designProcess(processId, lab?.processes))
+  checkDesignRules(doc, resolveProcess(processId, lab?.processes))
 
 // ── Patches ──────────────────────────────────────────────────────────────────────────────────────────────────
 // The editor changes a document by copying only what an edit touches (shared/editor): every other element and

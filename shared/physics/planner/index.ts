@@ -1,11 +1,12 @@
 // The planner: from a target droplet (size, rate, loading) to an operating window, a recommended point, a
 // geometry per junction kind and what the run will yield. See docs/planner.md.
-import { findProcess, BUILT_IN_PROCESSES } from '../../../geometry/rules/processes'
+import { findProcessIn, processesWith, type LabProcessData } from '../../../geometry/rules/processes'
 import type { FabricationProcess } from '../../../geometry/rules/types'
 import { parseChipDocument, type ChipDocument } from '../../schemas/chip'
 import { planDocumentRequest, planJunctionRequest, PLAN_LIMITS, type PlanDocumentRequest, type PlanJunctionRequest } from '../../schemas/plan'
 import type { JunctionRequest } from '../../schemas/forecast'
 import { forecastDocument, type DocumentForecastOptions } from '../document'
+import { mergeLibrary, type LabLiquidsData } from '../liquids'
 import { chooseOperatingPoint, resolveOperatingPoint } from '../document/operating-point'
 import { documentPath } from '../document/paths'
 import { ForecastInputError } from '../errors'
@@ -43,14 +44,28 @@ function planTarget(t: Questions['target']): PlanTarget {
   return target
 }
 
-function processOf(id: string | undefined): FabricationProcess {
-  return (id ? findProcess(id) : undefined) ?? BUILT_IN_PROCESSES[0]!
+/**
+ * What the caller brings besides the request: its lab's own liquids, pairs and processes (plain data, as
+ * GET /api/v1/liquids?lab= gives them), when a lab was named; null or absent → the built-in library only.
+ */
+export interface PlanContext { lab?: (LabLiquidsData & { processes: readonly LabProcessData[] }) | null }
+
+/**
+ * The process the plan checks against: the one named, among the built-in processes and the caller's lab's (never
+ * another lab's: the caller passes its own); the first built-in one when none is named.
+ */
+function processOf(id: string | undefined, context: PlanContext): FabricationProcess {
+  const known = processesWith(context.lab?.processes ?? [])
+  if (!id) return known[0]!
+  const found = findProcessIn(id, context.lab?.processes ?? [])
+  if (found) return found
+  const hint = context.lab ? '' : ' (a lab\'s own process needs its lab: POST /api/v1/plan?lab=<lab id>, or npm run plan -- --process-file=<file>)'
+  throw new ForecastInputError([{ path: 'process', message: `"${id}" is not a fabrication process here${hint}: use one of ${known.map((p) => `"${p.id}"`).join(', ')}` }])
 }
 
 /** The parts every plan shares once the window is scanned. */
-function finish(q: Questions, target: PlanTarget, scan: Scan, evaluate: Evaluate, liquids: Liquids | null, kinds: JunctionKind[], limitsChecked: boolean, warnings: Warning[]): { answer: PlanAnswer; picked: ScanPoint | undefined } {
+function finish(q: Questions, process: FabricationProcess, target: PlanTarget, scan: Scan, evaluate: Evaluate, liquids: Liquids | null, kinds: JunctionKind[], limitsChecked: boolean, warnings: Warning[]): { answer: PlanAnswer; picked: ScanPoint | undefined } {
   const { recommended, unreachable, point: picked } = recommend(scan, target, evaluate, limitsChecked)
-  const process = processOf(q.process)
   const answer: PlanAnswer = {
     target: targetQuantities(target),
     window: buildWindow(scan, target),
@@ -72,16 +87,18 @@ function finish(q: Questions, target: PlanTarget, scan: Scan, evaluate: Evaluate
   return { answer, picked }
 }
 
-function planJunction(input: unknown): PlanAnswer {
+function planJunction(input: unknown, context: PlanContext): PlanAnswer {
   const request = parseOrThrow(planJunctionRequest, input)
-  const { junction, warnings } = resolveJunctionRequest({ ...request, flow: { continuous: 1e-12, dispersed: 1e-12 } } as JunctionRequest)
+  const process = processOf(request.process, context)
+  const library = context.lab ? mergeLibrary(context.lab) : undefined
+  const { junction, warnings } = resolveJunctionRequest({ ...request, flow: { continuous: 1e-12, dispersed: 1e-12 } } as JunctionRequest, library)
   const target = planTarget(request.target)
   const n = request.search?.points ?? PLAN_LIMITS.pointsPerAxis.junction
   const scan = scanJunction(junction, { continuous: request.search?.continuous ?? DEFAULT_FLOWS, dispersed: request.search?.dispersed ?? DEFAULT_FLOWS }, n, target)
   const evaluate: Evaluate = (qc, qd) => pointFromForecast(forecastAt(junction, qc, qd), target, { i: 0, j: 0, xc: qc, xd: qd, qc, qd })
   const { flowContinuous: _c, flowDispersed: _d, kind: _k, mainWidth: _w, inletWidth: _i, depth: _h, ...liquids } = junction
   if (request.limits) warnings.push({ code: 'limits-not-checked', message: 'A single junction has no network, so the pump and bond limits are not checked: plan a chip document to check them' })
-  return finish(request, target, scan, evaluate, liquids, ['t-junction', 'flow-focusing', 'step'], false, [...warnings]).answer
+  return finish(request, process, target, scan, evaluate, liquids, ['t-junction', 'flow-focusing', 'step'], false, [...warnings]).answer
 }
 
 function parseDocument(request: PlanDocumentRequest): ChipDocument {
@@ -91,12 +108,13 @@ function parseDocument(request: PlanDocumentRequest): ChipDocument {
   return parsed.document
 }
 
-function planDocument(input: unknown): PlanAnswer {
+function planDocument(input: unknown, context: PlanContext): PlanAnswer {
   const request = parseOrThrow(planDocumentRequest, input)
+  const process = processOf(request.process, context)
   const doc = parseDocument(request)
   const { point: op } = chooseOperatingPoint(doc, request.operatingPoint)
-  const process = processOf(request.process)
-  const options: DocumentForecastOptions = { limits: {} }
+  const library = context.lab ? mergeLibrary(context.lab) : undefined
+  const options: DocumentForecastOptions = library ? { limits: {}, library } : { limits: {} }
   const bond = request.limits?.bondPressure ?? (request.process ? process.bondPressureLimitMbar * 100 : undefined)
   if (bond !== undefined) options.limits!.bondPressure = bond
   if (request.limits?.pumpPressure !== undefined) options.limits!.pumpPressure = request.limits.pumpPressure
@@ -123,7 +141,7 @@ function planDocument(input: unknown): PlanAnswer {
   if (request.search?.points === undefined && (evaluator.continuous.mode === 'pressure' || evaluator.dispersed.mode === 'pressure')) scanInput.n = Math.min(largest, PLAN_LIMITS.pointsPerAxis.pressure)
   const scan = scanDocument(scanInput)
   const evaluate: Evaluate = (xc, xd) => evaluator.at(xc, xd)
-  const resolved = resolveOperatingPoint(doc, op.id)
+  const resolved = resolveOperatingPoint(doc, op.id, library)
   const warnings: Warning[] = [...resolved.warnings]
   let liquids: Liquids | null = null
   if (resolved.interfacialTension) {
@@ -131,7 +149,7 @@ function planDocument(input: unknown): PlanAnswer {
     if (resolved.contactAngle !== undefined) liquids.contactAngle = resolved.contactAngle
   } else if (resolved.tensionProblem) warnings.push(resolved.tensionProblem)
   const limitsChecked = Object.keys(options.limits!).length > 0
-  const { answer, picked } = finish(request, target, scan, evaluate, liquids, ['t-junction', 'flow-focusing', 'step'], limitsChecked, warnings)
+  const { answer, picked } = finish(request, process, target, scan, evaluate, liquids, ['t-junction', 'flow-focusing', 'step'], limitsChecked, warnings)
   if (answer.recommended && picked) attachSettings(answer.recommended, picked, evaluator.settingsAt, op.id)
   if (evaluator.continuous.mode === 'pressure' || evaluator.dispersed.mode === 'pressure') {
     warnings.push({ code: 'pressure-caution', message: 'Pressurised chips and tubing can burst and spray: stay below the bond\'s and the fittings\' limits and follow your lab\'s safety rules' })
@@ -147,13 +165,14 @@ function attachSettings(rec: Recommended, point: ScanPoint, settingsAt: (xc: num
 
 /**
  * Runs a plan request (parsed JSON): `junction` (a forecast request without flow) or `document`, plus `target`.
- * Throws ForecastInputError whose issues name each bad field; any other error is a bug.
+ * `context.lab`: the caller's lab's own liquids, pairs and processes, which the request may then name. Throws ForecastInputError
+ * whose issues name each bad field; any other error is a bug.
  */
-export function runPlan(request: unknown): PlanAnswer {
+export function runPlan(request: unknown, context: PlanContext = {}): PlanAnswer {
   if (typeof request !== 'object' || request === null || Array.isArray(request)) {
     throw new ForecastInputError([{ path: '', message: 'the request must be a JSON object with "junction" or "document", and "target"' }])
   }
   const keys = ['junction', 'document'].filter((key) => key in request)
   if (keys.length !== 1) throw new ForecastInputError([{ path: '', message: `give exactly one of "junction" or "document" (got ${keys.length ? keys.join(', ') : 'none'})` }])
-  return keys[0] === 'junction' ? planJunction(request) : planDocument(request)
+  return keys[0] === 'junction' ? planJunction(request, context) : planDocument(request, context)
 }

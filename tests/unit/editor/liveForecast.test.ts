@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { effectScope, nextTick, ref } from 'vue'
 import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/chip'
-import { designProcess, useLiveForecast } from '../../../components/editor/lib/liveForecast'
+import { useLiveForecast } from '../../../components/editor/lib/liveForecast'
+import { resolveProcess } from '../../../geometry/rules'
 import type { LiveRequest } from '../../../components/editor/lib/liveRun'
 import { fixtureDocument } from '../../support/factory'
 
@@ -12,10 +13,10 @@ const wait = (ms: number) => new Promise(r => setTimeout(r, ms))
 
 describe('live design-rule findings', () => {
   it('use the process the design names, the first built-in one only when it names none we know', () => {
-    expect(designProcess('chrome-mask-soft-litho').id).toBe('chrome-mask-soft-litho')
-    expect(designProcess('film-mask-soft-litho').id).toBe('film-mask-soft-litho')
-    expect(designProcess('no-such-process').id).toBe('film-mask-soft-litho')
-    expect(designProcess(null).id).toBe('film-mask-soft-litho')
+    expect(resolveProcess('chrome-mask-soft-litho').id).toBe('chrome-mask-soft-litho')
+    expect(resolveProcess('film-mask-soft-litho').id).toBe('film-mask-soft-litho')
+    expect(resolveProcess('no-such-process').id).toBe('film-mask-soft-litho')
+    expect(resolveProcess(null).id).toBe('film-mask-soft-litho')
   })
 
   it('a 10 µm channel is a finding on a film mask and none on a chrome mask, and follows a change of process', async () => {
