@@ -1,5 +1,6 @@
 // Re-forecast a saved revision with the lab's current library: the stored summary is never changed (revisions are
 // immutable); the answer shows both and what differs, so a library edit is visible before anyone saves again.
+import { junctionName, nameOfId } from '#shared/format/fieldLabels'
 import type { RevisionSummary } from '#shared/types/designs'
 import type { ForecastDifference, ReforecastAnswer } from '#shared/types/libraries'
 import type { LabCaller } from '../utils/access'
@@ -10,7 +11,7 @@ import { getRevision } from './revisions'
 const close = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b))
 
 /** What differs between two summaries of one document: library values, drop sizes, pressures, findings. */
-export function summaryDifferences(stored: RevisionSummary, current: RevisionSummary): ForecastDifference[] {
+export function summaryDifferences(stored: RevisionSummary, current: RevisionSummary, doc?: Record<string, unknown>): ForecastDifference[] {
   const out: ForecastDifference[] = []
   const num = (what: string, a: number | null | undefined, b: number | null | undefined, unit: string) => {
     const x = a ?? null
@@ -35,11 +36,11 @@ export function summaryDifferences(stored: RevisionSummary, current: RevisionSum
   for (const id of ids) {
     const a = stored.junctions.find(j => j.id === id)
     const b = current.junctions.find(j => j.id === id)
-    num(`Droplet diameter at ${id}`, a?.dropletDiameterUm, b?.dropletDiameterUm, 'µm')
-    num(`Drop frequency at ${id}`, a?.frequencyHz, b?.frequencyHz, 'Hz')
+    num(`Droplet diameter at ${junctionName(doc, id)}`, a?.dropletDiameterUm, b?.dropletDiameterUm, 'µm')
+    num(`Drop frequency at ${junctionName(doc, id)}`, a?.frequencyHz, b?.frequencyHz, 'Hz')
   }
   for (const port of new Set([...stored.inlets.map(i => i.portId), ...current.inlets.map(i => i.portId)])) {
-    num(`Inlet pressure at ${port}`, stored.inlets.find(i => i.portId === port)?.pressureMbar, current.inlets.find(i => i.portId === port)?.pressureMbar, 'mbar')
+    num(`Inlet pressure at ${nameOfId(doc, port)}`, stored.inlets.find(i => i.portId === port)?.pressureMbar, current.inlets.find(i => i.portId === port)?.pressureMbar, 'mbar')
   }
   num('Rule errors', stored.findings.errors, current.findings.errors, '')
   num('Rule warnings', stored.findings.warnings, current.findings.warnings, '')
@@ -50,5 +51,5 @@ export function summaryDifferences(stored: RevisionSummary, current: RevisionSum
 export async function reforecastRevision(caller: LabCaller, revisionId: string): Promise<ReforecastAnswer> {
   const revision = await getRevision(caller, revisionId)
   const current = await summarizeWithLibrary(revision.document as never, revision.summary.processId, caller.lab.labId)
-  return { revisionId, stored: revision.summary, current, differences: summaryDifferences(revision.summary, current) }
+  return { revisionId, stored: revision.summary, current, differences: summaryDifferences(revision.summary, current, revision.document as Record<string, unknown>) }
 }

@@ -1,6 +1,6 @@
 // What changed between the forecast on the drawn chip and on the as-built chip, and which changes are larger than
 // the forecast method can tell apart. Pure: compares two revision summaries (forecast + rule findings).
-import { nameOfId } from '../format/fieldLabels'
+import { junctionName as nameJunction } from '../format/fieldLabels'
 import { formatLengthUm, formatPercent, formatPlain, formatPressureMbar } from '../format/quantity'
 import type { RevisionSummary } from '../types/designs'
 import { counted } from '../utils/counted'
@@ -37,14 +37,7 @@ export interface AsBuiltChange {
 type NamingDoc = { operatingPoints?: ReadonlyArray<{ id: string, name?: string }> } & object
 
 const rel = (a: number | null, b: number | null) => (a !== null && b !== null && a !== 0 ? (b - a) / a : null)
-const NOZZLE = /^(.*)\[(\d+)\]$/
-
-/** "T-junction “tj-1”"; a nozzle of an array "Step nozzle array “arr-1”, nozzle 4" (numbered from 1 along its manifold). */
-function junctionName(doc: NamingDoc | undefined, id: string): string {
-  const nozzle = NOZZLE.exec(id)
-  if (nozzle) return `${nameOfId(doc as never, nozzle[1]!)}, nozzle ${Number(nozzle[2]) + 1}`
-  return nameOfId(doc as never, id)
-}
+const junctionName = (doc: NamingDoc | undefined, id: string) => nameJunction(doc as never, id)
 
 /** "operating point “Cells in 40 µm drops”" (its own name; the id when the document has none). */
 function operatingPointName(doc: NamingDoc | undefined, id: string | null): string {

@@ -151,3 +151,10 @@ export function fieldUnit(path: string): string {
   if (!last) return ''
   return FIELD_UNITS[last] ?? 'µm'
 }
+
+/** A junction as the drawing names it: "T-junction “tj-1”"; a nozzle of an array "Step nozzle array “arr-1”, nozzle 4" (from 1 along its manifold). */
+export function junctionName(doc: Doc, id: string): string {
+  const nozzle = /^(.*)\[(\d+)\]$/.exec(id)
+  if (nozzle) return `${nameOfId(doc, nozzle[1]!)}, nozzle ${Number(nozzle[2]) + 1}`
+  return nameOfId(doc, id)
+}

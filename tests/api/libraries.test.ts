@@ -134,7 +134,7 @@ describe('lab libraries', () => {
     expect(re.json.current.library.interfacialTension.mNPerM).toBe(10)
     const tension = re.json.differences.find((d: { what: string }) => d.what === 'Interfacial tension')
     expect(tension).toEqual({ what: 'Interfacial tension', stored: 5, current: 10, unit: 'mN/m' })
-    const diameter = re.json.differences.find((d: { what: string }) => d.what === 'Droplet diameter at tj-1')
+    const diameter = re.json.differences.find((d: { what: string }) => d.what === 'Droplet diameter at T-junction “tj-1”')
     expect(diameter.unit).toBe('µm')
     expect(diameter.current).not.toBe(diameter.stored)
     expect((await s.as.fabricator.get(`${revisionPath}/reforecast`)).status).toBe(403) // no designs:view (shared/utils/roles.ts)
