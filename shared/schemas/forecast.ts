@@ -2,6 +2,7 @@
 // Quantities are SI numbers or unit strings (see ./quantity.ts); the parsed output is SI throughout.
 import { z } from 'zod'
 import { quantityField } from './quantity'
+import { surfactantId } from './libraries'
 import { safeText } from './text'
 
 /** Bounds of a forecast request (common practice, no source): a network solve grows with its size. */
@@ -11,7 +12,8 @@ export const FORECAST_LIMITS = { channels: 20_000, sources: 2_000, parallelSets:
 const netId = (what: string) => safeText(undefined, what).min(1, `${what} must not be empty`).max(FORECAST_LIMITS.idChars, `${what} is at most ${FORECAST_LIMITS.idChars} characters`)
 const label = safeText().max(FORECAST_LIMITS.nameChars, `a name is at most ${FORECAST_LIMITS.nameChars} characters`)
 
-const SURFACTANT = z.enum(['none', 'sorbitan-monooleate', 'fluorinated-block-copolymer'])
+// Any surfactant id: a built-in one, or one of the lab's pairs with ?lab= (an unknown pair is named when resolved).
+const SURFACTANT = surfactantId
 
 export const libraryLiquidRef = z.strictObject({
   liquid: safeText().min(1, 'give a liquid id from GET /api/v1/liquids, e.g. "water"').max(FORECAST_LIMITS.idChars, `a liquid id is at most ${FORECAST_LIMITS.idChars} characters`),

@@ -52,11 +52,14 @@ const rows = z.array(labLiquidRow, { error: 'Give a table of measured rows' })
 
 const liquidFields = { name: text('Name', 120), source, table: rows }
 const liquidId = text('Liquid', 64)
+/** A surfactant as documents, pairs and the forecast API name it: a built-in one or one a lab names in its pairs. */
+export const surfactantId = z.string({ error: 'Surfactant must be text' })
+  .regex(/^[a-z0-9][a-z0-9-]{0,62}$/, 'Surfactant: lower-case letters, digits or hyphens (e.g. "none", "sorbitan-monooleate", "our-fluoro-surfactant")')
+
 const pairFields = {
   liquids: z.tuple([liquidId, liquidId], { error: 'Name the two liquids of the pair (dispersed, continuous)' })
     .refine(([a, b]) => a !== b, { message: 'The pair needs two different liquids', path: [1] }),
-  surfactant: z.string({ error: 'Surfactant must be text' })
-    .regex(/^[a-z0-9][a-z0-9-]{0,62}$/, 'Surfactant: lower-case letters, digits or hyphens (e.g. "none", "sorbitan-monooleate", "our-fluoro-surfactant")'),
+  surfactant: surfactantId,
   interfacialTensionMNPerM: positive('Interfacial tension', 'mN/m', 100),
   source,
 }

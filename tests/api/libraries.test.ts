@@ -115,6 +115,24 @@ describe('lab libraries', () => {
     await s.as.admin.patch(`${base}/${pairId}`, PAIR)
   })
 
+  it('a single-junction request names the lab\'s surfactant too (it was refused as not a built-in one)', async () => {
+    const junction = {
+      junction: { kind: 't-junction', mainWidth: '100 um', inletWidth: '50 um', depth: '50 um' },
+      continuous: { liquid: 'lab-test-oil' }, dispersed: { liquid: 'water' }, surfactant: 'our-surfactant',
+      flow: { continuous: '10 uL/min', dispersed: '2 uL/min' },
+    }
+    const answer = await s.as.designer.post(`/api/v1/forecast?lab=${s.lab.id}`, junction)
+    expect(answer.status, JSON.stringify(answer.json)).toBe(200)
+    expect(answer.json.inputs.interfacialTension.value).toBeCloseTo(5e-3, 12)
+    // Without the lab, the pair is unknown: a 400 that names it and the pairs there are.
+    const unknown = await s.as.designer.post('/api/v1/forecast', { ...junction, continuous: { liquid: 'n-hexadecane' } })
+    expect(unknown.status).toBe(400)
+    expect(unknown.json.message).toContain('with surfactant "our-surfactant" is not in the library')
+    const badId = await s.as.designer.post('/api/v1/forecast', { ...junction, surfactant: 'Our Surfactant 2 %' })
+    expect(badId.status).toBe(400)
+    expect(badId.json.message).toContain('Surfactant: lower-case letters, digits or hyphens')
+  })
+
   it('a revision keeps the values it was forecast with; the re-forecast shows what a library edit changes', async () => {
     const created = await s.as.designer.post(`/api/labs/${s.lab.id}/designs`, { name: 'Lab oil chip', document: labDocument() })
     expect(created.status, JSON.stringify(created.json)).toBe(201)
