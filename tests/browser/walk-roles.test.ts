@@ -1,0 +1,78 @@
+// Issue 16, the final walk as each role at 1440 and 1024 px wide, kept as checks of what was seen wrong on screen:
+// the header wrapped the admin's name and "Sign out" onto three lines; the members page wrote "2026-12-03" and the
+// libraries page "03/12/2026" beside "3 Dec 2026" elsewhere; the token form squeezed its Name box to a sliver; the
+// demo fabrication order said "since 4 Dec" on 3 Dec. The demo accounts of the seeded test database walk here.
+import type { Browser, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { hydrated, launch, signInAs } from '../support/browser'
+
+let browser: Browser
+beforeAll(async () => { browser = await launch() })
+afterAll(async () => { await browser?.close() })
+
+async function demoPage(email: string, width: number): Promise<{ page: Page, labId: string }> {
+  const context = await browser.newContext({ baseURL: inject('baseURL'), viewport: { width, height: width === 1440 ? 900 : 768 } })
+  const page = await context.newPage()
+  await signInAs(page, email)
+  await page.waitForURL(/\/labs\//)
+  await hydrated(page)
+  const labs = (await (await page.request.get('/api/labs')).json()) as Array<{ labId: string, name: string }>
+  return { page, labId: labs.find(l => l.name.startsWith('Quillmere'))!.labId }
+}
+
+/** Every entry of the header: its height, and whether the bar's content fits its width. */
+const headerBoxes = (page: Page) => page.evaluate(() => {
+  const bar = document.querySelector('[data-test="app-header"]') as HTMLElement
+  const items = [...bar.querySelectorAll('a, button, select')].map(e => ({ text: (e.textContent ?? '').trim().slice(0, 30), height: e.getBoundingClientRect().height, right: e.getBoundingClientRect().right }))
+  return { items, overflow: bar.scrollWidth - bar.clientWidth, viewport: window.innerWidth }
+})
+
+/** The day a person reads ("3 Dec 2026", "Dec 3, 2026" …), never a machine's date. */
+const MACHINE_DATE = /^\d{4}-\d{2}-\d{2}|^\d{1,2}\/\d{1,2}\/\d{2,4}$/
+const READ_DAY = /\b(19|20)\d{2}\b/
+
+describe('the walk at 1440 and 1024 px wide', () => {
+  for (const width of [1440, 1024]) {
+    it(`${width} px: the admin's header is one line, dates read as days, the token form has room for a name`, async () => {
+      const { page, labId } = await demoPage('admin@quillmere.example', width)
+      await page.goto(`/labs/${labId}/members`)
+      await hydrated(page)
+      const header = await headerBoxes(page)
+      expect(header.items.length, 'the admin sees the whole lab menu').toBeGreaterThanOrEqual(9)
+      for (const item of header.items) expect(item.height, `"${item.text}" on one line`).toBeLessThanOrEqual(34)
+      expect(header.overflow).toBeLessThanOrEqual(0)
+      expect(Math.max(...header.items.map(i => i.right))).toBeLessThanOrEqual(header.viewport)
+
+      const since = await page.locator('[data-test="member-since"]').allTextContents()
+      expect(since.length).toBeGreaterThanOrEqual(5)
+      for (const s of since) {
+        expect(s.trim()).not.toMatch(MACHINE_DATE)
+        expect(s).toMatch(READ_DAY)
+      }
+
+      await page.goto(`/labs/${labId}/libraries`)
+      await hydrated(page)
+      const changed = await page.locator('[data-test^="library-entry-"] td:nth-child(5)').allTextContents()
+      expect(changed.length).toBeGreaterThanOrEqual(2)
+      for (const c of changed) expect(c.split('·')[0]!.trim()).not.toMatch(MACHINE_DATE)
+
+      await page.goto('/account')
+      await hydrated(page)
+      const name = await page.locator('#token-name').boundingBox()
+      expect(name!.width, 'the token name box').toBeGreaterThanOrEqual(150)
+      await page.context().close()
+    })
+  }
+
+  it('the demo fabrication order tells its story up to now, never in the future', async () => {
+    const { page, labId } = await demoPage('fabricator@brackenfold.example', 1024)
+    const orders = (await (await page.request.get(`/api/labs/${labId}/orders`)).json()) as { orders: Array<{ id: string }> } | Array<{ id: string }>
+    const list = Array.isArray(orders) ? orders : orders.orders
+    expect(list.length).toBeGreaterThan(0)
+    const order = await (await page.request.get(`/api/labs/${labId}/orders/${list[0]!.id}`)).json()
+    const dates = JSON.stringify(order).match(/"\d{4}-\d{2}-\d{2}T[^"]+"/g)!.map(d => new Date(JSON.parse(d)).getTime())
+    expect(dates.length).toBeGreaterThan(2)
+    expect(Math.max(...dates)).toBeLessThanOrEqual(Date.now() + 5_000)
+    await page.context().close()
+  })
+})
