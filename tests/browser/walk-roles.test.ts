@@ -64,6 +64,27 @@ describe('the walk at 1440 and 1024 px wide', () => {
     })
   }
 
+  it('1024 px: the revision page\'s forecast keeps each number with its unit on one line', async () => {
+    const { page, labId } = await demoPage('reviewer@quillmere.example', 1024)
+    const designs = (await (await page.request.get(`/api/labs/${labId}/designs?q=flow-focuser`)).json()) as { items?: Array<{ id: string, latestRevisionId: string }> }
+    const listed = JSON.stringify(designs)
+    const revisionId = /"latestRevisionId":"([^"]+)"/.exec(listed)?.[1] ?? /"latestRevision":\{"id":"([^"]+)"/.exec(listed)?.[1]
+    expect(revisionId, listed.slice(0, 300)).toBeTruthy()
+    await page.goto(`/labs/${labId}/revisions/${revisionId}`)
+    await hydrated(page)
+    const cells = page.locator('[data-test="revision-forecast"] td.num')
+    await cells.first().waitFor()
+    // The line boxes of each cell's text (a cell is as tall as its row, so its own height says nothing).
+    const lines = await cells.evaluateAll(tds => tds.map((td) => {
+      const range = document.createRange()
+      range.selectNodeContents(td)
+      return { text: td.textContent!.trim(), lines: new Set([...range.getClientRects()].filter(r => r.width > 0).map(r => Math.round(r.top))).size }
+    }))
+    expect(lines.length).toBeGreaterThanOrEqual(2)
+    for (const l of lines) expect(l.lines, `"${l.text}" on one line`).toBe(1)
+    await page.context().close()
+  })
+
   it('the demo fabrication order tells its story up to now, never in the future', async () => {
     const { page, labId } = await demoPage('fabricator@brackenfold.example', 1024)
     const orders = (await (await page.request.get(`/api/labs/${labId}/orders`)).json()) as { orders: Array<{ id: string }> } | Array<{ id: string }>
