@@ -1,0 +1,28 @@
+// The compare table as a reviewer reads it (issue 16, the final walk): an inlet's setting never splits from its unit
+// ("0.8" on one line, "µL/min" on the next, seen at 1440 px), and a channel's new path reads as its points, not JSON.
+import { mount } from '@vue/test-utils'
+import { describe, expect, it } from 'vitest'
+import RevisionCompareTable from '../../../components/revision/RevisionCompareTable.vue'
+
+const summary = { junctions: [], inlets: [], counts: {}, findings: { errors: 0, warnings: 0, infos: 0 } }
+const inlets = (oil: number, water: number) => [{ portId: 'oil-in', mode: 'flow', value: oil, unit: 'uL/min' }, { portId: 'water-in', mode: 'flow', value: water, unit: 'uL/min' }]
+const diff = {
+  added: [], removed: [], changed: ['oil-feed'],
+  entries: [
+    { collection: 'operatingPoints', id: 'op-1', status: 'changed', fields: [{ path: 'inlets', before: inlets(0.8, 0.4), after: inlets(0.6, 0.3) }] },
+    { collection: 'channels', id: 'oil-feed', status: 'changed', fields: [{ path: 'points', before: [{ x: 0, y: 0 }, { x: 10, y: 0 }], after: [{ x: 0, y: 0 }, { x: 5, y: 5 }, { x: 10, y: 0 }] }] },
+  ],
+}
+
+describe('RevisionCompareTable', () => {
+  const w = mount(RevisionCompareTable, { props: { diff: diff as never, before: summary as never, after: summary as never, beforeLabel: 'r1', afterLabel: 'r2' } })
+  it('keeps each inlet\'s number with its unit and breaks only between inlets', () => {
+    const cells = w.get('[data-test="compare-op-1-inlets"]').findAll('td.num').map(c => c.text())
+    expect(cells[0]).toBe('oil-in\u00A00.8\u00A0µL/min, water-in\u00A00.4\u00A0µL/min')
+    expect(cells[1]).toBe('oil-in\u00A00.6\u00A0µL/min, water-in\u00A00.3\u00A0µL/min')
+  })
+  it('a channel\'s path reads as its count of points, never JSON', () => {
+    const cells = w.get('[data-test="compare-oil-feed-points"]').findAll('td.num').map(c => c.text())
+    expect(cells).toEqual(['2 points', '3 points'])
+  })
+})
