@@ -10,6 +10,7 @@ const diff = {
   added: [], removed: [], changed: ['oil-feed'],
   entries: [
     { collection: 'operatingPoints', id: 'op-1', status: 'changed', fields: [{ path: 'inlets', before: inlets(0.8, 0.4), after: inlets(0.6, 0.3) }] },
+    { collection: 'ports', id: 'water-in', status: 'changed', kind: 'inlet', fields: [{ path: 'feed', before: { phase: 'continuous' }, after: { phase: 'dispersed' } }] },
     { collection: 'channels', id: 'oil-feed', status: 'changed', fields: [{ path: 'points', before: [{ x: 0, y: 0 }, { x: 10, y: 0 }], after: [{ x: 0, y: 0 }, { x: 5, y: 5 }, { x: 10, y: 0 }] }] },
   ],
 }
@@ -24,5 +25,10 @@ describe('RevisionCompareTable', () => {
   it('a channel\'s path reads as its count of points, never JSON', () => {
     const cells = w.get('[data-test="compare-oil-feed-points"]').findAll('td.num').map(c => c.text())
     expect(cells).toEqual(['2 points', '3 points'])
+  })
+  it('any other changed object reads in words, not JSON', () => {
+    const cells = w.get('[data-test="compare-water-in-feed"]').findAll('td.num').map(c => c.text())
+    expect(cells.join(' ')).not.toMatch(/[{}"]/)
+    expect(cells[1]).toContain('dispersed')
   })
 })
