@@ -1,5 +1,6 @@
-// The compare table as a reviewer reads it (issue 16, the final walk): an inlet's setting never splits from its unit
-// ("0.8" on one line, "µL/min" on the next, seen at 1440 px), and a channel's new path reads as its points, not JSON.
+// The compare table as a reviewer reads it (issue 16, the final walk): an inlet's setting never splits ("0.8" on one
+// line and "µL/min" on the next at 1440 px, "oil-" above "in" at 1024 px), and a channel's new path reads as its
+// points, not JSON.
 import { mount } from '@vue/test-utils'
 import { describe, expect, it } from 'vitest'
 import RevisionCompareTable from '../../../components/revision/RevisionCompareTable.vue'
@@ -18,9 +19,10 @@ const diff = {
 describe('RevisionCompareTable', () => {
   const w = mount(RevisionCompareTable, { props: { diff: diff as never, before: summary as never, after: summary as never, beforeLabel: 'r1', afterLabel: 'r2' } })
   it('keeps each inlet\'s number with its unit and breaks only between inlets', () => {
-    const cells = w.get('[data-test="compare-op-1-inlets"]').findAll('td.num').map(c => c.text())
-    expect(cells[0]).toBe('oil-in\u00A00.8\u00A0µL/min, water-in\u00A00.4\u00A0µL/min')
-    expect(cells[1]).toBe('oil-in\u00A00.6\u00A0µL/min, water-in\u00A00.3\u00A0µL/min')
+    const cells = w.get('[data-test="compare-op-1-inlets"]').findAll('td.num')
+    expect(cells.map(c => c.text())).toEqual(['oil-in 0.8 µL/min, water-in 0.4 µL/min', 'oil-in 0.6 µL/min, water-in 0.3 µL/min'])
+    // Each inlet's setting in a piece that never breaks inside (not after "oil-", not between "0.8" and "µL/min").
+    expect(cells[0]!.findAll('span.whitespace-nowrap').map(s => s.text())).toEqual(['oil-in 0.8 µL/min', 'water-in 0.4 µL/min'])
   })
   it('a channel\'s path reads as its count of points, never JSON', () => {
     const cells = w.get('[data-test="compare-oil-feed-points"]').findAll('td.num').map(c => c.text())
