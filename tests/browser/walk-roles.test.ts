@@ -85,6 +85,50 @@ describe('the walk at 1440 and 1024 px wide', () => {
     await page.context().close()
   })
 
+  it('1024 px: the compare table keeps each inlet setting whole and inside its column', async () => {
+    const { page, labId } = await demoPage('reviewer@quillmere.example', 1024)
+    const listed = JSON.stringify(await (await page.request.get(`/api/labs/${labId}/designs?q=Cell%20encapsulation`)).json())
+    const designId = /"id":"([^"]+)"/.exec(listed)![1]
+    const revisions = JSON.stringify(await (await page.request.get(`/api/labs/${labId}/designs/${designId}/revisions`)).json())
+    const ids = [...revisions.matchAll(/"id":"([0-9a-f-]{36})"/g)].map(m => m[1]!)
+    expect(ids.length).toBeGreaterThanOrEqual(2)
+    await page.goto(`/labs/${labId}/revisions/${ids.at(-1)}/compare/${ids.at(-2)}`)
+    await hydrated(page)
+    const cells = page.locator('[data-test="compare-parameters"] td.num')
+    await cells.first().waitFor()
+    // Each cell's text as the lines it is laid out in (character by character), and how far it runs past the cell.
+    const seen = await cells.evaluateAll(tds => tds.map((td) => {
+      const lines: string[] = []
+      let top: number | null = null
+      let over = 0
+      const walker = document.createTreeWalker(td, NodeFilter.SHOW_TEXT)
+      for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+        for (let i = 0; i < node.textContent!.length; i++) {
+          const r = document.createRange()
+          r.setStart(node, i)
+          r.setEnd(node, i + 1)
+          const box = r.getBoundingClientRect()
+          if (box.width === 0 && box.height === 0) continue
+          over = Math.max(over, box.right - td.getBoundingClientRect().right)
+          if (top === null || Math.abs(box.top - top) > 2) { lines.push(''); top = box.top }
+          lines[lines.length - 1] += node.textContent![i]
+        }
+      }
+      return { text: td.textContent!, lines: lines.map(l => l.trim()), over }
+    }))
+    const inlets = seen.filter(c => /µL\/min/.test(c.text))
+    expect(inlets.length).toBeGreaterThanOrEqual(2)
+    for (const c of inlets) {
+      expect(c.over, `"${c.text}" inside its column`).toBeLessThanOrEqual(1)
+      for (const [k, line] of c.lines.entries()) {
+        const next = c.lines[k + 1]
+        if (next === undefined) continue
+        expect(`${line} | ${next}`, 'no line ends on a number whose unit starts the next, or inside "oil-in"').not.toMatch(/(\d \| [µn]L)|(- \| )/)
+      }
+    }
+    await page.context().close()
+  })
+
   it('the demo fabrication order tells its story up to now, never in the future', async () => {
     const { page, labId } = await demoPage('fabricator@brackenfold.example', 1024)
     const orders = (await (await page.request.get(`/api/labs/${labId}/orders`)).json()) as { orders: Array<{ id: string }> } | Array<{ id: string }>

@@ -21,8 +21,8 @@ describe('RevisionCompareTable', () => {
   it('keeps each inlet\'s number with its unit and breaks only between inlets', () => {
     const cells = w.get('[data-test="compare-op-1-inlets"]').findAll('td.num')
     expect(cells.map(c => c.text())).toEqual(['oil-in 0.8 µL/min, water-in 0.4 µL/min', 'oil-in 0.6 µL/min, water-in 0.3 µL/min'])
-    // Each inlet's setting in a piece that never breaks inside (not after "oil-", not between "0.8" and "µL/min").
-    expect(cells[0]!.findAll('span.whitespace-nowrap').map(s => s.text())).toEqual(['oil-in 0.8 µL/min', 'water-in 0.4 µL/min'])
+    // An inlet's name and its setting in pieces that never break inside (not after "oil-", not between "0.8" and "µL/min").
+    expect(cells[0]!.findAll('span.whitespace-nowrap').map(s => s.text())).toEqual(['oil-in', '0.8 µL/min', 'water-in', '0.4 µL/min'])
   })
   it('a channel\'s path reads as its count of points, never JSON', () => {
     const cells = w.get('[data-test="compare-oil-feed-points"]').findAll('td.num').map(c => c.text())
