@@ -111,7 +111,7 @@ describe('the walk at 1440 and 1024 px wide', () => {
           if (box.width === 0 && box.height === 0) continue
           over = Math.max(over, box.right - td.getBoundingClientRect().right)
           if (top === null || Math.abs(box.top - top) > 2) { lines.push(''); top = box.top }
-          lines[lines.length - 1] += node.textContent![i]
+          lines[lines.length - 1] = `${lines.at(-1) ?? ''}${node.textContent!.charAt(i)}`
         }
       }
       return { text: td.textContent!, lines: lines.map(l => l.trim()), over }
