@@ -11,7 +11,7 @@ function tJunction(mainWidth: number, inletWidth: number, qc: number, qd: number
   for (const port of d.ports) port.layerId = 'ch25'
   Object.assign(d.components[0], { layerId: 'ch25', mainWidth, inletWidth, armLength: Math.max(200, mainWidth) })
   for (const c of d.channels) Object.assign(c, { layerId: 'ch25', width: c.id === 'water-feed' ? inletWidth : mainWidth })
-  d.operatingPoints[0].name = 'Cells in 40 um drops'
+  d.operatingPoints[0].name = 'Cells in 40 µm drops'
   d.operatingPoints[0].inlets = [
     { portId: 'oil-in', mode: 'flow', value: qc, unit: 'uL/min' },
     { portId: 'water-in', mode: 'flow', value: qd, unit: 'uL/min' },

@@ -17,7 +17,7 @@ export const DEMO_PAIR = { liquids: ['water', DEMO_OIL.key] as [string, string],
 export async function seedDemoLibrary(db: Db, labId: string, adminId: string) {
   const rows = [
     { kind: 'liquid', key: DEMO_OIL.key, name: DEMO_OIL.name, data: { table: DEMO_OIL.table } },
-    { kind: 'pair', key: pairKey(DEMO_PAIR.liquids, DEMO_PAIR.surfactant), name: `water in ${DEMO_OIL.key}, ${DEMO_PAIR.surfactant}`, data: DEMO_PAIR },
+    { kind: 'pair', key: pairKey(DEMO_PAIR.liquids, DEMO_PAIR.surfactant), name: `Water in ${DEMO_OIL.name}, sorbitan monooleate`, data: DEMO_PAIR },
   ]
   for (const row of rows) {
     const [existing] = await db.select({ id: labLibraryEntries.id }).from(labLibraryEntries)

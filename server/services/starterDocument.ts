@@ -34,7 +34,7 @@ const STARTER = {
     {"id": "label", "kind": "text", "position": {"x": 6500, "y": 500}, "text": "DW TJ 01", "height": 300, "layerIds": []},
   ],
   "operatingPoints": [
-    {"id": "op-1", "name": "Cells in 40 um drops", "temperatureC": 22, "continuousLiquid": {"liquid": "n-hexadecane"}, "dispersedLiquid": {"liquid": "water"}, "surfactant": "sorbitan-monooleate", "inlets": [{"portId": "oil-in", "mode": "flow", "value": 3, "unit": "uL/min"}, {"portId": "water-in", "mode": "flow", "value": 1.5, "unit": "uL/min"}]},
+    {"id": "op-1", "name": "Cells in 40 µm drops", "temperatureC": 22, "continuousLiquid": {"liquid": "n-hexadecane"}, "dispersedLiquid": {"liquid": "water"}, "surfactant": "sorbitan-monooleate", "inlets": [{"portId": "oil-in", "mode": "flow", "value": 3, "unit": "uL/min"}, {"portId": "water-in", "mode": "flow", "value": 1.5, "unit": "uL/min"}]},
   ],
   "activeOperatingPoint": "op-1",
 }

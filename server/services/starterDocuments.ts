@@ -69,7 +69,7 @@ export const STEP_EMULSIFIER_STARTER = {
   ],
   operatingPoints: [
     {
-      id: 'op-1', name: 'Uniform 40 um drops', temperatureC: 22, contactAngleDeg: 150,
+      id: 'op-1', name: 'Uniform 40 µm drops', temperatureC: 22, contactAngleDeg: 150,
       continuousLiquid: { liquid: 'hydrofluoroether' }, dispersedLiquid: { liquid: 'water' }, surfactant: 'fluorinated-block-copolymer',
       inlets: [
         { portId: 'water-in', mode: 'flow', value: 0.05, unit: 'uL/min' },

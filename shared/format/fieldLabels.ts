@@ -27,6 +27,10 @@ export const FIELD_LABELS: Record<string, string> = {
   'surfactant': 'Surfactant', 'interfacialTensionMNPerM': 'Interfacial tension', 'contactAngleDeg': 'Contact angle',
   'massFraction': 'Mass fraction', 'liquid': 'Liquid', 'activeOperatingPoint': 'Active operating point', 'version': 'Document version',
   'units': 'Drawing units', 'outline': 'Chip outline', 'text': 'Text', 'layers': 'Layers', 'terminals': 'Connections',
+  // A fabrication process's design-rule values (shared/schemas/libraries.ts).
+  'minFeature': 'Smallest feature', 'minGap': 'Smallest gap', 'minDepth': 'Smallest depth', 'maxDepth': 'Largest depth',
+  'maxWidthToDepth': 'Largest width/depth ratio', 'maxWallDepthToWidth': 'Largest wall depth/width ratio',
+  'portEdgeDistance': 'Port to chip edge', 'portSpacing': 'Port spacing', 'bondPressureLimitMbar': 'Bond pressure limit',
 }
 
 /** Splits "document.ports[0].x", "ports.0.x" or ["ports", 0, "x"] into steps. */

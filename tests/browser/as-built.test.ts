@@ -8,6 +8,7 @@ import { labWithDesign } from '../support/designs'
 import { TEST_PASSWORD } from '../support/factory'
 import { mailTo } from '../support/mail'
 import { releasedOrder } from '../support/orders'
+import { worldOnPage } from '../support/canvas'
 
 let browser: Browser
 let c: Awaited<ReturnType<typeof labWithDesign>>
@@ -23,12 +24,8 @@ afterAll(async () => { await browser?.close() })
 
 const as = (role: string): Promise<Page> => signedInPage(browser, emails[role]!, TEST_PASSWORD)
 
-/** Screen point of a world point (µm) on the fixture chip (10 × 7 mm), fitted into the viewer with a 24 px margin. */
-async function at(page: Page, x: number, y: number) {
-  const b = (await page.locator('[data-test="viewer-canvas"]').boundingBox())!
-  const s = Math.min((b.width - 48) / 10000, (b.height - 48) / 7000)
-  return { x: b.x + b.width / 2 + (x - 5000) * s, y: b.y + b.height / 2 - (y - 3500) * s }
-}
+/** Screen point of a world point (µm) on the fixture chip, through the viewer's own view. */
+const at = (page: Page, x: number, y: number) => worldOnPage(page, '[data-test="viewer-canvas"]', x, y)
 
 describe('the as-built report in the browser (real Chromium, server, PostgreSQL, fake S3 and SMTP)', () => {
   it('fabricator records a depth, a picked width and a CSV; the designer sees the comparison, the mail and the PDF', async () => {

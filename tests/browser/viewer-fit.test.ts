@@ -1,6 +1,7 @@
 // The revision viewer shows the whole chip, with a margin, on load and after Fit, at the widths people use
 // (1440 and 1024 CSS px). A full page load hydrates the page, and Nuxt renders a `.client` component's template
 // only after it mounts: the canvas once kept its default 800 × 600 px inside a smaller frame and cut the chip off.
+// The layer panel floats over the frame's top-left corner: Fit keeps the chip clear of it (it hid the chip's corner).
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { hydrated, launch, signInAs } from '../support/browser'
@@ -40,6 +41,22 @@ async function edgeInk(page: Page, band = 6) {
   }, band)
 }
 
+/** Chip pixels painted under the layer panel floating in the frame's top-left corner (hidden from the reader). */
+async function inkUnderPanel(page: Page) {
+  return page.evaluate(() => {
+    const frame = document.querySelector('[data-test="viewer-canvas"]') as HTMLElement
+    const panel = frame.querySelector('[data-test="layer-toggles"]')!.parentElement as HTMLElement
+    const canvas = frame.querySelector('canvas') as HTMLCanvasElement
+    const ratio = canvas.width / parseFloat(canvas.style.width)
+    const w = Math.round((panel.offsetLeft + panel.offsetWidth) * ratio)
+    const h = Math.round((panel.offsetTop + panel.offsetHeight) * ratio)
+    const data = canvas.getContext('2d')!.getImageData(0, 0, w, h).data
+    let inked = 0
+    for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) inked++
+    return inked
+  })
+}
+
 describe('revision viewer framing', () => {
   for (const width of [1440, 1024]) {
     it(`fits the whole chip at ${width} px wide, on load and after Fit`, async () => {
@@ -56,6 +73,7 @@ describe('revision viewer framing', () => {
       const loaded = await edgeInk(page)
       expect(loaded.anyInk, 'the chip is drawn').toBeGreaterThan(1000)
       expect(loaded.inked, `chip pixels within 6 px of the frame edge (of ${loaded.total})`).toBe(0)
+      expect(await inkUnderPanel(page), 'chip pixels hidden under the layer panel').toBe(0)
 
       await page.locator('[data-test="viewer-canvas"]').focus()
       await page.keyboard.press('+')
@@ -64,6 +82,7 @@ describe('revision viewer framing', () => {
       await page.waitForTimeout(200)
       const fitted = await edgeInk(page)
       expect(fitted.inked).toBe(0)
+      expect(await inkUnderPanel(page)).toBe(0)
       expect(fitted.anyInk).toBeGreaterThan(1000)
       await context.close()
     })

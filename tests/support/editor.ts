@@ -2,14 +2,11 @@
 import type { Browser, Page } from 'playwright-core'
 import { inject } from 'vitest'
 import { hydrated } from './browser'
+import { worldOnPage } from './canvas'
 import type { ApiClient } from './api'
 
-/** Screen point of a world point (µm) on the fixture chip, fitted into the canvas with a 24 px margin. */
-export async function at(page: Page, x: number, y: number) {
-  const b = (await page.locator('[data-test="editor-canvas"]').boundingBox())!
-  const s = Math.min((b.width - 48) / 10000, (b.height - 48) / 7000)
-  return { x: b.x + b.width / 2 + (x - 5000) * s, y: b.y + b.height / 2 - (y - 3500) * s }
-}
+/** Screen point of a world point (µm) on the editor's canvas, through the canvas's own view. */
+export const at = (page: Page, x: number, y: number) => worldOnPage(page, '[data-test="editor-canvas"]', x, y)
 
 /** The editor's working document, as plain JSON. */
 export const editorDoc = (page: Page) => page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))

@@ -1,14 +1,18 @@
 // The view state of a chip canvas: size, zoom and pan, with wheel, keyboard and drag handling. Shared by the
 // read-only viewer and, later, the editor (which adds tools on top of the same view).
 import { ref, shallowRef } from 'vue'
-import { centreOn, fitToBounds, panBy, screenPoint, screenToWorld, worldPoint, zoomAround, type Bounds, type View, type ViewportSize, type WorldPoint } from './viewport'
+import { centreOn, fitClearOf, fitToBounds, panBy, screenPoint, screenToWorld, worldPoint, zoomAround, type Bounds, type View, type ViewportSize, type WorldPoint } from './viewport'
 
 export const ZOOM_STEP = 1.5
 /** Space left around the chip by Fit, in CSS pixels. */
 export const FIT_MARGIN_PX = 24
 const DRAG_THRESHOLD_PX = 3
 
-export function useChipView(bounds: () => Bounds) {
+/**
+ * `corner`: the right and bottom edges (CSS px) of a panel floating over the canvas's top-left corner (the layer
+ * toggles), which Fit keeps the chip clear of; null when there is none.
+ */
+export function useChipView(bounds: () => Bounds, corner: () => { width: number; height: number } | null = () => null) {
   const size = ref<ViewportSize>({ width: 800, height: 600 })
   const view = shallowRef<View>(fitToBounds(bounds(), size.value))
   const cursor = shallowRef<WorldPoint | null>(null)
@@ -16,7 +20,9 @@ export function useChipView(bounds: () => Bounds) {
   // The view follows Fit (on first layout and on every resize) until the person zooms or pans.
   let following = true
 
-  const fit = () => { view.value = fitToBounds(bounds(), size.value, FIT_MARGIN_PX); following = true }
+  const fit = () => { view.value = fitClearOf(bounds(), size.value, FIT_MARGIN_PX, corner()); following = true }
+  /** Fits again after something the fit depends on changed (the corner panel opened or closed), unless the person has zoomed or panned. */
+  const refit = () => { if (following) fit() }
   const moved = (next: View) => { view.value = next; following = false }
   const zoomBy = (factor: number, at = screenPoint(size.value.width / 2, size.value.height / 2)) => moved(zoomAround(view.value, factor, at))
   const centre = (x: number, y: number) => moved(centreOn(view.value, worldPoint(x, y), size.value))
@@ -76,5 +82,5 @@ export function useChipView(bounds: () => Bounds) {
     return click
   }
 
-  return { size, view, cursor, panning, fit, zoomBy, centre, setView, resize, onWheel, onKey, pointerDown, pointerMove, pointerUp }
+  return { size, view, cursor, panning, fit, refit, zoomBy, centre, setView, resize, onWheel, onKey, pointerDown, pointerMove, pointerUp }
 }

@@ -46,6 +46,37 @@ export function fitToBounds(bounds: Bounds, viewportPx: ViewportSize, margin = 2
   return { scale, tx: viewportPx.width / 2 - scale * cx, ty: viewportPx.height / 2 + scale * cy }
 }
 
+/** A box on the screen, in CSS pixels from the viewport's top-left corner. */
+export interface ScreenBox { x: number; y: number; width: number; height: number }
+
+/** `fitToBounds` inside a part of the viewport (`box`), the view still in the viewport's own pixels. */
+export function fitInBox(bounds: Bounds, box: ScreenBox, margin = 24): View {
+  const v = fitToBounds(bounds, { width: box.width, height: box.height }, margin)
+  return { scale: v.scale, tx: v.tx + box.x, ty: v.ty + box.y }
+}
+
+/** Where `bounds` lands on the screen under `view`. */
+export function screenBoxOf(view: View, bounds: Bounds): ScreenBox {
+  const a = worldToScreen(view, worldPoint(bounds.minX, bounds.maxY))
+  const b = worldToScreen(view, worldPoint(bounds.maxX, bounds.minY))
+  return { x: a.x, y: a.y, width: b.x - a.x, height: b.y - a.y }
+}
+
+/**
+ * Fit that keeps the chip clear of a panel floating over the viewport's top-left corner (`corner`: its right and
+ * bottom edges, CSS px): the plain fit when the chip misses the panel, else the larger of the fits below it and
+ * beside it, so no part of the chip is hidden under the panel.
+ */
+export function fitClearOf(bounds: Bounds, viewportPx: ViewportSize, margin = 24, corner?: { width: number; height: number } | null): View {
+  const plain = fitToBounds(bounds, viewportPx, margin)
+  if (!corner || corner.width <= 0 || corner.height <= 0) return plain
+  const on = screenBoxOf(plain, bounds)
+  if (on.x >= corner.width || on.y >= corner.height) return plain
+  const below = fitInBox(bounds, { x: 0, y: corner.height, width: viewportPx.width, height: Math.max(viewportPx.height - corner.height, 1) }, margin)
+  const beside = fitInBox(bounds, { x: corner.width, y: 0, width: Math.max(viewportPx.width - corner.width, 1), height: viewportPx.height }, margin)
+  return below.scale >= beside.scale ? below : beside
+}
+
 /** Zooms by `factor` keeping the world point under `screenPoint` fixed on the screen (clamped to the limits). */
 export function zoomAround(view: View, factor: number, at: ScreenPoint): View {
   const scale = clampScale(view.scale * factor)

@@ -1,10 +1,12 @@
 // The editor's set-up panels: layers, operating points, a channel's points and the outline's clear button.
-import { mount } from '@vue/test-utils'
+import { flushPromises, mount } from '@vue/test-utils'
 import { describe, expect, it } from 'vitest'
+import { defineComponent, h } from 'vue'
 import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/chip'
 import EditorInspector from '../../../components/editor/EditorInspector.vue'
 import EditorLayers from '../../../components/editor/EditorLayers.vue'
 import EditorOperatingPoint from '../../../components/editor/EditorOperatingPoint.vue'
+import { provideCanvasFocus } from '../../../components/editor/lib/focusCanvas'
 import fixture from '../../fixtures/documents/t-junction-basic.json'
 
 const doc = (): ChipDocument => { const r = parseChipDocument(structuredClone(fixture)); if (!r.ok) throw new Error('fixture'); return r.document }
@@ -120,5 +122,47 @@ describe('EditorInspector: channels and the outline', () => {
     expect(w.emitted('outline')).toBeUndefined()
     await w.get('[data-test="field-outline.width"]').setValue('12000')
     expect(w.emitted('outline')![0]).toEqual([{ width: 12000 }])
+  })
+})
+
+describe('EditorOperatingPoint: the editor\'s one number box', () => {
+  // A parent that gives the panel the workspace's "focus the drawing" hook, as EditorWorkspace does.
+  const withCanvas = (focused: string[], document = doc()) => mount(defineComponent({
+    setup() { provideCanvasFocus(() => focused.push('canvas')); return () => h(EditorOperatingPoint, { document, onInlet: (...a: unknown[]) => focused.push(`inlet ${JSON.stringify(a)}`), onField: (...a: unknown[]) => focused.push(`field ${JSON.stringify(a)}`) }) },
+  }))
+
+  it('Enter in an inlet box commits once and hands the keyboard to the drawing; a refused Enter keeps it', async () => {
+    const focused: string[] = []
+    const w = withCanvas(focused)
+    const box = w.get('[data-test="inlet-value-water-in"]')
+    await box.setValue('abc')
+    await box.trigger('keydown', { key: 'Enter' })
+    await flushPromises()
+    expect(w.get('[data-test="inlet-error-water-in"]').text()).toContain('Enter a number')
+    expect(focused).toEqual([])
+    await box.setValue('3')
+    await box.trigger('keydown', { key: 'Enter' })
+    await box.trigger('change')
+    await flushPromises()
+    expect(focused).toEqual([`inlet ${JSON.stringify(['op-1', { portId: 'water-in', mode: 'flow', value: 3, unit: 'uL/min' }])}`, 'canvas'])
+    expect(w.find('[data-test="inlet-error-water-in"]').exists()).toBe(false)
+  })
+
+  it('the temperature box: Enter commits a valid value and hands the keyboard over; −1000 °C is refused and stays typed', async () => {
+    const focused: string[] = []
+    const w = withCanvas(focused)
+    const t = w.get('[data-test="op-temperature"]')
+    await t.setValue('-1000')
+    await t.trigger('keydown', { key: 'Enter' })
+    await flushPromises()
+    expect(w.get('[data-test="op-temperature-error"]').text()).toContain('between −20 °C and 150 °C')
+    expect((t.element as HTMLInputElement).value).toBe('-1000')
+    expect(focused).toEqual([])
+    ;(t.element as HTMLInputElement).value = '25'
+    await t.trigger('input')
+    await t.trigger('keydown', { key: 'Enter' })
+    await flushPromises()
+    expect(w.find('[data-test="op-temperature-error"]').exists()).toBe(false)
+    expect(focused).toEqual([`field ${JSON.stringify(['op-1', 'temperatureC', 25])}`, 'canvas'])
   })
 })

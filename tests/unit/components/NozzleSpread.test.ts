@@ -50,6 +50,15 @@ describe('spread across nozzles', () => {
     expect(groups[0]!.diameter).toMatchObject({ min: 30, max: 45 })
   })
 
+  it('a bank reads "Bank of step nozzles" and nozzles that agree read one value, not "32 µm – 32 µm"', () => {
+    const bank = Array.from({ length: 64 }, (_, k) => ({ id: `sn-${k + 1}`, kind: 'step-nozzle', regime: 'step-emulsification', dropletDiameterUm: 32.0004 + k * 1e-5, frequencyHz: 340 + k * 0.1, valid: true }))
+    const w = mount(RevisionForecast, { props: { summary: { ...summary, junctions: bank } as never } })
+    const spread = w.get('[data-test="nozzle-spread-bank-step-nozzle"]')
+    expect(spread.get('h3').text()).toBe('Bank of step nozzles: spread across 64 nozzles')
+    expect(w.get('[data-test="spread-diameter"]').text()).toBe('32 µm at every nozzle')
+    expect(spread.text()).toContain('340 Hz – 346 Hz, mean 343 Hz')
+  })
+
   it('the revision page shows the spread, not "and 244 more junctions"; the table expands and sorts', async () => {
     const w = mount(RevisionForecast, { props: { summary: summary as never }, attachTo: document.body })
     expect(w.text()).not.toMatch(/more junctions/)

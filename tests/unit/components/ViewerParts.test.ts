@@ -25,6 +25,12 @@ describe('ViewerLayerToggles', () => {
     expect(w.emitted('toggle-marks')).toHaveLength(1)
     expect(hidden).toEqual(['deep'])
   })
+
+  it('writes a depth through shared/format: a 1500 µm reservoir is 1.5 mm deep, a 0.5 µm film 500 nm', () => {
+    const w = mount(ViewerLayerToggles, { props: { layers: [{ ...layers[0]!, depth: 0.5 }, { ...layers[1]!, depth: 1500 }], hidden: [], showMarks: true } })
+    expect(w.get('[data-test="layer-nozzle"]').text()).toContain('500 nm deep')
+    expect(w.get('[data-test="layer-deep"]').text()).toContain('1.5 mm deep')
+  })
 })
 
 describe('ViewerScaleBar', () => {

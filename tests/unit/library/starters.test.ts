@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest'
 import { forecastDocument, summarizeForecast } from '#shared/physics/document'
 import { BUILT_IN_PROCESSES, checkDesignRules } from '~~/geometry/rules'
 import { STARTERS, starterDocument } from '../../../server/services/starterDocument'
+import { demoDesigns } from '../../../server/db/demo-designs'
 
 const EXPECTED = {
   't-junction': { regime: 'squeezing', standing: [] as string[], valid: true },
@@ -40,5 +41,18 @@ describe('starter chips', () => {
     const d = forecastDocument(starterDocument('Step', 'step-emulsifier')).junctions[0]!.forecast!.dropletDiameter.value
     expect(d / 10e-6).toBeGreaterThan(3.5)
     expect(d / 10e-6).toBeLessThan(4.5)
+  })
+})
+
+describe('names in the starter and demo chips read as the trade writes them', () => {
+  // "40 um" on screen is the ASCII stand-in for µm that a person would never type in a name (issue 16, seen on the
+  // revision page and in the compare table).
+  const names = (doc: { name?: string, operatingPoints: Array<{ name: string }>, layers: Array<{ name: string }> }) =>
+    [doc.name ?? '', ...doc.operatingPoints.map(o => o.name), ...doc.layers.map(l => l.name)]
+  it('no "um" for micrometres in a starter or demo chip\'s names', () => {
+    const all = [...STARTERS.map(k => starterDocument(`Starter ${k}`, k)), ...demoDesigns().flatMap(d => d.revisions.map(r => r.document))]
+    const asciiMicro = all.flatMap(d => names(d as never)).filter(n => /\d\s?um\b/.test(n))
+    expect(asciiMicro).toEqual([])
+    expect(all.length).toBeGreaterThan(STARTERS.length)
   })
 })

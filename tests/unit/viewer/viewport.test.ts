@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  MAX_SCALE, MIN_SCALE, centreOn, fitToBounds, panBy, screenPoint, screenToWorld, visibleBounds, worldPoint, worldToScreen, zoomAround,
+  MAX_SCALE, MIN_SCALE, centreOn, fitClearOf, fitToBounds, screenBoxOf, panBy, screenPoint, screenToWorld, visibleBounds, worldPoint, worldToScreen, zoomAround,
 } from '../../../components/viewer/lib/viewport'
 
 const size = { width: 800, height: 600 }
@@ -62,5 +62,40 @@ describe('viewport maths', () => {
     const c = centreOn({ scale: 0.5, tx: 0, ty: 0 }, worldPoint(1000, 2000), size)
     expect(worldToScreen(c, worldPoint(1000, 2000))).toEqual({ x: 400, y: 300 })
     expect(visibleBounds({ scale: 1, tx: 0, ty: 600 }, size)).toEqual({ minX: 0, minY: 0, maxX: 800, maxY: 600 })
+  })
+})
+
+describe('fitClearOf: the chip never under the layer panel in the corner', () => {
+  const vp = { width: 560, height: 390 }
+  const panel = { width: 245, height: 95 }
+  const inside = (box: { x: number, y: number, width: number, height: number }) => [box.x >= 0, box.y >= 0, box.x + box.width <= vp.width, box.y + box.height <= vp.height]
+  const clear = (box: { x: number, y: number }) => box.x >= panel.width || box.y >= panel.height
+
+  it('a tall chip (the 64-nozzle array, 7.55 × 11.78 mm) moves beside the panel at nearly the plain scale', () => {
+    const b = { minX: -2000, minY: -2000, maxX: 5550, maxY: 9780 }
+    const plain = fitToBounds(b, vp, 24)
+    expect(clear(screenBoxOf(plain, b))).toBe(false) // the plain fit puts its top-left corner under the panel
+    const v = fitClearOf(b, vp, 24, panel)
+    const box = screenBoxOf(v, b)
+    expect(clear(box)).toBe(true)
+    expect(inside(box)).toEqual([true, true, true, true])
+    expect(box.x).toBeCloseTo(panel.width + (vp.width - panel.width - box.width) / 2, 6)
+    expect(v.scale).toBeCloseTo(plain.scale, 9) // height-limited either way
+  })
+
+  it('a wide chip (10 × 7 mm) goes below the panel, whole and inside the margin', () => {
+    const b = { minX: 0, minY: 0, maxX: 10000, maxY: 7000 }
+    const v = fitClearOf(b, { width: 640, height: 440 }, 24, { width: 150, height: 70 })
+    const box = screenBoxOf(v, b)
+    expect(box.y).toBeGreaterThanOrEqual(70 + 24 - 1e-9)
+    expect(box.y + box.height).toBeLessThanOrEqual(440 - 24 + 1e-9)
+    expect(box.x).toBeGreaterThanOrEqual(24 - 1e-9)
+    expect(v.scale).toBeCloseTo(Math.max((440 - 70 - 48) / 7000, (640 - 150 - 48) / 10000), 9)
+  })
+
+  it('keeps the plain fit when the chip misses the panel, or with no panel', () => {
+    const b = { minX: 0, minY: 0, maxX: 1000, maxY: 10000 }
+    expect(fitClearOf(b, vp, 24, { width: 100, height: 40 })).toEqual(fitToBounds(b, vp, 24))
+    expect(fitClearOf(b, vp, 24, null)).toEqual(fitToBounds(b, vp, 24))
   })
 })
