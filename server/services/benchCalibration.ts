@@ -6,6 +6,7 @@ import type { LabCaller } from '../utils/access'
 import { useDb } from '../utils/db'
 import { labRunsForCalibration } from './bench'
 import type { RunPrediction } from './benchForecast'
+import type { RevisionSummary } from '#shared/types/designs'
 import { findDesign } from './designGuards'
 
 async function calibrationsOf(caller: LabCaller) {
@@ -29,12 +30,16 @@ export async function labCalibrations(caller: LabCaller, designId?: string) {
   const [mode] = await db.select().from(designForecastModes).where(eq(designForecastModes.designId, designId))
   const [latest] = await db.select({ id: revisions.id, summary: revisions.summary }).from(revisions)
     .where(and(eq(revisions.designId, designId), eq(revisions.labId, caller.lab.labId))).orderBy(desc(revisions.number)).limit(1)
-  // The calibrated forecast per junction uses the predictions kept with this design's runs (flow ratio, sizes).
+  // Per junction of this design's runs: the model's size is the latest revision's own forecast at its operating
+  // point (a run's prediction may be at the flows set at the bench); the calibration is applied to it at the design's
+  // flow ratio, with the junction sizes kept with the run.
   const runs = (await labRunsForCalibration(caller)).filter(r => r.designId === designId && r.predicted)
+  const designed = new Map(((latest?.summary as RevisionSummary | undefined)?.junctions ?? []).map(j => [j.id, j.dropletDiameterUm]))
   const junctions = runs.length
     ? [...new Map(runs.map(r => [((r.predicted as unknown) as RunPrediction).junctionId, (r.predicted as unknown) as RunPrediction])).values()].map((p) => {
         const calibration = calibrations.find(c => c.kind === calibrationKey(p.kind, p.regime))
-        return { junctionId: p.junctionId, kind: calibrationKey(p.kind, p.regime), modelDiameterUm: p.diameterUm, calibrated: calibration ? calibratedDiameterUm(calibration, { predictedDiameterUm: p.diameterUm, flowRatio: p.forecastFlowRatio, mainWidthUm: p.mainWidthUm, depthUm: p.depthUm }) : null }
+        const model = designed.get(p.junctionId) ?? p.diameterUm
+        return { junctionId: p.junctionId, kind: calibrationKey(p.kind, p.regime), modelDiameterUm: model, calibrated: calibration ? calibratedDiameterUm(calibration, { predictedDiameterUm: model, flowRatio: p.forecastFlowRatio, mainWidthUm: p.mainWidthUm, depthUm: p.depthUm }) : null }
       })
     : []
   return { calibrations, design: { id: design.id, mode: mode?.mode ?? 'model', changedAt: mode?.changedAt.toISOString() ?? null, latestRevisionId: latest?.id ?? null, junctions } }

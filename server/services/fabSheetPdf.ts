@@ -94,7 +94,7 @@ export function renderFabSheet(f: Facts): Promise<Buffer> {
 
   heading('Layers and depths')
   for (const l of f.doc.layers) pdf.text(`${l.name}: ${storedLength(l.depth)} deep (DXF layer CH-${l.depth}um)`)
-  pdf.text('Drawing units: micrometres. Mirror the mask for the mold only if your process needs it.')
+  pdf.text('Drawing units: micrometres. Mirror the mask for the mould only if your process needs it.')
 
   heading('Mask')
   const medium = f.order?.maskMedium ?? 'film'

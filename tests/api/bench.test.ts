@@ -163,4 +163,11 @@ describe('the forecast a run is compared with', () => {
     expect(both.status).toBe(400)
     expect(both.json.message).toContain('Give the dispersed phase its flow or its pressure, not both')
   })
+
+  it('the design\'s own forecast in the calibration answer is the revision\'s, not a run\'s at its bench flows', async () => {
+    const revision = (await s.as.designer.get(`${base}/revisions/${s.revisionId}`)).json
+    const cal = (await s.as.designer.get(`${base}/calibrations?designId=${s.designId}`)).json
+    const junction = cal.design.junctions.find((j: { junctionId: string }) => j.junctionId === revision.summary.junctions[0].id)
+    expect(junction.modelDiameterUm).toBeCloseTo(revision.summary.junctions[0].dropletDiameterUm, 9)
+  })
 })
