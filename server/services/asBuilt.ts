@@ -83,13 +83,15 @@ export async function recordAsBuilt(caller: LabCaller, revisionId: string, body:
   return { asBuiltId: id, changes }
 }
 
+const reportColumns = { id: asBuilts.id, createdAt: asBuilts.createdAt, recordedByName: users.name, depths: asBuilts.depths, widths: asBuilts.widths }
+const ofRevision = (labId: string, revisionId: string) => and(eq(asBuilts.revisionId, revisionId), eq(asBuilts.labId, labId))
+
 /** The latest as-built of a revision (if any) beside the drawn chip, with what the fab may measure. */
 export async function getAsBuilt(caller: LabCaller, revisionId: string) {
   const r = await releasedRevision(caller, revisionId)
   const db = useDb()
-  const [latest] = await db.select({ id: asBuilts.id, depths: asBuilts.depths, widths: asBuilts.widths, note: asBuilts.note, summary: asBuilts.summary, recordedBy: users.name, createdAt: asBuilts.createdAt })
-    .from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
-    .where(and(eq(asBuilts.revisionId, revisionId), eq(asBuilts.labId, caller.lab.labId))).orderBy(desc(asBuilts.createdAt)).limit(1)
+  const [latest] = await db.select({ ...reportColumns, note: asBuilts.note, summary: asBuilts.summary }).from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
+    .where(ofRevision(caller.lab.labId, revisionId)).orderBy(desc(asBuilts.createdAt)).limit(1)
   const files = latest ? await db.select({ id: asBuiltFiles.id, fileName: asBuiltFiles.fileName, contentType: asBuiltFiles.contentType, bytes: asBuiltFiles.bytes }).from(asBuiltFiles).where(eq(asBuiltFiles.asBuiltId, latest.id)).orderBy(asc(asBuiltFiles.createdAt)) : []
   const summary = latest?.summary as unknown as RevisionSummary | undefined
   return {
@@ -99,15 +101,22 @@ export async function getAsBuilt(caller: LabCaller, revisionId: string) {
     measurable: measurableWidths(r.document),
     designed: r.summary,
     asBuilt: latest && summary
-      ? { id: latest.id, depths: latest.depths, widths: latest.widths, note: latest.note, recordedBy: latest.recordedBy, createdAt: latest.createdAt.toISOString(), summary, changes: asBuiltChanges(r.summary, summary, r.document), files }
+      ? { id: latest.id, depths: latest.depths, widths: latest.widths, note: latest.note, recordedBy: latest.recordedByName, createdAt: latest.createdAt.toISOString(), summary, changes: asBuiltChanges(r.summary, summary, r.document), files }
       : null,
   }
 }
 
-/** The latest as-built report of a revision, when one was recorded: bench runs forecast on its chip. */
+
+/** The latest as-built report of a revision (who, when, what was measured), without its chip document. */
+export async function latestAsBuiltReport(labId: string, revisionId: string) {
+  const [row] = await useDb().select(reportColumns).from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
+    .where(ofRevision(labId, revisionId)).orderBy(desc(asBuilts.createdAt)).limit(1)
+  return row ?? null
+}
+
+/** The latest as-built report with its chip document: bench runs forecast on that chip. */
 export async function latestAsBuiltChip(labId: string, revisionId: string) {
-  const [row] = await useDb().select({ id: asBuilts.id, document: asBuilts.document, createdAt: asBuilts.createdAt, recordedByName: users.name, depths: asBuilts.depths, widths: asBuilts.widths })
-    .from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
-    .where(and(eq(asBuilts.revisionId, revisionId), eq(asBuilts.labId, labId))).orderBy(desc(asBuilts.createdAt)).limit(1)
+  const [row] = await useDb().select({ ...reportColumns, document: asBuilts.document }).from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
+    .where(ofRevision(labId, revisionId)).orderBy(desc(asBuilts.createdAt)).limit(1)
   return row ?? null
 }

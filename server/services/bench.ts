@@ -12,7 +12,7 @@ import { benchMicrographs, benchRuns, revisions, users } from '../db/schema'
 import { requireLabPermission, type LabCaller } from '../utils/access'
 import { useDb } from '../utils/db'
 import { logActivity } from './activity'
-import { latestAsBuiltChip } from './asBuilt'
+import { latestAsBuiltReport } from './asBuilt'
 import { benchChip, predictRun, type RunPrediction } from './benchForecast'
 import { assertNotArchived, findVisibleRevision, notFound } from './designGuards'
 
@@ -58,7 +58,7 @@ export async function listBenchRuns(caller: LabCaller, revisionId: string) {
   const micrographs = runs.length
     ? await db.select().from(benchMicrographs).where(and(eq(benchMicrographs.labId, caller.lab.labId), inArray(benchMicrographs.runId, runs.map(r => r.run.id)))).orderBy(asc(benchMicrographs.createdAt))
     : []
-  const report = await latestAsBuiltChip(caller.lab.labId, revisionId)
+  const report = await latestAsBuiltReport(caller.lab.labId, revisionId)
   return {
     revision: { id: revision.id, designId: revision.designId, number: revision.number, status: revision.status },
     asBuilt: report ? { id: report.id, reportedAt: report.createdAt.toISOString(), recordedByName: report.recordedByName, depths: report.depths, widths: report.widths } : null,

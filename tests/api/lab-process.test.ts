@@ -68,20 +68,18 @@ beforeAll(async () => {
 describe('a design on the lab\'s own process', () => {
   it('the PDF and the printable fab sheet carry that process\'s name, values and source, not a built-in one\'s', async () => {
     const pdf = await pdfText(s.as.fabricator, s.lab.id, revisionId)
-    expect(pdf).toContain(LINE)
-    expect(pdf).toContain('values: measured in our lab; the lab\'s library, as stored with the revision')
-    expect(pdf).not.toMatch(/Film-mask soft lithography|Chrome-mask soft lithography/)
-    // The inlet settings through shared/format: "oil-in: flow rate 10 µL/min" (the fixture's operating point).
-    expect(pdf).toContain('oil-in: flow rate 10 µL/min')
+    const page = await printableText(s.as.fabricator, s.lab.id, revisionId)
+    // Both sheets: the lab's process and its source, never a built-in one, and the inlets through shared/format
+    // ("oil-in: flow rate 10 µL/min", the fixture's operating point).
+    for (const sheet of [pdf, page]) {
+      expect(sheet).toContain(LINE)
+      expect(sheet).toContain('values: measured in our lab; the lab\'s library, as stored with the revision')
+      expect(sheet).not.toMatch(/Film-mask soft lithography|Chrome-mask soft lithography/)
+      expect(sheet).toContain('oil-in: flow rate 10 µL/min')
+      expect(sheet).toContain('22 °C')
+    }
     expect(pdf).toContain('water-in: flow rate 5 µL/min')
     expect(pdf).toContain('Continuous phase n-hexadecane, dispersed phase water, surfactant sorbitan-monooleate, 22 °C.')
-
-    const page = await printableText(s.as.fabricator, s.lab.id, revisionId)
-    expect(page).toContain(LINE)
-    expect(page).toContain('values: measured in our lab; the lab\'s library, as stored with the revision')
-    expect(page).not.toMatch(/Film-mask soft lithography|Chrome-mask soft lithography/)
-    expect(page).toContain('oil-in: flow rate 10 µL/min')
-    expect(page).toContain('22 °C')
   }, 60_000)
 
   it('a library edit after the release leaves the released sheets\' process values unchanged; new designs get the new ones', async () => {
