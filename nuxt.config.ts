@@ -11,16 +11,27 @@ export default defineNuxtConfig({
   components: [{ path: '~/components', extensions: ['vue'] }],
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', '@sidebase/nuxt-auth', 'nuxt-security'],
   css: [
-    '@fontsource/ibm-plex-sans/400.css', '@fontsource/ibm-plex-sans/500.css', '@fontsource/ibm-plex-sans/600.css',
-    '@fontsource/jetbrains-mono/400.css', '@fontsource/jetbrains-mono/500.css',
+    '@fontsource/ibm-plex-sans/400.css',
+    '@fontsource/ibm-plex-sans/500.css',
+    '@fontsource/ibm-plex-sans/600.css',
+    '@fontsource/jetbrains-mono/400.css',
+    '@fontsource/jetbrains-mono/500.css',
     '~/assets/css/main.css',
   ],
   app: {
     head: {
-      title: 'Dropwright', htmlAttrs: { lang: 'en' }, link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+      title: 'Dropwright',
+      htmlAttrs: { lang: 'en' },
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
       // Security: the page CSP has no 'unsafe-eval', so zod must not compile validators in the browser (its probe
       // for `new Function` would be a CSP violation). Its global config has to be set before any schema is built.
-      script: [{ innerHTML: 'globalThis.__zod_globalConfig = Object.assign(globalThis.__zod_globalConfig || {}, { jitless: true })', tagPriority: 'critical' }],
+      script: [
+        {
+          innerHTML:
+            'globalThis.__zod_globalConfig = Object.assign(globalThis.__zod_globalConfig || {}, { jitless: true })',
+          tagPriority: 'critical',
+        },
+      ],
     },
   },
   // The server's settings are environment variables read once by server/utils/config.ts (README, "Configuration").
@@ -59,7 +70,10 @@ export default defineNuxtConfig({
   hooks: {
     // Our error handlers run before Nuxt's own (which renders the error page): a database that cannot answer is 503.
     'nitro:config'(config) {
-      config.errorHandler = [fileURLToPath(new URL('./server/errors/database.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
+      config.errorHandler = [
+        fileURLToPath(new URL('./server/errors/database.ts', import.meta.url)),
+        ...[config.errorHandler ?? []].flat(),
+      ]
     },
   },
   // Security headers (docs/api-limits.md). nuxt-security writes them on every answer and the page CSP with a fresh
@@ -96,6 +110,10 @@ export default defineNuxtConfig({
   nitro: {
     experimental: { tasks: false },
     // Worker threads (server/workers) are bundled beside the built server once Nitro has compiled it.
-    hooks: { async compiled(nitro) { await (await import('./scripts/build-workers.mjs')).buildWorkers(nitro.options.output.serverDir) } },
+    hooks: {
+      async compiled(nitro) {
+        await (await import('./scripts/build-workers.mjs')).buildWorkers(nitro.options.output.serverDir)
+      },
+    },
   },
 })

@@ -20,7 +20,12 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], exclude: ['tests/unit/components/**'], environment: 'node' },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          exclude: ['tests/unit/components/**'],
+          environment: 'node',
+        },
       },
       {
         // Vue components mounted with @vue/test-utils in happy-dom.

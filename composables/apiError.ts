@@ -1,5 +1,9 @@
 // Maps an API failure to what a person should read, once for the whole client.
-export interface ApiProblem { status: number, message: string, fields: Record<string, string> }
+export interface ApiProblem {
+  status: number
+  message: string
+  fields: Record<string, string>
+}
 
 const BY_STATUS: Record<number, string> = {
   401: 'Your session has ended. Sign in again.',
@@ -10,7 +14,11 @@ const BY_STATUS: Record<number, string> = {
 }
 
 export function toApiProblem(error: unknown): ApiProblem {
-  const e = error as { statusCode?: number, status?: number, data?: { message?: string, data?: { issues?: Array<{ path: string, message: string }> } } }
+  const e = error as {
+    statusCode?: number
+    status?: number
+    data?: { message?: string; data?: { issues?: Array<{ path: string; message: string }> } }
+  }
   const status = e?.statusCode ?? e?.status ?? 0
   const fields: Record<string, string> = {}
   for (const issue of e?.data?.data?.issues ?? []) fields[issue.path] = issue.message

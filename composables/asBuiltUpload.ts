@@ -6,27 +6,40 @@ const REFUSED: Record<number, (name: string) => string> = {
 }
 
 export function useAsBuiltUpload(base: () => string) {
-  const uploading = ref<{ fileName: string, fraction: number } | null>(null)
+  const uploading = ref<{ fileName: string; fraction: number } | null>(null)
   const problem = ref<string | null>(null)
   function upload(asBuiltId: string, file: File): Promise<boolean> {
     problem.value = null
     const form = new FormData()
     form.set('file', file, file.name)
     uploading.value = { fileName: file.name, fraction: 0 }
-    return new Promise((resolve) => {
+    return new Promise(resolve => {
       const xhr = new XMLHttpRequest()
       xhr.open('POST', `${base()}/${asBuiltId}/files`)
-      xhr.upload.onprogress = (e) => { if (e.lengthComputable && uploading.value) uploading.value.fraction = e.loaded / e.total }
+      xhr.upload.onprogress = e => {
+        if (e.lengthComputable && uploading.value) uploading.value.fraction = e.loaded / e.total
+      }
       xhr.onload = () => {
         uploading.value = null
         if (xhr.status === 201) return resolve(true)
         let json: unknown = null
-        try { json = JSON.parse(xhr.responseText) } catch { /* not JSON */ }
+        try {
+          json = JSON.parse(xhr.responseText)
+        } catch {
+          /* not JSON */
+        }
         const server = toApiProblem({ statusCode: xhr.status, data: json })
-        problem.value = xhr.status === 413 || (xhr.status === 415 && !server.message) ? REFUSED[xhr.status]!(file.name) : server.message
+        problem.value =
+          xhr.status === 413 || (xhr.status === 415 && !server.message)
+            ? REFUSED[xhr.status]!(file.name)
+            : server.message
         resolve(false)
       }
-      xhr.onerror = () => { uploading.value = null; problem.value = 'The upload was interrupted; check the connection and try again.'; resolve(false) }
+      xhr.onerror = () => {
+        uploading.value = null
+        problem.value = 'The upload was interrupted; check the connection and try again.'
+        resolve(false)
+      }
       xhr.send(form)
     })
   }

@@ -3,7 +3,13 @@
 import type { BenchConditions } from '#shared/schemas/bench'
 
 export type TypedNumber = number | '' | null
-export interface BenchFieldValues { qc: TypedNumber, qd: TypedNumber, pc: TypedNumber, pd: TypedNumber, temperature: TypedNumber }
+export interface BenchFieldValues {
+  qc: TypedNumber
+  qd: TypedNumber
+  pc: TypedNumber
+  pd: TypedNumber
+  temperature: TypedNumber
+}
 
 export const emptyBenchFields = (): BenchFieldValues => ({ qc: null, qd: null, pc: null, pd: null, temperature: null })
 
@@ -24,9 +30,51 @@ export function benchConditionsOf(v: BenchFieldValues): Partial<BenchConditions>
 
 /** Each field, where the shared schema reports its problem, and its label. */
 export const BENCH_FIELDS = [
-  { key: 'qc', path: 'conditions.continuousFlow.value', label: 'Continuous flow at the bench (µL/min)', test: 'bench-qc', span: 1, min: 0 },
-  { key: 'qd', path: 'conditions.dispersedFlow.value', label: 'Dispersed flow at the bench (µL/min)', test: 'bench-qd', span: 1, min: 0 },
-  { key: 'temperature', path: 'conditions.temperatureC', label: 'Temperature at the bench (°C)', test: 'bench-temperature', span: 2, min: undefined },
-  { key: 'pc', path: 'conditions.continuousPressureMbar', label: '…or continuous pressure (mbar)', test: 'bench-pc', span: 1, min: 0 },
-  { key: 'pd', path: 'conditions.dispersedPressureMbar', label: '…or dispersed pressure (mbar)', test: 'bench-pd', span: 1, min: 0 },
-] as const satisfies ReadonlyArray<{ key: keyof BenchFieldValues, path: string, label: string, test: string, span: number, min: number | undefined }>
+  {
+    key: 'qc',
+    path: 'conditions.continuousFlow.value',
+    label: 'Continuous flow at the bench (µL/min)',
+    test: 'bench-qc',
+    span: 1,
+    min: 0,
+  },
+  {
+    key: 'qd',
+    path: 'conditions.dispersedFlow.value',
+    label: 'Dispersed flow at the bench (µL/min)',
+    test: 'bench-qd',
+    span: 1,
+    min: 0,
+  },
+  {
+    key: 'temperature',
+    path: 'conditions.temperatureC',
+    label: 'Temperature at the bench (°C)',
+    test: 'bench-temperature',
+    span: 2,
+    min: undefined,
+  },
+  {
+    key: 'pc',
+    path: 'conditions.continuousPressureMbar',
+    label: '…or continuous pressure (mbar)',
+    test: 'bench-pc',
+    span: 1,
+    min: 0,
+  },
+  {
+    key: 'pd',
+    path: 'conditions.dispersedPressureMbar',
+    label: '…or dispersed pressure (mbar)',
+    test: 'bench-pd',
+    span: 1,
+    min: 0,
+  },
+] as const satisfies ReadonlyArray<{
+  key: keyof BenchFieldValues
+  path: string
+  label: string
+  test: string
+  span: number
+  min: number | undefined
+}>

@@ -2,8 +2,18 @@ import { formatNumber, formatPercent } from '#shared/format/quantity'
 import type { BenchPrediction } from '#shared/types/bench'
 
 // Display helpers for bench results: numbers with their units, and the labels of sources, regimes and kinds.
-export const BENCH_SOURCE_LABELS: Record<string, string> = { typed: 'Typed', csv: 'CSV import', micrograph: 'Micrograph' }
-export const REGIME_COLOURS: Record<string, string> = { squeezing: '#1f6f8b', transition: '#c47f0e', dripping: '#2f8a57', jetting: '#b3372b', 'step-emulsification': '#3e4a56' }
+export const BENCH_SOURCE_LABELS: Record<string, string> = {
+  typed: 'Typed',
+  csv: 'CSV import',
+  micrograph: 'Micrograph',
+}
+export const REGIME_COLOURS: Record<string, string> = {
+  squeezing: '#1f6f8b',
+  transition: '#c47f0e',
+  dripping: '#2f8a57',
+  jetting: '#b3372b',
+  'step-emulsification': '#3e4a56',
+}
 
 /** The chip a run's forecast ran on, in a few words ("" for runs recorded before this was kept). */
 export function chipLabel(chip: BenchPrediction['chip'] | undefined): string {

@@ -17,11 +17,17 @@ export interface CanvasHostHooks {
 
 export function useCanvasHost(frame: Ref<HTMLElement | null>, hooks: CanvasHostHooks) {
   const measure = (el: HTMLElement) => hooks.resize(el.clientWidth, el.clientHeight)
-  useResizeObserver(frame, () => { if (frame.value) measure(frame.value) })
+  useResizeObserver(frame, () => {
+    if (frame.value) measure(frame.value)
+  })
   useEventListener(frame, 'wheel', hooks.wheel, { passive: false })
-  watch(frame, (el) => {
-    if (!el) return
-    measure(el)
-    document.fonts?.ready.then(hooks.redraw)
-  }, { immediate: true, flush: 'post' })
+  watch(
+    frame,
+    el => {
+      if (!el) return
+      measure(el)
+      document.fonts?.ready.then(hooks.redraw)
+    },
+    { immediate: true, flush: 'post' },
+  )
 }

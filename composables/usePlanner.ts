@@ -28,8 +28,12 @@ export function usePlanner() {
     try {
       worker = new Worker(new URL('../components/editor/lib/planner.worker.ts', import.meta.url), { type: 'module' })
       worker.onmessage = (e: MessageEvent<PlanResult>) => done(e.data)
-      worker.onerror = () => { worker = null }
-    } catch { worker = null }
+      worker.onerror = () => {
+        worker = null
+      }
+    } catch {
+      worker = null
+    }
     return worker
   }
 
@@ -39,12 +43,19 @@ export function usePlanner() {
     busy.value = true
     error.value = null
     started = performance.now()
-    const job: PlanJob = { seq, request: JSON.parse(JSON.stringify(toRaw(request))), lab: lab ? JSON.parse(JSON.stringify(toRaw(lab))) : null }
+    const job: PlanJob = {
+      seq,
+      request: JSON.parse(JSON.stringify(toRaw(request))),
+      lab: lab ? JSON.parse(JSON.stringify(toRaw(lab))) : null,
+    }
     const w = ensureWorker()
     if (w) w.postMessage(job)
     else setTimeout(() => done(runPlanRequest(job)), 0)
   }
 
-  onBeforeUnmount(() => { worker?.terminate(); worker = null })
+  onBeforeUnmount(() => {
+    worker?.terminate()
+    worker = null
+  })
   return { answer, error, issues, busy, elapsedMs, plan }
 }

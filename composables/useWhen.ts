@@ -4,12 +4,15 @@
 import { formatDate, localeFromHeader, type DateContext } from '#shared/format/date'
 
 export function useWhen() {
-  const headerLocale = useState<string | undefined>('dw-locale', () => (import.meta.server ? localeFromHeader(useRequestHeaders(['accept-language'])['accept-language']) : undefined))
+  const headerLocale = useState<string | undefined>('dw-locale', () =>
+    import.meta.server ? localeFromHeader(useRequestHeaders(['accept-language'])['accept-language']) : undefined,
+  )
   const zone = ref<string>('UTC')
   const locale = ref<string | undefined>(headerLocale.value)
   onMounted(() => {
     locale.value = navigator.language || headerLocale.value
     zone.value = Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC'
   })
-  return (iso: string | Date | null | undefined, context: DateContext = 'moment') => formatDate(iso, context, { locale: locale.value, timeZone: zone.value })
+  return (iso: string | Date | null | undefined, context: DateContext = 'moment') =>
+    formatDate(iso, context, { locale: locale.value, timeZone: zone.value })
 }

@@ -2,7 +2,18 @@
 // maintained TypeScript port; Boost licence): converts µm rings to integer paths in database units (units.ts)
 // and back, and turns Clipper's polygon trees into our MultiPolygon (exterior CCW, holes CW, rings closed).
 // The algorithm is Vatti's scan-beam clipping (Vatti 1992, Communications of the ACM 35(7), 56–63).
-import { ClipType, Clipper64, ClipperOffset, EndType, FillRule, JoinType, PolyTree64, type Path64, type Paths64, type PolyPath64 } from 'clipper2-ts'
+import {
+  ClipType,
+  Clipper64,
+  ClipperOffset,
+  EndType,
+  FillRule,
+  JoinType,
+  PolyTree64,
+  type Path64,
+  type Paths64,
+  type PolyPath64,
+} from 'clipper2-ts'
 import type { MultiPolygon, Pair, Polygon, Ring } from './types'
 import { DBU_PER_UM, fromDbu } from './units'
 
@@ -17,13 +28,17 @@ export function toPath(ring: readonly Pair[], perUm = DBU_PER_UM): Path64 {
 }
 
 /** Every ring of the polygons (exteriors and holes) as integer paths; non-zero filling gives their union. */
-export const toPaths = (polys: readonly Polygon[]): Paths64 => polys.flatMap((p) => p.map((r) => toPath(r)))
+export const toPaths = (polys: readonly Polygon[]): Paths64 => polys.flatMap(p => p.map(r => toPath(r)))
 
 /** An integer path as a closed µm ring. */
 export function fromPath(path: Path64, perUm = DBU_PER_UM): Ring {
-  const ring: Ring = perUm === DBU_PER_UM
-    ? path.map((q): Pair => [fromDbu(q.x), fromDbu(q.y)])
-    : path.map((q): Pair => [fromDbu(Math.round((q.x / perUm) * DBU_PER_UM)), fromDbu(Math.round((q.y / perUm) * DBU_PER_UM))])
+  const ring: Ring =
+    perUm === DBU_PER_UM
+      ? path.map((q): Pair => [fromDbu(q.x), fromDbu(q.y)])
+      : path.map((q): Pair => [
+          fromDbu(Math.round((q.x / perUm) * DBU_PER_UM)),
+          fromDbu(Math.round((q.y / perUm) * DBU_PER_UM)),
+        ])
   if (ring.length > 0) ring.push([ring[0]![0], ring[0]![1]])
   return ring
 }

@@ -31,14 +31,19 @@ export function segmentDistance(a: Pair, b: Pair, c: Pair, d: Pair): { distance:
     return { distance: 0, p: a, q: a }
   }
   const cands: [Pair, Pair][] = [
-    [a, closestOnSegment(a, c, d)], [b, closestOnSegment(b, c, d)],
-    [closestOnSegment(c, a, b), c], [closestOnSegment(d, a, b), d],
+    [a, closestOnSegment(a, c, d)],
+    [b, closestOnSegment(b, c, d)],
+    [closestOnSegment(c, a, b), c],
+    [closestOnSegment(d, a, b), d],
   ]
   let best = cands[0]!
   let bestD = Infinity
   for (const [p, q] of cands) {
     const dd = length(sub(q, p))
-    if (dd < bestD) { bestD = dd; best = [p, q] }
+    if (dd < bestD) {
+      bestD = dd
+      best = [p, q]
+    }
   }
   return { distance: bestD, p: best[0], q: best[1] }
 }
@@ -59,8 +64,13 @@ export function segmentsIntersect(a: Pair, b: Pair, c: Pair, d: Pair): boolean {
   const d4 = cross(sub(b, a), sub(d, a))
   if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return true
   const on = (p: Pair, q: Pair, r: Pair) =>
-    Math.min(p[0], q[0]) <= r[0] && r[0] <= Math.max(p[0], q[0]) && Math.min(p[1], q[1]) <= r[1] && r[1] <= Math.max(p[1], q[1])
-  return (d1 === 0 && on(c, d, a)) || (d2 === 0 && on(c, d, b)) || (d3 === 0 && on(a, b, c)) || (d4 === 0 && on(a, b, d))
+    Math.min(p[0], q[0]) <= r[0] &&
+    r[0] <= Math.max(p[0], q[0]) &&
+    Math.min(p[1], q[1]) <= r[1] &&
+    r[1] <= Math.max(p[1], q[1])
+  return (
+    (d1 === 0 && on(c, d, a)) || (d2 === 0 && on(c, d, b)) || (d3 === 0 && on(a, b, c)) || (d4 === 0 && on(a, b, d))
+  )
 }
 
 /** Point in polygon by the even–odd crossing rule (Shimrat 1962, Algorithm 112, CACM 5(8):434). */
@@ -78,7 +88,7 @@ export function pointInRing(p: Pair, ring: readonly Pair[]): boolean {
 export function pointInPolygon(p: Pair, polygon: readonly (readonly Pair[])[]): boolean {
   const [outer, ...holes] = polygon
   if (!outer || !pointInRing(p, outer)) return false
-  return !holes.some((h) => pointInRing(p, h))
+  return !holes.some(h => pointInRing(p, h))
 }
 
 /** Distance from a point to a polygon's boundary, 0 inside it. */
@@ -86,7 +96,8 @@ export function distanceToPolygon(p: Pair, polygon: readonly (readonly Pair[])[]
   if (pointInPolygon(p, polygon)) return 0
   let best = Infinity
   for (const ring of polygon) {
-    for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) best = Math.min(best, length(sub(p, closestOnSegment(p, ring[j]!, ring[i]!))))
+    for (let i = 0, j = ring.length - 1; i < ring.length; j = i++)
+      best = Math.min(best, length(sub(p, closestOnSegment(p, ring[j]!, ring[i]!))))
   }
   return best
 }

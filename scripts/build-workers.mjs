@@ -7,10 +7,17 @@ const root = fileURLToPath(new URL('..', import.meta.url))
 
 export async function buildWorkers(serverDir) {
   await build({
-    entryPoints: { geometry: join(root, 'server/workers/geometry.ts'), imaging: join(root, 'server/workers/imaging.ts') },
+    entryPoints: {
+      geometry: join(root, 'server/workers/geometry.ts'),
+      imaging: join(root, 'server/workers/imaging.ts'),
+    },
     outdir: join(serverDir, 'workers'),
     outExtension: { '.js': '.mjs' },
-    bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning',
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    logLevel: 'warning',
     // `#shared/...` (the server's imports of shared code) resolves through the tsconfig paths Nuxt writes.
     tsconfig: join(root, 'tsconfig.json'),
     // some bundled CommonJS packages call require(); give the ES module one

@@ -17,9 +17,17 @@ if (!Number.isInteger(port) || port <= 0) {
 const directory = resolve(process.env.DW_S3_DIR ?? join(process.cwd(), '.data/s3'))
 mkdirSync(directory, { recursive: true })
 
-const server = new S3rver({ port, address: '127.0.0.1', directory, silent: true, configureBuckets: [{ name: bucket, configs: [] }] })
+const server = new S3rver({
+  port,
+  address: '127.0.0.1',
+  directory,
+  silent: true,
+  configureBuckets: [{ name: bucket, configs: [] }],
+})
 await server.run()
 console.log(`Dropwright local fake S3 on http://127.0.0.1:${port} (bucket ${bucket}, objects in ${directory})`)
-const stop = () => { server.close().finally(() => process.exit(0)) }
+const stop = () => {
+  server.close().finally(() => process.exit(0))
+}
 process.on('SIGTERM', stop)
 process.on('SIGINT', stop)

@@ -48,35 +48,41 @@ const server = new SMTPServer({
     const to = address.address.toLowerCase()
     if (to.startsWith('flaky-') && !refusedOnce.has(to)) {
       refusedOnce.add(to)
-      const error = Object.assign(new Error('Mailbox busy, try again later (fake SMTP: flaky- addresses are refused once)'), { responseCode: 451 })
+      const error = Object.assign(
+        new Error('Mailbox busy, try again later (fake SMTP: flaky- addresses are refused once)'),
+        { responseCode: 451 },
+      )
       return callback(error)
     }
     callback()
   },
   onData(stream, session, callback) {
-    simpleParser(stream).then((mail) => {
-      const envelopeTo = session.envelope.rcptTo.map(r => r.address.toLowerCase())
-      const kept: KeptMessage = {
-        id: randomUUID(),
-        messageId: mail.messageId ?? null,
-        from: addresses(mail.from)[0] ?? (session.envelope.mailFrom ? session.envelope.mailFrom.address : ''),
-        to: envelopeTo.length ? envelopeTo : addresses(mail.to).map(a => a.toLowerCase()),
-        subject: mail.subject ?? '',
-        text: mail.text ?? '',
-        html: typeof mail.html === 'string' ? mail.html : null,
-        date: new Date().toISOString(),
-      }
-      // Written under a temporary name, then renamed: readers never see half a file.
-      const name = `${kept.date.replace(/[:.]/g, '-')}-${kept.id.slice(0, 8)}.json`
-      writeFileSync(join(dir, `.${name}.tmp`), JSON.stringify(kept, null, 2))
-      renameSync(join(dir, `.${name}.tmp`), join(dir, name))
-      console.log(`[fake-smtp] kept "${kept.subject}" for ${kept.to.join(', ')}`)
-      callback()
-    }, (error: Error) => callback(error))
+    simpleParser(stream).then(
+      mail => {
+        const envelopeTo = session.envelope.rcptTo.map(r => r.address.toLowerCase())
+        const kept: KeptMessage = {
+          id: randomUUID(),
+          messageId: mail.messageId ?? null,
+          from: addresses(mail.from)[0] ?? (session.envelope.mailFrom ? session.envelope.mailFrom.address : ''),
+          to: envelopeTo.length ? envelopeTo : addresses(mail.to).map(a => a.toLowerCase()),
+          subject: mail.subject ?? '',
+          text: mail.text ?? '',
+          html: typeof mail.html === 'string' ? mail.html : null,
+          date: new Date().toISOString(),
+        }
+        // Written under a temporary name, then renamed: readers never see half a file.
+        const name = `${kept.date.replace(/[:.]/g, '-')}-${kept.id.slice(0, 8)}.json`
+        writeFileSync(join(dir, `.${name}.tmp`), JSON.stringify(kept, null, 2))
+        renameSync(join(dir, `.${name}.tmp`), join(dir, name))
+        console.log(`[fake-smtp] kept "${kept.subject}" for ${kept.to.join(', ')}`)
+        callback()
+      },
+      (error: Error) => callback(error),
+    )
   },
 })
 
-server.on('error', (error) => {
+server.on('error', error => {
   console.error(`[fake-smtp] ${error.message}`)
   process.exit(1)
 })

@@ -8,14 +8,18 @@ let request: unknown
 try {
   request = JSON.parse(text)
 } catch (error) {
-  process.stderr.write(`invalid request: not JSON (${(error as Error).message}); pipe a JSON file, e.g. npm run --silent forecast < request.json\n`)
+  process.stderr.write(
+    `invalid request: not JSON (${(error as Error).message}); pipe a JSON file, e.g. npm run --silent forecast < request.json\n`,
+  )
   process.exit(2)
 }
 try {
   process.stdout.write(`${JSON.stringify(runForecast(request), null, 2)}\n`)
 } catch (error) {
   if (error instanceof ForecastInputError) {
-    process.stderr.write(`invalid request: ${error.issues.map((issue) => `${issue.path || '(request)'}: ${issue.message}`).join('; ')}\n`)
+    process.stderr.write(
+      `invalid request: ${error.issues.map(issue => `${issue.path || '(request)'}: ${issue.message}`).join('; ')}\n`,
+    )
     process.exit(2)
   }
   throw error

@@ -10,9 +10,10 @@ export function loadDbEnv(target: 'app' | 'test' = 'app'): string {
       if (m) local[m[1]!] = m[2]!
     }
   }
-  const url = target === 'test'
-    ? process.env.TEST_DATABASE_URL || local.TEST_DATABASE_URL || process.env.DATABASE_URL
-    : process.env.DATABASE_URL || local.DATABASE_URL
+  const url =
+    target === 'test'
+      ? process.env.TEST_DATABASE_URL || local.TEST_DATABASE_URL || process.env.DATABASE_URL
+      : process.env.DATABASE_URL || local.DATABASE_URL
   if (!url) throw new Error('No database: run `npm run db:start` or set DATABASE_URL')
   process.env.DATABASE_URL = url
   return url

@@ -12,7 +12,10 @@ import { fail, readStdin } from './lib/cli'
 
 /** The lab's processes from `--process-file`, each checked as the Libraries page checks it; exit 2 naming the field. */
 function processFile(): LabProcessData[] | null {
-  const path = process.argv.slice(2).find((a) => a.startsWith('--process-file='))?.slice('--process-file='.length)
+  const path = process.argv
+    .slice(2)
+    .find(a => a.startsWith('--process-file='))
+    ?.slice('--process-file='.length)
   if (path === undefined) return null
   let json: unknown
   try {
@@ -20,12 +23,15 @@ function processFile(): LabProcessData[] | null {
   } catch (error) {
     fail([`--process-file: cannot read "${path}" as JSON (${(error as Error).message})`])
   }
-  const entry = z.looseObject({ id: z.string().regex(LAB_PROCESS_ID, 'id: "lab-" and a short id, e.g. "lab-fine-su8"') })
+  const entry = z.looseObject({
+    id: z.string().regex(LAB_PROCESS_ID, 'id: "lab-" and a short id, e.g. "lab-fine-su8"'),
+  })
   const list = z.array(entry, { error: 'a JSON list of processes' }).max(300).safeParse(json)
   if (!list.success) fail([`--process-file: ${list.error.issues[0]!.message}`])
   return list.data.map(({ id, ...values }, i) => {
     const checked = labProcessValues.safeParse(values)
-    if (!checked.success) fail(checked.error.issues.map((issue) => `--process-file: [${i}].${issue.path.join('.')}: ${issue.message}`))
+    if (!checked.success)
+      fail(checked.error.issues.map(issue => `--process-file: [${i}].${issue.path.join('.')}: ${issue.message}`))
     return { id, ...checked.data }
   })
 }
@@ -36,14 +42,20 @@ let request: unknown
 try {
   request = JSON.parse(text)
 } catch (error) {
-  process.stderr.write(`invalid request: not JSON (${(error as Error).message}); pipe a JSON file, e.g. npm run --silent plan < request.json\n`)
+  process.stderr.write(
+    `invalid request: not JSON (${(error as Error).message}); pipe a JSON file, e.g. npm run --silent plan < request.json\n`,
+  )
   process.exit(2)
 }
 try {
-  process.stdout.write(`${JSON.stringify(runPlan(request, { lab: processes ? { liquids: [], pairs: [], processes } : null }), null, 2)}\n`)
+  process.stdout.write(
+    `${JSON.stringify(runPlan(request, { lab: processes ? { liquids: [], pairs: [], processes } : null }), null, 2)}\n`,
+  )
 } catch (error) {
   if (error instanceof ForecastInputError) {
-    process.stderr.write(`invalid request: ${error.issues.map((issue) => `${issue.path || '(request)'}: ${issue.message}`).join('; ')}\n`)
+    process.stderr.write(
+      `invalid request: ${error.issues.map(issue => `${issue.path || '(request)'}: ${issue.message}`).join('; ')}\n`,
+    )
     process.exit(2)
   }
   throw error

@@ -1,7 +1,13 @@
 // s3rver ships no types; the part scripts/fake-s3.ts uses.
 declare module 's3rver' {
   export default class S3rver {
-    constructor(options: { port: number, address: string, directory: string, silent?: boolean, configureBuckets?: { name: string, configs: unknown[] }[] })
+    constructor(options: {
+      port: number
+      address: string
+      directory: string
+      silent?: boolean
+      configureBuckets?: { name: string; configs: unknown[] }[]
+    })
     run(): Promise<unknown>
     close(): Promise<void>
   }

@@ -14,6 +14,8 @@ bash scripts/ensure-system.sh
 if [ $# -eq 0 ] || [ -n "${DW_LINT:-}" ]; then
   echo "[lint] eslint ." >&2
   npx eslint . > .data/lint.log 2>&1 || { grep -E 'error' .data/lint.log >&2 || tail -20 .data/lint.log >&2; tail -3 .data/lint.log >&2; exit 1; }
+  echo "[format] prettier --check ." >&2
+  npx prettier --check . > .data/format.log 2>&1 || { grep -F '[warn]' .data/format.log >&2; echo "[format] run: npm run format" >&2; exit 1; }
 fi
 if [ $# -eq 0 ]; then
   echo "[typecheck] nuxt typecheck" >&2

@@ -1,6 +1,11 @@
 import { defineStore } from 'pinia'
 import { passwordResetParams, type PasswordChange } from '~~/shared/schemas/auth'
-import type { PasswordChanged, PasswordResetDone, PasswordResetInfo, SignedOutEverywhere } from '~~/shared/types/account'
+import type {
+  PasswordChanged,
+  PasswordResetDone,
+  PasswordResetInfo,
+  SignedOutEverywhere,
+} from '~~/shared/types/account'
 
 /** The signed-in person's own account (password, sessions), and the password reset flow for anyone. */
 export const useAccountStore = defineStore('account', () => {
@@ -15,7 +20,10 @@ export const useAccountStore = defineStore('account', () => {
 
   /** Always answers the same sentence, whether or not an account has the address. */
   const requestReset = (email: string) =>
-    run(async () => (await $fetch<{ message: string }>('/api/auth/password-reset', { method: 'POST', body: { email } })).message)
+    run(
+      async () =>
+        (await $fetch<{ message: string }>('/api/auth/password-reset', { method: 'POST', body: { email } })).message,
+    )
 
   async function loadReset(token: string) {
     resetInfo.value = null
@@ -30,7 +38,9 @@ export const useAccountStore = defineStore('account', () => {
   const reset = (token: string, password: string) =>
     run(() => $fetch<PasswordResetDone>(`/api/auth/password-reset/${token}`, { method: 'POST', body: { password } }))
 
-  const clearProblem = () => { problem.value = null }
+  const clearProblem = () => {
+    problem.value = null
+  }
 
   return { busy, problem, resetInfo, changePassword, signOutEverywhere, requestReset, loadReset, reset, clearProblem }
 })

@@ -2,9 +2,30 @@ import { defineStore } from 'pinia'
 import type { ActivityEntry, DesignOriginView, DesignRow, RevisionRow } from '~~/shared/types/designs'
 import type { DesignCreate } from '~~/shared/schemas/designs'
 
-export interface DesignListQuery { q?: string, status?: string, kind?: string, archived?: 'true' | 'false', sort?: 'updated' | 'name' | 'created', dir?: 'asc' | 'desc', page?: number, pageSize?: number }
+export interface DesignListQuery {
+  q?: string
+  status?: string
+  kind?: string
+  archived?: 'true' | 'false'
+  sort?: 'updated' | 'name' | 'created'
+  dir?: 'asc' | 'desc'
+  page?: number
+  pageSize?: number
+}
 export interface DesignDetail {
-  design: { id: string, name: string, description: string, processId: string, createdBy: string, createdById: string, createdAt: string, updatedAt: string, archived: boolean, latestRevisionId: string | null, origin: DesignOriginView | null }
+  design: {
+    id: string
+    name: string
+    description: string
+    processId: string
+    createdBy: string
+    createdById: string
+    createdAt: string
+    updatedAt: string
+    archived: boolean
+    latestRevisionId: string | null
+    origin: DesignOriginView | null
+  }
   revisions: RevisionRow[]
   activity: ActivityEntry[]
 }
@@ -24,16 +45,22 @@ export const useDesignsStore = defineStore('designs', () => {
       // One page of rows; the server puts the total and the page it answered in headers.
       const res = await $fetch.raw<DesignRow[]>(`/api/labs/${labId}/designs`, { query: clean, headers: headers() })
       rows.value = res._data ?? []
-      paging.value = { total: Number(res.headers.get('x-total-count') ?? rows.value.length), page: Number(res.headers.get('x-page') ?? 1), pageSize: Number(res.headers.get('x-page-size') ?? rows.value.length) }
+      paging.value = {
+        total: Number(res.headers.get('x-total-count') ?? rows.value.length),
+        page: Number(res.headers.get('x-page') ?? 1),
+        pageSize: Number(res.headers.get('x-page-size') ?? rows.value.length),
+      }
     })
   }
 
   async function loadDetail(labId: string, designId: string) {
-    await run(async () => { detail.value = await useRequestFetch()<DesignDetail>(`/api/labs/${labId}/designs/${designId}`) })
+    await run(async () => {
+      detail.value = await useRequestFetch()<DesignDetail>(`/api/labs/${labId}/designs/${designId}`)
+    })
   }
 
   const create = (labId: string, body: DesignCreate) =>
-    run(() => $fetch<{ designId: string, revisionId: string }>(`/api/labs/${labId}/designs`, { method: 'POST', body }))
+    run(() => $fetch<{ designId: string; revisionId: string }>(`/api/labs/${labId}/designs`, { method: 'POST', body }))
 
   async function setArchived(labId: string, designId: string, archived: boolean) {
     const url: string = `/api/labs/${labId}/designs/${designId}`
@@ -42,10 +69,20 @@ export const useDesignsStore = defineStore('designs', () => {
   }
 
   const duplicate = (labId: string, revisionId: string, targetLabId: string, name: string) =>
-    run(() => $fetch<{ labId: string, designId: string, revisionId: string }>(`/api/labs/${labId}/revisions/${revisionId}/duplicate`, { method: 'POST', body: { targetLabId, name } }))
+    run(() =>
+      $fetch<{ labId: string; designId: string; revisionId: string }>(
+        `/api/labs/${labId}/revisions/${revisionId}/duplicate`,
+        { method: 'POST', body: { targetLabId, name } },
+      ),
+    )
 
   async function uploadRevision(labId: string, designId: string, parentId: string, message: string, document: unknown) {
-    const saved = await run(() => $fetch<{ revisionId: string, number: number }>(`/api/labs/${labId}/designs/${designId}/revisions`, { method: 'POST', body: { parentId, message, document } }))
+    const saved = await run(() =>
+      $fetch<{ revisionId: string; number: number }>(`/api/labs/${labId}/designs/${designId}/revisions`, {
+        method: 'POST',
+        body: { parentId, message, document },
+      }),
+    )
     if (saved) await loadDetail(labId, designId)
     return saved
   }

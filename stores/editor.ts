@@ -1,10 +1,31 @@
 import { defineStore } from 'pinia'
 import { computed, ref, shallowRef } from 'vue'
 import { parseChipDocument, rememberParsed, type ChipDocument } from '~~/shared/schemas/chip'
-import { actionLabel, actions, canRedo, canUndo, commit, copy, redo as redoH, redoLabel, runAction, undoLabel, startHistory, undo as undoH, type ActionArgs, type ActionName, type Clip, type History } from '~~/shared/editor'
+import {
+  actionLabel,
+  actions,
+  canRedo,
+  canUndo,
+  commit,
+  copy,
+  redo as redoH,
+  redoLabel,
+  runAction,
+  undoLabel,
+  startHistory,
+  undo as undoH,
+  type ActionArgs,
+  type ActionName,
+  type Clip,
+  type History,
+} from '~~/shared/editor'
 import type { RevisionDetail, RevisionRow } from '~~/shared/types/designs'
 
-export interface SaveConflict { message: string, latestRevisionId: string, since: RevisionRow[] }
+export interface SaveConflict {
+  message: string
+  latestRevisionId: string
+  since: RevisionRow[]
+}
 
 /** The chip being edited: working document, history, selection, and saving it as a revision. */
 export const useEditorStore = defineStore('editor', () => {
@@ -14,7 +35,7 @@ export const useEditorStore = defineStore('editor', () => {
   /** The design's fabrication process (rule checks use it), from the opened revision's summary. */
   const processId = ref<string | null>(null)
   /** The revision edits are based on: the one opened, then the one last saved. */
-  const base = ref<{ id: string, number: number } | null>(null)
+  const base = ref<{ id: string; number: number } | null>(null)
   const history = shallowRef<History | null>(null)
   const saved = shallowRef<ChipDocument | null>(null)
   const selection = ref<string[]>([])
@@ -60,7 +81,11 @@ export const useEditorStore = defineStore('editor', () => {
       if (!revisionId) throw createError({ statusCode: 404, message: 'This design has no revision to edit yet' })
       const r = await api<RevisionDetail & { designId?: string }>(`/api/labs/${lab}/revisions/${revisionId}`)
       const parsed = parseChipDocument(r.document)
-      if (!parsed.ok) throw createError({ statusCode: 422, message: `This revision's document does not open: ${parsed.errors[0]!.message}` })
+      if (!parsed.ok)
+        throw createError({
+          statusCode: 422,
+          message: `This revision's document does not open: ${parsed.errors[0]!.message}`,
+        })
       open(r, parsed.document)
     })
   }
@@ -68,8 +93,15 @@ export const useEditorStore = defineStore('editor', () => {
   /** Apply a named action; an invalid result is refused with the schema's message and nothing changes. */
   function apply<N extends ActionName>(name: N, args: ActionArgs<N>): boolean {
     if (!history.value) return false
-    const result = runAction(history.value.present, actions[name] as (d: ChipDocument, a: ActionArgs<N>) => ReturnType<typeof actions.move>, args)
-    if (!result.ok) { refusal.value = result.refusal.message; return false }
+    const result = runAction(
+      history.value.present,
+      actions[name] as (d: ChipDocument, a: ActionArgs<N>) => ReturnType<typeof actions.move>,
+      args,
+    )
+    if (!result.ok) {
+      refusal.value = result.refusal.message
+      return false
+    }
     refusal.value = null
     history.value = commit(history.value, result.doc, result.history, actionLabel(name, args))
     selection.value = selection.value.filter(id => elementExists(result.doc, id))
@@ -95,19 +127,43 @@ export const useEditorStore = defineStore('editor', () => {
     keepDrawLayer()
   }
 
-  const undo = () => { if (history.value) { history.value = undoH(history.value); prune() } }
-  const redo = () => { if (history.value) { history.value = redoH(history.value); prune() } }
-  const prune = () => { selection.value = selection.value.filter(id => doc.value && elementExists(doc.value, id)); keepDrawLayer() }
-  const keepDrawLayer = () => { if (doc.value && !doc.value.layers.some(l => l.id === drawLayer.value)) drawLayer.value = doc.value.layers[0]!.id }
+  const undo = () => {
+    if (history.value) {
+      history.value = undoH(history.value)
+      prune()
+    }
+  }
+  const redo = () => {
+    if (history.value) {
+      history.value = redoH(history.value)
+      prune()
+    }
+  }
+  const prune = () => {
+    selection.value = selection.value.filter(id => doc.value && elementExists(doc.value, id))
+    keepDrawLayer()
+  }
+  const keepDrawLayer = () => {
+    if (doc.value && !doc.value.layers.some(l => l.id === drawLayer.value)) drawLayer.value = doc.value.layers[0]!.id
+  }
 
   function select(ids: string[], mode: 'replace' | 'toggle' | 'add' = 'replace') {
     if (mode === 'replace') selection.value = [...ids]
     else if (mode === 'add') selection.value = [...new Set([...selection.value, ...ids])]
-    else for (const id of ids) selection.value = selection.value.includes(id) ? selection.value.filter(s => s !== id) : [...selection.value, id]
+    else
+      for (const id of ids)
+        selection.value = selection.value.includes(id)
+          ? selection.value.filter(s => s !== id)
+          : [...selection.value, id]
   }
 
-  const offset = () => ({ x: gridPitch.value > 0 ? 4 * gridPitch.value : 200, y: -(gridPitch.value > 0 ? 4 * gridPitch.value : 200) })
-  function copySelection() { if (doc.value && selection.value.length) clip.value = copy(doc.value, selection.value) }
+  const offset = () => ({
+    x: gridPitch.value > 0 ? 4 * gridPitch.value : 200,
+    y: -(gridPitch.value > 0 ? 4 * gridPitch.value : 200),
+  })
+  function copySelection() {
+    if (doc.value && selection.value.length) clip.value = copy(doc.value, selection.value)
+  }
   function pasteClip() {
     if (!clip.value) return
     const inserted: string[] = []
@@ -115,10 +171,15 @@ export const useEditorStore = defineStore('editor', () => {
   }
   function duplicateSelection() {
     const inserted: string[] = []
-    if (selection.value.length && apply('duplicate', { ids: selection.value, offset: offset(), inserted })) selection.value = inserted
+    if (selection.value.length && apply('duplicate', { ids: selection.value, offset: offset(), inserted }))
+      selection.value = inserted
   }
-  function deleteSelection() { if (selection.value.length && apply('delete', { ids: selection.value })) selection.value = [] }
-  function rotateSelection(deg = 90) { if (selection.value.length) apply('rotate', { ids: selection.value, deg }) }
+  function deleteSelection() {
+    if (selection.value.length && apply('delete', { ids: selection.value })) selection.value = []
+  }
+  function rotateSelection(deg = 90) {
+    if (selection.value.length) apply('rotate', { ids: selection.value, deg })
+  }
 
   /** Save the working document as a new revision whose parent is the one edits are based on. */
   async function save(message: string, branch = false) {
@@ -129,13 +190,20 @@ export const useEditorStore = defineStore('editor', () => {
     try {
       busy.value = true
       problem.value = null
-      const r = await $fetch<{ revisionId: string, number: number }>(url, { method: 'POST', body: { parentId: base.value.id, message, document, branch } })
+      const r = await $fetch<{ revisionId: string; number: number }>(url, {
+        method: 'POST',
+        body: { parentId: base.value.id, message, document, branch },
+      })
       base.value = { id: r.revisionId, number: r.number }
       saved.value = document
       return true
     } catch (error) {
-      const e = error as { statusCode?: number, data?: { message?: string, data?: { latestRevisionId: string, since: RevisionRow[] } } }
-      if (e.statusCode === 409 && e.data?.data?.latestRevisionId) conflict.value = { message: e.data.message ?? 'A newer revision was saved first', ...e.data.data }
+      const e = error as {
+        statusCode?: number
+        data?: { message?: string; data?: { latestRevisionId: string; since: RevisionRow[] } }
+      }
+      if (e.statusCode === 409 && e.data?.data?.latestRevisionId)
+        conflict.value = { message: e.data.message ?? 'A newer revision was saved first', ...e.data.data }
       else problem.value = toApiProblem(error)
       return false
     } finally {
@@ -144,12 +212,49 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   return {
-    labId, designId, designName, processId, base, history, doc, saved, selection, gridPitch, drawLayer, refusal, conflict, busy, problem, dirty, undoable, redoable, undoing, redoing,
-    load, open, adoptHydrated, apply, replace, undo, redo, select, copySelection, pasteClip, duplicateSelection, deleteSelection, rotateSelection, save,
+    labId,
+    designId,
+    designName,
+    processId,
+    base,
+    history,
+    doc,
+    saved,
+    selection,
+    gridPitch,
+    drawLayer,
+    refusal,
+    conflict,
+    busy,
+    problem,
+    dirty,
+    undoable,
+    redoable,
+    undoing,
+    redoing,
+    load,
+    open,
+    adoptHydrated,
+    apply,
+    replace,
+    undo,
+    redo,
+    select,
+    copySelection,
+    pasteClip,
+    duplicateSelection,
+    deleteSelection,
+    rotateSelection,
+    save,
     hasClip: computed(() => !!clip.value),
   }
 })
 
 function elementExists(d: ChipDocument, id: string) {
-  return d.components.some(c => c.id === id) || d.ports.some(p => p.id === id) || d.channels.some(c => c.id === id) || d.marks.some(m => m.id === id)
+  return (
+    d.components.some(c => c.id === id) ||
+    d.ports.some(p => p.id === id) ||
+    d.channels.some(c => c.id === id) ||
+    d.marks.some(m => m.id === id)
+  )
 }

@@ -6,7 +6,9 @@ export const useInboxStore = defineStore('inbox', () => {
   const inbox = ref<ReviewInbox | null>(null)
   const { busy, problem, run } = useApiCall()
   async function load(labId: string) {
-    await run(async () => { inbox.value = await useRequestFetch()<ReviewInbox>(`/api/labs/${labId}/inbox`) })
+    await run(async () => {
+      inbox.value = await useRequestFetch()<ReviewInbox>(`/api/labs/${labId}/inbox`)
+    })
   }
   return { inbox, busy, problem, load }
 })

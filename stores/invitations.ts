@@ -18,7 +18,9 @@ export const useInvitationsStore = defineStore('invitations', () => {
   }
 
   async function invite(body: InvitationCreate): Promise<boolean> {
-    const created = await run(() => $fetch<PendingInvitation>(`/api/labs/${labId.value}/invitations`, { method: 'POST', body }))
+    const created = await run(() =>
+      $fetch<PendingInvitation>(`/api/labs/${labId.value}/invitations`, { method: 'POST', body }),
+    )
     if (!created) return false
     pending.value = [created, ...pending.value.filter(i => i.email !== created.email)]
     lastSentTo.value = created.email

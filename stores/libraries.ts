@@ -35,13 +35,19 @@ export const useLibrariesStore = defineStore('libraries', () => {
   }
 
   /** Saves a new or changed entry; answers the problem (field messages included) or null. */
-  async function save(labId: string, body: LibraryEntryCreateBody | LibraryEntryUpdateBody, entryId?: string): Promise<ApiProblem | null> {
+  async function save(
+    labId: string,
+    body: LibraryEntryCreateBody | LibraryEntryUpdateBody,
+    entryId?: string,
+  ): Promise<ApiProblem | null> {
     busy.value = true
     try {
       const saved = entryId
         ? await $fetch<LibraryEntryView>(`/api/labs/${labId}/libraries/${entryId}`, { method: 'PATCH', body })
         : await $fetch<LibraryEntryView>(`/api/labs/${labId}/libraries`, { method: 'POST', body })
-      entries.value = [...entries.value.filter(e => e.id !== saved.id), saved].sort((a, b) => a.kind.localeCompare(b.kind) || a.name.localeCompare(b.name))
+      entries.value = [...entries.value.filter(e => e.id !== saved.id), saved].sort(
+        (a, b) => a.kind.localeCompare(b.kind) || a.name.localeCompare(b.name),
+      )
       listingLab.value = null
       return null
     } catch (error) {
@@ -53,7 +59,10 @@ export const useLibrariesStore = defineStore('libraries', () => {
 
   async function archive(labId: string, entryId: string, archived: boolean): Promise<ApiProblem | null> {
     try {
-      const saved = await $fetch<LibraryEntryView>(`/api/labs/${labId}/libraries/${entryId}/archive`, { method: 'POST', body: { archived } })
+      const saved = await $fetch<LibraryEntryView>(`/api/labs/${labId}/libraries/${entryId}/archive`, {
+        method: 'POST',
+        body: { archived },
+      })
       entries.value = entries.value.map(e => (e.id === saved.id ? saved : e))
       listingLab.value = null
       return null
@@ -63,9 +72,15 @@ export const useLibrariesStore = defineStore('libraries', () => {
   }
 
   /** The revision forecast again with the lab's current library, beside the stored one. */
-  async function reforecast(labId: string, revisionId: string): Promise<{ answer: ReforecastAnswer | null, problem: ApiProblem | null }> {
+  async function reforecast(
+    labId: string,
+    revisionId: string,
+  ): Promise<{ answer: ReforecastAnswer | null; problem: ApiProblem | null }> {
     try {
-      return { answer: await $fetch<ReforecastAnswer>(`/api/labs/${labId}/revisions/${revisionId}/reforecast`), problem: null }
+      return {
+        answer: await $fetch<ReforecastAnswer>(`/api/labs/${labId}/revisions/${revisionId}/reforecast`),
+        problem: null,
+      }
     } catch (error) {
       return { answer: null, problem: toApiProblem(error) }
     }

@@ -9,10 +9,14 @@ export const useOrdersStore = defineStore('orders', () => {
   const { busy, problem, run } = useApiCall()
 
   async function load(labId: string) {
-    await run(async () => { rows.value = await useRequestFetch()<OrderRow[]>(`/api/labs/${labId}/orders`) })
+    await run(async () => {
+      rows.value = await useRequestFetch()<OrderRow[]>(`/api/labs/${labId}/orders`)
+    })
   }
   async function open(labId: string, orderId: string) {
-    await run(async () => { order.value = await useRequestFetch()<OrderDetailView>(`/api/labs/${labId}/orders/${orderId}`) })
+    await run(async () => {
+      order.value = await useRequestFetch()<OrderDetailView>(`/api/labs/${labId}/orders/${orderId}`)
+    })
   }
   async function act(labId: string, orderId: string, path: string, body: Record<string, unknown>) {
     const url: string = `/api/labs/${labId}/orders/${orderId}/${path}`
@@ -21,7 +25,12 @@ export const useOrdersStore = defineStore('orders', () => {
     return done !== undefined
   }
   return {
-    rows, order, busy, problem, load, open,
+    rows,
+    order,
+    busy,
+    problem,
+    load,
+    open,
     move: (labId: string, orderId: string, move: OrderMove) => act(labId, orderId, 'status', move),
     write: (labId: string, orderId: string, body: string) => act(labId, orderId, 'messages', { body }),
   }

@@ -8,7 +8,9 @@ export const useRevisionStore = defineStore('revision', () => {
   const review = ref<ReviewState | null>(null)
   const { busy, problem, run } = useApiCall()
   // Derived from state (not a local variable) so actions work after hydration, when load() ran on the server.
-  const base = computed(() => (revision.value ? `/api/labs/${revision.value.labId}/revisions/${revision.value.id}` : ''))
+  const base = computed(() =>
+    revision.value ? `/api/labs/${revision.value.labId}/revisions/${revision.value.id}` : '',
+  )
 
   async function load(labId: string, revisionId: string) {
     const url = `/api/labs/${labId}/revisions/${revisionId}`
@@ -28,9 +30,14 @@ export const useRevisionStore = defineStore('revision', () => {
   }
 
   return {
-    revision, review, busy, problem, load,
+    revision,
+    review,
+    busy,
+    problem,
+    load,
     requestReview: (reviewerIds: string[]) => act('/review-requests', 'POST', { reviewerIds }),
-    pin: (anchor: { x: number, y: number, elementId?: string }, body: string) => act('/threads', 'POST', { anchor, body }),
+    pin: (anchor: { x: number; y: number; elementId?: string }, body: string) =>
+      act('/threads', 'POST', { anchor, body }),
     reply: (threadId: string, body: string) => act(`/threads/${threadId}/comments`, 'POST', { body }),
     setResolved: (threadId: string, resolved: boolean) => act(`/threads/${threadId}`, 'PATCH', { resolved }),
     verdict: (verdict: 'approve' | 'request-changes', note: string) => act('/verdicts', 'POST', { verdict, note }),

@@ -6,12 +6,36 @@ import type { EChartsOption } from 'echarts'
 import { formatNumber } from '#shared/format/quantity'
 import { PLOT_COLOURS } from '~~/components/editor/lib/plotOptions'
 
-export interface NozzleInput { id: string; kind: string; dropletDiameterUm: number | null; frequencyHz: number | null; valid: boolean; flowUlPerMin?: number | null }
-export interface NozzleRow extends NozzleInput { array: string; nozzle: number; flowUlPerMin: number | null }
-export interface Spread { count: number; min: number; max: number; mean: number; cv: number }
+export interface NozzleInput {
+  id: string
+  kind: string
+  dropletDiameterUm: number | null
+  frequencyHz: number | null
+  valid: boolean
+  flowUlPerMin?: number | null
+}
+export interface NozzleRow extends NozzleInput {
+  array: string
+  nozzle: number
+  flowUlPerMin: number | null
+}
+export interface Spread {
+  count: number
+  min: number
+  max: number
+  mean: number
+  cv: number
+}
 export interface NozzleGroup {
   /** The array element's id, or `bank:<kind>` for separate junctions of one kind placed as a bank. */
-  array: string; kind: string; bank: boolean; rows: NozzleRow[]; diameter: Spread | null; flow: Spread | null; rate: Spread | null }
+  array: string
+  kind: string
+  bank: boolean
+  rows: NozzleRow[]
+  diameter: Spread | null
+  flow: Spread | null
+  rate: Spread | null
+}
 
 const NOZZLE_ID = /^(.*)\[(\d+)\]$/
 
@@ -21,7 +45,7 @@ const NOZZLE_ID = /^(.*)\[(\d+)\]$/
  */
 export function flowFromDrops(diameterUm: number | null, frequencyHz: number | null): number | null {
   if (diameterUm == null || frequencyHz == null) return null
-  return frequencyHz * Math.PI * diameterUm ** 3 / 6 * 1e-9 * 60
+  return ((frequencyHz * Math.PI * diameterUm ** 3) / 6) * 1e-9 * 60
 }
 
 /** min, max, mean and CV = s/mean with the sample standard deviation (n − 1); null without values. */
@@ -46,21 +70,44 @@ export function nozzleGroups(junctions: NozzleInput[], bankMin = BANK_MIN): Nozz
   const loose = new Map<string, NozzleInput[]>()
   for (const j of junctions) {
     const m = NOZZLE_ID.exec(j.id)
-    if (!m) { loose.set(j.kind, [...(loose.get(j.kind) ?? []), j]); continue }
-    const row: NozzleRow = { ...j, array: m[1]!, nozzle: Number(m[2]), flowUlPerMin: j.flowUlPerMin ?? flowFromDrops(j.dropletDiameterUm, j.frequencyHz) }
+    if (!m) {
+      loose.set(j.kind, [...(loose.get(j.kind) ?? []), j])
+      continue
+    }
+    const row: NozzleRow = {
+      ...j,
+      array: m[1]!,
+      nozzle: Number(m[2]),
+      flowUlPerMin: j.flowUlPerMin ?? flowFromDrops(j.dropletDiameterUm, j.frequencyHz),
+    }
     byArray.set(row.array, [...(byArray.get(row.array) ?? []), row])
   }
   for (const [kind, list] of loose) {
     if (list.length < bankMin) continue
-    byArray.set(`bank:${kind}`, list.map((j, k) => ({ ...j, array: `bank:${kind}`, nozzle: k, flowUlPerMin: j.flowUlPerMin ?? flowFromDrops(j.dropletDiameterUm, j.frequencyHz) })))
+    byArray.set(
+      `bank:${kind}`,
+      list.map((j, k) => ({
+        ...j,
+        array: `bank:${kind}`,
+        nozzle: k,
+        flowUlPerMin: j.flowUlPerMin ?? flowFromDrops(j.dropletDiameterUm, j.frequencyHz),
+      })),
+    )
   }
-  return [...byArray].filter(([, rows]) => rows.length > 1).map(([array, rows]) => {
-    const sorted = rows.sort((a, b) => a.nozzle - b.nozzle)
-    return {
-      array, kind: sorted[0]!.kind, bank: array.startsWith('bank:'), rows: sorted,
-      diameter: spreadOf(sorted.map(r => r.dropletDiameterUm)), flow: spreadOf(sorted.map(r => r.flowUlPerMin)), rate: spreadOf(sorted.map(r => r.frequencyHz)),
-    }
-  })
+  return [...byArray]
+    .filter(([, rows]) => rows.length > 1)
+    .map(([array, rows]) => {
+      const sorted = rows.sort((a, b) => a.nozzle - b.nozzle)
+      return {
+        array,
+        kind: sorted[0]!.kind,
+        bank: array.startsWith('bank:'),
+        rows: sorted,
+        diameter: spreadOf(sorted.map(r => r.dropletDiameterUm)),
+        flow: spreadOf(sorted.map(r => r.flowUlPerMin)),
+        rate: spreadOf(sorted.map(r => r.frequencyHz)),
+      }
+    })
 }
 
 export type NozzleSortKey = 'nozzle' | 'dropletDiameterUm' | 'frequencyHz' | 'flowUlPerMin'
@@ -69,7 +116,8 @@ export type NozzleSortKey = 'nozzle' | 'dropletDiameterUm' | 'frequencyHz' | 'fl
 export function sortNozzles(rows: NozzleRow[], key: NozzleSortKey, dir: 'asc' | 'desc'): NozzleRow[] {
   const sign = dir === 'asc' ? 1 : -1
   return [...rows].sort((a, b) => {
-    const x = a[key], y = b[key]
+    const x = a[key],
+      y = b[key]
     if (x == null && y == null) return a.nozzle - b.nozzle
     if (x == null) return 1
     if (y == null) return -1
@@ -80,8 +128,22 @@ export function sortNozzles(rows: NozzleRow[], key: NozzleSortKey, dir: 'asc' | 
 /** The table as CSV (papaparse), numbers unrounded, units in the header, nozzles counted from 1 as on screen. */
 export function nozzleCsv(group: NozzleGroup): string {
   return Papa.unparse({
-    fields: ['array', 'nozzle', 'droplet_diameter_um', 'generation_rate_hz', 'dispersed_flow_ul_per_min', 'inside_validity'],
-    data: group.rows.map(r => [group.bank ? r.id : group.array, r.nozzle + 1, r.dropletDiameterUm ?? '', r.frequencyHz ?? '', r.flowUlPerMin ?? '', r.valid ? 'yes' : 'no']),
+    fields: [
+      'array',
+      'nozzle',
+      'droplet_diameter_um',
+      'generation_rate_hz',
+      'dispersed_flow_ul_per_min',
+      'inside_validity',
+    ],
+    data: group.rows.map(r => [
+      group.bank ? r.id : group.array,
+      r.nozzle + 1,
+      r.dropletDiameterUm ?? '',
+      r.frequencyHz ?? '',
+      r.flowUlPerMin ?? '',
+      r.valid ? 'yes' : 'no',
+    ]),
   })
 }
 
@@ -91,19 +153,61 @@ const NAME_FONT = { ...FONT, fontFamily: 'IBM Plex Sans, system-ui, sans-serif',
 /** Diameter (left axis) and dispersed flow (right axis) along the manifold, nozzle 1 … N. */
 export function nozzlePlotOption(group: NozzleGroup): EChartsOption {
   const axis = (name: string, position: 'left' | 'right') => ({
-    type: 'value' as const, name, nameLocation: 'middle' as const, nameGap: 44, position, scale: true, nameTextStyle: NAME_FONT,
-    axisLabel: { ...FONT, formatter: (v: number) => formatNumber(v, 3) }, splitLine: { show: position === 'left', lineStyle: { color: PLOT_COLOURS.grid } },
+    type: 'value' as const,
+    name,
+    nameLocation: 'middle' as const,
+    nameGap: 44,
+    position,
+    scale: true,
+    nameTextStyle: NAME_FONT,
+    axisLabel: { ...FONT, formatter: (v: number) => formatNumber(v, 3) },
+    splitLine: { show: position === 'left', lineStyle: { color: PLOT_COLOURS.grid } },
   })
   return {
-    animation: false, textStyle: FONT,
+    animation: false,
+    textStyle: FONT,
     grid: { left: 58, right: 58, top: 26, bottom: 40 },
-    legend: { top: 0, left: 'center', itemWidth: 10, itemHeight: 10, textStyle: NAME_FONT, data: ['droplet diameter', 'dispersed flow'] },
+    legend: {
+      top: 0,
+      left: 'center',
+      itemWidth: 10,
+      itemHeight: 10,
+      textStyle: NAME_FONT,
+      data: ['droplet diameter', 'dispersed flow'],
+    },
     tooltip: { trigger: 'axis', confine: true, textStyle: { ...FONT, fontSize: 11 } },
-    xAxis: { type: 'value', name: 'nozzle along the manifold (1 … N)', nameLocation: 'middle', nameGap: 24, min: 1, max: Math.max(2, group.rows.length), nameTextStyle: NAME_FONT, axisLabel: { ...FONT, formatter: (v: number) => String(v) } },
+    xAxis: {
+      type: 'value',
+      name: 'nozzle along the manifold (1 … N)',
+      nameLocation: 'middle',
+      nameGap: 24,
+      min: 1,
+      max: Math.max(2, group.rows.length),
+      nameTextStyle: NAME_FONT,
+      axisLabel: { ...FONT, formatter: (v: number) => String(v) },
+    },
     yAxis: [axis('droplet diameter Ø, µm', 'left'), axis('dispersed flow, µL/min', 'right')],
     series: [
-      { name: 'droplet diameter', type: 'line', showSymbol: group.rows.length <= 64, symbolSize: 4, yAxisIndex: 0, data: group.rows.map(r => [r.nozzle + 1, r.dropletDiameterUm]), lineStyle: { color: PLOT_COLOURS.line, width: 1.6 }, itemStyle: { color: PLOT_COLOURS.line } },
-      { name: 'dispersed flow', type: 'line', showSymbol: group.rows.length <= 64, symbolSize: 4, yAxisIndex: 1, data: group.rows.map(r => [r.nozzle + 1, r.flowUlPerMin]), lineStyle: { color: PLOT_COLOURS.current, width: 1.4, type: 'dashed' }, itemStyle: { color: PLOT_COLOURS.current } },
+      {
+        name: 'droplet diameter',
+        type: 'line',
+        showSymbol: group.rows.length <= 64,
+        symbolSize: 4,
+        yAxisIndex: 0,
+        data: group.rows.map(r => [r.nozzle + 1, r.dropletDiameterUm]),
+        lineStyle: { color: PLOT_COLOURS.line, width: 1.6 },
+        itemStyle: { color: PLOT_COLOURS.line },
+      },
+      {
+        name: 'dispersed flow',
+        type: 'line',
+        showSymbol: group.rows.length <= 64,
+        symbolSize: 4,
+        yAxisIndex: 1,
+        data: group.rows.map(r => [r.nozzle + 1, r.flowUlPerMin]),
+        lineStyle: { color: PLOT_COLOURS.current, width: 1.4, type: 'dashed' },
+        itemStyle: { color: PLOT_COLOURS.current },
+      },
     ],
   }
 }

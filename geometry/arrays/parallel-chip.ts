@@ -45,19 +45,38 @@ export function planParallelChip(opts: ParallelChipOptions): ParallelChipPlan {
   if (!(n >= 1)) throw new RangeError(`Nozzle count must be a whole number ≥ 1 (got ${opts.nozzles})`)
   const perBank = Math.max(1, Math.floor(opts.nozzlesPerBank ?? 128))
   const p = {
-    pitch: opts.pitch ?? 60, nozzleWidth: opts.nozzleWidth ?? 30, nozzleLength: opts.nozzleLength ?? 150,
-    nozzleDepth: opts.nozzleDepth ?? 8, deepDepth: opts.deepDepth ?? 150, reservoirWidth: opts.reservoirWidth ?? 400,
+    pitch: opts.pitch ?? 60,
+    nozzleWidth: opts.nozzleWidth ?? 30,
+    nozzleLength: opts.nozzleLength ?? 150,
+    nozzleDepth: opts.nozzleDepth ?? 8,
+    deepDepth: opts.deepDepth ?? 150,
+    reservoirWidth: opts.reservoirWidth ?? 400,
   }
   const target = opts.targetNonUniformity ?? 0.01
   const largestBank = Math.min(n, perBank)
   const manifold = sizeManifold({
     nozzle: rectResistancePerViscosity(p.nozzleWidth, p.nozzleDepth, p.nozzleLength),
-    n: largestBank, depth: p.deepDepth, segmentLength: p.pitch, target,
-    minWidth: Math.max(100, 2 * p.nozzleWidth), maxWidth: opts.maxManifoldWidth ?? 1500,
+    n: largestBank,
+    depth: p.deepDepth,
+    segmentLength: p.pitch,
+    target,
+    minWidth: Math.max(100, 2 * p.nozzleWidth),
+    maxWidth: opts.maxManifoldWidth ?? 1500,
   })
   const banks = Math.ceil(n / perBank)
-  const grid = gridBanks(Array.from({ length: banks }, (_, b) =>
-    bankElements({ ...p, bank: b, x0: 0, y0: 0, count: Math.min(perBank, n - b * perBank), manifoldWidth: manifold.width })), 0)
+  const grid = gridBanks(
+    Array.from({ length: banks }, (_, b) =>
+      bankElements({
+        ...p,
+        bank: b,
+        x0: 0,
+        y0: 0,
+        count: Math.min(perBank, n - b * perBank),
+        manifoldWidth: manifold.width,
+      }),
+    ),
+    0,
+  )
   const parts = grid.banks
   const frame = frameChip(parts, 0, `DW step array ${n}`, ['nozzle', 'deep'])
   const { name, warnings } = waferNote(opts.name ?? `Parallel step emulsifier, ${n} nozzles`, frame)
@@ -70,18 +89,21 @@ export function planParallelChip(opts: ParallelChipOptions): ParallelChipPlan {
       { id: 'nozzle', name: 'Nozzles (shallow)', depth: p.nozzleDepth },
       { id: 'deep', name: 'Manifolds and reservoirs (deep)', depth: p.deepDepth },
     ],
-    ports: parts.flatMap((x) => x.ports),
-    components: parts.flatMap((x) => x.components),
-    channels: parts.flatMap((x) => x.channels),
+    ports: parts.flatMap(x => x.ports),
+    components: parts.flatMap(x => x.components),
+    channels: parts.flatMap(x => x.channels),
     outline: frame.outline,
     marks: frame.marks,
-    operatingPoints: [designPoint(parts.flatMap((x) => x.inlets))],
+    operatingPoints: [designPoint(parts.flatMap(x => x.inlets))],
     activeOperatingPoint: 'op-1',
   }
   const document = opts.unbounded ? (raw as ChipDocument) : requireChipDocument(raw)
   return {
-    document, banks, manifold: { ...manifold, target },
-    chip: { width: frame.width, height: frame.height, columns: grid.columns, rows: grid.rows, wafer: frame.wafer }, warnings,
+    document,
+    banks,
+    manifold: { ...manifold, target },
+    chip: { width: frame.width, height: frame.height, columns: grid.columns, rows: grid.rows, wafer: frame.wafer },
+    warnings,
   }
 }
 

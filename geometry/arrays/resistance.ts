@@ -28,9 +28,16 @@ export function ladderNonUniformity(segment: number, nozzle: number, n: number):
  * monotonically with width). Returns the width and the δ it achieves (maxWidth and its δ if none suffices).
  */
 export function sizeManifold(args: {
-  nozzle: number; n: number; depth: number; segmentLength: number; target: number; minWidth: number; maxWidth: number
+  nozzle: number
+  n: number
+  depth: number
+  segmentLength: number
+  target: number
+  minWidth: number
+  maxWidth: number
 }): { width: number; nonUniformity: number } {
-  const delta = (w: number) => ladderNonUniformity(rectResistancePerViscosity(w, args.depth, args.segmentLength), args.nozzle, args.n)
+  const delta = (w: number) =>
+    ladderNonUniformity(rectResistancePerViscosity(w, args.depth, args.segmentLength), args.nozzle, args.n)
   if (delta(args.minWidth) <= args.target) return { width: args.minWidth, nonUniformity: delta(args.minWidth) }
   if (delta(args.maxWidth) > args.target) return { width: args.maxWidth, nonUniformity: delta(args.maxWidth) }
   let lo = args.minWidth

@@ -30,7 +30,10 @@ export function tJunctionBankColumns(a: TJunctionBankArgs): { xj: number; xo: nu
   const xj = a.continuousBranch + a.armLength
   const xo = xj + a.armLength + a.outletLength
   const rise = a.pitch / 2 // the dispersed branch runs half-way between two rows of junctions
-  const xd = Math.max(xo + a.punch / 2 + a.clearance + a.dispersedManifoldWidth / 2, xj + a.dispersedBranch - (rise - a.armLength))
+  const xd = Math.max(
+    xo + a.punch / 2 + a.clearance + a.dispersedManifoldWidth / 2,
+    xj + a.dispersedBranch - (rise - a.armLength),
+  )
   return { xj, xo, xd, rise }
 }
 
@@ -57,36 +60,113 @@ export function tJunctionBankElements(a: TJunctionBankArgs): Elements {
 
   for (let k = 0; k < a.count; k++) {
     out.components.push({
-      id: j(k), kind: 't-junction', position: { x: xj, y: y(k) }, rotation: 0, layerId: 'junction',
-      mainWidth: a.mainWidth, inletWidth: a.inletWidth, armLength: a.armLength,
+      id: j(k),
+      kind: 't-junction',
+      position: { x: xj, y: y(k) },
+      rotation: 0,
+      layerId: 'junction',
+      mainWidth: a.mainWidth,
+      inletWidth: a.inletWidth,
+      armLength: a.armLength,
     })
-    out.ports.push({ id: id(`out${k}`), kind: 'outlet', position: { x: xo, y: y(k) }, punchDiameter: a.punch, layerId: 'junction' })
+    out.ports.push({
+      id: id(`out${k}`),
+      kind: 'outlet',
+      position: { x: xo, y: y(k) },
+      punchDiameter: a.punch,
+      layerId: 'junction',
+    })
     out.channels.push(
-      { id: id(`cb${k}`), layerId: 'junction', width: a.mainWidth, points: [{ x: 0, y: y(k) }, { x: xj - a.armLength, y: y(k) }],
-        end: { element: j(k), terminal: 'continuous' } },
-      { id: id(`db${k}`), layerId: 'junction', width: a.inletWidth,
-        points: [{ x: xd, y: y(k) + rise }, { x: xj, y: y(k) + rise }, { x: xj, y: y(k) + a.armLength }],
-        end: { element: j(k), terminal: 'dispersed' } },
-      { id: id(`ob${k}`), layerId: 'junction', width: a.mainWidth, points: [{ x: xj + a.armLength, y: y(k) }, { x: xo, y: y(k) }],
-        start: { element: j(k), terminal: 'outlet' }, end: { element: id(`out${k}`), terminal: 'port' } },
+      {
+        id: id(`cb${k}`),
+        layerId: 'junction',
+        width: a.mainWidth,
+        points: [
+          { x: 0, y: y(k) },
+          { x: xj - a.armLength, y: y(k) },
+        ],
+        end: { element: j(k), terminal: 'continuous' },
+      },
+      {
+        id: id(`db${k}`),
+        layerId: 'junction',
+        width: a.inletWidth,
+        points: [
+          { x: xd, y: y(k) + rise },
+          { x: xj, y: y(k) + rise },
+          { x: xj, y: y(k) + a.armLength },
+        ],
+        end: { element: j(k), terminal: 'dispersed' },
+      },
+      {
+        id: id(`ob${k}`),
+        layerId: 'junction',
+        width: a.mainWidth,
+        points: [
+          { x: xj + a.armLength, y: y(k) },
+          { x: xo, y: y(k) },
+        ],
+        start: { element: j(k), terminal: 'outlet' },
+        end: { element: id(`out${k}`), terminal: 'port' },
+      },
     )
     if (k === last) continue
     out.channels.push(
-      { id: id(`cm${k}`), layerId: 'deep', width: a.continuousManifoldWidth, points: [{ x: 0, y: y(k) }, { x: 0, y: y(k + 1) }] },
-      { id: id(`dm${k}`), layerId: 'deep', width: a.dispersedManifoldWidth, points: [{ x: xd, y: y(k) + rise }, { x: xd, y: y(k + 1) + rise }] },
+      {
+        id: id(`cm${k}`),
+        layerId: 'deep',
+        width: a.continuousManifoldWidth,
+        points: [
+          { x: 0, y: y(k) },
+          { x: 0, y: y(k + 1) },
+        ],
+      },
+      {
+        id: id(`dm${k}`),
+        layerId: 'deep',
+        width: a.dispersedManifoldWidth,
+        points: [
+          { x: xd, y: y(k) + rise },
+          { x: xd, y: y(k + 1) + rise },
+        ],
+      },
     )
   }
   const contIn = { x: 0, y: feedY }
   const dispIn = { x: xd, y: feedY }
   out.ports.push(
-    { id: id('cont-in'), kind: 'inlet', position: contIn, punchDiameter: a.punch, layerId: 'deep', feed: { phase: 'continuous' } },
-    { id: id('disp-in'), kind: 'inlet', position: dispIn, punchDiameter: a.punch, layerId: 'deep', feed: { phase: 'dispersed' } },
+    {
+      id: id('cont-in'),
+      kind: 'inlet',
+      position: contIn,
+      punchDiameter: a.punch,
+      layerId: 'deep',
+      feed: { phase: 'continuous' },
+    },
+    {
+      id: id('disp-in'),
+      kind: 'inlet',
+      position: dispIn,
+      punchDiameter: a.punch,
+      layerId: 'deep',
+      feed: { phase: 'dispersed' },
+    },
   )
   out.channels.push(
-    { id: id('cont-feed'), layerId: 'deep', width: a.continuousManifoldWidth, points: [contIn, { x: 0, y: 0 }],
-      start: { element: id('cont-in'), terminal: 'port' } },
-    { id: id('disp-feed'), layerId: 'deep', width: a.dispersedManifoldWidth, points: [dispIn, { x: xd, y: rise }],
-      start: { element: id('disp-in'), terminal: 'port' } },
+    {
+      id: id('cont-feed'),
+      layerId: 'deep',
+      width: a.continuousManifoldWidth,
+      points: [contIn, { x: 0, y: 0 }],
+      start: { element: id('cont-in'), terminal: 'port' },
+    },
+    {
+      id: id('disp-feed'),
+      layerId: 'deep',
+      width: a.dispersedManifoldWidth,
+      points: [dispIn, { x: xd, y: rise }],
+      start: { element: id('disp-in'), terminal: 'port' },
+    },
   )
   return out
 }

@@ -33,7 +33,12 @@ export interface TJunctionChipOptions {
   flowPerJunction?: { continuous: number; dispersed: number }
 }
 
-export interface ManifoldSizing { width: number; branchLength: number; nonUniformity: number; target: number }
+export interface ManifoldSizing {
+  width: number
+  branchLength: number
+  nonUniformity: number
+  target: number
+}
 
 export interface TJunctionChipPlan {
   document: ChipDocument
@@ -54,13 +59,28 @@ const CLEARANCE = 1000
  * `fixed` is the resistance length of the path beyond the branch (junction arms, outlet), µm.
  */
 function sizeLadder(a: {
-  n: number; branchWidth: number; depth: number; fixed: number; branch: number; maxBranch: number
-  manifoldDepth: number; pitch: number; target: number; minWidth: number; maxWidth: number
+  n: number
+  branchWidth: number
+  depth: number
+  fixed: number
+  branch: number
+  maxBranch: number
+  manifoldDepth: number
+  pitch: number
+  target: number
+  minWidth: number
+  maxWidth: number
 }): ManifoldSizing {
-  const size = (branch: number) => sizeManifold({
-    nozzle: rectResistancePerViscosity(a.branchWidth, a.depth, branch + a.fixed),
-    n: a.n, depth: a.manifoldDepth, segmentLength: a.pitch, target: a.target, minWidth: a.minWidth, maxWidth: a.maxWidth,
-  })
+  const size = (branch: number) =>
+    sizeManifold({
+      nozzle: rectResistancePerViscosity(a.branchWidth, a.depth, branch + a.fixed),
+      n: a.n,
+      depth: a.manifoldDepth,
+      segmentLength: a.pitch,
+      target: a.target,
+      minWidth: a.minWidth,
+      maxWidth: a.maxWidth,
+    })
   let branchLength = a.branch
   let m = size(branchLength)
   if (m.nonUniformity > a.target) {
@@ -86,28 +106,65 @@ export function planTJunctionChip(opts: TJunctionChipOptions): TJunctionChipPlan
   const depth = opts.junctionDepth ?? 50
   const manifoldDepth = opts.manifoldDepth ?? 150
   const pitch = opts.pitch ?? 2000
-  if (pitch < PUNCH + 1000) throw new RangeError(`Junction pitch must be ≥ ${PUNCH + 1000} µm so the outlet punches stay 1,000 µm apart (got ${pitch})`)
+  if (pitch < PUNCH + 1000)
+    throw new RangeError(
+      `Junction pitch must be ≥ ${PUNCH + 1000} µm so the outlet punches stay 1,000 µm apart (got ${pitch})`,
+    )
   const target = opts.targetNonUniformity ?? 0.01
   const common = {
-    n: Math.min(n, perBank), depth, manifoldDepth, pitch, target,
-    branch: opts.branchLength ?? 2000, maxBranch: opts.maxBranchLength ?? 30000, maxWidth: opts.maxManifoldWidth ?? 2000,
+    n: Math.min(n, perBank),
+    depth,
+    manifoldDepth,
+    pitch,
+    target,
+    branch: opts.branchLength ?? 2000,
+    maxBranch: opts.maxBranchLength ?? 30000,
+    maxWidth: opts.maxManifoldWidth ?? 2000,
   }
-  const continuous = sizeLadder({ ...common, branchWidth: mainWidth, fixed: 2 * armLength + OUTLET_LENGTH, minWidth: Math.max(200, 2 * mainWidth) })
-  const dispersed = sizeLadder({ ...common, branchWidth: inletWidth, fixed: armLength, minWidth: Math.max(200, 2 * inletWidth) })
+  const continuous = sizeLadder({
+    ...common,
+    branchWidth: mainWidth,
+    fixed: 2 * armLength + OUTLET_LENGTH,
+    minWidth: Math.max(200, 2 * mainWidth),
+  })
+  const dispersed = sizeLadder({
+    ...common,
+    branchWidth: inletWidth,
+    fixed: armLength,
+    minWidth: Math.max(200, 2 * inletWidth),
+  })
 
   const args = (bank: number): TJunctionBankArgs => ({
-    bank, count: Math.min(perBank, n - bank * perBank), pitch, mainWidth, inletWidth, armLength,
-    continuousBranch: continuous.branchLength, dispersedBranch: dispersed.branchLength, outletLength: OUTLET_LENGTH,
-    continuousManifoldWidth: continuous.width, dispersedManifoldWidth: dispersed.width, punch: PUNCH, clearance: CLEARANCE,
+    bank,
+    count: Math.min(perBank, n - bank * perBank),
+    pitch,
+    mainWidth,
+    inletWidth,
+    armLength,
+    continuousBranch: continuous.branchLength,
+    dispersedBranch: dispersed.branchLength,
+    outletLength: OUTLET_LENGTH,
+    continuousManifoldWidth: continuous.width,
+    dispersedManifoldWidth: dispersed.width,
+    punch: PUNCH,
+    clearance: CLEARANCE,
   })
   const banks = Math.ceil(n / perBank)
-  const grid = gridBanks(Array.from({ length: banks }, (_, b) => tJunctionBankElements(args(b))), armLength)
+  const grid = gridBanks(
+    Array.from({ length: banks }, (_, b) => tJunctionBankElements(args(b))),
+    armLength,
+  )
   const frame = frameChip(grid.banks, armLength, `DW T-junction array ${n}`, ['junction', 'deep'])
   const note = waferNote(opts.name ?? `Parallel T-junctions, ${n} junctions`, frame)
   const warnings = [...note.warnings]
-  for (const [phase, s] of [['continuous', continuous], ['dispersed', dispersed]] as const) {
+  for (const [phase, s] of [
+    ['continuous', continuous],
+    ['dispersed', dispersed],
+  ] as const) {
     if (s.nonUniformity > target) {
-      warnings.push(`The ${phase} manifold reaches ${(100 * s.nonUniformity).toFixed(1)} % flow non-uniformity, above the ${(100 * target).toFixed(1)} % target, with a ${s.branchLength} µm branch: use fewer junctions per bank or allow longer branches`)
+      warnings.push(
+        `The ${phase} manifold reaches ${(100 * s.nonUniformity).toFixed(1)} % flow non-uniformity, above the ${(100 * target).toFixed(1)} % target, with a ${s.branchLength} µm branch: use fewer junctions per bank or allow longer branches`,
+      )
     }
   }
   // Flows per junction are a starting point for the editor (common practice, no source); the forecast decides.
@@ -120,23 +177,31 @@ export function planTJunctionChip(opts: TJunctionChipOptions): TJunctionChipPlan
       { id: 'junction', name: 'Junctions and branches', depth },
       { id: 'deep', name: 'Supply manifolds (deep)', depth: manifoldDepth },
     ],
-    ports: grid.banks.flatMap((x) => x.ports),
-    components: grid.banks.flatMap((x) => x.components),
-    channels: grid.banks.flatMap((x) => x.channels),
+    ports: grid.banks.flatMap(x => x.ports),
+    components: grid.banks.flatMap(x => x.components),
+    channels: grid.banks.flatMap(x => x.channels),
     outline: frame.outline,
     marks: frame.marks,
-    operatingPoints: [designPoint(Array.from({ length: banks }, (_, b) => {
-      const count = Math.min(perBank, n - b * perBank)
-      return [
-        { portId: `b${b}-cont-in`, mode: 'flow' as const, value: flow.continuous * count, unit: 'uL/min' as const },
-        { portId: `b${b}-disp-in`, mode: 'flow' as const, value: flow.dispersed * count, unit: 'uL/min' as const },
-      ]
-    }).flat())],
+    operatingPoints: [
+      designPoint(
+        Array.from({ length: banks }, (_, b) => {
+          const count = Math.min(perBank, n - b * perBank)
+          return [
+            { portId: `b${b}-cont-in`, mode: 'flow' as const, value: flow.continuous * count, unit: 'uL/min' as const },
+            { portId: `b${b}-disp-in`, mode: 'flow' as const, value: flow.dispersed * count, unit: 'uL/min' as const },
+          ]
+        }).flat(),
+      ),
+    ],
     activeOperatingPoint: 'op-1',
   })
   return {
-    document, banks, continuous, dispersed,
-    chip: { width: frame.width, height: frame.height, columns: grid.columns, rows: grid.rows, wafer: frame.wafer }, warnings,
+    document,
+    banks,
+    continuous,
+    dispersed,
+    chip: { width: frame.width, height: frame.height, columns: grid.columns, rows: grid.rows, wafer: frame.wafer },
+    warnings,
   }
 }
 

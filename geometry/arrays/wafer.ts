@@ -21,6 +21,6 @@ export interface WaferFit {
  */
 export function waferFor(width: number, height: number): WaferFit {
   const diagonalMm = Math.hypot(width, height) / 1000
-  const d = WAFER_DIAMETERS_MM.find((w) => diagonalMm <= w - 2 * WAFER_EDGE_EXCLUSION_MM)
+  const d = WAFER_DIAMETERS_MM.find(w => diagonalMm <= w - 2 * WAFER_EDGE_EXCLUSION_MM)
   return { diameterMm: d ?? null, diagonalMm }
 }

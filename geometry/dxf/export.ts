@@ -25,16 +25,23 @@ export interface DxfOptions {
   font?: OutlineFont
 }
 
-export interface DxfLayerSummary { name: string; depth?: number; polygons: MultiPolygon }
+export interface DxfLayerSummary {
+  name: string
+  depth?: number
+  polygons: MultiPolygon
+}
 
 /** The mask layers that will be written: channel layers grouped by depth and merged, plus marks. */
 export function dxfLayers(o: ChipOutlines): DxfLayerSummary[] {
   const byDepth = new Map<number, MultiPolygon[]>()
   for (const l of o.layers) byDepth.set(l.depth, [...(byDepth.get(l.depth) ?? []), l.polygons])
-  const out: DxfLayerSummary[] = [...byDepth].sort((a, b) => a[0] - b[0]).map(([depth, parts]) => ({
-    name: depthLayerName(depth), depth,
-    polygons: parts.length === 1 ? parts[0]! : mergePieces(parts.flat()).merged,
-  }))
+  const out: DxfLayerSummary[] = [...byDepth]
+    .sort((a, b) => a[0] - b[0])
+    .map(([depth, parts]) => ({
+      name: depthLayerName(depth),
+      depth,
+      polygons: parts.length === 1 ? parts[0]! : mergePieces(parts.flat()).merged,
+    }))
   out.push({ name: MARKS_LAYER_NAME, polygons: o.marks })
   return out
 }
@@ -54,11 +61,13 @@ export function exportDxf(doc: ChipDocument, options: DxfOptions = {}): string {
   const o = options.outlines ?? buildOutlines(doc)
   const wanted = options.layers && options.layers.length > 0 ? new Set(options.layers) : null
   const idsByName = new Map<string, string[]>()
-  for (const l of doc.layers) idsByName.set(depthLayerName(l.depth), [...(idsByName.get(depthLayerName(l.depth)) ?? []), l.id])
-  const include = (name: string) => !wanted || wanted.has(name) || (idsByName.get(name) ?? []).some((id) => wanted.has(id))
+  for (const l of doc.layers)
+    idsByName.set(depthLayerName(l.depth), [...(idsByName.get(depthLayerName(l.depth)) ?? []), l.id])
+  const include = (name: string) =>
+    !wanted || wanted.has(name) || (idsByName.get(name) ?? []).some(id => wanted.has(id))
 
   const ring = o.chipOutline
-  const xs = ring ? ring.map((p) => p[0]) : o.layers.flatMap((l) => l.polygons.flatMap((p) => p[0]?.map((q) => q[0]) ?? []))
+  const xs = ring ? ring.map(p => p[0]) : o.layers.flatMap(l => l.polygons.flatMap(p => p[0]?.map(q => q[0]) ?? []))
   const cx = xs.length > 0 ? (Math.min(...xs) + Math.max(...xs)) / 2 : 0
   const tx = (p: Pair): [number, number] => (options.mirror ? [2 * cx - p[0], p[1]] : [p[0], p[1]])
 
@@ -66,7 +75,9 @@ export function exportDxf(doc: ChipDocument, options: DxfOptions = {}): string {
   d.setUnits('Microns')
   const colours = [1, 5, 3, 6, 4, 2, 30, 140]
   const layers = dxfLayers(o)
-  layers.forEach((l, i) => d.addLayer(l.name, l.name === MARKS_LAYER_NAME ? 7 : colours[i % colours.length]!, 'CONTINUOUS'))
+  layers.forEach((l, i) =>
+    d.addLayer(l.name, l.name === MARKS_LAYER_NAME ? 7 : colours[i % colours.length]!, 'CONTINUOUS'),
+  )
   d.addLayer(OUTLINE_LAYER, 8, 'CONTINUOUS')
   d.addLayer(TEXT_LAYER, 7, 'CONTINUOUS')
 
@@ -86,7 +97,8 @@ export function exportDxf(doc: ChipDocument, options: DxfOptions = {}): string {
     // right way round on the cast chip); a reflection reverses the rings, so they are turned back to CCW/CW.
     const drawText = (x: number, y: number, h: number, s: string) => {
       if (font) {
-        for (const r of textOutlines(font, s, x, y, h)) d.drawPolyline((options.mirror ? [...r].reverse() : r).map(tx), true)
+        for (const r of textOutlines(font, s, x, y, h))
+          d.drawPolyline((options.mirror ? [...r].reverse() : r).map(tx), true)
       } else {
         const a = asciiText(s)
         const [px, py] = tx([x, y])
@@ -94,14 +106,17 @@ export function exportDxf(doc: ChipDocument, options: DxfOptions = {}): string {
       }
     }
     for (const t of o.texts) drawText(t.position.x, t.position.y, t.height, t.text)
-    const ys = ring ? ring.map((p) => p[1]) : [0]
-    const x0 = ring ? Math.min(...ring.map((p) => p[0])) : 0
+    const ys = ring ? ring.map(p => p[1]) : [0]
+    const x0 = ring ? Math.min(...ring.map(p => p[0])) : 0
     const h = 250
     const lines = [
       `Design: ${doc.name.trim() || 'untitled'}`,
       `Revision: ${options.revision ?? 'draft'}`,
       `Date: ${options.date ?? new Date().toISOString().slice(0, 10)}`,
-      `Units: micrometres. Layers: ${layers.filter((l) => l.depth !== undefined).map((l) => l.name).join(', ')}${options.mirror ? '. Mirrored for the mould' : ''}`,
+      `Units: micrometres. Layers: ${layers
+        .filter(l => l.depth !== undefined)
+        .map(l => l.name)
+        .join(', ')}${options.mirror ? '. Mirrored for the mould' : ''}`,
     ]
     lines.forEach((line, i) => drawText(x0, Math.min(...ys) - (i + 2) * h * 1.6, h, line))
   }

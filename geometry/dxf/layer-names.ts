@@ -11,5 +11,9 @@ export function depthLayerName(depthUm: number): string {
 
 /** DXF text is written as plain ASCII so every reader shows it the same way. */
 export function asciiText(s: string): string {
-  return s.replace(/µ/g, 'u').normalize('NFKD').replace(/[^\x20-\x7e]/g, '').trim()
+  return s
+    .replace(/µ/g, 'u')
+    .normalize('NFKD')
+    .replace(/[^\x20-\x7e]/g, '')
+    .trim()
 }

@@ -43,7 +43,9 @@ export function bezierSegments(points: readonly Pair[], tol: number): number {
   const d = points.length - 1
   let m = 0
   for (let i = 0; i + 2 <= d; i++) {
-    const a = points[i]!, b = points[i + 1]!, c = points[i + 2]!
+    const a = points[i]!,
+      b = points[i + 1]!,
+      c = points[i + 2]!
     m = Math.max(m, Math.hypot(a[0] - 2 * b[0] + c[0], a[1] - 2 * b[1] + c[1]))
   }
   const n = Math.ceil(Math.sqrt((d * (d - 1) * m) / (8 * tol)))
@@ -54,7 +56,8 @@ export function bezierSegments(points: readonly Pair[], tol: number): number {
 function deCasteljau(points: readonly Pair[], t: number): Pair {
   const p = points.map((q): Pair => [q[0], q[1]])
   for (let k = p.length - 1; k > 0; k--) {
-    for (let i = 0; i < k; i++) p[i] = [p[i]![0] + t * (p[i + 1]![0] - p[i]![0]), p[i]![1] + t * (p[i + 1]![1] - p[i]![1])]
+    for (let i = 0; i < k; i++)
+      p[i] = [p[i]![0] + t * (p[i + 1]![0] - p[i]![0]), p[i]![1] + t * (p[i + 1]![1] - p[i]![1])]
   }
   return p[0]!
 }
@@ -64,7 +67,8 @@ export function flattenGlyph(commands: readonly GlyphCommand[], tol: number): Pa
   const rings: Pair[][] = []
   let ring: Pair[] = []
   const close = () => {
-    const f = ring[0], l = ring[ring.length - 1]
+    const f = ring[0],
+      l = ring[ring.length - 1]
     if (ring.length > 1 && f && l && f[0] === l[0] && f[1] === l[1]) ring.pop()
     if (ring.length >= 3) rings.push(ring)
     ring = []
@@ -93,8 +97,9 @@ export function flattenGlyph(commands: readonly GlyphCommand[], tol: number): Pa
 const inside = (p: Pair, ring: readonly Pair[]) => {
   let c = false
   for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const a = ring[i]!, b = ring[j]!
-    if ((a[1] > p[1]) !== (b[1] > p[1]) && p[0] < ((b[0] - a[0]) * (p[1] - a[1])) / (b[1] - a[1]) + a[0]) c = !c
+    const a = ring[i]!,
+      b = ring[j]!
+    if (a[1] > p[1] !== b[1] > p[1] && p[0] < ((b[0] - a[0]) * (p[1] - a[1])) / (b[1] - a[1]) + a[0]) c = !c
   }
   return c
 }
@@ -114,7 +119,10 @@ export function orientRings(rings: Pair[][]): Pair[][] {
 
 /** Characters the font can draw; the rest are left out (as the DXF TEXT entity keeps ASCII only). */
 export function drawableText(font: OutlineFont, s: string): string {
-  return [...s.normalize('NFC')].filter((ch) => ch.trim() === '' ? ch === ' ' : font.hasCharacter(ch.codePointAt(0)!)).join('').trim()
+  return [...s.normalize('NFC')]
+    .filter(ch => (ch.trim() === '' ? ch === ' ' : font.hasCharacter(ch.codePointAt(0)!)))
+    .join('')
+    .trim()
 }
 
 const glyphCache = new WeakMap<OutlineFont, Map<string, Pair[][]>>()
@@ -123,7 +131,14 @@ const glyphCache = new WeakMap<OutlineFont, Map<string, Pair[][]>>()
  * A line of text as closed, oriented rings in µm: baseline-left at (x, y), capital letters `heightUm` tall (the
  * DXF TEXT entity's height), curves within `toleranceUm` of the glyph outline.
  */
-export function textOutlines(font: OutlineFont, text: string, x: number, y: number, heightUm: number, toleranceUm = TEXT_CHORD_TOLERANCE_UM): Pair[][] {
+export function textOutlines(
+  font: OutlineFont,
+  text: string,
+  x: number,
+  y: number,
+  heightUm: number,
+  toleranceUm = TEXT_CHORD_TOLERANCE_UM,
+): Pair[][] {
   const s = drawableText(font, text)
   if (!s || !(heightUm > 0)) return []
   const scale = heightUm / font.capHeight
@@ -139,7 +154,8 @@ export function textOutlines(font: OutlineFont, text: string, x: number, y: numb
       rings = orientRings(flattenGlyph(g.commands, tolFu))
       cache.set(key, rings)
     }
-    const ox = pen + g.xOffset, oy = g.yOffset
+    const ox = pen + g.xOffset,
+      oy = g.yOffset
     for (const r of rings) out.push(r.map((p): Pair => [x + (p[0] + ox) * scale, y + (p[1] + oy) * scale]))
     pen += g.xAdvance
   }

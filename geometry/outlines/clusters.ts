@@ -5,7 +5,10 @@ import type { Polygon } from '../types'
 export type Box = [number, number, number, number]
 
 export function pieceBox(p: Polygon): Box {
-  let x0 = Infinity; let y0 = Infinity; let x1 = -Infinity; let y1 = -Infinity
+  let x0 = Infinity
+  let y0 = Infinity
+  let x1 = -Infinity
+  let y1 = -Infinity
   for (const [x, y] of p[0] ?? []) {
     if (x < x0) x0 = x
     if (y < y0) y0 = y

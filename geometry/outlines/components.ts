@@ -6,7 +6,10 @@ import { strokePolyline } from './polyline'
 import { place, rect } from './shapes'
 import { serpentinePieces } from './serpentine'
 
-export interface LayerPieces { layerId: string; pieces: Polygon[] }
+export interface LayerPieces {
+  layerId: string
+  pieces: Polygon[]
+}
 
 /**
  * Local-frame pieces of each component kind, per layer. The frames and arm ends match the terminal table in
@@ -16,27 +19,40 @@ function localPieces(c: Component, tolerance: number): LayerPieces[] {
   switch (c.kind) {
     case 't-junction': {
       const a = c.armLength
-      return [{ layerId: c.layerId, pieces: [
-        rect(-a, a, -c.mainWidth / 2, c.mainWidth / 2),
-        rect(-c.inletWidth / 2, c.inletWidth / 2, 0, a),
-      ] }]
+      return [
+        {
+          layerId: c.layerId,
+          pieces: [rect(-a, a, -c.mainWidth / 2, c.mainWidth / 2), rect(-c.inletWidth / 2, c.inletWidth / 2, 0, a)],
+        },
+      ]
     }
     case 'flow-focusing': {
       const a = c.armLength
       const x0 = c.continuousWidth / 2
       const x1 = x0 + c.orificeLength
-      return [{ layerId: c.layerId, pieces: [
-        rect(-a, 0, -c.dispersedWidth / 2, c.dispersedWidth / 2),
-        rect(-x0, x0, -a, a),
-        rect(x0, x1, -c.orificeWidth / 2, c.orificeWidth / 2),
-        rect(x1, x1 + a, -c.outletWidth / 2, c.outletWidth / 2),
-      ] }]
+      return [
+        {
+          layerId: c.layerId,
+          pieces: [
+            rect(-a, 0, -c.dispersedWidth / 2, c.dispersedWidth / 2),
+            rect(-x0, x0, -a, a),
+            rect(x0, x1, -c.orificeWidth / 2, c.orificeWidth / 2),
+            rect(x1, x1 + a, -c.outletWidth / 2, c.outletWidth / 2),
+          ],
+        },
+      ]
     }
     case 'y-junction': {
       const pieces: Polygon[] = []
       const arm = (deg: number, w: number) => {
         const r = (deg * Math.PI) / 180
-        const s = strokePolyline([[0, 0], [c.armLength * Math.cos(r), c.armLength * Math.sin(r)]], w)
+        const s = strokePolyline(
+          [
+            [0, 0],
+            [c.armLength * Math.cos(r), c.armLength * Math.sin(r)],
+          ],
+          w,
+        )
         if (s.ok) pieces.push(...s.pieces)
       }
       arm(180 - c.angle / 2, c.continuousWidth)
@@ -49,7 +65,12 @@ function localPieces(c: Component, tolerance: number): LayerPieces[] {
     case 'step-nozzle':
       return [
         { layerId: c.layerId, pieces: [rect(0, c.nozzleLength, -c.nozzleWidth / 2, c.nozzleWidth / 2)] },
-        { layerId: c.reservoirLayerId, pieces: [rect(c.nozzleLength, c.nozzleLength + c.reservoirWidth, -c.reservoirLength / 2, c.reservoirLength / 2)] },
+        {
+          layerId: c.reservoirLayerId,
+          pieces: [
+            rect(c.nozzleLength, c.nozzleLength + c.reservoirWidth, -c.reservoirLength / 2, c.reservoirLength / 2),
+          ],
+        },
       ]
     case 'step-array': {
       const half = stepArrayLength(c) / 2
@@ -75,7 +96,7 @@ export function componentPieces(c: Component, tolerance: number): LayerPieces[] 
   const byLayer = new Map<string, Polygon[]>()
   for (const { layerId, pieces } of localPieces(c, tolerance)) {
     const list = byLayer.get(layerId) ?? []
-    list.push(...pieces.map((p) => place(p, c.position, c.rotation)))
+    list.push(...pieces.map(p => place(p, c.position, c.rotation)))
     byLayer.set(layerId, list)
   }
   return [...byLayer].map(([layerId, pieces]) => ({ layerId, pieces }))

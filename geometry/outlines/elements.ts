@@ -15,7 +15,10 @@ const REASON_TEXT = {
 } as const
 
 /** Every element of the document as pieces on its layers, plus the elements that could not be drawn. */
-export function documentPieces(doc: ChipDocument, tolerance: number): { elements: ElementPieces[]; problems: GeometryProblem[] } {
+export function documentPieces(
+  doc: ChipDocument,
+  tolerance: number,
+): { elements: ElementPieces[]; problems: GeometryProblem[] } {
   const elements: ElementPieces[] = []
   const problems: GeometryProblem[] = []
 
@@ -39,7 +42,12 @@ export function documentPieces(doc: ChipDocument, tolerance: number): { elements
     }
   }
   for (const p of doc.ports) {
-    elements.push({ elementId: p.id, kind: 'port', layerId: p.layerId, pieces: [circlePolygon([p.position.x, p.position.y], p.punchDiameter / 2, tolerance)] })
+    elements.push({
+      elementId: p.id,
+      kind: 'port',
+      layerId: p.layerId,
+      pieces: [circlePolygon([p.position.x, p.position.y], p.punchDiameter / 2, tolerance)],
+    })
   }
   for (const m of doc.marks) {
     if (m.kind !== 'cross') continue // text goes to the DXF text layer only (no stroke font in the mask)
@@ -47,7 +55,8 @@ export function documentPieces(doc: ChipDocument, tolerance: number): { elements
       place(rect(-m.size / 2, m.size / 2, -m.lineWidth / 2, m.lineWidth / 2), m.position, 0),
       place(rect(-m.lineWidth / 2, m.lineWidth / 2, -m.size / 2, m.size / 2), m.position, 0),
     ]
-    for (const layerId of [MARKS_LAYER, ...m.layerIds]) elements.push({ elementId: m.id, kind: 'mark', layerId, pieces: arms })
+    for (const layerId of [MARKS_LAYER, ...m.layerIds])
+      elements.push({ elementId: m.id, kind: 'mark', layerId, pieces: arms })
   }
   return { elements, problems }
 }
@@ -58,7 +67,12 @@ export function chipOutlineRing(doc: ChipDocument): Pair[] | null {
   if (!o) return null
   if (o.kind === 'rectangle') {
     const { x, y } = o.corner
-    return [[x, y], [x + o.width, y], [x + o.width, y + o.height], [x, y + o.height]]
+    return [
+      [x, y],
+      [x + o.width, y],
+      [x + o.width, y + o.height],
+      [x, y + o.height],
+    ]
   }
   const ring = o.points.map((p): Pair => [p.x, p.y])
   let s = 0

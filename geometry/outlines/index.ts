@@ -12,7 +12,12 @@ export interface LayerOutline {
   polygons: MultiPolygon
 }
 
-export interface TextItem { id: string; text: string; position: { x: number; y: number }; height: number }
+export interface TextItem {
+  id: string
+  text: string
+  position: { x: number; y: number }
+  height: number
+}
 
 export interface ChipOutlines {
   layers: LayerOutline[]
@@ -43,21 +48,24 @@ export function buildOutlines(doc: ChipDocument, options: OutlineOptions = {}): 
   }
   const merge = (layerId: string): MultiPolygon => {
     const items = byLayer.get(layerId) ?? []
-    const r = mergePieces(items.flatMap((e) => e.pieces))
+    const r = mergePieces(items.flatMap(e => e.pieces))
     if (r.error) {
       const at = r.failedAt
-      const culprit = (at && items.find((e) => e.pieces.some((piece) => piece[0]?.[0] === at))) ?? items[0]
+      const culprit = (at && items.find(e => e.pieces.some(piece => piece[0]?.[0] === at))) ?? items[0]
       const where = at ?? culprit?.pieces[0]?.[0]?.[0]
       problems.push({
-        rule: 'merge-failed', elementId: culprit?.elementId ?? layerId,
+        rule: 'merge-failed',
+        elementId: culprit?.elementId ?? layerId,
         message: `Outlines touching "${culprit?.elementId ?? layerId}" on layer "${layerId}" could not be merged (${r.error}) and are left out of the mask: move nearly touching edges apart or onto each other`,
         location: { x: where?.[0] ?? 0, y: where?.[1] ?? 0 },
       })
     }
     return r.merged
   }
-  const layers = doc.layers.map((l) => ({ layerId: l.id, name: l.name, depth: l.depth, polygons: merge(l.id) }))
-  const texts = doc.marks.flatMap((m) => (m.kind === 'text' ? [{ id: m.id, text: m.text, position: m.position, height: m.height }] : []))
+  const layers = doc.layers.map(l => ({ layerId: l.id, name: l.name, depth: l.depth, polygons: merge(l.id) }))
+  const texts = doc.marks.flatMap(m =>
+    m.kind === 'text' ? [{ id: m.id, text: m.text, position: m.position, height: m.height }] : [],
+  )
   return { layers, marks: merge(MARKS_LAYER), texts, chipOutline: chipOutlineRing(doc), elements, problems }
 }
 

@@ -20,7 +20,7 @@ const CLOSE = 2
 
 /** Snaps coordinates to a grid (µm). */
 const snap = (polys: readonly Polygon[], grid: number): Polygon[] =>
-  polys.map((p) => p.map((r) => r.map(([x, y]) => [Math.round(x / grid) * grid, Math.round(y / grid) * grid])))
+  polys.map(p => p.map(r => r.map(([x, y]) => [Math.round(x / grid) * grid, Math.round(y / grid) * grid])))
 
 /**
  * A lone single-ring piece that is strictly convex after dropping repeated and collinear points needs no
@@ -53,7 +53,10 @@ function convexAlone(p: Polygon): Polygon | null {
     const a = pts[i]!
     const b = pts[(i + 1) % n]!
     const c = pts[(i + 2) % n]!
-    turn += Math.atan2((b[0] - a[0]) * (c[1] - b[1]) - (b[1] - a[1]) * (c[0] - b[0]), (b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]))
+    turn += Math.atan2(
+      (b[0] - a[0]) * (c[1] - b[1]) - (b[1] - a[1]) * (c[0] - b[0]),
+      (b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]),
+    )
   }
   if (Math.abs(Math.abs(turn) - 2 * Math.PI) > 1e-6) return null
   const ring: Ring = sign > 0 ? pts : [...pts].reverse()
@@ -91,9 +94,9 @@ export function mergePieces(polys: readonly Polygon[]): MergeResult {
   // Margin: one database unit, so pieces that touch after snapping are in one cluster.
   for (const ids of pieceClusters(polys, 2 / DBU_PER_UM, polys.map(snappedBox))) {
     try {
-      const alone = ids.length === 1 ? convexAlone(polys[ids[0]!]!.map((r) => r.map(snapPair))) : null
+      const alone = ids.length === 1 ? convexAlone(polys[ids[0]!]!.map(r => r.map(snapPair))) : null
       if (alone) merged.push(alone)
-      else merged.push(...closedUnion(toPaths(ids.map((i) => polys[i]!)), CLOSE))
+      else merged.push(...closedUnion(toPaths(ids.map(i => polys[i]!)), CLOSE))
     } catch (e) {
       // Clipper2 on integers has no robustness failures; a throw here is a bug, reported rather than a broken file.
       error ??= String((e as Error)?.message ?? e)

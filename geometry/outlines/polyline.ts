@@ -9,8 +9,7 @@ export interface StrokeOptions {
 }
 
 export type StrokeResult =
-  | { ok: true; pieces: Polygon[] }
-  | { ok: false; reason: 'degenerate' | 'doubles-back' | 'self-crossing'; at: Pair }
+  { ok: true; pieces: Polygon[] } | { ok: false; reason: 'degenerate' | 'doubles-back' | 'self-crossing'; at: Pair }
 
 const EPS = 1e-9
 
@@ -61,7 +60,7 @@ export function strokePolyline(points: readonly Pair[], width: number, options: 
   if (crossing) return { ok: false, reason: 'self-crossing', at: crossing }
   if (toDbu(width / 2) <= 0) return { ok: false, reason: 'degenerate', at: pts[0]! }
   const outline = strokeOpenPath(pts, width / 2, miterLimit)
-  const pieces: Polygon[] = outline.map((poly) => poly.map((ring) => ring.slice(0, -1)))
+  const pieces: Polygon[] = outline.map(poly => poly.map(ring => ring.slice(0, -1)))
   if (pieces.length === 0) return { ok: false, reason: 'degenerate', at: pts[0]! }
   return { ok: true, pieces }
 }

@@ -10,7 +10,12 @@ import { findingId } from './types'
 // passes through the other's interior) is an error; channels that only meet at an end point are joins, handled by
 // terminals. Crossing test: orientation signs (Cormen et al., Introduction to Algorithms, §33.1).
 
-interface Segment { channel: string; layerId: string; a: Pair; b: Pair }
+interface Segment {
+  channel: string
+  layerId: string
+  a: Pair
+  b: Pair
+}
 
 /** Where segments ab and cd cross properly (each strictly through the other), or null. */
 export function properCrossing(a: Pair, b: Pair, c: Pair, d: Pair): Pair | null {
@@ -36,11 +41,17 @@ export function crossingFindings(doc: ChipDocument): Finding[] {
   }
   if (segments.length < 2) return []
   const index = new Flatbush(segments.length)
-  for (const s of segments) index.add(Math.min(s.a[0], s.b[0]), Math.min(s.a[1], s.b[1]), Math.max(s.a[0], s.b[0]), Math.max(s.a[1], s.b[1]))
+  for (const s of segments)
+    index.add(Math.min(s.a[0], s.b[0]), Math.min(s.a[1], s.b[1]), Math.max(s.a[0], s.b[0]), Math.max(s.a[1], s.b[1]))
   index.finish()
   const seen = new Map<string, Finding>()
   segments.forEach((s, i) => {
-    const hits = index.search(Math.min(s.a[0], s.b[0]), Math.min(s.a[1], s.b[1]), Math.max(s.a[0], s.b[0]), Math.max(s.a[1], s.b[1]))
+    const hits = index.search(
+      Math.min(s.a[0], s.b[0]),
+      Math.min(s.a[1], s.b[1]),
+      Math.max(s.a[0], s.b[0]),
+      Math.max(s.a[1], s.b[1]),
+    )
     for (const j of hits) {
       const o = segments[j]!
       if (j <= i || o.channel === s.channel || o.layerId !== s.layerId) continue
@@ -50,7 +61,11 @@ export function crossingFindings(doc: ChipDocument): Finding[] {
       const id = findingId('channel-crossing', elements)
       if (seen.has(id)) continue
       seen.set(id, {
-        id, rule: 'channel-crossing', severity: 'error', elements, location: { x: at[0], y: at[1] },
+        id,
+        rule: 'channel-crossing',
+        severity: 'error',
+        elements,
+        location: { x: at[0], y: at[1] },
         message: `Channels "${elements[0]}" and "${elements[1]}" cross at (${at[0].toFixed(0)}, ${at[1].toFixed(0)}) µm on layer "${s.layerId}": on one layer a crossing joins them; reroute one around the other or move it to another layer`,
       })
     }

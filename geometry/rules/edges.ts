@@ -3,7 +3,10 @@ import type { MultiPolygon, Pair } from '../types'
 
 /** Edges of merged outlines, flattened for the spatial index. Interior is left of every edge (CCW/CW rings). */
 export interface EdgeSet {
-  ax: Float64Array; ay: Float64Array; bx: Float64Array; by: Float64Array
+  ax: Float64Array
+  ay: Float64Array
+  bx: Float64Array
+  by: Float64Array
   /** Which polygon (separate part) of the layer an edge belongs to. */
   part: Int32Array
   /** Ring id (unique per ring) and index inside the ring, to skip neighbouring edges. */
@@ -17,8 +20,15 @@ export function collectEdges(mp: MultiPolygon): EdgeSet {
   let n = 0
   for (const poly of mp) for (const ring of poly) n += ringEdges(ring)
   const e: EdgeSet = {
-    ax: new Float64Array(n), ay: new Float64Array(n), bx: new Float64Array(n), by: new Float64Array(n),
-    part: new Int32Array(n), ring: new Int32Array(n), index: new Int32Array(n), ringLength: new Int32Array(n), count: n,
+    ax: new Float64Array(n),
+    ay: new Float64Array(n),
+    bx: new Float64Array(n),
+    by: new Float64Array(n),
+    part: new Int32Array(n),
+    ring: new Int32Array(n),
+    index: new Int32Array(n),
+    ringLength: new Int32Array(n),
+    count: n,
   }
   let k = 0
   let ringId = 0
@@ -28,8 +38,14 @@ export function collectEdges(mp: MultiPolygon): EdgeSet {
       for (let i = 0; i < m; i++) {
         const a = ring[i]!
         const b = ring[(i + 1) % ring.length]!
-        e.ax[k] = a[0]; e.ay[k] = a[1]; e.bx[k] = b[0]; e.by[k] = b[1]
-        e.part[k] = partId; e.ring[k] = ringId; e.index[k] = i; e.ringLength[k] = m
+        e.ax[k] = a[0]
+        e.ay[k] = a[1]
+        e.bx[k] = b[0]
+        e.by[k] = b[1]
+        e.part[k] = partId
+        e.ring[k] = ringId
+        e.index[k] = i
+        e.ringLength[k] = m
         k++
       }
       ringId++
@@ -51,7 +67,12 @@ export function indexEdges(e: EdgeSet): Flatbush | null {
   if (e.count === 0) return null
   const idx = new Flatbush(e.count)
   for (let i = 0; i < e.count; i++) {
-    idx.add(Math.min(e.ax[i]!, e.bx[i]!), Math.min(e.ay[i]!, e.by[i]!), Math.max(e.ax[i]!, e.bx[i]!), Math.max(e.ay[i]!, e.by[i]!))
+    idx.add(
+      Math.min(e.ax[i]!, e.bx[i]!),
+      Math.min(e.ay[i]!, e.by[i]!),
+      Math.max(e.ax[i]!, e.bx[i]!),
+      Math.max(e.ay[i]!, e.by[i]!),
+    )
   }
   idx.finish()
   return idx

@@ -24,8 +24,13 @@ const ORDER = { error: 0, warning: 1, info: 2 } as const
 /** Every design-rule finding for a document under one fabrication process, errors first, stable order. */
 export function checkDesignRules(doc: ChipDocument, process: FabricationProcess, options: RuleOptions = {}): Finding[] {
   const o = options.outlines ?? buildOutlines(doc)
-  const geometry: Finding[] = o.problems.map((pr) => ({
-    id: findingId(pr.rule, [pr.elementId]), rule: pr.rule, severity: 'error', message: pr.message, elements: [pr.elementId], location: pr.location,
+  const geometry: Finding[] = o.problems.map(pr => ({
+    id: findingId(pr.rule, [pr.elementId]),
+    rule: pr.rule,
+    severity: 'error',
+    message: pr.message,
+    elements: [pr.elementId],
+    location: pr.location,
   }))
   const all = [
     ...geometry,
@@ -38,7 +43,21 @@ export function checkDesignRules(doc: ChipDocument, process: FabricationProcess,
   return all.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || a.id.localeCompare(b.id))
 }
 
-export { BUILT_IN_PROCESSES, findProcess, findProcessIn, labProcess, processFromSnapshot, processSnapshot, processValuesSource, processesWith, resolveProcess, revisionProcess, snapshotAsLabData, type LabProcessData, type ProcessSnapshot } from './processes'
+export {
+  BUILT_IN_PROCESSES,
+  findProcess,
+  findProcessIn,
+  labProcess,
+  processFromSnapshot,
+  processSnapshot,
+  processValuesSource,
+  processesWith,
+  resolveProcess,
+  revisionProcess,
+  snapshotAsLabData,
+  type LabProcessData,
+  type ProcessSnapshot,
+} from './processes'
 export type { FabricationProcess, Finding, Severity } from './types'
 export type { SpacingMethod } from './layer-spacing'
 export { classifyLiquid } from './liquids'

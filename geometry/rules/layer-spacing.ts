@@ -25,18 +25,24 @@ export type SpacingMethod = 'sizing' | 'edges'
  * the distance, the elements and the location. `edges`: every edge pair closer than the limit (the reference
  * the tests compare against). `naive` uses the all-pairs search (benchmark only); results are identical.
  */
-export function spacingFindings(o: ChipOutlines, process: FabricationProcess, naive = false, method: SpacingMethod = 'sizing'): Finding[] {
+export function spacingFindings(
+  o: ChipOutlines,
+  process: FabricationProcess,
+  naive = false,
+  method: SpacingMethod = 'sizing',
+): Finding[] {
   const best = new Map<string, Finding & { d: number }>()
   for (const layer of o.layers) {
     const wallGap = layer.depth / process.maxWallDepthToWidth
     const limit = Math.max(process.minGap, process.minFeature, wallGap)
     const edges = collectEdges(layer.polygons)
     const all: SpacingHit[] = naive ? spacingAllPairs(edges, limit) : spacingWithIndex(edges, indexEdges(edges), limit)
-    const hits = method === 'sizing' && all.length > 0
-      ? confirmBySizing(all, sizingRegions(layer.polygons, process.minFeature, Math.max(process.minGap, wallGap)))
-      : all
+    const hits =
+      method === 'sizing' && all.length > 0
+        ? confirmBySizing(all, sizingRegions(layer.polygons, process.minFeature, Math.max(process.minGap, wallGap)))
+        : all
     if (hits.length === 0) continue
-    const locator = new ElementLocator(o.elements.filter((e) => e.layerId === layer.layerId))
+    const locator = new ElementLocator(o.elements.filter(e => e.layerId === layer.layerId))
     for (const h of hits) {
       const finding = classify(h, layer.depth, layer.layerId, process, wallGap)
       if (!finding) continue
@@ -51,21 +57,35 @@ export function spacingFindings(o: ChipOutlines, process: FabricationProcess, na
   return [...best.values()].map(({ d: _d, ...f }) => f)
 }
 
-function classify(h: SpacingHit, depth: number, layerId: string, p: FabricationProcess, wallGap: number):
-  Pick<Finding, 'rule' | 'severity' | 'message'> | null {
+function classify(
+  h: SpacingHit,
+  depth: number,
+  layerId: string,
+  p: FabricationProcess,
+  wallGap: number,
+): Pick<Finding, 'rule' | 'severity' | 'message'> | null {
   const d = r1(h.distance)
   if (h.kind === 'width') {
     if (h.distance >= p.minFeature - TOL) return null
-    return { rule: 'min-width', severity: 'error',
-      message: `Feature is ${d} µm wide on layer "${layerId}", below the process minimum of ${p.minFeature} µm: widen it to at least ${p.minFeature} µm` }
+    return {
+      rule: 'min-width',
+      severity: 'error',
+      message: `Feature is ${d} µm wide on layer "${layerId}", below the process minimum of ${p.minFeature} µm: widen it to at least ${p.minFeature} µm`,
+    }
   }
   if (h.distance < p.minGap - TOL) {
-    return { rule: 'min-gap', severity: 'error',
-      message: `Gap of ${d} µm on layer "${layerId}", below the process minimum of ${p.minGap} µm: move the features at least ${p.minGap} µm apart` }
+    return {
+      rule: 'min-gap',
+      severity: 'error',
+      message: `Gap of ${d} µm on layer "${layerId}", below the process minimum of ${p.minGap} µm: move the features at least ${p.minGap} µm apart`,
+    }
   }
   if (h.distance < wallGap - TOL) {
-    return { rule: 'tall-thin-wall', severity: 'warning',
-      message: `Wall of ${d} µm between features on the ${depth} µm deep layer "${layerId}" is taller than ${p.maxWallDepthToWidth}× its width and may lean or collapse: make it at least ${r1(wallGap)} µm thick` }
+    return {
+      rule: 'tall-thin-wall',
+      severity: 'warning',
+      message: `Wall of ${d} µm between features on the ${depth} µm deep layer "${layerId}" is taller than ${p.maxWallDepthToWidth}× its width and may lean or collapse: make it at least ${r1(wallGap)} µm thick`,
+    }
   }
   return null
 }

@@ -8,12 +8,24 @@ export class ElementLocator {
   private readonly owners: { elementId: string; ring: Pair[] }[] = []
 
   constructor(elements: readonly ElementPieces[]) {
-    for (const el of elements) for (const piece of el.pieces) if (piece[0]) this.owners.push({ elementId: el.elementId, ring: piece[0] })
-    if (this.owners.length === 0) { this.index = null; return }
+    for (const el of elements)
+      for (const piece of el.pieces) if (piece[0]) this.owners.push({ elementId: el.elementId, ring: piece[0] })
+    if (this.owners.length === 0) {
+      this.index = null
+      return
+    }
     this.index = new Flatbush(this.owners.length)
     for (const { ring } of this.owners) {
-      let x0 = Infinity; let y0 = Infinity; let x1 = -Infinity; let y1 = -Infinity
-      for (const [x, y] of ring) { x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y) }
+      let x0 = Infinity
+      let y0 = Infinity
+      let x1 = -Infinity
+      let y1 = -Infinity
+      for (const [x, y] of ring) {
+        x0 = Math.min(x0, x)
+        y0 = Math.min(y0, y)
+        x1 = Math.max(x1, x)
+        y1 = Math.max(y1, y)
+      }
       this.index.add(x0, y0, x1, y1)
     }
     this.index.finish()

@@ -16,7 +16,10 @@ import type { SpacingHit } from './spacing'
  *
  * Offsets are mitred up to 2× the distance (a right angle comes back exactly); all on the 1 nm grid.
  */
-export interface SizingRegions { narrow: RegionSet; close: RegionSet }
+export interface SizingRegions {
+  narrow: RegionSet
+  close: RegionSet
+}
 
 export function sizingRegions(mp: MultiPolygon, minWidth: number, minGap: number): SizingRegions {
   const p = toPaths(mp)
@@ -35,8 +38,11 @@ export class RegionSet {
 
   constructor(paths: Paths64) {
     this.paths = paths
-    this.sign = paths.map((q) => Math.sign(Clipper.area(q)))
-    if (paths.length === 0) { this.index = null; return }
+    this.sign = paths.map(q => Math.sign(Clipper.area(q)))
+    if (paths.length === 0) {
+      this.index = null
+      return
+    }
     this.index = new Flatbush(paths.length)
     for (const q of paths) {
       const b = Clipper.getBounds(q)
@@ -45,7 +51,9 @@ export class RegionSet {
     this.index.finish()
   }
 
-  get count(): number { return this.paths.length }
+  get count(): number {
+    return this.paths.length
+  }
 
   /** True when the µm point lies in (or on the edge of, within `slack` database units) a region. */
   contains(pt: Pair, slack = 2): boolean {
@@ -85,7 +93,7 @@ function nearPath(x: number, y: number, path: Path64, slack: number): boolean {
  * is the opening's squared-off acute tip (a known false alarm of sizing at sharp corners) and is not reported.
  */
 export function confirmBySizing(hits: readonly SpacingHit[], regions: SizingRegions): SpacingHit[] {
-  return hits.filter((h) => {
+  return hits.filter(h => {
     const mid: Pair = [(h.p[0] + h.q[0]) / 2, (h.p[1] + h.q[1]) / 2]
     return (h.kind === 'width' ? regions.narrow : regions.close).contains(mid, CONFIRM_SLACK)
   })

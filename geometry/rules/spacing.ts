@@ -6,7 +6,12 @@ import type { EdgeSet } from './edges'
 import { adjacent } from './edges'
 
 /** A too-narrow feature ('width') or too-narrow space between features ('gap') on one layer. */
-export interface SpacingHit { kind: 'width' | 'gap'; distance: number; p: Pair; q: Pair }
+export interface SpacingHit {
+  kind: 'width' | 'gap'
+  distance: number
+  p: Pair
+  q: Pair
+}
 
 /**
  * Edge pairs closer than two database units measure rounding, not a feature: a one-unit jog where two

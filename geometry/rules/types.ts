@@ -33,4 +33,5 @@ export interface FabricationProcess {
   sources: Record<string, string>
 }
 
-export const findingId = (rule: string, elements: readonly string[]): string => `${rule}:${[...elements].sort().join('+')}`
+export const findingId = (rule: string, elements: readonly string[]): string =>
+  `${rule}:${[...elements].sort().join('+')}`

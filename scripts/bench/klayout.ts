@@ -46,7 +46,10 @@ function exportPieces(layers: Map<string, Polygon[]>): string {
   return lines.join('\n') + '\n'
 }
 
-export interface KLayoutMerge { ms: number; areas: Map<string, number> }
+export interface KLayoutMerge {
+  ms: number
+  areas: Map<string, number>
+}
 
 /** Runs KLayout's merge on the pieces; areas in µm². */
 export function klayoutMerge(layers: Map<string, Polygon[]>): KLayoutMerge {
@@ -55,7 +58,10 @@ export function klayoutMerge(layers: Map<string, Polygon[]>): KLayoutMerge {
     const input = join(dir, 'pieces.txt')
     const output = join(dir, 'merged.txt')
     writeFileSync(input, exportPieces(layers))
-    execFileSync(KLAYOUT, ['-b', '-r', SCRIPT, '-rd', `input=${input}`, '-rd', `output=${output}`], { stdio: ['ignore', 'ignore', 'inherit'], timeout: 600_000 })
+    execFileSync(KLAYOUT, ['-b', '-r', SCRIPT, '-rd', `input=${input}`, '-rd', `output=${output}`], {
+      stdio: ['ignore', 'ignore', 'inherit'],
+      timeout: 600_000,
+    })
     const areas = new Map<string, number>()
     let ms = NaN
     for (const line of readFileSync(output, 'utf8').trim().split('\n')) {
@@ -76,7 +82,10 @@ export function klayoutDxfAreas(dxf: string): Map<string, { area: number; parts:
     const input = join(dir, 'mask.dxf')
     const output = join(dir, 'areas.txt')
     writeFileSync(input, dxf)
-    execFileSync(KLAYOUT, ['-b', '-r', DXF_SCRIPT, '-rd', `input=${input}`, '-rd', `output=${output}`], { stdio: ['ignore', 'ignore', 'inherit'], timeout: 600_000 })
+    execFileSync(KLAYOUT, ['-b', '-r', DXF_SCRIPT, '-rd', `input=${input}`, '-rd', `output=${output}`], {
+      stdio: ['ignore', 'ignore', 'inherit'],
+      timeout: 600_000,
+    })
     const areas = new Map<string, { area: number; parts: number }>()
     for (const line of readFileSync(output, 'utf8').trim().split('\n')) {
       const [name, area, parts] = line.split(' ')
@@ -103,7 +112,9 @@ function dxfCheck(): void {
       worst = Math.max(worst, Math.abs(ours - theirs) / ours)
       names.push(name)
     }
-    console.log(`  DXF of ${n} nozzles read by KLayout (${names.join(', ')}): areas per layer agree to ${worst.toExponential(1)} relative (check ≤ 1e-6: ${worst <= 1e-6 ? 'ok' : 'FAILED'})`)
+    console.log(
+      `  DXF of ${n} nozzles read by KLayout (${names.join(', ')}): areas per layer agree to ${worst.toExponential(1)} relative (check ≤ 1e-6: ${worst <= 1e-6 ? 'ok' : 'FAILED'})`,
+    )
   }
 }
 
@@ -112,7 +123,9 @@ export async function run(): Promise<void> {
     console.log(`klayout: not installed at ${KLAYOUT} — side-by-side merge benchmark skipped (apt-get install klayout)`)
     return
   }
-  console.log('klayout: merge of the same raw pieces, median of three, merge only (load excluded); ours as shipped (an esbuild bundle)')
+  console.log(
+    'klayout: merge of the same raw pieces, median of three, merge only (load excluded); ours as shipped (an esbuild bundle)',
+  )
   const { mergePieces } = await importShipped<typeof import('./core')>('scripts/bench/core.ts')
   // Warm-up: a one-run warm-up leaves Clipper2's code unoptimised for the first size (512 read 5× slow).
   const warm = rawPieces(512)
@@ -120,7 +133,9 @@ export async function run(): Promise<void> {
   for (const n of SIZES) {
     const layers = rawPieces(n)
     const k = klayoutMerge(layers)
-    const ours = median(() => { for (const pieces of layers.values()) mergePieces(pieces) }, 3)
+    const ours = median(() => {
+      for (const pieces of layers.values()) mergePieces(pieces)
+    }, 3)
     let worst = 0
     for (const [layer, pieces] of layers) {
       const a = multiPolygonArea(mergePieces(pieces).merged)
@@ -129,8 +144,10 @@ export async function run(): Promise<void> {
     }
     const ratio = ours / k.ms
     const target = n >= 4096 ? ` (target ≤ ${TARGET}×: ${ratio <= TARGET ? 'met' : 'MISSED'})` : ''
-    console.log(`  merge ${n} nozzles: ours ${ours.toFixed(1)} ms, KLayout ${k.ms.toFixed(1)} ms, ratio ${ratio.toFixed(1)}×${target};` +
-      ` areas per layer agree to ${worst.toExponential(1)} relative (check ≤ 1e-6: ${worst <= 1e-6 ? 'ok' : 'FAILED'})`)
+    console.log(
+      `  merge ${n} nozzles: ours ${ours.toFixed(1)} ms, KLayout ${k.ms.toFixed(1)} ms, ratio ${ratio.toFixed(1)}×${target};` +
+        ` areas per layer agree to ${worst.toExponential(1)} relative (check ≤ 1e-6: ${worst <= 1e-6 ? 'ok' : 'FAILED'})`,
+    )
   }
   dxfCheck()
 }

@@ -14,7 +14,16 @@ export async function importShipped<T>(entry: string): Promise<T> {
   const dir = mkdtempSync(join(tmpdir(), 'dropwright-bench-'))
   try {
     const outfile = join(dir, 'core.mjs')
-    await build({ entryPoints: [join(root, entry)], outfile, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning', tsconfig: join(root, 'tsconfig.json') })
+    await build({
+      entryPoints: [join(root, entry)],
+      outfile,
+      bundle: true,
+      platform: 'node',
+      format: 'esm',
+      target: 'node20',
+      logLevel: 'warning',
+      tsconfig: join(root, 'tsconfig.json'),
+    })
     return (await import(pathToFileURL(outfile).href)) as T
   } finally {
     rmSync(dir, { recursive: true, force: true })

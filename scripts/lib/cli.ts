@@ -22,6 +22,6 @@ export async function readChipDocument(): Promise<ChipDocument> {
     fail([`Input is not JSON (${(e as Error).message}): pipe a chip document on stdin`])
   }
   const parsed = parseChipDocument(json)
-  if (!parsed.ok) fail(parsed.errors.map((e) => e.message))
+  if (!parsed.ok) fail(parsed.errors.map(e => e.message))
   return parsed.document
 }

@@ -3,7 +3,7 @@ import { databaseHealth } from '../utils/health'
 import { summaryWorkerRunning } from '../utils/summaryWorker'
 
 // Liveness and readiness: 200 when the database answers, 503 with Retry-After while it does not.
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const database = await databaseHealth()
   if (database !== 'ok') {
     setResponseStatus(event, 503, 'Service Unavailable')

@@ -9,12 +9,41 @@ export const DEMO_LABS = [
   { slug: 'brackenfold', name: 'Brackenfold Microfab', kind: 'fabrication' },
 ] as const
 
-type DemoAccount = { email: string, name: string, memberships: Array<{ lab: string, role: Role }> }
+type DemoAccount = { email: string; name: string; memberships: Array<{ lab: string; role: Role }> }
 
 export const DEMO_ACCOUNTS: DemoAccount[] = [
-  { email: 'admin@quillmere.example', name: 'Ines Varga-Holm', memberships: [{ lab: 'quillmere', role: 'admin' }, { lab: 'orrin-valley', role: 'admin' }] },
-  { email: 'designer@quillmere.example', name: 'Tomas Reyvik', memberships: [{ lab: 'quillmere', role: 'designer' }, { lab: 'orrin-valley', role: 'reviewer' }] },
-  { email: 'reviewer@quillmere.example', name: 'Hanne Albrecht-Moss', memberships: [{ lab: 'quillmere', role: 'reviewer' }] },
-  { email: 'experimenter@quillmere.example', name: 'Kofi Marangu', memberships: [{ lab: 'quillmere', role: 'experimenter' }] },
-  { email: 'fabricator@brackenfold.example', name: 'Sela Dumont', memberships: [{ lab: 'brackenfold', role: 'admin' }, { lab: 'quillmere', role: 'fabricator' }] },
+  {
+    email: 'admin@quillmere.example',
+    name: 'Ines Varga-Holm',
+    memberships: [
+      { lab: 'quillmere', role: 'admin' },
+      { lab: 'orrin-valley', role: 'admin' },
+    ],
+  },
+  {
+    email: 'designer@quillmere.example',
+    name: 'Tomas Reyvik',
+    memberships: [
+      { lab: 'quillmere', role: 'designer' },
+      { lab: 'orrin-valley', role: 'reviewer' },
+    ],
+  },
+  {
+    email: 'reviewer@quillmere.example',
+    name: 'Hanne Albrecht-Moss',
+    memberships: [{ lab: 'quillmere', role: 'reviewer' }],
+  },
+  {
+    email: 'experimenter@quillmere.example',
+    name: 'Kofi Marangu',
+    memberships: [{ lab: 'quillmere', role: 'experimenter' }],
+  },
+  {
+    email: 'fabricator@brackenfold.example',
+    name: 'Sela Dumont',
+    memberships: [
+      { lab: 'brackenfold', role: 'admin' },
+      { lab: 'quillmere', role: 'fabricator' },
+    ],
+  },
 ]

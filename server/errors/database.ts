@@ -13,7 +13,9 @@ let quiet = 0
 export default defineNitroErrorHandler((error, event) => {
   if (!isDatabaseUnavailable(error)) return
   if (Date.now() - lastLog > RETRY_AFTER_S * 1000) {
-    console.error(`[db] unavailable (${(error.cause as Error | undefined)?.message ?? error.message}): answering 503${quiet ? `; ${quiet} more since the last line` : ''}`)
+    console.error(
+      `[db] unavailable (${(error.cause as Error | undefined)?.message ?? error.message}): answering 503${quiet ? `; ${quiet} more since the last line` : ''}`,
+    )
     lastLog = Date.now()
     quiet = 0
   } else quiet++
@@ -21,7 +23,15 @@ export default defineNitroErrorHandler((error, event) => {
   if (event.path.startsWith('/api/')) {
     setResponseStatus(event, 503, 'Service Unavailable')
     setResponseHeaders(event, { 'content-type': 'application/json', 'cache-control': 'no-store' })
-    return send(event, JSON.stringify({ statusCode: 503, statusMessage: 'Service Unavailable', message: MESSAGE, data: { retryAfterSeconds: RETRY_AFTER_S } }))
+    return send(
+      event,
+      JSON.stringify({
+        statusCode: 503,
+        statusMessage: 'Service Unavailable',
+        message: MESSAGE,
+        data: { retryAfterSeconds: RETRY_AFTER_S },
+      }),
+    )
   }
   Object.assign(error, { statusCode: 503, statusMessage: 'Service Unavailable', message: MESSAGE, unhandled: false })
 })

@@ -8,7 +8,7 @@ import { assertBodyType, WRITE_METHODS } from '../utils/bodyLimit'
 import { assertSameOrigin } from '../utils/origin'
 import { apiHeaders } from '../utils/securityHeaders'
 
-export default defineEventHandler((event) => {
+export default defineEventHandler(event => {
   if (!event.path.startsWith('/api/')) return
   keepApiHeaders(event.node.res)
   if (!WRITE_METHODS.has(event.method)) return

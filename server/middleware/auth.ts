@@ -21,23 +21,33 @@ const PUBLIC_PASSWORD_RESET: Array<[method: string, pattern: RegExp]> = [
   ['GET', /^\/api\/auth\/password-reset\/[A-Za-z0-9_-]{43}$/],
   ['POST', /^\/api\/auth\/password-reset\/[A-Za-z0-9_-]{43}$/],
 ]
-const isPublic = (method: string, path: string) => PUBLIC_API.has(path)
-  || [...PUBLIC_INVITATION, ...PUBLIC_PASSWORD_RESET].some(([m, p]) => m === method && p.test(path))
+const isPublic = (method: string, path: string) =>
+  PUBLIC_API.has(path) ||
+  [...PUBLIC_INVITATION, ...PUBLIC_PASSWORD_RESET].some(([m, p]) => m === method && p.test(path))
 
 /** Where a token works: the public API and the lab routes. */
 const TOKEN_API = /^\/api\/(v1|labs)(\/|$)/
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const path = getRequestURL(event).pathname
   const bearer = bearerToken(event)
   if (bearer !== null && path.startsWith('/api/')) {
     if (!TOKEN_API.test(path)) {
-      throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'API tokens work on /api/v1 and /api/labs routes only: sign in for this one' })
+      throw createError({
+        statusCode: 401,
+        statusMessage: 'Unauthorized',
+        message: 'API tokens work on /api/v1 and /api/labs routes only: sign in for this one',
+      })
     }
     event.context.session = await resolveToken(bearer)
     event.context.viaToken = true
     if (!event.context.session) {
-      throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'This API token does not work: it was revoked, its lab or role changed, or it was never made. Create a new one on your account page.' })
+      throw createError({
+        statusCode: 401,
+        statusMessage: 'Unauthorized',
+        message:
+          'This API token does not work: it was revoked, its lab or role changed, or it was never made. Create a new one on your account page.',
+      })
     }
     return
   }

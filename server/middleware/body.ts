@@ -4,7 +4,7 @@
 import { defineEventHandler } from 'h3'
 import { readLimitedBody, WRITE_METHODS } from '../utils/bodyLimit'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   if (!event.path.startsWith('/api/') || !WRITE_METHODS.has(event.method)) return
   await readLimitedBody(event)
 })

@@ -7,13 +7,14 @@ import { useConfig } from '../utils/config'
 import { useDb } from '../utils/db'
 import { startJobs, stopJobs } from '../utils/jobs'
 
-export default defineNitroPlugin((nitro) => {
+export default defineNitroPlugin(nitro => {
   // E-mail: sent over SMTP_URL. Without it (or with DW_MAIL_WORKER=0) mail stays queued on this instance and is
   // sent by one that has it.
   const { mail, jobs } = useConfig()
   const smtpUrl = mail.smtpUrl
   const sendsMail = Boolean(smtpUrl) && mail.send
-  if (!smtpUrl) console.warn('[mail] SMTP_URL is not set: e-mail is queued in mail_outbox but not sent by this instance')
+  if (!smtpUrl)
+    console.warn('[mail] SMTP_URL is not set: e-mail is queued in mail_outbox but not sent by this instance')
   let transport: MailTransport | null = null
   const lazyTransport: MailTransport = { send: mail => (transport ??= smtpTransport(smtpUrl!)).send(mail) }
   defineMailJob(dbOutboxStore(useDb()), lazyTransport, mailJobConfig(), { workHere: sendsMail })

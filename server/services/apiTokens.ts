@@ -18,17 +18,34 @@ const TOKEN_SHAPE = /^dwt_[A-Za-z0-9_-]{43}$/
 const digest = (token: string) => createHash('sha256').update(token).digest('hex')
 
 const infoColumns = {
-  id: apiTokens.id, name: apiTokens.name, labId: apiTokens.labId, labName: labs.name, role: apiTokens.role, prefix: apiTokens.prefix,
-  createdAt: apiTokens.createdAt, lastUsedAt: apiTokens.lastUsedAt, revokedAt: apiTokens.revokedAt,
+  id: apiTokens.id,
+  name: apiTokens.name,
+  labId: apiTokens.labId,
+  labName: labs.name,
+  role: apiTokens.role,
+  prefix: apiTokens.prefix,
+  createdAt: apiTokens.createdAt,
+  lastUsedAt: apiTokens.lastUsedAt,
+  revokedAt: apiTokens.revokedAt,
 }
-type InfoRow = { createdAt: Date, lastUsedAt: Date | null, revokedAt: Date | null } & Omit<ApiTokenInfo, 'createdAt' | 'lastUsedAt' | 'revokedAt'>
+type InfoRow = { createdAt: Date; lastUsedAt: Date | null; revokedAt: Date | null } & Omit<
+  ApiTokenInfo,
+  'createdAt' | 'lastUsedAt' | 'revokedAt'
+>
 const toInfo = (r: InfoRow): ApiTokenInfo => ({
-  ...r, createdAt: r.createdAt.toISOString(), lastUsedAt: r.lastUsedAt?.toISOString() ?? null, revokedAt: r.revokedAt?.toISOString() ?? null,
+  ...r,
+  createdAt: r.createdAt.toISOString(),
+  lastUsedAt: r.lastUsedAt?.toISOString() ?? null,
+  revokedAt: r.revokedAt?.toISOString() ?? null,
 })
 
 export async function listTokens(session: SessionData): Promise<ApiTokenInfo[]> {
-  const rows = await useDb().select(infoColumns).from(apiTokens).innerJoin(labs, eq(labs.id, apiTokens.labId))
-    .where(eq(apiTokens.userId, session.user.id)).orderBy(desc(apiTokens.createdAt))
+  const rows = await useDb()
+    .select(infoColumns)
+    .from(apiTokens)
+    .innerJoin(labs, eq(labs.id, apiTokens.labId))
+    .where(eq(apiTokens.userId, session.user.id))
+    .orderBy(desc(apiTokens.createdAt))
   return rows.map(toInfo)
 }
 
@@ -36,37 +53,68 @@ export async function createToken(session: SessionData, body: TokenCreate): Prom
   const lab = session.memberships.find(m => m.labId === body.labId)
   if (!lab) throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'No such lab' })
   if (!roleWithin(body.role, lab.role)) {
-    const allowed = tokenRolesFor(lab.role).map(r => ROLE_LABELS[r]).join(', ')
+    const allowed = tokenRolesFor(lab.role)
+      .map(r => ROLE_LABELS[r])
+      .join(', ')
     throw createError({
-      statusCode: 400, statusMessage: 'Bad Request',
+      statusCode: 400,
+      statusMessage: 'Bad Request',
       message: `Body is invalid: role: a token may do only what you may do in ${lab.name} (you are ${ROLE_LABELS[lab.role]}): choose ${allowed}`,
       data: { issues: [{ path: 'role', message: `Choose ${allowed}` }] },
     })
   }
   const token = `${TOKEN_PREFIX}${randomBytes(32).toString('base64url')}`
   const db = useDb()
-  return db.transaction(async (tx) => {
+  return db.transaction(async tx => {
     // One person's tokens are counted under a lock on their own row, so parallel requests cannot pass the limit.
     await tx.select({ id: users.id }).from(users).where(eq(users.id, session.user.id)).for('no key update')
-    const [open] = await tx.select({ n: count() }).from(apiTokens).where(and(eq(apiTokens.userId, session.user.id), isNull(apiTokens.revokedAt)))
+    const [open] = await tx
+      .select({ n: count() })
+      .from(apiTokens)
+      .where(and(eq(apiTokens.userId, session.user.id), isNull(apiTokens.revokedAt)))
     if ((open?.n ?? 0) >= TOKENS_PER_PERSON) {
-      throw createError({ statusCode: 409, statusMessage: 'Conflict', message: `You have ${TOKENS_PER_PERSON} tokens, the most one person may have: revoke one you no longer use first` })
+      throw createError({
+        statusCode: 409,
+        statusMessage: 'Conflict',
+        message: `You have ${TOKENS_PER_PERSON} tokens, the most one person may have: revoke one you no longer use first`,
+      })
     }
-    const [row] = await tx.insert(apiTokens).values({
-      userId: session.user.id, labId: lab.labId, role: body.role, name: body.name, tokenHash: digest(token), prefix: token.slice(0, 10),
-    }).returning({ id: apiTokens.id, createdAt: apiTokens.createdAt, prefix: apiTokens.prefix })
+    const [row] = await tx
+      .insert(apiTokens)
+      .values({
+        userId: session.user.id,
+        labId: lab.labId,
+        role: body.role,
+        name: body.name,
+        tokenHash: digest(token),
+        prefix: token.slice(0, 10),
+      })
+      .returning({ id: apiTokens.id, createdAt: apiTokens.createdAt, prefix: apiTokens.prefix })
     return {
-      token, id: row!.id, name: body.name, labId: lab.labId, labName: lab.name, role: body.role, prefix: row!.prefix,
-      createdAt: row!.createdAt.toISOString(), lastUsedAt: null, revokedAt: null,
+      token,
+      id: row!.id,
+      name: body.name,
+      labId: lab.labId,
+      labName: lab.name,
+      role: body.role,
+      prefix: row!.prefix,
+      createdAt: row!.createdAt.toISOString(),
+      lastUsedAt: null,
+      revokedAt: null,
     }
   })
 }
 
 export async function revokeToken(session: SessionData, tokenId: string): Promise<ApiTokenInfo> {
   const db = useDb()
-  await db.update(apiTokens).set({ revokedAt: sql`now()` })
+  await db
+    .update(apiTokens)
+    .set({ revokedAt: sql`now()` })
     .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, session.user.id), isNull(apiTokens.revokedAt)))
-  const [row] = await db.select(infoColumns).from(apiTokens).innerJoin(labs, eq(labs.id, apiTokens.labId))
+  const [row] = await db
+    .select(infoColumns)
+    .from(apiTokens)
+    .innerJoin(labs, eq(labs.id, apiTokens.labId))
     .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, session.user.id)))
   if (!row) throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'No such token' })
   return toInfo(row)
@@ -79,10 +127,21 @@ export async function revokeToken(session: SessionData, tokenId: string): Promis
 export async function resolveToken(token: string): Promise<SessionData | null> {
   if (!TOKEN_SHAPE.test(token)) return null
   const db = useDb()
-  const [row] = await db.select({
-    id: apiTokens.id, userId: users.id, email: users.email, name: users.name, tokenRole: apiTokens.role, lastUsedAt: apiTokens.lastUsedAt,
-    labId: labs.id, slug: labs.slug, labName: labs.name, kind: labs.kind, memberRole: memberships.role,
-  }).from(apiTokens)
+  const [row] = await db
+    .select({
+      id: apiTokens.id,
+      userId: users.id,
+      email: users.email,
+      name: users.name,
+      tokenRole: apiTokens.role,
+      lastUsedAt: apiTokens.lastUsedAt,
+      labId: labs.id,
+      slug: labs.slug,
+      labName: labs.name,
+      kind: labs.kind,
+      memberRole: memberships.role,
+    })
+    .from(apiTokens)
     .innerJoin(users, eq(users.id, apiTokens.userId))
     .innerJoin(labs, eq(labs.id, apiTokens.labId))
     .innerJoin(memberships, and(eq(memberships.userId, apiTokens.userId), eq(memberships.labId, apiTokens.labId)))
@@ -90,7 +149,11 @@ export async function resolveToken(token: string): Promise<SessionData | null> {
   if (!row || !roleWithin(row.tokenRole, row.memberRole)) return null
   // When it was last used, to the minute (the account page shows it), without a write on every request.
   if (!row.lastUsedAt || Date.now() - row.lastUsedAt.getTime() > 60_000) {
-    void db.update(apiTokens).set({ lastUsedAt: sql`now()` }).where(eq(apiTokens.id, row.id)).catch(() => {})
+    void db
+      .update(apiTokens)
+      .set({ lastUsedAt: sql`now()` })
+      .where(eq(apiTokens.id, row.id))
+      .catch(() => {})
   }
   return {
     user: { id: row.userId, email: row.email, name: row.name },

@@ -25,74 +25,164 @@ import { snapshotAsLabData } from '../../geometry/rules'
 /** The fab reports what it made; the lab may record it on receipt (who records bench measurements). */
 export function assertMayRecord(caller: LabCaller): void {
   if (!can(caller.lab.role, 'fabrication:report') && !can(caller.lab.role, 'measurements:record')) {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: `Your role (${caller.lab.role}) may not record as-built sizes here` })
+    throw createError({
+      statusCode: 403,
+      statusMessage: 'Forbidden',
+      message: `Your role (${caller.lab.role}) may not record as-built sizes here`,
+    })
   }
 }
 
 async function releasedRevision(caller: LabCaller, revisionId: string) {
   const db = useDb()
   const head = await findVisibleRevision(db, caller, revisionId)
-  const [row] = await db.select({ document: revisions.document, summary: revisions.summary, processId: designs.processId, designName: designs.name, designCreator: designs.createdBy })
-    .from(revisions).innerJoin(designs, eq(designs.id, revisions.designId)).where(eq(revisions.id, revisionId))
-  return { head, ...row!, document: chipDocument.parse(row!.document) as ChipDocument, summary: row!.summary as unknown as RevisionSummary }
+  const [row] = await db
+    .select({
+      document: revisions.document,
+      summary: revisions.summary,
+      processId: designs.processId,
+      designName: designs.name,
+      designCreator: designs.createdBy,
+    })
+    .from(revisions)
+    .innerJoin(designs, eq(designs.id, revisions.designId))
+    .where(eq(revisions.id, revisionId))
+  return {
+    head,
+    ...row!,
+    document: chipDocument.parse(row!.document) as ChipDocument,
+    summary: row!.summary as unknown as RevisionSummary,
+  }
 }
 
 /**
  * The as-built chip checked as the drawn one was: with the process values stored with the revision (a lab's own
  * process too, as it was then) and the lab's liquids and pairs.
  */
-async function summarizeAsBuilt(built: ChipDocument, designed: RevisionSummary, labId: string): Promise<RevisionSummary> {
+async function summarizeAsBuilt(
+  built: ChipDocument,
+  designed: RevisionSummary,
+  labId: string,
+): Promise<RevisionSummary> {
   const lab = await labLibraryData(useDb(), labId)
   const stored = designed.library?.process ? snapshotAsLabData(designed.library.process) : null
   const processes = stored ? [stored, ...lab.processes.filter(p => p.id !== stored.id)] : lab.processes
   return summarizeOffThread(built, designed.processId, { ...lab, processes })
 }
 
-const invalid = (issues: Array<{ path: string, message: string }>) => createError({
-  statusCode: 400, statusMessage: 'Bad Request', data: { issues },
-  message: `As-built is invalid: ${issues.slice(0, 5).map(i => `${i.path}: ${i.message}`).join('; ')}`,
-})
+const invalid = (issues: Array<{ path: string; message: string }>) =>
+  createError({
+    statusCode: 400,
+    statusMessage: 'Bad Request',
+    data: { issues },
+    message: `As-built is invalid: ${issues
+      .slice(0, 5)
+      .map(i => `${i.path}: ${i.message}`)
+      .join('; ')}`,
+  })
 
-export async function recordAsBuilt(caller: LabCaller, revisionId: string, body: Required<Omit<AsBuiltCreate, 'note'>> & { note: string }) {
+export async function recordAsBuilt(
+  caller: LabCaller,
+  revisionId: string,
+  body: Required<Omit<AsBuiltCreate, 'note'>> & { note: string },
+) {
   assertMayRecord(caller)
   const r = await releasedRevision(caller, revisionId)
-  if (r.head.status !== 'released') throw conflict('Record the as-built of a released revision: this one has not been released to fabrication', { status: r.head.status })
+  if (r.head.status !== 'released')
+    throw conflict('Record the as-built of a released revision: this one has not been released to fabrication', {
+      status: r.head.status,
+    })
   let built: ChipDocument
   try {
     built = chipDocument.parse(applyAsBuilt(r.document, body))
   } catch (error) {
     if (error instanceof AsBuiltError) throw invalid([{ path: error.field, message: error.message }])
     // A measured size the chip's own limits refuse (a width that closes a gap, a depth beyond the process): say where.
-    if (error instanceof ZodError) throw invalid(error.issues.map(i => ({ path: `document.${i.path.join('.')}`, message: `As built, ${i.message}` })))
+    if (error instanceof ZodError)
+      throw invalid(
+        error.issues.map(i => ({ path: `document.${i.path.join('.')}`, message: `As built, ${i.message}` })),
+      )
     throw error
   }
   const summary = await summarizeAsBuilt(built, r.summary, caller.lab.labId)
   const changes = asBuiltChanges(r.summary, summary, r.document)
-  const id = await useDb().transaction(async (tx) => {
-    const [row] = await tx.insert(asBuilts).values({ labId: caller.lab.labId, revisionId, depths: body.depths, widths: body.widths, note: body.note, document: built as unknown as Record<string, unknown>, summary: summary as unknown as Record<string, unknown>, recordedBy: caller.userId }).returning({ id: asBuilts.id })
-    await logActivity(tx, { labId: caller.lab.labId, designId: r.head.designId, revisionId, actorId: caller.userId, action: 'as-built.recorded', detail: { warnings: changes.filter(c => c.exceeds).length } })
+  const id = await useDb().transaction(async tx => {
+    const [row] = await tx
+      .insert(asBuilts)
+      .values({
+        labId: caller.lab.labId,
+        revisionId,
+        depths: body.depths,
+        widths: body.widths,
+        note: body.note,
+        document: built as unknown as Record<string, unknown>,
+        summary: summary as unknown as Record<string, unknown>,
+        recordedBy: caller.userId,
+      })
+      .returning({ id: asBuilts.id })
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId: r.head.designId,
+      revisionId,
+      actorId: caller.userId,
+      action: 'as-built.recorded',
+      detail: { warnings: changes.filter(c => c.exceeds).length },
+    })
     const wanted = [...new Set([r.head.authorId, r.designCreator])].filter(u => u !== caller.userId)
-    const to = wanted.length ? (await tx.select({ email: users.email }).from(users).where(inArray(users.id, wanted))).map(u => u.email) : []
+    const to = wanted.length
+      ? (await tx.select({ email: users.email }).from(users).where(inArray(users.id, wanted))).map(u => u.email)
+      : []
     const [me] = await tx.select({ name: users.name }).from(users).where(eq(users.id, caller.userId))
     await queueMailTo(tx, to, {
-      labId: caller.lab.labId, kind: 'as-built',
-      ...asBuiltMail({ designName: r.designName, revisionNumber: r.head.number, actorName: me?.name ?? 'Someone', changes: changes.filter(c => c.what !== 'findings' || c.designed !== c.asBuilt).map(describeChange), warnings: changes.filter(c => c.exceeds).length, link: `${appOrigin()}/labs/${caller.lab.labId}/revisions/${revisionId}/as-built` }),
+      labId: caller.lab.labId,
+      kind: 'as-built',
+      ...asBuiltMail({
+        designName: r.designName,
+        revisionNumber: r.head.number,
+        actorName: me?.name ?? 'Someone',
+        changes: changes.filter(c => c.what !== 'findings' || c.designed !== c.asBuilt).map(describeChange),
+        warnings: changes.filter(c => c.exceeds).length,
+        link: `${appOrigin()}/labs/${caller.lab.labId}/revisions/${revisionId}/as-built`,
+      }),
     })
     return row!.id
   })
   return { asBuiltId: id, changes }
 }
 
-const reportColumns = { id: asBuilts.id, createdAt: asBuilts.createdAt, recordedByName: users.name, depths: asBuilts.depths, widths: asBuilts.widths }
-const ofRevision = (labId: string, revisionId: string) => and(eq(asBuilts.revisionId, revisionId), eq(asBuilts.labId, labId))
+const reportColumns = {
+  id: asBuilts.id,
+  createdAt: asBuilts.createdAt,
+  recordedByName: users.name,
+  depths: asBuilts.depths,
+  widths: asBuilts.widths,
+}
+const ofRevision = (labId: string, revisionId: string) =>
+  and(eq(asBuilts.revisionId, revisionId), eq(asBuilts.labId, labId))
 
 /** The latest as-built of a revision (if any) beside the drawn chip, with what the fab may measure. */
 export async function getAsBuilt(caller: LabCaller, revisionId: string) {
   const r = await releasedRevision(caller, revisionId)
   const db = useDb()
-  const [latest] = await db.select({ ...reportColumns, note: asBuilts.note, summary: asBuilts.summary }).from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
-    .where(ofRevision(caller.lab.labId, revisionId)).orderBy(desc(asBuilts.createdAt)).limit(1)
-  const files = latest ? await db.select({ id: asBuiltFiles.id, fileName: asBuiltFiles.fileName, contentType: asBuiltFiles.contentType, bytes: asBuiltFiles.bytes }).from(asBuiltFiles).where(eq(asBuiltFiles.asBuiltId, latest.id)).orderBy(asc(asBuiltFiles.createdAt)) : []
+  const [latest] = await db
+    .select({ ...reportColumns, note: asBuilts.note, summary: asBuilts.summary })
+    .from(asBuilts)
+    .innerJoin(users, eq(users.id, asBuilts.recordedBy))
+    .where(ofRevision(caller.lab.labId, revisionId))
+    .orderBy(desc(asBuilts.createdAt))
+    .limit(1)
+  const files = latest
+    ? await db
+        .select({
+          id: asBuiltFiles.id,
+          fileName: asBuiltFiles.fileName,
+          contentType: asBuiltFiles.contentType,
+          bytes: asBuiltFiles.bytes,
+        })
+        .from(asBuiltFiles)
+        .where(eq(asBuiltFiles.asBuiltId, latest.id))
+        .orderBy(asc(asBuiltFiles.createdAt))
+    : []
   const summary = latest?.summary as unknown as RevisionSummary | undefined
   return {
     revision: { id: revisionId, number: r.head.number, status: r.head.status, designName: r.designName },
@@ -100,23 +190,43 @@ export async function getAsBuilt(caller: LabCaller, revisionId: string) {
     document: r.document,
     measurable: measurableWidths(r.document),
     designed: r.summary,
-    asBuilt: latest && summary
-      ? { id: latest.id, depths: latest.depths, widths: latest.widths, note: latest.note, recordedBy: latest.recordedByName, createdAt: latest.createdAt.toISOString(), summary, changes: asBuiltChanges(r.summary, summary, r.document), files }
-      : null,
+    asBuilt:
+      latest && summary
+        ? {
+            id: latest.id,
+            depths: latest.depths,
+            widths: latest.widths,
+            note: latest.note,
+            recordedBy: latest.recordedByName,
+            createdAt: latest.createdAt.toISOString(),
+            summary,
+            changes: asBuiltChanges(r.summary, summary, r.document),
+            files,
+          }
+        : null,
   }
 }
 
-
 /** The latest as-built report of a revision (who, when, what was measured), without its chip document. */
 export async function latestAsBuiltReport(labId: string, revisionId: string) {
-  const [row] = await useDb().select(reportColumns).from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
-    .where(ofRevision(labId, revisionId)).orderBy(desc(asBuilts.createdAt)).limit(1)
+  const [row] = await useDb()
+    .select(reportColumns)
+    .from(asBuilts)
+    .innerJoin(users, eq(users.id, asBuilts.recordedBy))
+    .where(ofRevision(labId, revisionId))
+    .orderBy(desc(asBuilts.createdAt))
+    .limit(1)
   return row ?? null
 }
 
 /** The latest as-built report with its chip document: bench runs forecast on that chip. */
 export async function latestAsBuiltChip(labId: string, revisionId: string) {
-  const [row] = await useDb().select({ ...reportColumns, document: asBuilts.document }).from(asBuilts).innerJoin(users, eq(users.id, asBuilts.recordedBy))
-    .where(ofRevision(labId, revisionId)).orderBy(desc(asBuilts.createdAt)).limit(1)
+  const [row] = await useDb()
+    .select({ ...reportColumns, document: asBuilts.document })
+    .from(asBuilts)
+    .innerJoin(users, eq(users.id, asBuilts.recordedBy))
+    .where(ofRevision(labId, revisionId))
+    .orderBy(desc(asBuilts.createdAt))
+    .limit(1)
   return row ?? null
 }

@@ -23,72 +23,157 @@ import { assertNotArchived, findVisibleRevision, notFound } from './designGuards
 export function requireBenchCaller(event: H3Event, labId: string, permission: Permission = 'designs:view'): LabCaller {
   const caller = requireLabPermission(event, labId, 'lab:view')
   if (!can(caller.lab.role, 'designs:view')) throw notFound('bench run')
-  if (!can(caller.lab.role, permission)) throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: `Your role (${caller.lab.role}) may not record bench results` })
+  if (!can(caller.lab.role, permission))
+    throw createError({
+      statusCode: 403,
+      statusMessage: 'Forbidden',
+      message: `Your role (${caller.lab.role}) may not record bench results`,
+    })
   return caller
 }
 
 type RunRow = typeof benchRuns.$inferSelect
 
-export function runJson(run: RunRow & { ranByName?: string | null }, micrographs: (typeof benchMicrographs.$inferSelect)[] = []) {
+export function runJson(
+  run: RunRow & { ranByName?: string | null },
+  micrographs: (typeof benchMicrographs.$inferSelect)[] = [],
+) {
   const predicted = run.predicted as RunPrediction | null
-  const relativeError = predicted && run.meanUm !== null && run.quantity === 'diameter' ? (run.meanUm - predicted.diameterUm) / predicted.diameterUm : null
+  const relativeError =
+    predicted && run.meanUm !== null && run.quantity === 'diameter'
+      ? (run.meanUm - predicted.diameterUm) / predicted.diameterUm
+      : null
   return {
-    id: run.id, revisionId: run.revisionId, designId: run.designId, operatingPointId: run.operatingPointId, junctionId: run.junctionId,
-    conditions: run.conditions, asBuilt: run.asBuilt, quantity: run.quantity, source: run.source,
-    count: run.count, meanUm: run.meanUm, sdUm: run.sdUm, cv: run.cv, frequencyHz: run.frequencyHz,
-    predicted, relativeError, notes: run.notes, ranBy: run.ranBy, ranByName: run.ranByName ?? null, ranAt: run.ranAt.toISOString(),
+    id: run.id,
+    revisionId: run.revisionId,
+    designId: run.designId,
+    operatingPointId: run.operatingPointId,
+    junctionId: run.junctionId,
+    conditions: run.conditions,
+    asBuilt: run.asBuilt,
+    quantity: run.quantity,
+    source: run.source,
+    count: run.count,
+    meanUm: run.meanUm,
+    sdUm: run.sdUm,
+    cv: run.cv,
+    frequencyHz: run.frequencyHz,
+    predicted,
+    relativeError,
+    notes: run.notes,
+    ranBy: run.ranBy,
+    ranByName: run.ranByName ?? null,
+    ranAt: run.ranAt.toISOString(),
     micrographs: micrographs.map(micrographJson),
   }
 }
 
 export function micrographJson(m: typeof benchMicrographs.$inferSelect) {
-  const measurement = m.measurement as { drops?: unknown[], summary?: unknown } | null
+  const measurement = m.measurement as { drops?: unknown[]; summary?: unknown } | null
   return {
-    id: m.id, runId: m.runId, fileName: m.fileName, contentType: m.contentType, bytes: m.bytes, width: m.width, height: m.height,
-    umPerPx: m.umPerPx, status: m.status, progress: m.progress, error: m.error, excluded: m.excluded,
-    detected: measurement?.drops?.length ?? 0, summary: measurement?.summary ?? null, createdAt: m.createdAt.toISOString(),
+    id: m.id,
+    runId: m.runId,
+    fileName: m.fileName,
+    contentType: m.contentType,
+    bytes: m.bytes,
+    width: m.width,
+    height: m.height,
+    umPerPx: m.umPerPx,
+    status: m.status,
+    progress: m.progress,
+    error: m.error,
+    excluded: m.excluded,
+    detected: measurement?.drops?.length ?? 0,
+    summary: measurement?.summary ?? null,
+    createdAt: m.createdAt.toISOString(),
   }
 }
 
 export async function listBenchRuns(caller: LabCaller, revisionId: string) {
   const db = useDb()
   const revision = await findVisibleRevision(db, caller, revisionId)
-  const runs = await db.select({ run: benchRuns, ranByName: users.name }).from(benchRuns).leftJoin(users, eq(users.id, benchRuns.ranBy))
-    .where(and(eq(benchRuns.revisionId, revisionId), eq(benchRuns.labId, caller.lab.labId))).orderBy(asc(benchRuns.ranAt))
+  const runs = await db
+    .select({ run: benchRuns, ranByName: users.name })
+    .from(benchRuns)
+    .leftJoin(users, eq(users.id, benchRuns.ranBy))
+    .where(and(eq(benchRuns.revisionId, revisionId), eq(benchRuns.labId, caller.lab.labId)))
+    .orderBy(asc(benchRuns.ranAt))
   const micrographs = runs.length
-    ? await db.select().from(benchMicrographs).where(and(eq(benchMicrographs.labId, caller.lab.labId), inArray(benchMicrographs.runId, runs.map(r => r.run.id)))).orderBy(asc(benchMicrographs.createdAt))
+    ? await db
+        .select()
+        .from(benchMicrographs)
+        .where(
+          and(
+            eq(benchMicrographs.labId, caller.lab.labId),
+            inArray(
+              benchMicrographs.runId,
+              runs.map(r => r.run.id),
+            ),
+          ),
+        )
+        .orderBy(asc(benchMicrographs.createdAt))
     : []
   const report = await latestAsBuiltReport(caller.lab.labId, revisionId)
   return {
     revision: { id: revision.id, designId: revision.designId, number: revision.number, status: revision.status },
-    asBuilt: report ? { id: report.id, reportedAt: report.createdAt.toISOString(), recordedByName: report.recordedByName, depths: report.depths, widths: report.widths } : null,
-    runs: runs.map(({ run, ranByName }) => runJson({ ...run, ranByName }, micrographs.filter(m => m.runId === run.id))),
+    asBuilt: report
+      ? {
+          id: report.id,
+          reportedAt: report.createdAt.toISOString(),
+          recordedByName: report.recordedByName,
+          depths: report.depths,
+          widths: report.widths,
+        }
+      : null,
+    runs: runs.map(({ run, ranByName }) =>
+      runJson(
+        { ...run, ranByName },
+        micrographs.filter(m => m.runId === run.id),
+      ),
+    ),
   }
 }
 
 export async function findRun(caller: LabCaller, runId: string): Promise<RunRow> {
-  const [run] = await useDb().select().from(benchRuns).where(and(eq(benchRuns.id, runId), eq(benchRuns.labId, caller.lab.labId)))
+  const [run] = await useDb()
+    .select()
+    .from(benchRuns)
+    .where(and(eq(benchRuns.id, runId), eq(benchRuns.labId, caller.lab.labId)))
   if (!run) throw notFound('bench run')
   return run
 }
 
 export async function getBenchRun(caller: LabCaller, runId: string) {
   const run = await findRun(caller, runId)
-  const micrographs = await useDb().select().from(benchMicrographs).where(eq(benchMicrographs.runId, runId)).orderBy(asc(benchMicrographs.createdAt))
+  const micrographs = await useDb()
+    .select()
+    .from(benchMicrographs)
+    .where(eq(benchMicrographs.runId, runId))
+    .orderBy(asc(benchMicrographs.createdAt))
   return runJson(run, micrographs)
 }
 
-const badBody = (message: string, issues: { path: string, message: string }[]) =>
+const badBody = (message: string, issues: { path: string; message: string }[]) =>
   createError({ statusCode: 400, statusMessage: 'Bad Request', message, data: { issues } })
 
 /** Sizes in µm from a typed list or a CSV (every bad row named; nothing imported on error). */
 export function runValues(input: z.infer<typeof benchRunCreate>): number[] {
   if (input.source === 'typed') return (input.values ?? []).map(v => v * SIZE_UNITS[input.unit])
   if (input.source === 'csv' && input.csv) {
-    const result = parseSizeColumn(input.csv.text, { column: input.csv.column, unit: input.csv.unit, header: input.csv.header })
+    const result = parseSizeColumn(input.csv.text, {
+      column: input.csv.column,
+      unit: input.csv.unit,
+      header: input.csv.header,
+    })
     if (!result.ok) {
       const issues = result.errors.map(e => ({ path: `csv.row.${e.row}`, message: `row ${e.row}: ${e.message}` }))
-      throw badBody(`The CSV was not imported (${result.errors.length}${result.errors.length >= 50 ? '+' : ''} problem${result.errors.length === 1 ? '' : 's'}): ${issues.slice(0, 5).map(i => i.message).join('; ')}`, issues)
+      throw badBody(
+        `The CSV was not imported (${result.errors.length}${result.errors.length >= 50 ? '+' : ''} problem${result.errors.length === 1 ? '' : 's'}): ${issues
+          .slice(0, 5)
+          .map(i => i.message)
+          .join('; ')}`,
+        issues,
+      )
     }
     return result.valuesUm
   }
@@ -110,16 +195,36 @@ export async function createBenchRun(caller: LabCaller, revisionId: string, inpu
   const { document, chip } = await benchChip(caller.lab.labId, revisionId, doc!.document, input)
   const forecast = await predictRun(document, input.operatingPointId, input.junctionId, input.conditions)
   const predicted = forecast && { ...forecast, chip }
-  const run = await db.transaction(async (tx) => {
-    const [row] = await tx.insert(benchRuns).values({
-      labId: caller.lab.labId, designId: revision.designId, revisionId,
-      operatingPointId: input.operatingPointId ?? null, junctionId: input.junctionId ?? predicted?.junctionId ?? null,
-      conditions: input.conditions, asBuilt: input.asBuilt ?? null, quantity: input.quantity, source: input.source,
-      valuesUm: values, ...summaryColumns(values), frequencyHz: input.frequencyHz ?? null,
-      predicted: predicted as unknown as Record<string, unknown> | null, notes: input.notes,
-      ranBy: caller.userId, ranAt: input.ranAt ? new Date(input.ranAt) : new Date(),
-    }).returning()
-    await logActivity(tx, { labId: caller.lab.labId, designId: revision.designId, revisionId, actorId: caller.userId, action: 'bench.recorded', detail: { runId: row!.id, source: input.source, count: values.length } })
+  const run = await db.transaction(async tx => {
+    const [row] = await tx
+      .insert(benchRuns)
+      .values({
+        labId: caller.lab.labId,
+        designId: revision.designId,
+        revisionId,
+        operatingPointId: input.operatingPointId ?? null,
+        junctionId: input.junctionId ?? predicted?.junctionId ?? null,
+        conditions: input.conditions,
+        asBuilt: input.asBuilt ?? null,
+        quantity: input.quantity,
+        source: input.source,
+        valuesUm: values,
+        ...summaryColumns(values),
+        frequencyHz: input.frequencyHz ?? null,
+        predicted: predicted as unknown as Record<string, unknown> | null,
+        notes: input.notes,
+        ranBy: caller.userId,
+        ranAt: input.ranAt ? new Date(input.ranAt) : new Date(),
+      })
+      .returning()
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId: revision.designId,
+      revisionId,
+      actorId: caller.userId,
+      action: 'bench.recorded',
+      detail: { runId: row!.id, source: input.source, count: values.length },
+    })
     return row!
   })
   return runJson(run)
@@ -128,10 +233,19 @@ export async function createBenchRun(caller: LabCaller, revisionId: string, inpu
 /** The run's sizes from its measured micrographs (accepted drops, the user's exclusions left out). */
 export async function refreshRunFromMicrographs(runId: string): Promise<void> {
   const db = useDb()
-  const rows = await db.select({ measurement: benchMicrographs.measurement }).from(benchMicrographs)
+  const rows = await db
+    .select({ measurement: benchMicrographs.measurement })
+    .from(benchMicrographs)
     .where(and(eq(benchMicrographs.runId, runId), eq(benchMicrographs.status, 'done')))
-  const values = rows.flatMap(r => ((r.measurement as { drops?: { accepted: boolean, diameterUm: number }[] } | null)?.drops ?? []).filter(d => d.accepted).map(d => d.diameterUm))
-  await db.update(benchRuns).set({ valuesUm: values, ...summaryColumns(values) }).where(eq(benchRuns.id, runId))
+  const values = rows.flatMap(r =>
+    ((r.measurement as { drops?: { accepted: boolean; diameterUm: number }[] } | null)?.drops ?? [])
+      .filter(d => d.accepted)
+      .map(d => d.diameterUm),
+  )
+  await db
+    .update(benchRuns)
+    .set({ valuesUm: values, ...summaryColumns(values) })
+    .where(eq(benchRuns.id, runId))
 }
 
 export async function labRunsForCalibration(caller: LabCaller) {

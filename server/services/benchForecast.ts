@@ -44,19 +44,37 @@ export interface RunPrediction {
 /** ±20 %: the spread usually seen between scaling-law forecasts and measured drops (common practice, no source). */
 export const DEFAULT_UNCERTAINTY = 0.2
 
-const badChip = (issues: Array<{ path: string, message: string }>) => createError({
-  statusCode: 400, statusMessage: 'Bad Request', data: { issues },
-  message: `The run's chip is invalid: ${issues.slice(0, 5).map(i => i.message).join('; ')}`,
-})
+const badChip = (issues: Array<{ path: string; message: string }>) =>
+  createError({
+    statusCode: 400,
+    statusMessage: 'Bad Request',
+    data: { issues },
+    message: `The run's chip is invalid: ${issues
+      .slice(0, 5)
+      .map(i => i.message)
+      .join('; ')}`,
+  })
 
 /**
  * The chip a run's forecast is computed on: the latest as-built report when one exists (unless the run asks for the
  * chip as drawn), with the sizes measured at the bench on its junction. Asking for "as-built" without a report, or
  * sizes the chip's own limits refuse, is a 400 naming why.
  */
-export async function benchChip(labId: string, revisionId: string, drawn: unknown, input: Pick<BenchRunCreate, 'chip' | 'asBuilt' | 'junctionId'>): Promise<{ document: unknown, chip: ChipBasis }> {
+export async function benchChip(
+  labId: string,
+  revisionId: string,
+  drawn: unknown,
+  input: Pick<BenchRunCreate, 'chip' | 'asBuilt' | 'junctionId'>,
+): Promise<{ document: unknown; chip: ChipBasis }> {
   const report = input.chip === 'as-drawn' ? null : await latestAsBuiltChip(labId, revisionId)
-  if (input.chip === 'as-built' && !report) throw badChip([{ path: 'chip', message: 'No as-built report has been recorded for this revision: forecast on the chip as drawn, or record the as-built first' }])
+  if (input.chip === 'as-built' && !report)
+    throw badChip([
+      {
+        path: 'chip',
+        message:
+          'No as-built report has been recorded for this revision: forecast on the chip as drawn, or record the as-built first',
+      },
+    ])
   const sizes = input.asBuilt ?? {}
   const benchSizes = Object.values(sizes).some(v => v !== undefined)
   let document = report?.document ?? drawn
@@ -65,16 +83,32 @@ export async function benchChip(labId: string, revisionId: string, drawn: unknow
       document = chipDocument.parse(applyBenchSizes(document as ChipDocument, input.junctionId, sizes))
     } catch (error) {
       if (error instanceof AsBuiltError) throw badChip([{ path: error.field, message: error.message }])
-      if (error instanceof ZodError) throw badChip(error.issues.map(i => ({ path: `asBuilt.${i.path.join('.')}`, message: `With the sizes measured at the bench, ${i.message}` })))
+      if (error instanceof ZodError)
+        throw badChip(
+          error.issues.map(i => ({
+            path: `asBuilt.${i.path.join('.')}`,
+            message: `With the sizes measured at the bench, ${i.message}`,
+          })),
+        )
       throw error
     }
   }
-  return { document, chip: { basis: report ? 'as-built' : 'as-drawn', asBuiltId: report?.id ?? null, reportedAt: report?.createdAt.toISOString() ?? null, benchSizes } }
+  return {
+    document,
+    chip: {
+      basis: report ? 'as-built' : 'as-drawn',
+      asBuiltId: report?.id ?? null,
+      reportedAt: report?.createdAt.toISOString() ?? null,
+      benchSizes,
+    },
+  }
 }
 
 async function forecastAt(document: unknown, operatingPointId: string | undefined): Promise<DocumentForecast | null> {
   try {
-    return await forecastOffThread(operatingPointId ? { document, operatingPoint: operatingPointId } : { document }) as DocumentForecast
+    return (await forecastOffThread(
+      operatingPointId ? { document, operatingPoint: operatingPointId } : { document },
+    )) as DocumentForecast
   } catch {
     return null
   }
@@ -86,9 +120,15 @@ async function forecastAt(document: unknown, operatingPointId: string | undefine
  * When the bench point gives no forecast for the junction (below its entry barrier, say), the design's point is
  * kept and `atBenchFlows` says so.
  */
-export async function predictRun(document: unknown, operatingPointId: string | undefined, junctionId: string | undefined, conditions: BenchConditions): Promise<RunPrediction | null> {
+export async function predictRun(
+  document: unknown,
+  operatingPointId: string | undefined,
+  junctionId: string | undefined,
+  conditions: BenchConditions,
+): Promise<RunPrediction | null> {
   const designed = await forecastAt(document, operatingPointId)
-  const pick = (answer: DocumentForecast | null) => answer?.junctions.find(j => (junctionId ? j.id === junctionId : j.forecast !== null))
+  const pick = (answer: DocumentForecast | null) =>
+    answer?.junctions.find(j => (junctionId ? j.id === junctionId : j.forecast !== null))
   const designJunction = pick(designed)
   if (!designJunction?.forecast) return null
   let junction = designJunction
@@ -97,7 +137,10 @@ export async function predictRun(document: unknown, operatingPointId: string | u
     const phases = new Map(designed!.network.inlets.map(i => [i.port, i.phase] as const))
     const bench = benchPoint(document as ChipDocument, operatingPointId, conditions, phases)
     const atBench = bench ? pick(await forecastAt(bench.document, bench.operatingPointId)) : undefined
-    if (atBench?.forecast && atBench.id === designJunction.id) { junction = atBench; atBenchFlows = true }
+    if (atBench?.forecast && atBench.id === designJunction.id) {
+      junction = atBench
+      atBenchFlows = true
+    }
   }
   const f = junction.forecast!
   return {

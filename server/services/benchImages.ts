@@ -20,12 +20,17 @@ const badImage = (message: string) => createError({ statusCode: 415, statusMessa
 /** The image type read from the bytes; anything but PNG, JPEG or TIFF is refused whatever its name says. */
 export async function sniffMicrograph(bytes: Uint8Array, fileName: string): Promise<(typeof MICROGRAPH_TYPES)[number]> {
   const found = await fileTypeFromBuffer(bytes)
-  if (found && (MICROGRAPH_TYPES as readonly string[]).includes(found.mime)) return found.mime as (typeof MICROGRAPH_TYPES)[number]
+  if (found && (MICROGRAPH_TYPES as readonly string[]).includes(found.mime))
+    return found.mime as (typeof MICROGRAPH_TYPES)[number]
   const what = found ? `a ${found.ext.toUpperCase()} file (${found.mime})` : 'not an image we can read'
   throw badImage(`"${fileName}" is ${what}, whatever its name says: upload a PNG, JPEG or TIFF micrograph`)
 }
 
-export interface DecodedImage { width: number, height: number, pixels: Uint8Array }
+export interface DecodedImage {
+  width: number
+  height: number
+  pixels: Uint8Array
+}
 
 /** Grey 8-bit pixels of the image (first page of a TIFF); refuses images above the pixel limit before decoding. */
 export async function decodeGrey(bytes: Uint8Array): Promise<DecodedImage> {
@@ -33,17 +38,29 @@ export async function decodeGrey(bytes: Uint8Array): Promise<DecodedImage> {
     const image = sharp(bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS, failOn: 'error' })
     const { data, info } = await image.greyscale().toColourspace('b-w').raw().toBuffer({ resolveWithObject: true })
     if (info.channels !== 1) throw new Error(`expected one channel, got ${info.channels}`)
-    return { width: info.width, height: info.height, pixels: new Uint8Array(data.buffer, data.byteOffset, data.byteLength) }
+    return {
+      width: info.width,
+      height: info.height,
+      pixels: new Uint8Array(data.buffer, data.byteOffset, data.byteLength),
+    }
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error)
-    if (/pixel limit/i.test(message)) throw createError({ statusCode: 413, statusMessage: 'Payload Too Large', message: `The image has more than ${MAX_MICROGRAPH_PIXELS / 1024 / 1024} megapixels; crop or scale it down` })
+    if (/pixel limit/i.test(message))
+      throw createError({
+        statusCode: 413,
+        statusMessage: 'Payload Too Large',
+        message: `The image has more than ${MAX_MICROGRAPH_PIXELS / 1024 / 1024} megapixels; crop or scale it down`,
+      })
     throw badImage(`The image could not be decoded (${message.slice(0, 120)}): save it again as PNG, JPEG or TIFF`)
   }
 }
 
 /** A 320-px-wide JPEG preview. */
 export async function thumbnail(bytes: Uint8Array): Promise<Uint8Array> {
-  return sharp(bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS }).resize({ width: 320, withoutEnlargement: true }).jpeg({ quality: 80 }).toBuffer()
+  return sharp(bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS })
+    .resize({ width: 320, withoutEnlargement: true })
+    .jpeg({ quality: 80 })
+    .toBuffer()
 }
 
 /** The image as PNG for the overlay view (browsers do not show TIFF). */
@@ -56,10 +73,18 @@ function imagingPool(): Tinypool | null {
   if (pool !== undefined) return pool
   let dir = dirname(fileURLToPath(import.meta.url))
   let file: string | null = null
-  for (let i = 0; i < 5 && !file; i++, dir = dirname(dir)) if (existsSync(join(dir, 'workers', 'imaging.mjs'))) file = join(dir, 'workers', 'imaging.mjs')
-  pool = file && useConfig().imaging.worker
-    ? new Tinypool({ filename: file, minThreads: 0, maxThreads: 1, idleTimeout: 30_000, resourceLimits: { maxOldGenerationSizeMb: 1024 } })
-    : null
+  for (let i = 0; i < 5 && !file; i++, dir = dirname(dir))
+    if (existsSync(join(dir, 'workers', 'imaging.mjs'))) file = join(dir, 'workers', 'imaging.mjs')
+  pool =
+    file && useConfig().imaging.worker
+      ? new Tinypool({
+          filename: file,
+          minThreads: 0,
+          maxThreads: 1,
+          idleTimeout: 30_000,
+          resourceLimits: { maxOldGenerationSizeMb: 1024 },
+        })
+      : null
   return pool
 }
 
@@ -68,5 +93,8 @@ export async function measureOffThread(image: DecodedImage, umPerPx: number): Pr
   const p = imagingPool()
   if (!p) return measureDrops({ width: image.width, height: image.height, data: image.pixels }, { umPerPx })
   const copy = image.pixels.slice().buffer
-  return p.run({ width: image.width, height: image.height, pixels: copy, umPerPx }, { transferList: [copy] as never, signal: AbortSignal.timeout(120_000) }) as Promise<Measurement>
+  return p.run(
+    { width: image.width, height: image.height, pixels: copy, umPerPx },
+    { transferList: [copy] as never, signal: AbortSignal.timeout(120_000) },
+  ) as Promise<Measurement>
 }

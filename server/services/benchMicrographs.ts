@@ -23,10 +23,18 @@ export const MEASURE_JOB = 'micrograph.measure'
  * transaction as its row, then waits up to `waitMs` for the result: a small image answers with its drops at once
  * (201), a large one answers 202 with the row, whose status and progress the page follows.
  */
-export async function uploadMicrograph(caller: LabCaller, runId: string, file: { bytes: Uint8Array, fileName: string }, umPerPx: number, waitMs = 25_000) {
+export async function uploadMicrograph(
+  caller: LabCaller,
+  runId: string,
+  file: { bytes: Uint8Array; fileName: string },
+  umPerPx: number,
+  waitMs = 25_000,
+) {
   await findRun(caller, runId)
   const contentType = await sniffMicrograph(file.bytes, file.fileName)
-  const meta = await sharp(file.bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS }).metadata().catch(() => null)
+  const meta = await sharp(file.bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS })
+    .metadata()
+    .catch(() => null)
   if (!meta?.width || !meta.height) await decodeGrey(file.bytes) // throws the message naming the problem
   const id = randomUUID()
   const key = objectKey(caller.lab.labId, 'micrographs', id, 'original')
@@ -34,56 +42,124 @@ export async function uploadMicrograph(caller: LabCaller, runId: string, file: {
   const viewKey = objectKey(caller.lab.labId, 'micrographs', id, 'view.png')
   await putObject(key, file.bytes, contentType)
   await putObject(thumbKey, await thumbnail(file.bytes), 'image/jpeg')
-  await putObject(viewKey, contentType === 'image/tiff' ? await webImage(file.bytes) : file.bytes, contentType === 'image/tiff' ? 'image/png' : contentType)
+  await putObject(
+    viewKey,
+    contentType === 'image/tiff' ? await webImage(file.bytes) : file.bytes,
+    contentType === 'image/tiff' ? 'image/png' : contentType,
+  )
   const db = useDb()
-  await db.transaction(async (tx) => {
+  await db.transaction(async tx => {
     await tx.insert(benchMicrographs).values({
-      id, labId: caller.lab.labId, runId, objectKey: key, thumbnailKey: thumbKey, contentType, bytes: file.bytes.byteLength,
-      fileName: file.fileName.slice(0, 200), width: meta?.width ?? 0, height: meta?.height ?? 0, umPerPx, status: 'queued', progress: 0, createdBy: caller.userId,
+      id,
+      labId: caller.lab.labId,
+      runId,
+      objectKey: key,
+      thumbnailKey: thumbKey,
+      contentType,
+      bytes: file.bytes.byteLength,
+      fileName: file.fileName.slice(0, 200),
+      width: meta?.width ?? 0,
+      height: meta?.height ?? 0,
+      umPerPx,
+      status: 'queued',
+      progress: 0,
+      createdBy: caller.userId,
     })
     await enqueueJob(MEASURE_JOB, { labId: caller.lab.labId, runId, micrographId: id, actorId: caller.userId }, { tx })
   })
   const deadline = Date.now() + waitMs
   for (;;) {
     const [row] = await db.select().from(benchMicrographs).where(eq(benchMicrographs.id, id))
-    if (row!.status === 'failed') throw createError({ statusCode: 422, statusMessage: 'Unprocessable Content', message: `The micrograph could not be measured: ${row!.error ?? 'unknown error'}` })
+    if (row!.status === 'failed')
+      throw createError({
+        statusCode: 422,
+        statusMessage: 'Unprocessable Content',
+        message: `The micrograph could not be measured: ${row!.error ?? 'unknown error'}`,
+      })
     if (row!.status === 'done' || Date.now() > deadline) {
       const measurement = row!.measurement as Measurement | null
-      return { pending: row!.status !== 'done', micrograph: micrographJson(row!), drops: measurement?.drops ?? [], summary: measurement?.summary ?? null, method: measurement?.method ?? null }
+      return {
+        pending: row!.status !== 'done',
+        micrograph: micrographJson(row!),
+        drops: measurement?.drops ?? [],
+        summary: measurement?.summary ?? null,
+        method: measurement?.method ?? null,
+      }
     }
     await new Promise(resolve => setTimeout(resolve, 150))
   }
 }
 
 /** The job: fetch the bytes from storage, decode, measure in the imaging worker, keep the result. Idempotent. */
-export async function measureMicrographJob(data: { labId: string, runId: string, micrographId: string, actorId: string }) {
+export async function measureMicrographJob(data: {
+  labId: string
+  runId: string
+  micrographId: string
+  actorId: string
+}) {
   const db = useDb()
-  const [row] = await db.select().from(benchMicrographs).where(and(eq(benchMicrographs.id, data.micrographId), eq(benchMicrographs.labId, data.labId)))
+  const [row] = await db
+    .select()
+    .from(benchMicrographs)
+    .where(and(eq(benchMicrographs.id, data.micrographId), eq(benchMicrographs.labId, data.labId)))
   if (!row || row.status === 'done') return
-  const progress = (fraction: number) => db.update(benchMicrographs).set({ status: 'measuring', progress: fraction }).where(eq(benchMicrographs.id, row.id))
+  const progress = (fraction: number) =>
+    db.update(benchMicrographs).set({ status: 'measuring', progress: fraction }).where(eq(benchMicrographs.id, row.id))
   try {
     await progress(0.1)
     const image = await decodeGrey(await getObject(row.objectKey))
     await progress(0.3)
     const measurement = await measureOffThread(image, row.umPerPx)
-    await db.update(benchMicrographs).set({ status: 'done', progress: 1, error: null, width: image.width, height: image.height, measurement: measurement as unknown as Record<string, unknown> })
+    await db
+      .update(benchMicrographs)
+      .set({
+        status: 'done',
+        progress: 1,
+        error: null,
+        width: image.width,
+        height: image.height,
+        measurement: measurement as unknown as Record<string, unknown>,
+      })
       .where(eq(benchMicrographs.id, row.id))
     await refreshRunFromMicrographs(row.runId)
-    const [run] = await db.select({ designId: benchRuns.designId, revisionId: benchRuns.revisionId }).from(benchRuns).where(eq(benchRuns.id, row.runId))
-    if (run) await logActivity(db, { labId: data.labId, designId: run.designId, revisionId: run.revisionId, actorId: data.actorId, action: 'bench.micrograph', detail: { runId: row.runId, micrographId: row.id, detected: measurement.drops.length } })
+    const [run] = await db
+      .select({ designId: benchRuns.designId, revisionId: benchRuns.revisionId })
+      .from(benchRuns)
+      .where(eq(benchRuns.id, row.runId))
+    if (run)
+      await logActivity(db, {
+        labId: data.labId,
+        designId: run.designId,
+        revisionId: run.revisionId,
+        actorId: data.actorId,
+        action: 'bench.micrograph',
+        detail: { runId: row.runId, micrographId: row.id, detected: measurement.drops.length },
+      })
   } catch (error) {
     const message = error instanceof Error ? error.message.slice(0, 500) : 'measurement failed'
     // A file that cannot be measured stays failed (no retry would help); anything else is retried by the queue.
-    const final = (error as { statusCode?: number }).statusCode !== undefined && (error as { statusCode: number }).statusCode < 500
-    await db.update(benchMicrographs).set(final ? { status: 'failed', error: message } : { status: 'queued', error: message }).where(eq(benchMicrographs.id, row.id))
+    const final =
+      (error as { statusCode?: number }).statusCode !== undefined && (error as { statusCode: number }).statusCode < 500
+    await db
+      .update(benchMicrographs)
+      .set(final ? { status: 'failed', error: message } : { status: 'queued', error: message })
+      .where(eq(benchMicrographs.id, row.id))
     if (!final) throw error
   }
 }
 
 async function findMicrograph(caller: LabCaller, runId: string, micrographId: string) {
   await findRun(caller, runId)
-  const [row] = await useDb().select().from(benchMicrographs)
-    .where(and(eq(benchMicrographs.id, micrographId), eq(benchMicrographs.runId, runId), eq(benchMicrographs.labId, caller.lab.labId)))
+  const [row] = await useDb()
+    .select()
+    .from(benchMicrographs)
+    .where(
+      and(
+        eq(benchMicrographs.id, micrographId),
+        eq(benchMicrographs.runId, runId),
+        eq(benchMicrographs.labId, caller.lab.labId),
+      ),
+    )
   if (!row) throw notFound('micrograph')
   return row
 }
@@ -91,29 +167,60 @@ async function findMicrograph(caller: LabCaller, runId: string, micrographId: st
 export async function getMicrograph(caller: LabCaller, runId: string, micrographId: string) {
   const row = await findMicrograph(caller, runId, micrographId)
   const measurement = row.measurement as Measurement | null
-  return { micrograph: micrographJson(row), drops: measurement?.drops ?? [], summary: measurement?.summary ?? null, method: measurement?.method ?? null }
+  return {
+    micrograph: micrographJson(row),
+    drops: measurement?.drops ?? [],
+    summary: measurement?.summary ?? null,
+    method: measurement?.method ?? null,
+  }
 }
 
 export async function excludeDetections(caller: LabCaller, runId: string, micrographId: string, excluded: number[]) {
   const row = await findMicrograph(caller, runId, micrographId)
   const measurement = row.measurement as Measurement | null
-  if (!measurement || row.status !== 'done') throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This micrograph is not measured yet: wait until its measurement is done' })
+  if (!measurement || row.status !== 'done')
+    throw createError({
+      statusCode: 409,
+      statusMessage: 'Conflict',
+      message: 'This micrograph is not measured yet: wait until its measurement is done',
+    })
   const known = new Set(measurement.drops.map(d => d.id))
   const unknown = excluded.find(id => !known.has(id))
-  if (unknown !== undefined) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: `Body is invalid: excluded: drop ${unknown} is not one of the ${known.size} detected drops` })
+  if (unknown !== undefined)
+    throw createError({
+      statusCode: 400,
+      statusMessage: 'Bad Request',
+      message: `Body is invalid: excluded: drop ${unknown} is not one of the ${known.size} detected drops`,
+    })
   const next = excludeDrops(measurement, excluded)
-  const [updated] = await useDb().update(benchMicrographs).set({ measurement: next as unknown as Record<string, unknown>, excluded: [...new Set(excluded)].sort((a, b) => a - b) })
-    .where(eq(benchMicrographs.id, micrographId)).returning()
+  const [updated] = await useDb()
+    .update(benchMicrographs)
+    .set({
+      measurement: next as unknown as Record<string, unknown>,
+      excluded: [...new Set(excluded)].sort((a, b) => a - b),
+    })
+    .where(eq(benchMicrographs.id, micrographId))
+    .returning()
   await refreshRunFromMicrographs(runId)
   return { micrograph: micrographJson(updated!), drops: next.drops, summary: next.summary, method: next.method }
 }
 
-export async function micrographFile(caller: LabCaller, runId: string, micrographId: string, variant: 'original' | 'thumbnail' | 'view') {
+export async function micrographFile(
+  caller: LabCaller,
+  runId: string,
+  micrographId: string,
+  variant: 'original' | 'thumbnail' | 'view',
+) {
   const row = await findMicrograph(caller, runId, micrographId)
-  if (variant === 'thumbnail') return { bytes: await getObject(row.thumbnailKey!), contentType: 'image/jpeg', fileName: 'thumbnail.jpg' }
+  if (variant === 'thumbnail')
+    return { bytes: await getObject(row.thumbnailKey!), contentType: 'image/jpeg', fileName: 'thumbnail.jpg' }
   if (variant === 'view') {
     const key = row.objectKey.replace(/original$/, 'view.png')
-    return { bytes: await getObject(key), contentType: row.contentType === 'image/tiff' ? 'image/png' : row.contentType, fileName: row.fileName }
+    return {
+      bytes: await getObject(key),
+      contentType: row.contentType === 'image/tiff' ? 'image/png' : row.contentType,
+      fileName: row.fileName,
+    }
   }
   return { bytes: await getObject(row.objectKey), contentType: row.contentType, fileName: row.fileName }
 }

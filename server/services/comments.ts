@@ -9,15 +9,35 @@ import { logActivity } from './activity'
 import { assertNotArchived, findVisibleRevision, holdOpenDesign } from './designGuards'
 import { notifyComment } from './notifications'
 
-export async function createThread(caller: LabCaller, revisionId: string, input: { anchor: { x: number, y: number, elementId?: string }, body: string }) {
+export async function createThread(
+  caller: LabCaller,
+  revisionId: string,
+  input: { anchor: { x: number; y: number; elementId?: string }; body: string },
+) {
   const db = useDb()
   const revision = await findVisibleRevision(db, caller, revisionId)
   assertNotArchived(revision)
-  return db.transaction(async (tx) => {
+  return db.transaction(async tx => {
     await holdOpenDesign(tx, revision.designId)
-    const [thread] = await tx.insert(commentThreads).values({ revisionId, designId: revision.designId, labId: caller.lab.labId, anchor: input.anchor, createdBy: caller.userId }).returning({ id: commentThreads.id })
+    const [thread] = await tx
+      .insert(commentThreads)
+      .values({
+        revisionId,
+        designId: revision.designId,
+        labId: caller.lab.labId,
+        anchor: input.anchor,
+        createdBy: caller.userId,
+      })
+      .returning({ id: commentThreads.id })
     await tx.insert(comments).values({ threadId: thread!.id, authorId: caller.userId, body: input.body })
-    await logActivity(tx, { labId: caller.lab.labId, designId: revision.designId, revisionId, actorId: caller.userId, action: 'comment.pinned', detail: { at: input.anchor } })
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId: revision.designId,
+      revisionId,
+      actorId: caller.userId,
+      action: 'comment.pinned',
+      detail: { at: input.anchor },
+    })
     await notifyComment(tx, caller, revision, input.body)
     return { threadId: thread!.id }
   })
@@ -27,17 +47,34 @@ async function findThread(caller: LabCaller, revisionId: string, threadId: strin
   const db = useDb()
   const revision = await findVisibleRevision(db, caller, revisionId)
   assertNotArchived(revision)
-  const [thread] = await db.select().from(commentThreads).where(and(eq(commentThreads.id, threadId), eq(commentThreads.revisionId, revisionId)))
-  if (!thread) throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'No such comment thread on this revision' })
+  const [thread] = await db
+    .select()
+    .from(commentThreads)
+    .where(and(eq(commentThreads.id, threadId), eq(commentThreads.revisionId, revisionId)))
+  if (!thread)
+    throw createError({
+      statusCode: 404,
+      statusMessage: 'Not Found',
+      message: 'No such comment thread on this revision',
+    })
   return { db, revision, thread }
 }
 
 export async function reply(caller: LabCaller, revisionId: string, threadId: string, body: string) {
   const { db, revision } = await findThread(caller, revisionId, threadId)
-  return db.transaction(async (tx) => {
+  return db.transaction(async tx => {
     await holdOpenDesign(tx, revision.designId)
-    const [comment] = await tx.insert(comments).values({ threadId, authorId: caller.userId, body }).returning({ id: comments.id })
-    await logActivity(tx, { labId: caller.lab.labId, designId: revision.designId, revisionId, actorId: caller.userId, action: 'comment.replied' })
+    const [comment] = await tx
+      .insert(comments)
+      .values({ threadId, authorId: caller.userId, body })
+      .returning({ id: comments.id })
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId: revision.designId,
+      revisionId,
+      actorId: caller.userId,
+      action: 'comment.replied',
+    })
     await notifyComment(tx, caller, revision, body)
     return { commentId: comment!.id }
   })
@@ -45,10 +82,19 @@ export async function reply(caller: LabCaller, revisionId: string, threadId: str
 
 export async function setResolved(caller: LabCaller, revisionId: string, threadId: string, resolved: boolean) {
   const { db, revision } = await findThread(caller, revisionId, threadId)
-  await db.transaction(async (tx) => {
+  await db.transaction(async tx => {
     await holdOpenDesign(tx, revision.designId)
-    await tx.update(commentThreads).set(resolved ? { resolvedAt: new Date(), resolvedBy: caller.userId } : { resolvedAt: null, resolvedBy: null }).where(eq(commentThreads.id, threadId))
-    await logActivity(tx, { labId: caller.lab.labId, designId: revision.designId, revisionId, actorId: caller.userId, action: resolved ? 'comment.resolved' : 'comment.reopened' })
+    await tx
+      .update(commentThreads)
+      .set(resolved ? { resolvedAt: new Date(), resolvedBy: caller.userId } : { resolvedAt: null, resolvedBy: null })
+      .where(eq(commentThreads.id, threadId))
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId: revision.designId,
+      revisionId,
+      actorId: caller.userId,
+      action: resolved ? 'comment.resolved' : 'comment.reopened',
+    })
   })
   return { ok: true }
 }

@@ -12,9 +12,17 @@ export async function getDesignDetail(caller: LabCaller, designId: string) {
   const [creator] = await db.select({ name: users.name }).from(users).where(eq(users.id, design.createdBy))
   return {
     design: {
-      id: design.id, name: design.name, description: design.description, processId: design.processId,
-      createdBy: creator?.name ?? '', createdById: design.createdBy, createdAt: design.createdAt.toISOString(), updatedAt: design.updatedAt.toISOString(),
-      archived: design.archivedAt !== null, latestRevisionId: design.latestRevisionId, origin: design.origin ?? null,
+      id: design.id,
+      name: design.name,
+      description: design.description,
+      processId: design.processId,
+      createdBy: creator?.name ?? '',
+      createdById: design.createdBy,
+      createdAt: design.createdAt.toISOString(),
+      updatedAt: design.updatedAt.toISOString(),
+      archived: design.archivedAt !== null,
+      latestRevisionId: design.latestRevisionId,
+      origin: design.origin ?? null,
     },
     revisions: await listRevisions(caller, designId),
     activity: await listActivity(db, designId),

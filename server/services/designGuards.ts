@@ -7,9 +7,11 @@ import type { Db, Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { can } from '#shared/utils/roles'
 
-export const notFound = (what: string) => createError({ statusCode: 404, statusMessage: 'Not Found', message: `No such ${what} in this lab` })
+export const notFound = (what: string) =>
+  createError({ statusCode: 404, statusMessage: 'Not Found', message: `No such ${what} in this lab` })
 
-export const archivedDesign = () => createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This design is archived: restore it first' })
+export const archivedDesign = () =>
+  createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This design is archived: restore it first' })
 
 /** 409 "restore it first" for a design (or a revision looked up with `findVisibleRevision`) that is archived. */
 export function assertNotArchived(design: { archivedAt: Date | null }): void {
@@ -21,7 +23,11 @@ export function assertNotArchived(design: { archivedAt: Date | null }): void {
  * DEVELOPERS.md's order after the lab) and refuses an archived one.
  */
 export async function holdOpenDesign(tx: Tx, designId: string): Promise<void> {
-  const [design] = await tx.select({ archivedAt: designs.archivedAt }).from(designs).where(eq(designs.id, designId)).for('share')
+  const [design] = await tx
+    .select({ archivedAt: designs.archivedAt })
+    .from(designs)
+    .where(eq(designs.id, designId))
+    .for('share')
   if (!design) throw notFound('design')
   assertNotArchived(design)
 }
@@ -40,16 +46,27 @@ export function seenRevisionId(caller: LabCaller, id: string | null, status: str
 }
 
 export async function findDesign(db: Db, caller: LabCaller, designId: string) {
-  const [design] = await db.select().from(designs).where(and(eq(designs.id, designId), eq(designs.labId, caller.lab.labId)))
+  const [design] = await db
+    .select()
+    .from(designs)
+    .where(and(eq(designs.id, designId), eq(designs.labId, caller.lab.labId)))
   if (!design) throw notFound('design')
   return design
 }
 
 /** A revision's light columns: everything but the document and summary, which are large. */
 export const revisionHead = {
-  id: revisions.id, designId: revisions.designId, labId: revisions.labId, number: revisions.number, parentId: revisions.parentId,
-  authorId: revisions.authorId, message: revisions.message, status: revisions.status, statusChangedAt: revisions.statusChangedAt,
-  statusChangedBy: revisions.statusChangedBy, createdAt: revisions.createdAt,
+  id: revisions.id,
+  designId: revisions.designId,
+  labId: revisions.labId,
+  number: revisions.number,
+  parentId: revisions.parentId,
+  authorId: revisions.authorId,
+  message: revisions.message,
+  status: revisions.status,
+  statusChangedAt: revisions.statusChangedAt,
+  statusChangedBy: revisions.statusChangedBy,
+  createdAt: revisions.createdAt,
 }
 export type RevisionHead = { [K in keyof typeof revisionHead]: (typeof revisions.$inferSelect)[K] }
 
@@ -57,8 +74,14 @@ export type RevisionHead = { [K in keyof typeof revisionHead]: (typeof revisions
  * A revision the caller may open: the lab's designs for most roles; only released ones for a fabricator.
  * With its design's `archivedAt`, for `assertNotArchived`.
  */
-export async function findVisibleRevision(db: Db, caller: LabCaller, revisionId: string): Promise<RevisionHead & { archivedAt: Date | null }> {
-  const [revision] = await db.select({ ...revisionHead, archivedAt: designs.archivedAt }).from(revisions)
+export async function findVisibleRevision(
+  db: Db,
+  caller: LabCaller,
+  revisionId: string,
+): Promise<RevisionHead & { archivedAt: Date | null }> {
+  const [revision] = await db
+    .select({ ...revisionHead, archivedAt: designs.archivedAt })
+    .from(revisions)
     .innerJoin(designs, eq(designs.id, revisions.designId))
     .where(and(eq(revisions.id, revisionId), eq(revisions.labId, caller.lab.labId)))
   if (!revision || !mayOpenRevision(caller, revision.status)) throw notFound('revision')

@@ -35,11 +35,22 @@ function listFilters() {
 }
 
 function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
-  return useDb().select({
-    id: designs.id, name: designs.name, description: designs.description, processId: designs.processId, junctionKinds: designs.junctionKinds,
-    latestRevisionId: designs.latestRevisionId, latestNumber: revisions.number, status: revisions.status, updatedAt: designs.updatedAt,
-    authorName: users.name, archived: sql<boolean>`${designs.archivedAt} is not null`, origin: designs.origin,
-  }).from(designs)
+  return useDb()
+    .select({
+      id: designs.id,
+      name: designs.name,
+      description: designs.description,
+      processId: designs.processId,
+      junctionKinds: designs.junctionKinds,
+      latestRevisionId: designs.latestRevisionId,
+      latestNumber: revisions.number,
+      status: revisions.status,
+      updatedAt: designs.updatedAt,
+      authorName: users.name,
+      archived: sql<boolean>`${designs.archivedAt} is not null`,
+      origin: designs.origin,
+    })
+    .from(designs)
     .leftJoin(revisions, eq(revisions.id, designs.latestRevisionId))
     .leftJoin(users, eq(users.id, revisions.authorId))
     .where(and(...listFilters(), sql`(${status}::revision_status is null or ${revisions.status} = ${status})`))
@@ -50,13 +61,27 @@ function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
 }
 const lists = new Map<string, ReturnType<typeof prepareList>>()
 
-const countAll = () => useDb().select({ total: sql<number>`count(*)::int` }).from(designs).where(and(...listFilters())).prepare('dw_designs_count')
-const countByStatus = () => useDb().select({ total: sql<number>`count(*)::int` }).from(designs)
-  .innerJoin(revisions, eq(revisions.id, designs.latestRevisionId))
-  .where(and(...listFilters(), sql`${revisions.status} = ${status}`)).prepare('dw_designs_count_status')
+const countAll = () =>
+  useDb()
+    .select({ total: sql<number>`count(*)::int` })
+    .from(designs)
+    .where(and(...listFilters()))
+    .prepare('dw_designs_count')
+const countByStatus = () =>
+  useDb()
+    .select({ total: sql<number>`count(*)::int` })
+    .from(designs)
+    .innerJoin(revisions, eq(revisions.id, designs.latestRevisionId))
+    .where(and(...listFilters(), sql`${revisions.status} = ${status}`))
+    .prepare('dw_designs_count_status')
 let counts: { all: ReturnType<typeof countAll>; byStatus: ReturnType<typeof countByStatus> } | undefined
 
-export interface DesignPage { rows: DesignRow[]; total: number; page: number; pageSize: number }
+export interface DesignPage {
+  rows: DesignRow[]
+  total: number
+  page: number
+  pageSize: number
+}
 
 export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<DesignPage> {
   const dir = query.dir === 'asc' ? 'asc' : 'desc'
@@ -64,16 +89,30 @@ export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<
   const list = lists.get(key) ?? lists.set(key, prepareList(query.sort, dir)).get(key)!
   counts ??= { all: countAll(), byStatus: countByStatus() }
   const filters = {
-    labId: caller.lab.labId, archived: query.archived === 'true', kind: query.kind ?? null,
+    labId: caller.lab.labId,
+    archived: query.archived === 'true',
+    kind: query.kind ?? null,
     like: query.q ? `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%` : null,
   }
   const [rows, [counted]] = await Promise.all([
-    list.execute({ ...filters, status: query.status ?? null, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
+    list.execute({
+      ...filters,
+      status: query.status ?? null,
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
+    }),
     query.status ? counts.byStatus.execute({ ...filters, status: query.status }) : counts.all.execute(filters),
   ])
   return {
-    rows: rows.map(r => ({ ...r, updatedAt: r.updatedAt.toISOString(), authorName: r.authorName ?? '', origin: r.origin ?? null })),
-    total: counted?.total ?? 0, page: query.page, pageSize: query.pageSize,
+    rows: rows.map(r => ({
+      ...r,
+      updatedAt: r.updatedAt.toISOString(),
+      authorName: r.authorName ?? '',
+      origin: r.origin ?? null,
+    })),
+    total: counted?.total ?? 0,
+    page: query.page,
+    pageSize: query.pageSize,
   }
 }
 
@@ -81,16 +120,40 @@ export async function createDesign(caller: LabCaller, body: z.infer<typeof desig
   const document = body.document === undefined ? starterDocument(body.name, body.starter) : validDocument(body.document)
   const processId = body.processId ?? 'film-mask-soft-litho'
   const summary = await summarizeWithLibrary(document, processId, caller.lab.labId, { requireProcess: true })
-  return useDb().transaction(async (tx) => {
-    const [design] = await tx.insert(designs).values({
-      labId: caller.lab.labId, name: body.name, description: body.description, processId, createdBy: caller.userId, revisionCount: 1,
-      junctionKinds: summary.junctionKinds,
-    }).returning()
-    const [revision] = await tx.insert(revisions).values({
-      designId: design!.id, labId: caller.lab.labId, number: 1, authorId: caller.userId, message: body.message, document, summary,
-    }).returning({ id: revisions.id })
+  return useDb().transaction(async tx => {
+    const [design] = await tx
+      .insert(designs)
+      .values({
+        labId: caller.lab.labId,
+        name: body.name,
+        description: body.description,
+        processId,
+        createdBy: caller.userId,
+        revisionCount: 1,
+        junctionKinds: summary.junctionKinds,
+      })
+      .returning()
+    const [revision] = await tx
+      .insert(revisions)
+      .values({
+        designId: design!.id,
+        labId: caller.lab.labId,
+        number: 1,
+        authorId: caller.userId,
+        message: body.message,
+        document,
+        summary,
+      })
+      .returning({ id: revisions.id })
     await tx.update(designs).set({ latestRevisionId: revision!.id }).where(eq(designs.id, design!.id))
-    await logActivity(tx, { labId: caller.lab.labId, designId: design!.id, revisionId: revision!.id, actorId: caller.userId, action: 'design.created', detail: { name: body.name } })
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId: design!.id,
+      revisionId: revision!.id,
+      actorId: caller.userId,
+      action: 'design.created',
+      detail: { name: body.name },
+    })
     return { designId: design!.id, revisionId: revision!.id }
   })
 }
@@ -99,18 +162,29 @@ export async function updateDesign(caller: LabCaller, designId: string, body: z.
   const db = useDb()
   const design = await findDesign(db, caller, designId)
   if (body.archived !== undefined && !canArchive(caller.lab.role, caller.userId, design.createdBy)) {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: `Your role (${caller.lab.role}) may archive or restore only designs you created` })
+    throw createError({
+      statusCode: 403,
+      statusMessage: 'Forbidden',
+      message: `Your role (${caller.lab.role}) may archive or restore only designs you created`,
+    })
   }
   // Archived is read-only: a rename or new description waits until the design is restored (in the same call is fine).
   if (body.archived !== false && (body.name !== undefined || body.description !== undefined)) assertNotArchived(design)
-  return db.transaction(async (tx) => {
+  return db.transaction(async tx => {
     const set: Partial<typeof designs.$inferInsert> = { updatedAt: new Date() }
     if (body.name !== undefined) set.name = body.name
     if (body.description !== undefined) set.description = body.description
     if (body.archived !== undefined) set.archivedAt = body.archived ? new Date() : null
     await tx.update(designs).set(set).where(eq(designs.id, design.id))
-    const action = body.archived === true ? 'design.archived' : body.archived === false ? 'design.restored' : 'design.renamed'
-    await logActivity(tx, { labId: caller.lab.labId, designId, actorId: caller.userId, action, detail: { name: body.name ?? design.name } })
+    const action =
+      body.archived === true ? 'design.archived' : body.archived === false ? 'design.restored' : 'design.renamed'
+    await logActivity(tx, {
+      labId: caller.lab.labId,
+      designId,
+      actorId: caller.userId,
+      action,
+      detail: { name: body.name ?? design.name },
+    })
     return { ok: true }
   })
 }

@@ -9,7 +9,10 @@ export function validDocument(input: unknown): ChipDocument {
   throw createError({
     statusCode: 400,
     statusMessage: 'Bad Request',
-    message: `The chip document is invalid: ${issues.slice(0, 5).map(i => i.message).join('; ')}${issues.length > 5 ? ` (and ${issues.length - 5} more)` : ''}`,
+    message: `The chip document is invalid: ${issues
+      .slice(0, 5)
+      .map(i => i.message)
+      .join('; ')}${issues.length > 5 ? ` (and ${issues.length - 5} more)` : ''}`,
     data: { issues },
   })
 }

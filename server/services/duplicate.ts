@@ -10,25 +10,82 @@ import { can } from '#shared/utils/roles'
 import { logActivity } from './activity'
 import { findVisibleRevision } from './designGuards'
 
-export async function duplicateRevision(session: SessionData, source: LabCaller, revisionId: string, body: { targetLabId: string, name: string }) {
+export async function duplicateRevision(
+  session: SessionData,
+  source: LabCaller,
+  revisionId: string,
+  body: { targetLabId: string; name: string },
+) {
   const target = session.memberships.find(m => m.labId === body.targetLabId)
   if (!target) throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'No such target lab' })
-  if (!can(target.role, 'designs:edit')) throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: `Your role in ${target.name} (${target.role}) may not create designs there` })
+  if (!can(target.role, 'designs:edit'))
+    throw createError({
+      statusCode: 403,
+      statusMessage: 'Forbidden',
+      message: `Your role in ${target.name} (${target.role}) may not create designs there`,
+    })
   const db = useDb()
   const revision = await findVisibleRevision(db, source, revisionId)
-  const [content] = await db.select({ document: revisions.document, summary: revisions.summary }).from(revisions).where(eq(revisions.id, revision.id))
-  const [context] = await db.select({ designName: designs.name, processId: designs.processId, authorName: users.name, labName: labs.name })
-    .from(designs).innerJoin(users, eq(users.id, revision.authorId)).innerJoin(labs, eq(labs.id, designs.labId)).where(eq(designs.id, revision.designId))
-  const origin: DesignOrigin = { revisionId: revision.id, designId: revision.designId, designName: context!.designName, revisionNumber: revision.number, authorName: context!.authorName, labName: context!.labName }
-  return db.transaction(async (tx) => {
-    const [design] = await tx.insert(designs).values({ labId: target.labId, name: body.name, processId: context!.processId, createdBy: source.userId, revisionCount: 1, origin, junctionKinds: (content!.summary as { junctionKinds?: string[] }).junctionKinds ?? [] }).returning()
-    const [copy] = await tx.insert(revisions).values({
-      designId: design!.id, labId: target.labId, number: 1, authorId: source.userId,
-      message: `Duplicated from ${origin.designName} r${origin.revisionNumber}`, document: content!.document, summary: content!.summary,
-    }).returning({ id: revisions.id })
+  const [content] = await db
+    .select({ document: revisions.document, summary: revisions.summary })
+    .from(revisions)
+    .where(eq(revisions.id, revision.id))
+  const [context] = await db
+    .select({ designName: designs.name, processId: designs.processId, authorName: users.name, labName: labs.name })
+    .from(designs)
+    .innerJoin(users, eq(users.id, revision.authorId))
+    .innerJoin(labs, eq(labs.id, designs.labId))
+    .where(eq(designs.id, revision.designId))
+  const origin: DesignOrigin = {
+    revisionId: revision.id,
+    designId: revision.designId,
+    designName: context!.designName,
+    revisionNumber: revision.number,
+    authorName: context!.authorName,
+    labName: context!.labName,
+  }
+  return db.transaction(async tx => {
+    const [design] = await tx
+      .insert(designs)
+      .values({
+        labId: target.labId,
+        name: body.name,
+        processId: context!.processId,
+        createdBy: source.userId,
+        revisionCount: 1,
+        origin,
+        junctionKinds: (content!.summary as { junctionKinds?: string[] }).junctionKinds ?? [],
+      })
+      .returning()
+    const [copy] = await tx
+      .insert(revisions)
+      .values({
+        designId: design!.id,
+        labId: target.labId,
+        number: 1,
+        authorId: source.userId,
+        message: `Duplicated from ${origin.designName} r${origin.revisionNumber}`,
+        document: content!.document,
+        summary: content!.summary,
+      })
+      .returning({ id: revisions.id })
     await tx.update(designs).set({ latestRevisionId: copy!.id }).where(eq(designs.id, design!.id))
-    await logActivity(tx, { labId: target.labId, designId: design!.id, revisionId: copy!.id, actorId: source.userId, action: 'design.duplicated', detail: { ...origin } })
-    await logActivity(tx, { labId: source.lab.labId, designId: revision.designId, revisionId: revision.id, actorId: source.userId, action: 'revision.duplicated', detail: { into: body.name, lab: target.name } })
+    await logActivity(tx, {
+      labId: target.labId,
+      designId: design!.id,
+      revisionId: copy!.id,
+      actorId: source.userId,
+      action: 'design.duplicated',
+      detail: { ...origin },
+    })
+    await logActivity(tx, {
+      labId: source.lab.labId,
+      designId: revision.designId,
+      revisionId: revision.id,
+      actorId: source.userId,
+      action: 'revision.duplicated',
+      detail: { into: body.name, lab: target.name },
+    })
     return { labId: target.labId, designId: design!.id, revisionId: copy!.id }
   })
 }

@@ -13,8 +13,16 @@ const digest = (token: string) => createHash('sha256').update(token).digest('hex
 /** The live device behind `token` when it belongs to `userId`; anyone else's token counts as an unknown device. */
 export async function knownDevice(token: string | undefined, userId: string | undefined): Promise<string | null> {
   if (!token || !userId || !/^[A-Za-z0-9_-]{43}$/.test(token)) return null
-  const [row] = await useDb().select({ id: knownDevices.id }).from(knownDevices)
-    .where(and(eq(knownDevices.tokenHash, digest(token)), eq(knownDevices.userId, userId), gt(knownDevices.expiresAt, sql`now()`)))
+  const [row] = await useDb()
+    .select({ id: knownDevices.id })
+    .from(knownDevices)
+    .where(
+      and(
+        eq(knownDevices.tokenHash, digest(token)),
+        eq(knownDevices.userId, userId),
+        gt(knownDevices.expiresAt, sql`now()`),
+      ),
+    )
   return row?.id ?? null
 }
 
@@ -22,7 +30,10 @@ export async function knownDevice(token: string | undefined, userId: string | un
  * After a successful sign-in: keeps the device (its expiry moves on) or registers a new one. Returns the token to
  * set in the cookie, or null when the cookie already holds the right one.
  */
-export async function rememberDevice(userId: string, deviceId: string | null): Promise<{ token: string | null, expiresAt: Date }> {
+export async function rememberDevice(
+  userId: string,
+  deviceId: string | null,
+): Promise<{ token: string | null; expiresAt: Date }> {
   const expiresAt = new Date(Date.now() + DEVICE_DAYS * 86_400_000)
   const db = useDb()
   if (deviceId) {

@@ -7,11 +7,14 @@ import type { LabCaller } from '../utils/access'
 import { summarizeWithLibrary } from './libraries'
 import { getRevision } from './revisions'
 
-
 const close = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b))
 
 /** What differs between two summaries of one document: library values, drop sizes, pressures, findings. */
-export function summaryDifferences(stored: RevisionSummary, current: RevisionSummary, doc?: Record<string, unknown>): ForecastDifference[] {
+export function summaryDifferences(
+  stored: RevisionSummary,
+  current: RevisionSummary,
+  doc?: Record<string, unknown>,
+): ForecastDifference[] {
   const out: ForecastDifference[] = []
   const num = (what: string, a: number | null | undefined, b: number | null | undefined, unit: string) => {
     const x = a ?? null
@@ -30,7 +33,13 @@ export function summaryDifferences(stored: RevisionSummary, current: RevisionSum
   for (const key of new Set([...Object.keys(s?.process.values ?? {}), ...Object.keys(c?.process.values ?? {})])) {
     const a = s?.process.values[key]
     const b = c?.process.values[key]
-    if (typeof a === 'number' || typeof b === 'number') num(`Process rule ${key}`, typeof a === 'number' ? a : null, typeof b === 'number' ? b : null, key.endsWith('Mbar') ? 'mbar' : /To/.test(key) ? '(ratio)' : 'µm')
+    if (typeof a === 'number' || typeof b === 'number')
+      num(
+        `Process rule ${key}`,
+        typeof a === 'number' ? a : null,
+        typeof b === 'number' ? b : null,
+        key.endsWith('Mbar') ? 'mbar' : /To/.test(key) ? '(ratio)' : 'µm',
+      )
   }
   const ids = new Set([...stored.junctions.map(j => j.id), ...current.junctions.map(j => j.id)])
   for (const id of ids) {
@@ -40,16 +49,27 @@ export function summaryDifferences(stored: RevisionSummary, current: RevisionSum
     num(`Drop frequency at ${junctionName(doc, id)}`, a?.frequencyHz, b?.frequencyHz, 'Hz')
   }
   for (const port of new Set([...stored.inlets.map(i => i.portId), ...current.inlets.map(i => i.portId)])) {
-    num(`Inlet pressure at ${nameOfId(doc, port)}`, stored.inlets.find(i => i.portId === port)?.pressureMbar, current.inlets.find(i => i.portId === port)?.pressureMbar, 'mbar')
+    num(
+      `Inlet pressure at ${nameOfId(doc, port)}`,
+      stored.inlets.find(i => i.portId === port)?.pressureMbar,
+      current.inlets.find(i => i.portId === port)?.pressureMbar,
+      'mbar',
+    )
   }
   num('Rule errors', stored.findings.errors, current.findings.errors, '')
   num('Rule warnings', stored.findings.warnings, current.findings.warnings, '')
-  if ((stored.forecastError ?? '') !== (current.forecastError ?? '')) out.push({ what: 'Forecast problem', stored: stored.forecastError, current: current.forecastError, unit: '' })
+  if ((stored.forecastError ?? '') !== (current.forecastError ?? ''))
+    out.push({ what: 'Forecast problem', stored: stored.forecastError, current: current.forecastError, unit: '' })
   return out
 }
 
 export async function reforecastRevision(caller: LabCaller, revisionId: string): Promise<ReforecastAnswer> {
   const revision = await getRevision(caller, revisionId)
   const current = await summarizeWithLibrary(revision.document as never, revision.summary.processId, caller.lab.labId)
-  return { revisionId, stored: revision.summary, current, differences: summaryDifferences(revision.summary, current, revision.document as Record<string, unknown>) }
+  return {
+    revisionId,
+    stored: revision.summary,
+    current,
+    differences: summaryDifferences(revision.summary, current, revision.document as Record<string, unknown>),
+  }
 }

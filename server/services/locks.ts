@@ -11,7 +11,8 @@ import type { Tx } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import { mayOpenRevision, notFound, revisionHead, type RevisionHead } from './designGuards'
 
-export const conflict = (message: string, data?: Record<string, unknown>) => createError({ statusCode: 409, statusMessage: 'Conflict', message, data })
+export const conflict = (message: string, data?: Record<string, unknown>) =>
+  createError({ statusCode: 409, statusMessage: 'Conflict', message, data })
 
 /** The lab row, for changes to who is in the lab (roles, removals, invitations): one at a time per lab. */
 export async function lockLab(tx: Tx, labId: string): Promise<void> {
@@ -23,12 +24,23 @@ export async function lockLab(tx: Tx, labId: string): Promise<void> {
  * A revision the caller may see, locked for a status change (verdict, release), with its design held against a
  * concurrent archive (FOR SHARE on the design, then FOR NO KEY UPDATE on the revision: the lock order above).
  */
-export async function lockRevision(tx: Tx, caller: LabCaller, revisionId: string): Promise<RevisionHead & { archived: boolean }> {
-  const [design] = await tx.select({ id: designs.id, archivedAt: designs.archivedAt }).from(designs)
+export async function lockRevision(
+  tx: Tx,
+  caller: LabCaller,
+  revisionId: string,
+): Promise<RevisionHead & { archived: boolean }> {
+  const [design] = await tx
+    .select({ id: designs.id, archivedAt: designs.archivedAt })
+    .from(designs)
     .innerJoin(revisions, eq(revisions.designId, designs.id))
-    .where(and(eq(revisions.id, revisionId), eq(designs.labId, caller.lab.labId))).for('share', { of: designs })
+    .where(and(eq(revisions.id, revisionId), eq(designs.labId, caller.lab.labId)))
+    .for('share', { of: designs })
   if (!design) throw notFound('revision')
-  const [revision] = await tx.select(revisionHead).from(revisions).where(eq(revisions.id, revisionId)).for('no key update')
+  const [revision] = await tx
+    .select(revisionHead)
+    .from(revisions)
+    .where(eq(revisions.id, revisionId))
+    .for('no key update')
   if (!revision || !mayOpenRevision(caller, revision.status)) throw notFound('revision')
   return { ...revision, archived: design.archivedAt !== null }
 }

@@ -11,7 +11,6 @@ import type { Db } from '../utils/db'
 import { defineJob, type JobContext } from '../utils/jobs'
 import { MAIL_SEND_JOB, outboxMessageId, type MailSendData } from './mail'
 
-
 export interface MailJobConfig {
   retryDelaySeconds: number // first retry after about this long; each further one waits about twice as long
   maxAttempts: number // then give up: the row stays unsent with its last error, the job is listed as failed
@@ -31,8 +30,17 @@ export function retryDelaySeconds(attempts: number, config: Pick<MailJobConfig, 
   return config.retryDelaySeconds * 2 ** Math.max(0, attempts - 1)
 }
 
-export interface OutgoingMail { from: string, to: string, subject: string, text: string, html?: string, messageId: string }
-export interface MailTransport { send(mail: OutgoingMail): Promise<void> }
+export interface OutgoingMail {
+  from: string
+  to: string
+  subject: string
+  text: string
+  html?: string
+  messageId: string
+}
+export interface MailTransport {
+  send(mail: OutgoingMail): Promise<void>
+}
 
 /** Where the job reads and records a message (the database in the server; a memory store in unit tests). */
 export interface OutboxStore {
@@ -48,11 +56,19 @@ export function dbOutboxStore(db: Db): OutboxStore {
       return row ?? null
     },
     async markSent(id) {
-      await db.update(mailOutbox).set({ sentAt: sql`now()`, lastError: null }).where(eq(mailOutbox.id, id))
+      await db
+        .update(mailOutbox)
+        .set({ sentAt: sql`now()`, lastError: null })
+        .where(eq(mailOutbox.id, id))
     },
     async markFailed(id, attempts, error, retryInSeconds) {
-      await db.update(mailOutbox)
-        .set({ attempts, lastError: error.slice(0, 2000), nextAttemptAt: sql`now() + ${retryInSeconds} * interval '1 second'` })
+      await db
+        .update(mailOutbox)
+        .set({
+          attempts,
+          lastError: error.slice(0, 2000),
+          nextAttemptAt: sql`now() + ${retryInSeconds} * interval '1 second'`,
+        })
         .where(eq(mailOutbox.id, id))
     },
   }
@@ -73,19 +89,34 @@ export type SendOutcome = 'sent' | 'already-sent' | 'gone'
  * One run of the job: send the row unless it is gone or already sent (a run retried after a crash between the
  * send and the mark), then mark it. A failed send is recorded on the row, logged in one line and thrown again.
  */
-export async function sendOutboxMessage(store: OutboxStore, transport: MailTransport, config: MailJobConfig, outboxId: string, log: (line: string) => void = console.warn): Promise<SendOutcome> {
+export async function sendOutboxMessage(
+  store: OutboxStore,
+  transport: MailTransport,
+  config: MailJobConfig,
+  outboxId: string,
+  log: (line: string) => void = console.warn,
+): Promise<SendOutcome> {
   const row = await store.get(outboxId)
   if (!row) return 'gone'
   if (row.sentAt) return 'already-sent'
   try {
-    await transport.send({ from: config.from, to: row.to, subject: row.subject, text: row.text, html: row.html ?? undefined, messageId: outboxMessageId(row.id) })
+    await transport.send({
+      from: config.from,
+      to: row.to,
+      subject: row.subject,
+      text: row.text,
+      html: row.html ?? undefined,
+      messageId: outboxMessageId(row.id),
+    })
   } catch (error) {
     const attempts = row.attempts + 1
     const message = error instanceof Error ? error.message : String(error)
     const delay = retryDelaySeconds(attempts, config)
     await store.markFailed(row.id, attempts, message, delay)
     const next = attempts >= config.maxAttempts ? 'giving up' : `next try in ${delay} s or a little later`
-    log(`[mail] could not send ${row.kind} mail ${row.id} to ${row.to} (attempt ${attempts} of ${config.maxAttempts}): ${message.split('\n')[0]}; ${next}`)
+    log(
+      `[mail] could not send ${row.kind} mail ${row.id} to ${row.to} (attempt ${attempts} of ${config.maxAttempts}): ${message.split('\n')[0]}; ${next}`,
+    )
     throw error
   }
   await store.markSent(row.id)
@@ -93,12 +124,21 @@ export async function sendOutboxMessage(store: OutboxStore, transport: MailTrans
 }
 
 /** Defines "mail.send" with its retries; the jobs plugin calls it once (it works here with SMTP_URL and DW_MAIL_WORKER not 0). */
-export function defineMailJob(store: OutboxStore, transport: MailTransport, config: MailJobConfig = mailJobConfig(), { workHere = true } = {}) {
-  return defineJob<MailSendData>(MAIL_SEND_JOB, (data: MailSendData, _job: JobContext) => sendOutboxMessage(store, transport, config, data.outboxId), {
-    retryLimit: config.maxAttempts - 1,
-    retryDelay: config.retryDelaySeconds,
-    retryBackoff: true,
-    expireInSeconds: 120,
-    workHere,
-  })
+export function defineMailJob(
+  store: OutboxStore,
+  transport: MailTransport,
+  config: MailJobConfig = mailJobConfig(),
+  { workHere = true } = {},
+) {
+  return defineJob<MailSendData>(
+    MAIL_SEND_JOB,
+    (data: MailSendData, _job: JobContext) => sendOutboxMessage(store, transport, config, data.outboxId),
+    {
+      retryLimit: config.maxAttempts - 1,
+      retryDelay: config.retryDelaySeconds,
+      retryBackoff: true,
+      expireInSeconds: 120,
+      workHere,
+    },
+  )
 }

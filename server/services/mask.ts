@@ -17,21 +17,34 @@ export interface MaskInput {
   layers?: string[]
 }
 
-export type MaskResult =
-  | { ok: true, dxf: string, filename: string }
-  | { ok: false, message: string }
+export type MaskResult = { ok: true; dxf: string; filename: string } | { ok: false; message: string }
 
-const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'design'
+const slug = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .slice(0, 60) || 'design'
 
 export function maskFile(input: MaskInput): MaskResult {
   const doc = input.document as ChipDocument
   const outlines = buildOutlines(doc)
   if (outlines.problems.length) {
-    return { ok: false, message: `This revision's geometry cannot be exported: ${outlines.problems.map(p => p.message).join('; ')}` }
+    return {
+      ok: false,
+      message: `This revision's geometry cannot be exported: ${outlines.problems.map(p => p.message).join('; ')}`,
+    }
   }
   const date = input.createdAt.slice(0, 10)
-  const dxf = exportDxf(doc, { mirror: input.mirror, layers: input.layers, revision: `r${input.number}`, date, outlines,
-    text: input.text ?? 'outline', font: input.text === 'font' ? undefined : labelFont() })
+  const dxf = exportDxf(doc, {
+    mirror: input.mirror,
+    layers: input.layers,
+    revision: `r${input.number}`,
+    date,
+    outlines,
+    text: input.text ?? 'outline',
+    font: input.text === 'font' ? undefined : labelFont(),
+  })
   const layerSet = input.layers?.length ? input.layers.map(slug).join('+') : 'all-layers'
   const filename = `${slug(input.designName)}_r${input.number}_${layerSet}${input.mirror ? '_mirrored' : ''}.dxf`
   return { ok: true, dxf, filename }

@@ -11,13 +11,15 @@ import type { LabCaller } from '../utils/access'
 import { mayOpenRevision, notFound, seenRevisionId } from './designGuards'
 
 // The least recently used revisions leave first (DW_REVISION_CACHE entries).
-const content = new LRUCache<string, { document: string, summary: string }>({ max: useConfig().geometry.revisionCache })
+const content = new LRUCache<string, { document: string; summary: string }>({ max: useConfig().geometry.revisionCache })
 
 async function contentOf(revisionId: string) {
   const hit = content.get(revisionId)
   if (hit) return hit
-  const [row] = await useDb().select({ document: sql<string>`${revisions.document}::text`, summary: sql<string>`${revisions.summary}::text` })
-    .from(revisions).where(eq(revisions.id, revisionId))
+  const [row] = await useDb()
+    .select({ document: sql<string>`${revisions.document}::text`, summary: sql<string>`${revisions.summary}::text` })
+    .from(revisions)
+    .where(eq(revisions.id, revisionId))
   content.set(revisionId, row!)
   return row!
 }
@@ -27,11 +29,23 @@ const parent = alias(revisions, 'parent')
 const latest = alias(revisions, 'latest')
 let headQuery: ReturnType<typeof prepareHead> | undefined
 function prepareHead() {
-  return useDb().select({
-    id: revisions.id, designId: revisions.designId, number: revisions.number, parentId: revisions.parentId, message: revisions.message,
-    createdAt: revisions.createdAt, status: revisions.status, statusChangedAt: revisions.statusChangedAt, authorName: users.name,
-    designName: designs.name, latestRevisionId: designs.latestRevisionId, parentStatus: parent.status, latestStatus: latest.status,
-  }).from(revisions)
+  return useDb()
+    .select({
+      id: revisions.id,
+      designId: revisions.designId,
+      number: revisions.number,
+      parentId: revisions.parentId,
+      message: revisions.message,
+      createdAt: revisions.createdAt,
+      status: revisions.status,
+      statusChangedAt: revisions.statusChangedAt,
+      authorName: users.name,
+      designName: designs.name,
+      latestRevisionId: designs.latestRevisionId,
+      parentStatus: parent.status,
+      latestStatus: latest.status,
+    })
+    .from(revisions)
     .innerJoin(designs, eq(designs.id, revisions.designId))
     .innerJoin(users, eq(users.id, revisions.authorId))
     .leftJoin(parent, eq(parent.id, revisions.parentId))
@@ -45,9 +59,17 @@ export async function revisionJson(caller: LabCaller, revisionId: string): Promi
   if (!head || !mayOpenRevision(caller, head.status)) throw notFound('revision')
   const { document, summary } = await contentOf(head.id)
   const fields = {
-    id: head.id, designId: head.designId, number: head.number, parentId: seenRevisionId(caller, head.parentId, head.parentStatus), message: head.message,
-    authorName: head.authorName, createdAt: head.createdAt.toISOString(), status: head.status,
-    statusChangedAt: head.statusChangedAt.toISOString(), designName: head.designName, labId: caller.lab.labId,
+    id: head.id,
+    designId: head.designId,
+    number: head.number,
+    parentId: seenRevisionId(caller, head.parentId, head.parentStatus),
+    message: head.message,
+    authorName: head.authorName,
+    createdAt: head.createdAt.toISOString(),
+    status: head.status,
+    statusChangedAt: head.statusChangedAt.toISOString(),
+    designName: head.designName,
+    labId: caller.lab.labId,
     latestRevisionId: seenRevisionId(caller, head.latestRevisionId, head.latestStatus),
   }
   return `${JSON.stringify(fields).slice(0, -1)},"summary":${summary},"document":${document}}`

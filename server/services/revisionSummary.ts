@@ -9,7 +9,6 @@ import type { RevisionSummary } from '#shared/types/designs'
 import { forecastSummary, liquidSnapshotOf } from './forecastSummary'
 import type { LabLibraryData } from './libraries'
 
-
 export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
   const process = resolveProcess(processId, (lab?.processes ?? []) as LabProcessData[])
   const library = mergeLibrary(lab)
@@ -26,7 +25,12 @@ export function summarizeRevision(doc: ChipDocument, processId: string, lab?: La
   }
   return {
     junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(isJunctionKind))].sort(),
-    counts: { channels: doc.channels.length, components: doc.components.length, ports: doc.ports.length, layers: doc.layers.length },
+    counts: {
+      channels: doc.channels.length,
+      components: doc.components.length,
+      ports: doc.ports.length,
+      layers: doc.layers.length,
+    },
     ...forecastSummary(doc, library),
     findings,
     processId: process.id,

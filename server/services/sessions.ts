@@ -11,7 +11,7 @@ const TTL_MS = useConfig().session.ttlHours * 3600_000
 
 const digest = (token: string) => createHash('sha256').update(token).digest('hex')
 
-export async function createSession(userId: string): Promise<{ token: string, expiresAt: Date }> {
+export async function createSession(userId: string): Promise<{ token: string; expiresAt: Date }> {
   const token = randomBytes(32).toString('base64url')
   const expiresAt = new Date(Date.now() + TTL_MS)
   const db = useDb()
@@ -21,7 +21,9 @@ export async function createSession(userId: string): Promise<{ token: string, ex
 }
 
 export async function endSession(token: string): Promise<void> {
-  await useDb().delete(sessions).where(eq(sessions.tokenHash, digest(token)))
+  await useDb()
+    .delete(sessions)
+    .where(eq(sessions.tokenHash, digest(token)))
 }
 
 /**
@@ -29,8 +31,13 @@ export async function endSession(token: string): Promise<void> {
  * `keepToken` (a password change keeps the browser that made it signed in). Returns how many ended.
  */
 export async function endSessionsOf(db: DbOrTx, userId: string, keepToken?: string): Promise<number> {
-  const rows = await db.delete(sessions)
-    .where(keepToken ? and(eq(sessions.userId, userId), ne(sessions.tokenHash, digest(keepToken))) : eq(sessions.userId, userId))
+  const rows = await db
+    .delete(sessions)
+    .where(
+      keepToken
+        ? and(eq(sessions.userId, userId), ne(sessions.tokenHash, digest(keepToken)))
+        : eq(sessions.userId, userId),
+    )
     .returning({ tokenHash: sessions.tokenHash })
   return rows.length
 }
@@ -38,10 +45,18 @@ export async function endSessionsOf(db: DbOrTx, userId: string, keepToken?: stri
 /** One round trip, a named prepared statement (planned once per connection): the live session's person and labs. */
 let sessionQuery: ReturnType<typeof prepareSessionQuery> | undefined
 function prepareSessionQuery() {
-  return useDb().select({
-    id: users.id, email: users.email, name: users.name,
-    labId: labs.id, slug: labs.slug, labName: labs.name, kind: labs.kind, role: memberships.role,
-  }).from(sessions)
+  return useDb()
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      labId: labs.id,
+      slug: labs.slug,
+      labName: labs.name,
+      kind: labs.kind,
+      role: memberships.role,
+    })
+    .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
     .leftJoin(memberships, eq(memberships.userId, users.id))
     .leftJoin(labs, eq(labs.id, memberships.labId))
@@ -56,6 +71,8 @@ export async function resolveSession(token: string): Promise<SessionData | null>
   if (!first) return null
   return {
     user: { id: first.id, email: first.email, name: first.name },
-    memberships: rows.flatMap(r => (r.labId && r.role ? [{ labId: r.labId, slug: r.slug!, name: r.labName!, kind: r.kind!, role: r.role }] : [])),
+    memberships: rows.flatMap(r =>
+      r.labId && r.role ? [{ labId: r.labId, slug: r.slug!, name: r.labName!, kind: r.kind!, role: r.role }] : [],
+    ),
   }
 }

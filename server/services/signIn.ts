@@ -26,14 +26,24 @@ const MAX_PER_DEVICE = useConfig().signIn.maxPerDevice
 
 export const WRONG_CREDENTIALS = 'Wrong e-mail or password'
 
-export interface SignInAttempt extends SignInBody { ip: string, deviceToken?: string }
-export interface SignedIn { userId: string, deviceId: string | null }
+export interface SignInAttempt extends SignInBody {
+  ip: string
+  deviceToken?: string
+}
+export interface SignedIn {
+  userId: string
+  deviceId: string | null
+}
 
 function tooMany(retryAfterSeconds: number, why: 'account' | 'address' | 'device') {
   const minutes = Math.max(1, Math.ceil(retryAfterSeconds / 60))
-  const hint = why === 'account' ? ' If this is your account, sign in from a browser you have signed in with before, or reset your password.' : ''
+  const hint =
+    why === 'account'
+      ? ' If this is your account, sign in from a browser you have signed in with before, or reset your password.'
+      : ''
   return createError({
-    statusCode: 429, statusMessage: 'Too Many Requests',
+    statusCode: 429,
+    statusMessage: 'Too Many Requests',
     message: `Too many failed sign-ins ${why === 'address' ? 'from this network' : 'for this account'}. Wait ${counted(minutes, 'minute', 'minutes')} and try again.${hint}`,
     data: { retryAfterSeconds },
   })
@@ -41,23 +51,27 @@ function tooMany(retryAfterSeconds: number, why: 'account' | 'address' | 'device
 
 /** Failures (and attempts being checked) in the window matching `where`, and seconds until the oldest leaves it. */
 async function inWindow(tx: Tx, where: ReturnType<typeof and>) {
-  const [row] = await tx.select({
-    n: sql<number>`count(*)::int`,
-    retry: sql<number>`coalesce(ceil(extract(epoch from min(${signInFailures.at}) + ${WINDOW} - now())), 0)::int`,
-  }).from(signInFailures).where(and(where, gt(signInFailures.at, sql`now() - ${WINDOW}`)))
+  const [row] = await tx
+    .select({
+      n: sql<number>`count(*)::int`,
+      retry: sql<number>`coalesce(ceil(extract(epoch from min(${signInFailures.at}) + ${WINDOW} - now())), 0)::int`,
+    })
+    .from(signInFailures)
+    .where(and(where, gt(signInFailures.at, sql`now() - ${WINDOW}`)))
   // Clamped to the window: an attempt counted by a transaction that began after this one can read as 901 s.
   return { n: row?.n ?? 0, retry: Math.min(WINDOW_MIN * 60, Math.max(1, row?.retry ?? 0)) }
 }
 
 /** Serialises attempts on one key (an account, an address, a device) until the transaction ends. */
-const lockKey = (tx: Tx, key: string) => tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`sign-in:${key}`}, 0))`)
+const lockKey = (tx: Tx, key: string) =>
+  tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`sign-in:${key}`}, 0))`)
 
 /**
  * Takes one attempt's place under the limits, or answers 429. The locks are always taken in the same order
  * (address, then account), so two attempts never wait on each other crosswise.
  */
 async function reserveAttempt(email: string, ip: string, deviceId: string | null): Promise<void> {
-  return useDb().transaction(async (tx) => {
+  return useDb().transaction(async tx => {
     if (deviceId) {
       await lockKey(tx, `device:${deviceId}`)
       const device = await inWindow(tx, and(eq(signInFailures.deviceId, deviceId)))
@@ -77,7 +91,10 @@ async function reserveAttempt(email: string, ip: string, deviceId: string | null
 /** The account's id when the password is right; 401 with one message for any wrong e-mail or password; 429 over a limit. */
 export async function checkCredentials({ email, password, ip, deviceToken }: SignInAttempt): Promise<SignedIn> {
   const db = useDb()
-  const [user] = await db.select({ id: users.id, hash: users.passwordHash }).from(users).where(sql`lower(${users.email}) = ${email}`)
+  const [user] = await db
+    .select({ id: users.id, hash: users.passwordHash })
+    .from(users)
+    .where(sql`lower(${users.email}) = ${email}`)
   const deviceId = await knownDevice(deviceToken, user?.id)
   await reserveAttempt(email, ip, deviceId)
   if (!(await verifyPassword(user?.hash ?? null, password))) {
@@ -85,8 +102,12 @@ export async function checkCredentials({ email, password, ip, deviceToken }: Sig
   }
   // Right: this attempt gives its place back, and so do this person's own earlier slips (same device, or same
   // address from an unknown device). Strangers' failures elsewhere keep counting.
-  await db.delete(signInFailures).where(deviceId
-    ? eq(signInFailures.deviceId, deviceId)
-    : and(eq(signInFailures.email, email), eq(signInFailures.ip, ip), isNull(signInFailures.deviceId)))
+  await db
+    .delete(signInFailures)
+    .where(
+      deviceId
+        ? eq(signInFailures.deviceId, deviceId)
+        : and(eq(signInFailures.email, email), eq(signInFailures.ip, ip), isNull(signInFailures.deviceId)),
+    )
   return { userId: user!.id, deviceId }
 }

@@ -4,7 +4,13 @@
 //   DW_S3_BUCKET     the bucket (default "dropwright"), DW_S3_REGION (us-east-1)
 //   DW_S3_ACCESS_KEY / DW_S3_SECRET_KEY   credentials (else the SDK's usual chain)
 // Keys are always `labs/<labId>/...`, so one lab's objects never share a prefix with another's.
-import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client, type S3ClientConfig } from '@aws-sdk/client-s3'
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  PutObjectCommand,
+  S3Client,
+  type S3ClientConfig,
+} from '@aws-sdk/client-s3'
 import { createError } from 'h3'
 import { useConfig } from '../utils/config'
 
@@ -33,16 +39,25 @@ export function objectKey(labId: string, kind: string, id: string, name: string)
   return `labs/${labId}/${kind}/${id}/${name}`
 }
 
-const unavailable = (error: unknown) => createError({
-  statusCode: 503,
-  statusMessage: 'Service Unavailable',
-  message: `File storage cannot be reached right now; try again in a minute (${error instanceof Error ? error.name : 'error'})`,
-  data: { retryAfterSeconds: 5 },
-})
+const unavailable = (error: unknown) =>
+  createError({
+    statusCode: 503,
+    statusMessage: 'Service Unavailable',
+    message: `File storage cannot be reached right now; try again in a minute (${error instanceof Error ? error.name : 'error'})`,
+    data: { retryAfterSeconds: 5 },
+  })
 
 export async function putObject(key: string, body: Uint8Array, contentType: string): Promise<void> {
   try {
-    await useStorage().send(new PutObjectCommand({ Bucket: storageBucket(), Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength }))
+    await useStorage().send(
+      new PutObjectCommand({
+        Bucket: storageBucket(),
+        Key: key,
+        Body: body,
+        ContentType: contentType,
+        ContentLength: body.byteLength,
+      }),
+    )
   } catch (error) {
     throw unavailable(error)
   }
@@ -54,7 +69,8 @@ export async function getObject(key: string): Promise<Uint8Array> {
     if (!answer.Body) throw new Error('empty body')
     return await answer.Body.transformToByteArray()
   } catch (error) {
-    if ((error as { name?: string }).name === 'NoSuchKey') throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'No such file' })
+    if ((error as { name?: string }).name === 'NoSuchKey')
+      throw createError({ statusCode: 404, statusMessage: 'Not Found', message: 'No such file' })
     throw unavailable(error)
   }
 }

@@ -2,7 +2,9 @@ import type { H3Event } from 'h3'
 import { getRequestHeader } from 'h3'
 
 declare module 'h3' {
-  interface H3EventContext { viaToken?: boolean }
+  interface H3EventContext {
+    viaToken?: boolean
+  }
 }
 
 /** The token of an `Authorization: Bearer …` header (null without one). */

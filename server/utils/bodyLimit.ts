@@ -17,7 +17,12 @@ export const JSON_TYPE = 'application/json'
 /** Micrograph uploads (multipart/form-data with one PNG, JPEG or TIFF): 25 MiB, a 20 MB camera image and its form. */
 export const MAX_UPLOAD_BYTES = 25 * MiB
 
-interface BodyRule { method: string, pattern: RegExp, limit: number, types?: string[] }
+interface BodyRule {
+  method: string
+  pattern: RegExp
+  limit: number
+  types?: string[]
+}
 
 /** Routes whose limit or accepted types differ from the default (64 KiB of JSON). */
 export const ROUTE_BODIES: BodyRule[] = [
@@ -27,20 +32,35 @@ export const ROUTE_BODIES: BodyRule[] = [
   // The planner takes a forecast request (a chip document) plus its target.
   { method: 'POST', pattern: /^\/api\/v1\/plan$/, limit: MAX_DOCUMENT_BYTES },
   // Bench results (issue 13): runs as JSON or a CSV of sizes (up to 4 MB of text); micrographs as a multipart upload.
-  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/bench-runs$/, limit: MAX_DOCUMENT_BYTES, types: [JSON_TYPE, 'text/csv'] },
-  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/bench-runs\/[^/]+\/micrographs$/, limit: MAX_UPLOAD_BYTES, types: ['multipart/form-data'] },
+  {
+    method: 'POST',
+    pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/bench-runs$/,
+    limit: MAX_DOCUMENT_BYTES,
+    types: [JSON_TYPE, 'text/csv'],
+  },
+  {
+    method: 'POST',
+    pattern: /^\/api\/labs\/[^/]+\/bench-runs\/[^/]+\/micrographs$/,
+    limit: MAX_UPLOAD_BYTES,
+    types: ['multipart/form-data'],
+  },
   // As-built reports (issue 15): a profilometer CSV or a photo per upload, up to the micrograph limit.
-  { method: 'POST', pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/as-built\/[^/]+\/files$/, limit: MAX_UPLOAD_BYTES, types: ['multipart/form-data'] },
+  {
+    method: 'POST',
+    pattern: /^\/api\/labs\/[^/]+\/revisions\/[^/]+\/as-built\/[^/]+\/files$/,
+    limit: MAX_UPLOAD_BYTES,
+    types: ['multipart/form-data'],
+  },
 ]
 
 export const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
-export function bodyRule(method: string, path: string): { limit: number, types: string[] } {
+export function bodyRule(method: string, path: string): { limit: number; types: string[] } {
   const rule = ROUTE_BODIES.find(r => r.method === method && r.pattern.test(path))
   return { limit: rule?.limit ?? MAX_SMALL_BYTES, types: rule?.types ?? [JSON_TYPE] }
 }
 
-const size = (bytes: number) => bytes >= MiB ? `${+(bytes / MiB).toFixed(1)} MiB` : `${+(bytes / KiB).toFixed(1)} KiB`
+const size = (bytes: number) => (bytes >= MiB ? `${+(bytes / MiB).toFixed(1)} MiB` : `${+(bytes / KiB).toFixed(1)} KiB`)
 
 /** Does the request say it has a body (a Content-Length above 0, or chunks)? */
 export function hasBody(event: H3Event): boolean {
@@ -52,11 +72,16 @@ export function hasBody(event: H3Event): boolean {
  * 415 unless the body is of a type the route accepts. Parameters are allowed when they are a UTF-8 charset.
  * A write without a body and without a Content-Type (sign-out, delete) passes; a form type never does.
  */
-export function assertBodyType(event: H3Event, types: string[] = bodyRule(event.method, event.path.split('?')[0]!).types) {
+export function assertBodyType(
+  event: H3Event,
+  types: string[] = bodyRule(event.method, event.path.split('?')[0]!).types,
+) {
   const header = getRequestHeader(event, 'content-type')
   if (header === undefined && !hasBody(event)) return
   const [type = '', ...params] = (header ?? '').split(';').map(p => p.trim().toLowerCase())
-  const charsetOk = params.every(p => p === '' || /^charset="?utf-8"?$/.test(p) || (type === 'multipart/form-data' && /^boundary=/.test(p)))
+  const charsetOk = params.every(
+    p => p === '' || /^charset="?utf-8"?$/.test(p) || (type === 'multipart/form-data' && /^boundary=/.test(p)),
+  )
   if (types.includes(type) && charsetOk) return
   const accepted = types.join(' or ')
   throw createError({
@@ -69,15 +94,18 @@ export function assertBodyType(event: H3Event, types: string[] = bodyRule(event.
   })
 }
 
-const tooLarge = (limit: number, seen: string) => createError({
-  statusCode: 413,
-  statusMessage: 'Payload Too Large',
-  message: `The request body is ${seen}; this address accepts at most ${size(limit)}`,
-  data: { limitBytes: limit },
-})
+const tooLarge = (limit: number, seen: string) =>
+  createError({
+    statusCode: 413,
+    statusMessage: 'Payload Too Large',
+    message: `The request body is ${seen}; this address accepts at most ${size(limit)}`,
+    data: { limitBytes: limit },
+  })
 
 declare module 'h3' {
-  interface H3EventContext { countedBody?: Promise<Buffer | undefined> }
+  interface H3EventContext {
+    countedBody?: Promise<Buffer | undefined>
+  }
 }
 
 /**
@@ -104,9 +132,12 @@ function discardRest(event: H3Event) {
  * The request body, read once per request with a byte counter (the same promise on every later call): undefined
  * without a body, else the bytes. 413 as soon as the count passes `limit`; reading stops there.
  */
-export function readLimitedBody(event: H3Event, limit = bodyRule(event.method, event.path.split('?')[0]!).limit): Promise<Buffer | undefined> {
+export function readLimitedBody(
+  event: H3Event,
+  limit = bodyRule(event.method, event.path.split('?')[0]!).limit,
+): Promise<Buffer | undefined> {
   if (event.context.countedBody) return event.context.countedBody
-  const promise = readCounted(event, limit).then((body) => {
+  const promise = readCounted(event, limit).then(body => {
     // h3's own readers (readBody, readRawBody) take this body instead of reading the stream a second time.
     if (body) (event.node.req as unknown as Record<symbol, unknown>)[Symbol.for('h3RawBody')] = body
     return body
@@ -138,9 +169,23 @@ function readCounted(event: H3Event, limit: number): Promise<Buffer | undefined>
       }
       chunks.push(chunk)
     }
-    const onEnd = () => { cleanup(); resolve(Buffer.concat(chunks, count)) }
-    const onError = (error: Error) => { cleanup(); reject(createError({ statusCode: 400, statusMessage: 'Bad Request', message: `The request body could not be read: ${error.message}` })) }
-    const onClose = () => { if (!req.readableEnded) onError(new Error('the connection closed before the body ended')) }
+    const onEnd = () => {
+      cleanup()
+      resolve(Buffer.concat(chunks, count))
+    }
+    const onError = (error: Error) => {
+      cleanup()
+      reject(
+        createError({
+          statusCode: 400,
+          statusMessage: 'Bad Request',
+          message: `The request body could not be read: ${error.message}`,
+        }),
+      )
+    }
+    const onClose = () => {
+      if (!req.readableEnded) onError(new Error('the connection closed before the body ended'))
+    }
     const cleanup = () => {
       req.off('data', onData)
       req.off('end', onEnd)

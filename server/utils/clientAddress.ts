@@ -17,7 +17,9 @@ function trusted(): (addr: string, i: number) => boolean {
     try {
       trust = proxyAddr.compile(list)
     } catch (error) {
-      throw new Error(`DW_TRUSTED_PROXIES must list IP addresses or CIDR ranges (got "${configured}"): ${(error as Error).message}`)
+      throw new Error(
+        `DW_TRUSTED_PROXIES must list IP addresses or CIDR ranges (got "${configured}"): ${(error as Error).message}`,
+      )
     }
     trustFrom = configured
   }

@@ -12,7 +12,8 @@ import { z } from 'zod'
 /** Session lifetime without configuration (nuxt.config.ts's auth-module cookie uses it at build time). */
 export const DEFAULT_SESSION_TTL_HOURS = 24 * 7
 
-const blank = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : typeof v === 'string' ? v.trim() : v)
+const blank = (v: unknown) =>
+  typeof v === 'string' && v.trim() === '' ? undefined : typeof v === 'string' ? v.trim() : v
 
 /** A whole number in [min, max], `fallback` when unset or empty. */
 function whole(fallback: number, min: number, max = Number.MAX_SAFE_INTEGER) {
@@ -20,7 +21,10 @@ function whole(fallback: number, min: number, max = Number.MAX_SAFE_INTEGER) {
     if (raw === undefined) return fallback
     const n = Number(raw)
     if (!/^-?\d+$/.test(raw) || n < min || n > max) {
-      ctx.addIssue({ code: 'custom', message: `must be a whole number from ${min} to ${max === Number.MAX_SAFE_INTEGER ? 'any' : max} (got "${raw}")` })
+      ctx.addIssue({
+        code: 'custom',
+        message: `must be a whole number from ${min} to ${max === Number.MAX_SAFE_INTEGER ? 'any' : max} (got "${raw}")`,
+      })
       return z.NEVER
     }
     return n
@@ -57,7 +61,11 @@ function url(protocols: string[], example: string) {
   return z.preprocess(blank, z.string().optional()).transform((raw, ctx) => {
     if (raw === undefined) return undefined
     let parsed: URL | null = null
-    try { parsed = new URL(raw) } catch { /* reported below */ }
+    try {
+      parsed = new URL(raw)
+    } catch {
+      /* reported below */
+    }
     if (!parsed || !protocols.includes(parsed.protocol.replace(/:$/, ''))) {
       // Never echo the value: it may carry a password.
       ctx.addIssue({ code: 'custom', message: `must be a ${protocols.join(' or ')} URL such as ${example}` })
@@ -80,11 +88,18 @@ export const envSchema = z.object({
   DW_DB_IDLE_TX_MS: whole(10_000, 0),
 
   DW_PUBLIC_URL: url(['http', 'https'], 'https://dropwright.lab.example'),
-  HOST: text(), NITRO_HOST: text(),
-  PORT: whole(3000, 1, 65_535), NITRO_PORT: z.preprocess(blank, z.string().optional()),
+  HOST: text(),
+  NITRO_HOST: text(),
+  PORT: whole(3000, 1, 65_535),
+  NITRO_PORT: z.preprocess(blank, z.string().optional()),
   DW_TRUSTED_PROXIES: text('').superRefine((v, ctx) => {
-    try { proxyAddr.compile(v!.split(/[\s,]+/).filter(Boolean)) } catch (error) {
-      ctx.addIssue({ code: 'custom', message: `must list IP addresses or CIDR ranges, comma- or space-separated, or loopback, linklocal, uniquelocal (got "${v}": ${(error as Error).message})` })
+    try {
+      proxyAddr.compile(v!.split(/[\s,]+/).filter(Boolean))
+    } catch (error) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `must list IP addresses or CIDR ranges, comma- or space-separated, or loopback, linklocal, uniquelocal (got "${v}": ${(error as Error).message})`,
+      })
     }
   }),
 
@@ -131,25 +146,56 @@ export class ConfigError extends Error {}
 function shape(env: Env) {
   return {
     databaseUrl: env.NUXT_DATABASE_URL ?? env.DATABASE_URL,
-    db: { pool: env.DW_DB_POOL, acquireMs: env.DW_DB_ACQUIRE_MS, statementMs: env.DW_DB_STATEMENT_MS, lockMs: env.DW_DB_LOCK_MS, idleInTransactionMs: env.DW_DB_IDLE_TX_MS },
+    db: {
+      pool: env.DW_DB_POOL,
+      acquireMs: env.DW_DB_ACQUIRE_MS,
+      statementMs: env.DW_DB_STATEMENT_MS,
+      lockMs: env.DW_DB_LOCK_MS,
+      idleInTransactionMs: env.DW_DB_IDLE_TX_MS,
+    },
     /** The one origin: DW_PUBLIC_URL (no trailing slash), else what the server listens on (server/utils/origin.ts). */
     publicUrl: env.DW_PUBLIC_URL?.replace(/\/+$/, '') ?? null,
     listen: { host: env.NITRO_HOST ?? env.HOST ?? '', port: env.NITRO_PORT ?? String(env.PORT) },
     trustedProxies: env.DW_TRUSTED_PROXIES!,
     session: { ttlHours: env.DW_SESSION_TTL_HOURS, deviceDays: env.DW_DEVICE_DAYS },
-    signIn: { maxPerEmail: env.DW_SIGNIN_MAX_PER_EMAIL, maxPerIp: env.DW_SIGNIN_MAX_PER_IP, maxPerDevice: env.DW_SIGNIN_MAX_PER_DEVICE, resetsPerHour: env.DW_RESETS_PER_HOUR },
-    mail: {
-      smtpUrl: env.SMTP_URL ?? null, from: env.MAIL_FROM!, send: env.DW_MAIL_WORKER, retrySeconds: env.DW_MAIL_RETRY_SECONDS,
-      maxAttempts: env.DW_MAIL_MAX_ATTEMPTS, devOutbox: env.DW_DEV_OUTBOX, dir: env.DW_MAIL_DIR ?? null,
+    signIn: {
+      maxPerEmail: env.DW_SIGNIN_MAX_PER_EMAIL,
+      maxPerIp: env.DW_SIGNIN_MAX_PER_IP,
+      maxPerDevice: env.DW_SIGNIN_MAX_PER_DEVICE,
+      resetsPerHour: env.DW_RESETS_PER_HOUR,
     },
-    jobs: { work: env.DW_JOBS_WORKER, pollSeconds: env.DW_JOBS_POLL_SECONDS, pool: env.DW_JOBS_POOL, diagnostic: env.DW_DIAGNOSTIC_JOBS },
+    mail: {
+      smtpUrl: env.SMTP_URL ?? null,
+      from: env.MAIL_FROM!,
+      send: env.DW_MAIL_WORKER,
+      retrySeconds: env.DW_MAIL_RETRY_SECONDS,
+      maxAttempts: env.DW_MAIL_MAX_ATTEMPTS,
+      devOutbox: env.DW_DEV_OUTBOX,
+      dir: env.DW_MAIL_DIR ?? null,
+    },
+    jobs: {
+      work: env.DW_JOBS_WORKER,
+      pollSeconds: env.DW_JOBS_POLL_SECONDS,
+      pool: env.DW_JOBS_POOL,
+      diagnostic: env.DW_DIAGNOSTIC_JOBS,
+    },
     geometry: {
-      budgetMs: env.DW_GEOMETRY_BUDGET_MS, threads: env.DW_GEOMETRY_THREADS, queue: env.DW_GEOMETRY_QUEUE, heapMb: env.DW_GEOMETRY_HEAP_MB,
-      nice: env.DW_GEOMETRY_NICE, worker: env.DW_SUMMARY_WORKER, revisionCache: env.DW_REVISION_CACHE,
+      budgetMs: env.DW_GEOMETRY_BUDGET_MS,
+      threads: env.DW_GEOMETRY_THREADS,
+      queue: env.DW_GEOMETRY_QUEUE,
+      heapMb: env.DW_GEOMETRY_HEAP_MB,
+      nice: env.DW_GEOMETRY_NICE,
+      worker: env.DW_SUMMARY_WORKER,
+      revisionCache: env.DW_REVISION_CACHE,
     },
     storage: {
-      endpoint: env.DW_S3_ENDPOINT ?? null, bucket: env.DW_S3_BUCKET!, region: env.DW_S3_REGION!,
-      credentials: env.DW_S3_ACCESS_KEY && env.DW_S3_SECRET_KEY ? { accessKeyId: env.DW_S3_ACCESS_KEY, secretAccessKey: env.DW_S3_SECRET_KEY } : null,
+      endpoint: env.DW_S3_ENDPOINT ?? null,
+      bucket: env.DW_S3_BUCKET!,
+      region: env.DW_S3_REGION!,
+      credentials:
+        env.DW_S3_ACCESS_KEY && env.DW_S3_SECRET_KEY
+          ? { accessKeyId: env.DW_S3_ACCESS_KEY, secretAccessKey: env.DW_S3_SECRET_KEY }
+          : null,
     },
     imaging: { worker: env.DW_IMAGING_WORKER },
   }
@@ -162,7 +208,9 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   const parsed = envSchema.safeParse(env)
   if (!parsed.success) {
     const lines = parsed.error.issues.map(i => `  ${String(i.path[0])} ${i.message}`)
-    throw new ConfigError(`Dropwright cannot start: ${lines.length === 1 ? 'an environment variable is' : 'environment variables are'} wrong:\n${lines.join('\n')}\nFix or unset ${lines.length === 1 ? 'it' : 'them'} and start again (README.md, "Configuration", lists every variable).`)
+    throw new ConfigError(
+      `Dropwright cannot start: ${lines.length === 1 ? 'an environment variable is' : 'environment variables are'} wrong:\n${lines.join('\n')}\nFix or unset ${lines.length === 1 ? 'it' : 'them'} and start again (README.md, "Configuration", lists every variable).`,
+    )
   }
   return shape(parsed.data)
 }

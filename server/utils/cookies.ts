@@ -6,7 +6,10 @@ export const SESSION_COOKIE = 'dw_session'
 
 export function setSessionCookie(event: H3Event, token: string, expires: Date) {
   setCookie(event, SESSION_COOKIE, token, {
-    httpOnly: true, sameSite: 'lax', path: '/', expires,
+    httpOnly: true,
+    sameSite: 'lax',
+    path: '/',
+    expires,
     secure: getRequestProtocol(event, { xForwardedProto: true }) === 'https',
   })
 }

@@ -12,7 +12,10 @@ let pool: pg.Pool | undefined
 /** The database URL: NUXT_DATABASE_URL (runtime config) or DATABASE_URL. */
 export function databaseUrl(): string {
   const url = useConfig().databaseUrl
-  if (!url) throw new Error('DATABASE_URL is not set: run `npm start` (starts a local PostgreSQL) or set DATABASE_URL to a managed server')
+  if (!url)
+    throw new Error(
+      'DATABASE_URL is not set: run `npm start` (starts a local PostgreSQL) or set DATABASE_URL to a managed server',
+    )
   return url
 }
 

@@ -5,20 +5,30 @@
 export const RETRY_AFTER_S = 5
 
 // Socket-level failures reaching the server (Node's error codes).
-const NETWORK_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND', 'EAI_AGAIN', 'EHOSTUNREACH', 'ENETUNREACH'])
+const NETWORK_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EPIPE',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+])
 // PostgreSQL SQLSTATE codes (PostgreSQL 15 documentation, Appendix A "PostgreSQL Error Codes"): class 08 connection
 // exception; 53300 too_many_connections; 57P01 admin_shutdown, 57P02 crash_shutdown, 57P03 cannot_connect_now;
 // 57014 query_canceled (our statement_timeout); 55P03 lock_not_available (our lock_timeout).
 const SQLSTATES = new Set(['53300', '57P01', '57P02', '57P03', '57014', '55P03'])
 // node-postgres's own messages for a connection it lost or could not get (pg 8, lib/client.js and pg-pool).
-const MESSAGES = /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error|Connection refused|connection not open/i
+const MESSAGES =
+  /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error|Connection refused|connection not open/i
 
-function* causes(error: unknown): Generator<{ code?: unknown, message?: unknown }> {
+function* causes(error: unknown): Generator<{ code?: unknown; message?: unknown }> {
   const seen = new Set<unknown>()
   let e = error as { cause?: unknown } | undefined
   while (e && typeof e === 'object' && !seen.has(e)) {
     seen.add(e)
-    yield e as { code?: unknown, message?: unknown }
+    yield e as { code?: unknown; message?: unknown }
     for (const inner of (e as { errors?: unknown[] }).errors ?? []) yield* causes(inner) // AggregateError (several addresses)
     e = e.cause as typeof e
   }

@@ -1,6 +1,10 @@
 // fontkit ships no types; the part labelFont.ts (beside it) uses.
 declare module 'fontkit' {
-  export interface FontkitGlyph { id: number, advanceWidth: number, path: { commands: { command: string, args: number[] }[] } }
+  export interface FontkitGlyph {
+    id: number
+    advanceWidth: number
+    path: { commands: { command: string; args: number[] }[] }
+  }
   export interface FontkitFont {
     unitsPerEm: number
     capHeight: number

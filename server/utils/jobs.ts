@@ -40,7 +40,12 @@ export interface JobDefinitionOptions {
   workHere?: boolean
 }
 
-export interface JobContext { id: string, name: string, retryCount: number, retryLimit: number }
+export interface JobContext {
+  id: string
+  name: string
+  retryCount: number
+  retryLimit: number
+}
 export type JobHandler<T> = (data: T, job: JobContext) => Promise<unknown>
 
 interface Definition {
@@ -74,10 +79,16 @@ const queuesReady = new Map<string, Promise<void>>()
 /** How often an idle instance looks for new jobs (pg-boss allows 0.5 s at least). */
 const pollSeconds = () => useConfig().jobs.pollSeconds
 
-export function defineJob<T extends object>(name: string, handler: JobHandler<T>, options: JobDefinitionOptions = {}): { name: string } {
-  if (!/^[a-z][a-z0-9-]*(\.[a-z][a-z0-9-]*)*$/.test(name)) throw new Error(`Job name "${name}" must be lower-case words joined by "." or "-" (e.g. "mail.send")`)
+export function defineJob<T extends object>(
+  name: string,
+  handler: JobHandler<T>,
+  options: JobDefinitionOptions = {},
+): { name: string } {
+  if (!/^[a-z][a-z0-9-]*(\.[a-z][a-z0-9-]*)*$/.test(name))
+    throw new Error(`Job name "${name}" must be lower-case words joined by "." or "-" (e.g. "mail.send")`)
   if (definitions.has(name)) throw new Error(`Job "${name}" is defined twice: define each job once, in one module`)
-  const deadLetter = options.deadLetter === false ? null : typeof options.deadLetter === 'string' ? options.deadLetter : `${name}.dead`
+  const deadLetter =
+    options.deadLetter === false ? null : typeof options.deadLetter === 'string' ? options.deadLetter : `${name}.dead`
   const definition: Definition = {
     name,
     handler: handler as JobHandler<never>,
@@ -95,7 +106,10 @@ export function defineJob<T extends object>(name: string, handler: JobHandler<T>
   definitions.set(name, definition)
   // Defined after the start (a plugin that runs later): make its queue and worker now.
   const b = boss
-  if (b) void ensureQueue(b, definition).then(() => (working ? work(b, definition) : undefined)).catch(logProblem)
+  if (b)
+    void ensureQueue(b, definition)
+      .then(() => (working ? work(b, definition) : undefined))
+      .catch(logProblem)
   return { name }
 }
 
@@ -115,10 +129,21 @@ function ensureQueue(b: PgBoss, d: Definition): Promise<void> {
   if (!ready) {
     ready = (async () => {
       if (d.options.deadLetter && !(await b.getQueue(d.options.deadLetter))) await b.createQueue(d.options.deadLetter)
-      const queue = { name: d.name, policy: d.options.policy, retryLimit: d.options.retryLimit, retryDelay: d.options.retryDelay, retryBackoff: d.options.retryBackoff, expireInSeconds: d.options.expireInSeconds, ...(d.options.deadLetter ? { deadLetter: d.options.deadLetter } : {}) }
+      const queue = {
+        name: d.name,
+        policy: d.options.policy,
+        retryLimit: d.options.retryLimit,
+        retryDelay: d.options.retryDelay,
+        retryBackoff: d.options.retryBackoff,
+        expireInSeconds: d.options.expireInSeconds,
+        ...(d.options.deadLetter ? { deadLetter: d.options.deadLetter } : {}),
+      }
       // Several instances start together: creating a queue that another one just made is fine.
       if (await b.getQueue(d.name)) await b.updateQueue(d.name, queue)
-      else await b.createQueue(d.name, queue).catch(async (error: unknown) => { if (!(await b.getQueue(d.name))) throw error })
+      else
+        await b.createQueue(d.name, queue).catch(async (error: unknown) => {
+          if (!(await b.getQueue(d.name))) throw error
+        })
     })()
     ready.catch(() => queuesReady.delete(d.name))
     queuesReady.set(d.name, ready)
@@ -132,10 +157,21 @@ async function work(b: PgBoss, d: Definition) {
   if (!d.options.workHere) return
   const ids: string[] = []
   for (let i = 0; i < d.options.concurrency; i++) {
-    ids.push(await b.work<never>(d.name, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: pollSeconds() }, async ([job]) => {
-      if (!job) return
-      return d.handler(job.data, { id: job.id, name: job.name, retryCount: job.retryCount, retryLimit: job.retryLimit })
-    }))
+    ids.push(
+      await b.work<never>(
+        d.name,
+        { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: pollSeconds() },
+        async ([job]) => {
+          if (!job) return
+          return d.handler(job.data, {
+            id: job.id,
+            name: job.name,
+            retryCount: job.retryCount,
+            retryLimit: job.retryLimit,
+          })
+        },
+      ),
+    )
   }
   workerIds.set(d.name, ids)
 }
@@ -158,11 +194,17 @@ export function startJobs({ work: runWorkers = true }: { work?: boolean } = {}):
     working = runWorkers
     for (const d of definitions.values()) {
       // One job whose queue cannot be made must not keep the others from running.
-      await ensureQueue(b, d).then(() => (runWorkers ? work(b, d) : undefined)).catch((error: unknown) => logProblem(new Error(`job "${d.name}": ${error instanceof Error ? error.message : String(error)}`)))
+      await ensureQueue(b, d)
+        .then(() => (runWorkers ? work(b, d) : undefined))
+        .catch((error: unknown) =>
+          logProblem(new Error(`job "${d.name}": ${error instanceof Error ? error.message : String(error)}`)),
+        )
     }
     return b
   })()
-  starting.catch(() => { starting = null })
+  starting.catch(() => {
+    starting = null
+  })
   return starting
 }
 
@@ -183,7 +225,9 @@ function nudge(name: string) {
   const ids = workerIds.get(name)
   if (!b || !ids) return
   // The job may still be inside its caller's transaction: look a moment later, the poll catches the rest.
-  setTimeout(() => { for (const id of ids) b.notifyWorker(id) }, 25).unref?.()
+  setTimeout(() => {
+    for (const id of ids) b.notifyWorker(id)
+  }, 25).unref?.()
 }
 
 /** pg-boss's SQL (`$1`… placeholders) as a Drizzle query, so it runs on the transaction's own connection. */
@@ -205,7 +249,11 @@ function adapter(tx: JobTransaction): PgBoss.Db {
  * Queues `name` with `data`; returns the job id (null when `singletonKey` matched a queued job). The job must be
  * defined in this process (defineJob), so its retries, back-off and dead-letter queue are known.
  */
-export async function enqueueJob<T extends object>(name: string, data: T, options: EnqueueOptions = {}): Promise<string | null> {
+export async function enqueueJob<T extends object>(
+  name: string,
+  data: T,
+  options: EnqueueOptions = {},
+): Promise<string | null> {
   const d = definitions.get(name)
   if (!boss && starting) await starting.catch(() => undefined) // this instance's start makes the queues
   const b = boss ?? sender()
@@ -218,7 +266,9 @@ export async function enqueueJob<T extends object>(name: string, data: T, option
     ...(options.startAfter ? { startAfter: options.startAfter } : {}),
   })
   if (id === null && !options.singletonKey) {
-    throw new Error(`Job queue "${name}" does not exist: define the job with defineJob("${name}", …) in a server plugin and start a server once`)
+    throw new Error(
+      `Job queue "${name}" does not exist: define the job with defineJob("${name}", …) in a server plugin and start a server once`,
+    )
   }
   nudge(name)
   return id
@@ -230,7 +280,12 @@ let senderBoss: PgBoss | null = null
  * work (a script, a test, a server before its jobs plugin finished starting) writes through the app's pool.
  */
 function sender(): PgBoss {
-  senderBoss ??= new PgBoss({ db: { executeSql: (text, values) => usePool().query(text, values) }, supervise: false, schedule: false, migrate: false })
+  senderBoss ??= new PgBoss({
+    db: { executeSql: (text, values) => usePool().query(text, values) },
+    supervise: false,
+    schedule: false,
+    migrate: false,
+  })
   return senderBoss
 }
 
@@ -252,7 +307,7 @@ export const bossJobs = pgboss.table('job', {
 /** The error a failed run left (pg-boss keeps the thrown error, serialised, as the job's output). */
 function errorOf(output: unknown): string {
   if (output && typeof output === 'object') {
-    const o = output as { message?: unknown, value?: unknown }
+    const o = output as { message?: unknown; value?: unknown }
     if (typeof o.message === 'string') return o.message.split('\n')[0]!.slice(0, 500)
     if (typeof o.value === 'string') return o.value.slice(0, 500)
     if (o.value && typeof o.value === 'object') return errorOf(o.value) // a time-out: { value: { message } }
@@ -262,11 +317,20 @@ function errorOf(output: unknown): string {
 
 /** The lab's jobs that failed for good, or failed and wait for a retry, newest first (dead-letter copies left out). */
 export async function failedJobs(labId: string, limit = 100): Promise<FailedJob[]> {
-  const rows = await useDb().select().from(bossJobs)
+  const rows = await useDb()
+    .select()
+    .from(bossJobs)
     .where(and(inArray(bossJobs.state, ['failed', 'retry']), eq(sql`${bossJobs.data}->>'labId'`, labId)))
-    .orderBy(desc(bossJobs.createdOn)).limit(limit)
+    .orderBy(desc(bossJobs.createdOn))
+    .limit(limit)
   return rows.map(r => ({
-    id: r.id, name: r.name, state: r.state as FailedJob['state'], attempts: r.retryCount + 1, // pg-boss counts a retry when it starts it
-    retryLimit: r.retryLimit, error: errorOf(r.output), createdAt: r.createdOn.toISOString(), failedAt: r.completedOn?.toISOString() ?? null,
+    id: r.id,
+    name: r.name,
+    state: r.state as FailedJob['state'],
+    attempts: r.retryCount + 1, // pg-boss counts a retry when it starts it
+    retryLimit: r.retryLimit,
+    error: errorOf(r.output),
+    createdAt: r.createdOn.toISOString(),
+    failedAt: r.completedOn?.toISOString() ?? null,
   }))
 }

@@ -11,7 +11,12 @@ export function assertJsonDepth(value: unknown, limit = MAX_JSON_DEPTH): void {
     const [v, depth] = stack.pop()!
     if (v === null || typeof v !== 'object') continue
     if (depth > limit) {
-      throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: `The request nests deeper than ${limit} levels: no request the API takes is that deep`, data: { issues: [{ path: '', message: `nested deeper than ${limit} levels` }] } })
+      throw createError({
+        statusCode: 400,
+        statusMessage: 'Bad Request',
+        message: `The request nests deeper than ${limit} levels: no request the API takes is that deep`,
+        data: { issues: [{ path: '', message: `nested deeper than ${limit} levels` }] },
+      })
     }
     for (const child of Array.isArray(v) ? v : Object.values(v)) stack.push([child, depth + 1])
   }

@@ -39,8 +39,8 @@ function asOutlineFont(f: FontkitFont): OutlineFont {
   return {
     unitsPerEm: f.unitsPerEm,
     capHeight: f.capHeight,
-    hasCharacter: (cp) => f.hasGlyphForCodePoint(cp),
-    layout: (text) => [...text].map((ch) => glyph(ch.codePointAt(0)!)),
+    hasCharacter: cp => f.hasGlyphForCodePoint(cp),
+    layout: text => [...text].map(ch => glyph(ch.codePointAt(0)!)),
   }
 }
 

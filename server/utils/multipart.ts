@@ -6,7 +6,11 @@ import type { H3Event } from 'h3'
 import { createError, getRequestHeader } from 'h3'
 import { readLimitedBody } from './bodyLimit'
 
-export interface FormPart { name: string, filename?: string, data: Buffer }
+export interface FormPart {
+  name: string
+  filename?: string
+  data: Buffer
+}
 
 /** How much of the body busboy is given before the event loop gets a turn. */
 const SLICE = 1024 * 1024
@@ -20,7 +24,10 @@ export function parseMultipart(body: Buffer, contentType: string): Promise<FormP
   return new Promise((resolve, reject) => {
     let parser: Busboy.Busboy
     try {
-      parser = Busboy({ headers: { 'content-type': contentType }, limits: { fieldSize: FIELD_MAX, files: 8, fields: 32 } })
+      parser = Busboy({
+        headers: { 'content-type': contentType },
+        limits: { fieldSize: FIELD_MAX, files: 8, fields: 32 },
+      })
     } catch {
       reject(bad('The body is not multipart/form-data with a boundary: send it as a form (FormData)'))
       return
@@ -34,7 +41,9 @@ export function parseMultipart(body: Buffer, contentType: string): Promise<FormP
       stream.on('end', () => parts.push({ name, filename: info.filename ?? '', data: Buffer.concat(chunks) }))
     })
     parser.on('field', (name, value) => parts.push({ name, data: Buffer.from(value, 'utf8') }))
-    parser.on('error', () => reject(bad('The multipart body is malformed (a part or the closing boundary is missing): send the form again')))
+    parser.on('error', () =>
+      reject(bad('The multipart body is malformed (a part or the closing boundary is missing): send the form again')),
+    )
     parser.on('close', () => resolve(parts))
     let offset = 0
     const feed = () => {
@@ -54,21 +63,33 @@ async function readParts(event: H3Event): Promise<FormPart[]> {
   return parseMultipart(body, getRequestHeader(event, 'content-type') ?? '')
 }
 
-export async function readMicrographForm(event: H3Event): Promise<{ file: { bytes: Uint8Array, fileName: string }, fields: Record<string, string> }> {
+export async function readMicrographForm(
+  event: H3Event,
+): Promise<{ file: { bytes: Uint8Array; fileName: string }; fields: Record<string, string> }> {
   const parts = await readParts(event)
-  if (!parts.length) throw bad('Send the micrograph as multipart/form-data with a file field "image" and the scale ("umPerPx", or "barPx" and "barUm")')
+  if (!parts.length)
+    throw bad(
+      'Send the micrograph as multipart/form-data with a file field "image" and the scale ("umPerPx", or "barPx" and "barUm")',
+    )
   const fields: Record<string, string> = {}
-  let file: { bytes: Uint8Array, fileName: string } | undefined
+  let file: { bytes: Uint8Array; fileName: string } | undefined
   for (const part of parts) {
-    if (part.name === 'image' && part.filename !== undefined) file = { bytes: new Uint8Array(part.data), fileName: part.filename || 'micrograph' }
-    else if (part.name && part.filename === undefined && part.data.length <= 200) fields[part.name] = part.data.toString('utf8')
+    if (part.name === 'image' && part.filename !== undefined)
+      file = { bytes: new Uint8Array(part.data), fileName: part.filename || 'micrograph' }
+    else if (part.name && part.filename === undefined && part.data.length <= 200)
+      fields[part.name] = part.data.toString('utf8')
   }
-  if (!file || file.bytes.byteLength === 0) throw bad('The form has no file in its "image" field: choose a PNG, JPEG or TIFF micrograph')
+  if (!file || file.bytes.byteLength === 0)
+    throw bad('The form has no file in its "image" field: choose a PNG, JPEG or TIFF micrograph')
   return { file, fields }
 }
 
 /** One file part named `field` (an as-built report's profilometer CSV or photo). */
-export async function readFileForm(event: H3Event, field: string, hint: string): Promise<{ bytes: Uint8Array, fileName: string }> {
+export async function readFileForm(
+  event: H3Event,
+  field: string,
+  hint: string,
+): Promise<{ bytes: Uint8Array; fileName: string }> {
   const parts = await readParts(event)
   const part = parts.find(p => p.name === field && p.filename !== undefined)
   if (!part || part.data.length === 0) throw bad(hint)

@@ -14,7 +14,12 @@ export function appOrigin(_event?: H3Event): string {
   const configured = publicUrl()
   if (configured) return configured
   const { host, port } = useConfig().listen
-  const name = !host || host === '0.0.0.0' || host === '::' || host === '[::]' ? 'localhost' : host.includes(':') && !host.startsWith('[') ? `[${host}]` : host
+  const name =
+    !host || host === '0.0.0.0' || host === '::' || host === '[::]'
+      ? 'localhost'
+      : host.includes(':') && !host.startsWith('[')
+        ? `[${host}]`
+        : host
   return `http://${name}:${port}`
 }
 
@@ -31,7 +36,9 @@ const originOf = (value: string): string | null => {
   try {
     const origin = new URL(value).origin
     return origin === 'null' ? null : origin
-  } catch { return null }
+  } catch {
+    return null
+  }
 }
 
 /**
@@ -47,7 +54,7 @@ export function assertSameOrigin(event: H3Event) {
   const from = origin !== undefined ? originOf(origin) : referer !== undefined ? originOf(referer) : undefined
   const crossSite = getRequestHeader(event, 'sec-fetch-site')?.toLowerCase() === 'cross-site'
   if (!crossSite && (from === undefined || from === own)) return
-  const where = from ?? (origin ?? referer ?? 'another site')
+  const where = from ?? origin ?? referer ?? 'another site'
   throw createError({
     statusCode: 403,
     statusMessage: 'Forbidden',

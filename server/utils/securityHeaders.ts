@@ -3,14 +3,29 @@
 
 /** Browser features the app never uses are off for every document; fullscreen stays for the app's own pages. */
 export const PERMISSIONS_POLICY: Record<string, string[]> = {
-  'accelerometer': [], 'autoplay': [], 'camera': [], 'display-capture': [], 'encrypted-media': [],
-  'fullscreen': ['self'], 'geolocation': [], 'gyroscope': [], 'magnetometer': [], 'microphone': [], 'midi': [],
-  'payment': [], 'picture-in-picture': [], 'publickey-credentials-get': [], 'screen-wake-lock': [], 'usb': [],
+  accelerometer: [],
+  autoplay: [],
+  camera: [],
+  'display-capture': [],
+  'encrypted-media': [],
+  fullscreen: ['self'],
+  geolocation: [],
+  gyroscope: [],
+  magnetometer: [],
+  microphone: [],
+  midi: [],
+  payment: [],
+  'picture-in-picture': [],
+  'publickey-credentials-get': [],
+  'screen-wake-lock': [],
+  usb: [],
   'xr-spatial-tracking': [],
 }
 
 export const permissionsPolicyHeader = () =>
-  Object.entries(PERMISSIONS_POLICY).map(([feature, allow]) => `${feature}=(${allow.join(' ')})`).join(', ')
+  Object.entries(PERMISSIONS_POLICY)
+    .map(([feature, allow]) => `${feature}=(${allow.join(' ')})`)
+    .join(', ')
 
 /**
  * Pages: scripts only from our own files or with the answer's nonce (Nuxt's inline config), never an inline script

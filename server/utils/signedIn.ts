@@ -20,7 +20,10 @@ export async function startSignedIn(event: H3Event, userId: string, deviceId: st
   const device = await rememberDevice(userId, deviceId)
   if (device.token) {
     setCookie(event, DEVICE_COOKIE, device.token, {
-      httpOnly: true, sameSite: 'lax', path: '/api/auth', expires: device.expiresAt,
+      httpOnly: true,
+      sameSite: 'lax',
+      path: '/api/auth',
+      expires: device.expiresAt,
       secure: getRequestProtocol(event, { xForwardedProto: true }) === 'https',
     })
   }

@@ -47,7 +47,13 @@ function usePool(): Tinypool | null {
   if (pool !== undefined) return pool
   const filename = geometry.worker ? workerFile() : null
   pool = filename
-    ? new Tinypool({ filename, minThreads: 1, maxThreads: THREADS, idleTimeout: 60_000, resourceLimits: { maxOldGenerationSizeMb: HEAP_MB } })
+    ? new Tinypool({
+        filename,
+        minThreads: 1,
+        maxThreads: THREADS,
+        idleTimeout: 60_000,
+        resourceLimits: { maxOldGenerationSizeMb: HEAP_MB },
+      })
     : null
   return pool
 }
@@ -64,20 +70,35 @@ const waiting: Array<() => void> = []
 
 function busy(): never {
   throw createError({
-    statusCode: 503, statusMessage: 'Service Unavailable',
+    statusCode: 503,
+    statusMessage: 'Service Unavailable',
     message: 'The geometry workers are busy with other chips: try again in a few seconds',
     data: { retryAfterSeconds: 5 },
   })
 }
 
 async function takeSlot(): Promise<void> {
-  if (running < THREADS) { running++; return }
+  if (running < THREADS) {
+    running++
+    return
+  }
   if (waiting.length >= QUEUE) busy()
   await new Promise<void>((resolve, reject) => {
-    const go = () => { clearTimeout(timer); running++; resolve() }
+    const go = () => {
+      clearTimeout(timer)
+      running++
+      resolve()
+    }
     const timer = setTimeout(() => {
       waiting.splice(waiting.indexOf(go), 1)
-      reject(createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: 'The geometry workers stayed busy with other chips: try again in a few seconds', data: { retryAfterSeconds: 5 } }))
+      reject(
+        createError({
+          statusCode: 503,
+          statusMessage: 'Service Unavailable',
+          message: 'The geometry workers stayed busy with other chips: try again in a few seconds',
+          data: { retryAfterSeconds: 5 },
+        }),
+      )
     }, GEOMETRY_BUDGET_MS)
     waiting.push(go)
   })
@@ -89,26 +110,31 @@ function releaseSlot(): void {
 }
 
 /** What a task was doing and what was too large, for the refusal when it overruns. */
-interface TaskLabel { doing: string, tooLarge: string }
+interface TaskLabel {
+  doing: string
+  tooLarge: string
+}
 
 async function runTask<T>(p: Tinypool, name: string, task: unknown, label: TaskLabel): Promise<T> {
   await takeSlot()
   const started = performance.now()
   try {
-    return await p.run(task, { name, signal: AbortSignal.timeout(GEOMETRY_BUDGET_MS) }) as T
+    return (await p.run(task, { name, signal: AbortSignal.timeout(GEOMETRY_BUDGET_MS) })) as T
   } catch (error) {
-    const code = (error as { code?: string, name?: string })
+    const code = error as { code?: string; name?: string }
     const fix = 'split it into several designs or simplify it'
     const why = `${label.tooLarge}; ${fix}`
     if (code.name === 'AbortError') {
       throw createError({
-        statusCode: 422, statusMessage: 'Unprocessable Content',
+        statusCode: 422,
+        statusMessage: 'Unprocessable Content',
         message: `${label.doing} took longer than ${GEOMETRY_BUDGET_MS / 1000} s and was stopped: ${why}`,
       })
     }
     if (code.code === 'ERR_WORKER_OUT_OF_MEMORY') {
       throw createError({
-        statusCode: 422, statusMessage: 'Unprocessable Content',
+        statusCode: 422,
+        statusMessage: 'Unprocessable Content',
         message: `${label.doing} needed more than ${HEAP_MB} MB of memory and was stopped after ${((performance.now() - started) / 1000).toFixed(1)} s: ${why}`,
       })
     }
@@ -127,18 +153,39 @@ const chipTooLarge = (doc: unknown): string => {
 }
 
 /** The summary stored beside a new revision (design rules + forecast). */
-export function summarizeOffThread(document: ChipDocument, processId: string, lab?: LabLibraryData | null): Promise<RevisionSummary> {
+export function summarizeOffThread(
+  document: ChipDocument,
+  processId: string,
+  lab?: LabLibraryData | null,
+): Promise<RevisionSummary> {
   const p = usePool()
   if (!p) return Promise.resolve(summarizeRevision(document, processId, lab))
-  return runTask(p, 'summary', { document, processId, lab: lab ?? null }, { doing: 'Checking this chip (design rules and forecast)', tooLarge: chipTooLarge(document) })
+  return runTask(
+    p,
+    'summary',
+    { document, processId, lab: lab ?? null },
+    { doing: 'Checking this chip (design rules and forecast)', tooLarge: chipTooLarge(document) },
+  )
 }
 
 /** The mask DXF of a revision; a geometry that cannot be exported is a 400 naming the elements. */
-export async function dxfOffThread(revision: RevisionDetail, options: { mirror: boolean, text: 'outline' | 'font', layers?: string[] }): Promise<{ dxf: string, filename: string }> {
-  const input: MaskInput = { document: revision.document, number: revision.number, createdAt: revision.createdAt, designName: revision.designName, ...options }
+export async function dxfOffThread(
+  revision: RevisionDetail,
+  options: { mirror: boolean; text: 'outline' | 'font'; layers?: string[] },
+): Promise<{ dxf: string; filename: string }> {
+  const input: MaskInput = {
+    document: revision.document,
+    number: revision.number,
+    createdAt: revision.createdAt,
+    designName: revision.designName,
+    ...options,
+  }
   const p = usePool()
   const result = p
-    ? await runTask<MaskResult>(p, 'dxf', input, { doing: 'Making the DXF of this revision', tooLarge: chipTooLarge(revision.document) })
+    ? await runTask<MaskResult>(p, 'dxf', input, {
+        doing: 'Making the DXF of this revision',
+        tooLarge: chipTooLarge(revision.document),
+      })
     : maskFile(input)
   if (!result.ok) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: result.message })
   return result
@@ -150,7 +197,12 @@ export async function forecastOffThread(request: unknown, lab?: LabLiquidsData |
   const p = usePool()
   let result: ForecastResult
   if (p) {
-    result = await runTask<ForecastResult>(p, 'forecast', { request, lab: lab ?? null }, { doing: 'The forecast', tooLarge: 'the request is too large' })
+    result = await runTask<ForecastResult>(
+      p,
+      'forecast',
+      { request, lab: lab ?? null },
+      { doing: 'The forecast', tooLarge: 'the request is too large' },
+    )
   } else {
     try {
       result = { ok: true, answer: runForecast(request, lab ? mergeLibrary(lab) : undefined) }
@@ -159,7 +211,13 @@ export async function forecastOffThread(request: unknown, lab?: LabLiquidsData |
       result = { ok: false, message: error.message, issues: error.issues }
     }
   }
-  if (!result.ok) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: result.message, data: { issues: result.issues } })
+  if (!result.ok)
+    throw createError({
+      statusCode: 400,
+      statusMessage: 'Bad Request',
+      message: result.message,
+      data: { issues: result.issues },
+    })
   return result.answer
 }
 
@@ -172,7 +230,12 @@ export async function planOffThread(request: unknown, lab?: PlanContext['lab']):
   const p = usePool()
   let result: PlanResult
   if (p) {
-    result = await runTask<PlanResult>(p, 'plan', { request, lab: lab ?? null }, { doing: 'The plan', tooLarge: 'the chip or the search grid is too large' })
+    result = await runTask<PlanResult>(
+      p,
+      'plan',
+      { request, lab: lab ?? null },
+      { doing: 'The plan', tooLarge: 'the chip or the search grid is too large' },
+    )
   } else {
     try {
       result = { ok: true, answer: runPlan(request, { lab: lab ?? null }) }
@@ -181,6 +244,12 @@ export async function planOffThread(request: unknown, lab?: PlanContext['lab']):
       result = { ok: false, message: error.message, issues: error.issues }
     }
   }
-  if (!result.ok) throw createError({ statusCode: 400, statusMessage: 'Bad Request', message: result.message, data: { issues: result.issues } })
+  if (!result.ok)
+    throw createError({
+      statusCode: 400,
+      statusMessage: 'Bad Request',
+      message: result.message,
+      data: { issues: result.issues },
+    })
   return result.answer
 }

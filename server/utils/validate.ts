@@ -21,7 +21,9 @@ const badBody = (message: string) => createError({ statusCode: 400, statusMessag
 
 /** JSON text to a value; `"__proto__"` keys are dropped, so no body can reach an object's prototype. */
 function parseJson(text: string): unknown {
-  return /"__proto__"\s*:/.test(text) ? JSON.parse(text, (key, value) => (key === '__proto__' ? undefined : value)) : JSON.parse(text)
+  return /"__proto__"\s*:/.test(text)
+    ? JSON.parse(text, (key, value) => (key === '__proto__' ? undefined : value))
+    : JSON.parse(text)
 }
 
 /**
@@ -34,8 +36,16 @@ export async function validBody<S extends z.ZodType>(event: H3Event, schema: S):
   let body: unknown = {}
   if (raw?.length) {
     let text: string
-    try { text = utf8.decode(raw) } catch { throw badBody('Body must be UTF-8 text') }
-    try { body = parseJson(text) } catch { throw badBody('Body must be valid JSON') }
+    try {
+      text = utf8.decode(raw)
+    } catch {
+      throw badBody('Body must be UTF-8 text')
+    }
+    try {
+      body = parseJson(text)
+    } catch {
+      throw badBody('Body must be valid JSON')
+    }
   }
   return parseOr400(schema, body ?? {}, 'Body')
 }

@@ -18,14 +18,22 @@ import { labelFont } from '../utils/labelFont'
 // requests gets the CPU first and a long geometry task waits (DW_GEOMETRY_NICE, default 10; 0 keeps it equal).
 try {
   setPriority(useConfig().geometry.nice)
-} catch { /* not allowed here: run at the same priority */ }
+} catch {
+  /* not allowed here: run at the same priority */
+}
 
 // The mask DXF's label font, parsed as the thread starts rather than on its first DXF (~0.1 s once).
 try {
   labelFont()
-} catch { /* the DXF route reports it if the font cannot be read */ }
+} catch {
+  /* the DXF route reports it if the font cannot be read */
+}
 
-export function summary(job: { document: ChipDocument, processId: string, lab?: LabLibraryData | null }): RevisionSummary {
+export function summary(job: {
+  document: ChipDocument
+  processId: string
+  lab?: LabLibraryData | null
+}): RevisionSummary {
   return summarizeRevision(job.document, job.processId, job.lab)
 }
 
@@ -35,11 +43,10 @@ export function dxf(job: MaskInput): MaskResult {
 
 /** A refusal of the request crosses the thread as data (class instances do not survive the copy). */
 export type ForecastResult =
-  | { ok: true, answer: ForecastAnswer }
-  | { ok: false, message: string, issues: ForecastInputError['issues'] }
+  { ok: true; answer: ForecastAnswer } | { ok: false; message: string; issues: ForecastInputError['issues'] }
 
 /** The request and, when a lab was named, that lab's liquids and pairs (plain data, merged here). */
-export function forecast(job: { request: unknown, lab?: LabLiquidsData | null }): ForecastResult {
+export function forecast(job: { request: unknown; lab?: LabLiquidsData | null }): ForecastResult {
   try {
     return { ok: true, answer: runForecast(job.request, job.lab ? mergeLibrary(job.lab) : undefined) }
   } catch (error) {
@@ -49,11 +56,10 @@ export function forecast(job: { request: unknown, lab?: LabLiquidsData | null })
 }
 
 export type PlanResult =
-  | { ok: true, answer: PlanAnswer }
-  | { ok: false, message: string, issues: ForecastInputError['issues'] }
+  { ok: true; answer: PlanAnswer } | { ok: false; message: string; issues: ForecastInputError['issues'] }
 
 /** POST /api/v1/plan: the planner's window scan (one forecast per point) with its refusals as data; `lab`: the caller's lab's library. */
-export function plan(job: { request: unknown, lab?: PlanContext['lab'] }): PlanResult {
+export function plan(job: { request: unknown; lab?: PlanContext['lab'] }): PlanResult {
   try {
     return { ok: true, answer: runPlan(job.request, { lab: job.lab ?? null }) }
   } catch (error) {

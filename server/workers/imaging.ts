@@ -8,8 +8,18 @@ import { useConfig } from '../utils/config'
 // several seconds waits for the event loop that answers requests (DW_GEOMETRY_NICE, default 10).
 try {
   setPriority(useConfig().geometry.nice)
-} catch { /* not allowed here: run at the same priority */ }
+} catch {
+  /* not allowed here: run at the same priority */
+}
 
-export default function measure(job: { width: number, height: number, pixels: ArrayBuffer, umPerPx: number }): Measurement {
-  return measureDrops({ width: job.width, height: job.height, data: new Uint8Array(job.pixels) }, { umPerPx: job.umPerPx })
+export default function measure(job: {
+  width: number
+  height: number
+  pixels: ArrayBuffer
+  umPerPx: number
+}): Measurement {
+  return measureDrops(
+    { width: job.width, height: job.height, data: new Uint8Array(job.pixels) },
+    { umPerPx: job.umPerPx },
+  )
 }

@@ -6,9 +6,12 @@ export const SELECTABLE: ElementCollection[] = ['components', 'ports', 'channels
 
 export type AnyElement = ChipDocument[ElementCollection][number]
 
-export function findElement(doc: ChipDocument, id: string): { collection: ElementCollection; index: number; element: AnyElement } | null {
+export function findElement(
+  doc: ChipDocument,
+  id: string,
+): { collection: ElementCollection; index: number; element: AnyElement } | null {
   for (const collection of SELECTABLE) {
-    const index = (doc[collection] as AnyElement[]).findIndex((e) => e.id === id)
+    const index = (doc[collection] as AnyElement[]).findIndex(e => e.id === id)
     if (index >= 0) return { collection, index, element: doc[collection][index]! }
   }
   return null
@@ -28,13 +31,20 @@ export function freshId(used: Set<string>, prefix: string): string {
   const base = prefix.replace(/-\d+$/, '')
   for (let n = 1; ; n++) {
     const id = `${base}-${n}`
-    if (!used.has(id)) { used.add(id); return id }
+    if (!used.has(id)) {
+      used.add(id)
+      return id
+    }
   }
 }
 
 export const clone = <T>(v: T): T => structuredClone(v)
 
 /** A new document with `collection` replaced (everything else shared, so unchanged parts stay the same objects). */
-export function withCollection<C extends ElementCollection>(doc: ChipDocument, collection: C, items: ChipDocument[C]): ChipDocument {
+export function withCollection<C extends ElementCollection>(
+  doc: ChipDocument,
+  collection: C,
+  items: ChipDocument[C],
+): ChipDocument {
   return { ...doc, [collection]: items }
 }

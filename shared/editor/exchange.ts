@@ -13,9 +13,17 @@ export function importDocument(text: string): { ok: true; doc: ChipDocument } | 
     return { ok: false, message: `This file is not JSON: ${error instanceof Error ? error.message : String(error)}` }
   }
   const parsed = parseChipDocument(json)
-  if (!parsed.ok) return { ok: false, message: parsed.errors.slice(0, 3).map((e) => peopleError(e, json as Record<string, unknown>)).join('; ') }
+  if (!parsed.ok)
+    return {
+      ok: false,
+      message: parsed.errors
+        .slice(0, 3)
+        .map(e => peopleError(e, json as Record<string, unknown>))
+        .join('; '),
+    }
   return { ok: true, doc: parsed.document }
 }
 
 /** A file name for an export: the design name in plain characters. */
-export const exportFileName = (doc: ChipDocument): string => `${doc.name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-|-$/g, '') || 'chip'}.chip.json`
+export const exportFileName = (doc: ChipDocument): string =>
+  `${doc.name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-|-$/g, '') || 'chip'}.chip.json`

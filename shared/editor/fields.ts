@@ -29,26 +29,32 @@ export function setField(doc: ChipDocument, args: { id: string; path: string; va
 }
 
 /** A document-level field: the design name or the active operating point. */
-export function setDocumentField(doc: ChipDocument, args: { path: 'name' | 'activeOperatingPoint'; value: string }): ActionOutcome {
+export function setDocumentField(
+  doc: ChipDocument,
+  args: { path: 'name' | 'activeOperatingPoint'; value: string },
+): ActionOutcome {
   return { doc: { ...doc, [args.path]: args.value }, history: 'record' }
 }
 
 function withOperatingPoint(doc: ChipDocument, opId: string, f: (op: OperatingPoint) => OperatingPoint): ChipDocument {
-  if (!doc.operatingPoints.some((o) => o.id === opId)) throw new Error(`No operating point "${opId}" in this design`)
-  return { ...doc, operatingPoints: doc.operatingPoints.map((o) => (o.id === opId ? f(o) : o)) }
+  if (!doc.operatingPoints.some(o => o.id === opId)) throw new Error(`No operating point "${opId}" in this design`)
+  return { ...doc, operatingPoints: doc.operatingPoints.map(o => (o.id === opId ? f(o) : o)) }
 }
 
 /** One field of an operating point: temperature, liquids, surfactant, tension. */
-export function setOperatingPointField(doc: ChipDocument, args: { opId: string; path: string; value: unknown }): ActionOutcome {
-  return { doc: withOperatingPoint(doc, args.opId, (o) => setPath(o, args.path, args.value)), history: 'record' }
+export function setOperatingPointField(
+  doc: ChipDocument,
+  args: { opId: string; path: string; value: unknown },
+): ActionOutcome {
+  return { doc: withOperatingPoint(doc, args.opId, o => setPath(o, args.path, args.value)), history: 'record' }
 }
 
 /** How one inlet is driven at an operating point (replaces any earlier setting of that port). */
 export function setInlet(doc: ChipDocument, args: { opId: string; setting: InletSetting }): ActionOutcome {
   return {
-    doc: withOperatingPoint(doc, args.opId, (o) => {
-      const inlets = o.inlets.some((i) => i.portId === args.setting.portId)
-        ? o.inlets.map((i) => (i.portId === args.setting.portId ? { ...args.setting } : i))
+    doc: withOperatingPoint(doc, args.opId, o => {
+      const inlets = o.inlets.some(i => i.portId === args.setting.portId)
+        ? o.inlets.map(i => (i.portId === args.setting.portId ? { ...args.setting } : i))
         : [...o.inlets, { ...args.setting }]
       return { ...o, inlets }
     }),

@@ -17,20 +17,32 @@ export interface History {
 
 export const HISTORY_LIMIT = 200
 
-export const startHistory = (doc: ChipDocument): History => ({ past: [], present: doc, future: [], pending: null, pastLabels: [], futureLabels: [] })
+export const startHistory = (doc: ChipDocument): History => ({
+  past: [],
+  present: doc,
+  future: [],
+  pending: null,
+  pastLabels: [],
+  futureLabels: [],
+})
 
 export function commit(h: History, doc: ChipDocument, policy: HistoryPolicy, label = 'edit'): History {
   if (policy === 'skip') return { ...h, present: doc, pending: h.pending ?? h.present }
   const before = h.pending ?? h.present
   if (before === doc) return { ...h, pending: null }
   return {
-    past: [...h.past, before].slice(-HISTORY_LIMIT), present: doc, future: [], pending: null,
-    pastLabels: [...h.pastLabels, label].slice(-HISTORY_LIMIT), futureLabels: [],
+    past: [...h.past, before].slice(-HISTORY_LIMIT),
+    present: doc,
+    future: [],
+    pending: null,
+    pastLabels: [...h.pastLabels, label].slice(-HISTORY_LIMIT),
+    futureLabels: [],
   }
 }
 
 /** What undo and redo would take back or do again, in words; null when there is nothing. */
-export const undoLabel = (h: History): string | null => (h.pending ? 'drag' : h.pastLabels[h.pastLabels.length - 1] ?? null)
+export const undoLabel = (h: History): string | null =>
+  h.pending ? 'drag' : (h.pastLabels[h.pastLabels.length - 1] ?? null)
 export const redoLabel = (h: History): string | null => h.futureLabels[0] ?? null
 
 /** Drops a run of 'skip' results (a cancelled drag): back to where it began, no step. */
@@ -44,12 +56,26 @@ export function undo(h: History): History {
   const prev = h.past[h.past.length - 1]
   if (!prev) return h
   const label = h.pastLabels[h.pastLabels.length - 1] ?? 'edit'
-  return { past: h.past.slice(0, -1), present: prev, future: [h.present, ...h.future], pending: null, pastLabels: h.pastLabels.slice(0, -1), futureLabels: [label, ...h.futureLabels] }
+  return {
+    past: h.past.slice(0, -1),
+    present: prev,
+    future: [h.present, ...h.future],
+    pending: null,
+    pastLabels: h.pastLabels.slice(0, -1),
+    futureLabels: [label, ...h.futureLabels],
+  }
 }
 
 export function redo(h: History): History {
   const [next, ...rest] = h.future
   if (!next) return h
   const [label = 'edit', ...labels] = h.futureLabels
-  return { past: [...h.past, h.present], present: next, future: rest, pending: null, pastLabels: [...h.pastLabels, label], futureLabels: labels }
+  return {
+    past: [...h.past, h.present],
+    present: next,
+    future: rest,
+    pending: null,
+    pastLabels: [...h.pastLabels, label],
+    futureLabels: labels,
+  }
 }

@@ -10,11 +10,30 @@ import { addLayer, addOperatingPoint, removeLayer, removeOperatingPoint, setLaye
 
 /** Every edit the editor can make, by name. */
 export const actions = {
-  move, rotate, duplicate, paste, delete: remove,
-  setField, setDocumentField, setOperatingPointField, setInlet,
-  addChannel, insertChannelPoint, moveChannelPoint, removeChannelPoint, placeComponent, placePort, placeArray,
-  setOutline, clearOutline, placeMark,
-  addLayer, setLayerField, removeLayer, addOperatingPoint, removeOperatingPoint,
+  move,
+  rotate,
+  duplicate,
+  paste,
+  delete: remove,
+  setField,
+  setDocumentField,
+  setOperatingPointField,
+  setInlet,
+  addChannel,
+  insertChannelPoint,
+  moveChannelPoint,
+  removeChannelPoint,
+  placeComponent,
+  placePort,
+  placeArray,
+  setOutline,
+  clearOutline,
+  placeMark,
+  addLayer,
+  setLayerField,
+  removeLayer,
+  addOperatingPoint,
+  removeOperatingPoint,
 }
 export type ActionName = keyof typeof actions
 export type ActionArgs<N extends ActionName> = Parameters<(typeof actions)[N]>[1]

@@ -2,11 +2,25 @@
 import type { ActionArgs, ActionName } from './index'
 
 const FIXED: Partial<Record<ActionName, string>> = {
-  move: 'move', rotate: 'turn', duplicate: 'duplicate', paste: 'paste', delete: 'delete', setInlet: 'inlet setting',
-  addChannel: 'draw channel', insertChannelPoint: 'add bend', moveChannelPoint: 'move channel point',
-  removeChannelPoint: 'remove bend', placePort: 'place port', placeArray: 'nozzle array', setOutline: 'outline size',
-  clearOutline: 'clear outline', placeMark: 'alignment cross', addLayer: 'add layer', removeLayer: 'remove layer',
-  addOperatingPoint: 'new operating point', removeOperatingPoint: 'remove operating point',
+  move: 'move',
+  rotate: 'turn',
+  duplicate: 'duplicate',
+  paste: 'paste',
+  delete: 'delete',
+  setInlet: 'inlet setting',
+  addChannel: 'draw channel',
+  insertChannelPoint: 'add bend',
+  moveChannelPoint: 'move channel point',
+  removeChannelPoint: 'remove bend',
+  placePort: 'place port',
+  placeArray: 'nozzle array',
+  setOutline: 'outline size',
+  clearOutline: 'clear outline',
+  placeMark: 'alignment cross',
+  addLayer: 'add layer',
+  removeLayer: 'remove layer',
+  addOperatingPoint: 'new operating point',
+  removeOperatingPoint: 'remove operating point',
 }
 
 export function actionLabel<N extends ActionName>(name: N, args: ActionArgs<N>): string {

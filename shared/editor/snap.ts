@@ -15,16 +15,34 @@ export function snapDelta(origin: PointUm, dx: number, dy: number, pitch: number
   return { x: to.x - origin.x, y: to.y - origin.y }
 }
 
-export interface TerminalHit { ref: TerminalRef; position: PointUm; width: number; layerId: string; distance: number }
+export interface TerminalHit {
+  ref: TerminalRef
+  position: PointUm
+  width: number
+  layerId: string
+  distance: number
+}
 
 /** The terminal nearest to `p` within `radius` µm (component ends and ports), or null. */
-export function nearestTerminal(doc: ChipDocument, p: PointUm, radius: number, exclude: ReadonlySet<string> = new Set()): TerminalHit | null {
+export function nearestTerminal(
+  doc: ChipDocument,
+  p: PointUm,
+  radius: number,
+  exclude: ReadonlySet<string> = new Set(),
+): TerminalHit | null {
   let best: TerminalHit | null = null
   const consider = (element: string, ts: ReturnType<typeof portTerminals>) => {
     if (exclude.has(element)) return
     for (const t of ts) {
       const d = Math.hypot(t.position.x - p.x, t.position.y - p.y)
-      if (d <= radius && (!best || d < best.distance)) best = { ref: { element, terminal: t.name }, position: t.position, width: t.width, layerId: t.layerId, distance: d }
+      if (d <= radius && (!best || d < best.distance))
+        best = {
+          ref: { element, terminal: t.name },
+          position: t.position,
+          width: t.width,
+          layerId: t.layerId,
+          distance: d,
+        }
     }
   }
   for (const c of doc.components) consider(c.id, componentTerminals(c))
@@ -33,7 +51,11 @@ export function nearestTerminal(doc: ChipDocument, p: PointUm, radius: number, e
 }
 
 /** Where a click lands: on a near terminal (attached), else on the grid. */
-export function snapPoint(doc: ChipDocument, p: PointUm, opts: { pitch: number; terminalRadius: number }): { point: PointUm; terminal: TerminalHit | null } {
+export function snapPoint(
+  doc: ChipDocument,
+  p: PointUm,
+  opts: { pitch: number; terminalRadius: number },
+): { point: PointUm; terminal: TerminalHit | null } {
   const terminal = nearestTerminal(doc, p, opts.terminalRadius)
   return terminal ? { point: { ...terminal.position }, terminal } : { point: snapToGrid(p, opts.pitch), terminal: null }
 }

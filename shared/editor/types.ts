@@ -4,7 +4,10 @@ import type { ChipDocument } from '../schemas/chip'
 
 export type HistoryPolicy = 'record' | 'skip'
 
-export interface ActionOutcome { doc: ChipDocument; history: HistoryPolicy }
+export interface ActionOutcome {
+  doc: ChipDocument
+  history: HistoryPolicy
+}
 
 /** `(doc, args) → { doc, history }`. An action may return a document that fails the schema: `runAction` refuses it. */
 export type EditorAction<A> = (doc: ChipDocument, args: A) => ActionOutcome
@@ -12,11 +15,15 @@ export type EditorAction<A> = (doc: ChipDocument, args: A) => ActionOutcome
 /** The collections whose elements the canvas can select (they share one id space). */
 export type ElementCollection = 'ports' | 'channels' | 'components' | 'marks'
 
-export interface PointUm { x: number; y: number }
+export interface PointUm {
+  x: number
+  y: number
+}
 
 /** Why an edit was refused: the schema's own message, and where. */
-export interface EditRefusal { message: string; path: string }
+export interface EditRefusal {
+  message: string
+  path: string
+}
 
-export type ActionResult =
-  | { ok: true; doc: ChipDocument; history: HistoryPolicy }
-  | { ok: false; refusal: EditRefusal }
+export type ActionResult = { ok: true; doc: ChipDocument; history: HistoryPolicy } | { ok: false; refusal: EditRefusal }

@@ -11,7 +11,11 @@ import { counted } from '../utils/counted'
  * per cent for step emulsification and wider for shear-driven junctions; a lab calibration narrows it.
  */
 export const DIAMETER_UNCERTAINTY: Record<string, number> = {
-  'step-nozzle': 0.1, 'step-array': 0.1, 't-junction': 0.15, 'flow-focusing': 0.2, 'y-junction': 0.2,
+  'step-nozzle': 0.1,
+  'step-array': 0.1,
+  't-junction': 0.15,
+  'flow-focusing': 0.2,
+  'y-junction': 0.2,
 }
 /** Inlet pressures follow the hydraulic resistance (∝ 1/(w h³) for a shallow channel): ±10 %, common practice, no source. */
 export const PRESSURE_UNCERTAINTY = 0.1
@@ -34,7 +38,7 @@ export interface AsBuiltChange {
 }
 
 /** The designed chip's elements, to name them (any chip document). */
-type NamingDoc = { operatingPoints?: ReadonlyArray<{ id: string, name?: string }> } & object
+type NamingDoc = { operatingPoints?: ReadonlyArray<{ id: string; name?: string }> } & object
 
 const rel = (a: number | null, b: number | null) => (a !== null && b !== null && a !== 0 ? (b - a) / a : null)
 const junctionName = (doc: NamingDoc | undefined, id: string) => nameJunction(doc as never, id)
@@ -57,18 +61,48 @@ export function asBuiltChanges(designed: RevisionSummary, asBuilt: RevisionSumma
     const b = asBuilt.junctions.find(x => x.id === j.id)
     const r = rel(j.dropletDiameterUm, b?.dropletDiameterUm ?? null)
     const u = DIAMETER_UNCERTAINTY[j.kind] ?? FALLBACK_UNCERTAINTY
-    out.push({ what: 'droplet-diameter', id: j.id, label: `Droplet diameter at ${junctionName(doc, j.id)}, ${op}`, designed: j.dropletDiameterUm, asBuilt: b?.dropletDiameterUm ?? null, unit: 'µm', relative: r, uncertainty: u, exceeds: r !== null && Math.abs(r) > u })
+    out.push({
+      what: 'droplet-diameter',
+      id: j.id,
+      label: `Droplet diameter at ${junctionName(doc, j.id)}, ${op}`,
+      designed: j.dropletDiameterUm,
+      asBuilt: b?.dropletDiameterUm ?? null,
+      unit: 'µm',
+      relative: r,
+      uncertainty: u,
+      exceeds: r !== null && Math.abs(r) > u,
+    })
   }
   for (const i of designed.inlets) {
     const b = asBuilt.inlets.find(x => x.portId === i.portId)
     const r = rel(i.pressureMbar, b?.pressureMbar ?? null)
-    out.push({ what: 'inlet-pressure', id: i.portId, label: `Pressure at inlet “${i.portId}”, ${op}`, designed: i.pressureMbar, asBuilt: b?.pressureMbar ?? null, unit: 'mbar', relative: r, uncertainty: PRESSURE_UNCERTAINTY, exceeds: r !== null && Math.abs(r) > PRESSURE_UNCERTAINTY })
+    out.push({
+      what: 'inlet-pressure',
+      id: i.portId,
+      label: `Pressure at inlet “${i.portId}”, ${op}`,
+      designed: i.pressureMbar,
+      asBuilt: b?.pressureMbar ?? null,
+      unit: 'mbar',
+      relative: r,
+      uncertainty: PRESSURE_UNCERTAINTY,
+      exceeds: r !== null && Math.abs(r) > PRESSURE_UNCERTAINTY,
+    })
   }
   for (const severity of ['errors', 'warnings'] as const) {
     const a = designed.findings[severity]
     const b = asBuilt.findings[severity]
     // Any new rule error is worth a warning: the as-built chip breaks a rule the drawing kept.
-    out.push({ what: 'findings', id: severity, label: `Design-rule ${severity}`, designed: a, asBuilt: b, unit: '', relative: null, uncertainty: null, exceeds: severity === 'errors' && b > a })
+    out.push({
+      what: 'findings',
+      id: severity,
+      label: `Design-rule ${severity}`,
+      designed: a,
+      asBuilt: b,
+      unit: '',
+      relative: null,
+      uncertainty: null,
+      exceeds: severity === 'errors' && b > a,
+    })
   }
   return out
 }
@@ -101,5 +135,5 @@ export function describeChange(c: AsBuiltChange): string {
   const unit = / [^\d\s]+$/.exec(to)?.[0]
   if (unit && from.endsWith(unit)) from = from.slice(0, -unit.length)
   const pct = c.relative === null ? '' : ` (${signedPercent(c.relative)})`
-  return `${c.label}: ${from} → ${to}${pct}${c.exceeds ? ' — beyond the method\'s uncertainty' : ''}`
+  return `${c.label}: ${from} → ${to}${pct}${c.exceeds ? " — beyond the method's uncertainty" : ''}`
 }

@@ -4,7 +4,7 @@ export const FAB_SHEET_CAUTIONS = [
   'Organic solvents and some oils swell PDMS and change channel sizes; check compatibility before use.',
   'Photolithography and surface treatments use hazardous chemicals (photoresists, developers, silanes, plasma). Use them only with training, in a fume hood, with the right protective equipment.',
   'Biological samples follow their biosafety level.',
-  'Forecasts are estimates. Follow your lab\'s safety office, local codes and the fabrication partner\'s own rules; they take precedence over this sheet.',
+  "Forecasts are estimates. Follow your lab's safety office, local codes and the fabrication partner's own rules; they take precedence over this sheet.",
 ] as const
 
 /**

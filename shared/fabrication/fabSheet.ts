@@ -17,14 +17,20 @@ export function processLine(p: FabricationProcess): string {
 export const processSourceLine = (p: FabricationProcess): string => `values: ${processValuesSource(p)}`
 
 /** One inlet setting of an operating point: "oil-in: flow rate 10 µL/min", "water-in: pressure 250 mbar". */
-export function inletLine(i: { portId: string, mode: string, value: number, unit: string }): string {
+export function inletLine(i: { portId: string; mode: string; value: number; unit: string }): string {
   return `${i.portId}: ${i.mode === 'pressure' ? 'pressure' : 'flow rate'} ${formatDocumentValue(i.value, i.unit)}`
 }
 
 /** A temperature stored in °C: "22 °C". */
 export const temperatureLine = (c: number): string => formatDocumentValue(c, 'degC')
 
-interface PhasesOf { id: string, continuousLiquid: unknown, dispersedLiquid: unknown, surfactant?: string | null, temperatureC: number }
+interface PhasesOf {
+  id: string
+  continuousLiquid: unknown
+  dispersedLiquid: unknown
+  surfactant?: string | null
+  temperatureC: number
+}
 
 /**
  * "Continuous phase Test oil, lot 1, dispersed phase water, surfactant our-mix, 22 °C": the liquids of the active
@@ -41,4 +47,5 @@ export function phasesLine(op: PhasesOf, library?: LibrarySnapshot | null): stri
 }
 
 /** Where a finding sits on the chip, to the micrometre: "at x 4.8 mm, y 3 mm". */
-export const locationLine = (p: { x: number, y: number }): string => `at x ${storedLength(Math.round(p.x))}, y ${storedLength(Math.round(p.y))}`
+export const locationLine = (p: { x: number; y: number }): string =>
+  `at x ${storedLength(Math.round(p.x))}, y ${storedLength(Math.round(p.y))}`

@@ -10,7 +10,10 @@ const OPTIONS: Record<DateContext, Intl.DateTimeFormatOptions> = {
   day: { dateStyle: 'medium' },
 }
 
-export interface DateSettings { locale?: string; timeZone?: string }
+export interface DateSettings {
+  locale?: string
+  timeZone?: string
+}
 
 const cache = new Map<string, Intl.DateTimeFormat>()
 
@@ -20,8 +23,7 @@ function formatter(context: DateContext, { locale, timeZone }: DateSettings): In
   if (!f) {
     try {
       f = new Intl.DateTimeFormat(locale, { ...OPTIONS[context], timeZone })
-    }
-    catch {
+    } catch {
       // An unknown locale tag or zone name (from a header) falls back to the runtime's default.
       f = new Intl.DateTimeFormat(undefined, { ...OPTIONS[context], timeZone: 'UTC' })
     }
@@ -31,7 +33,11 @@ function formatter(context: DateContext, { locale, timeZone }: DateSettings): In
 }
 
 /** `iso` (or a Date) written for `context`; "—" for a missing or unreadable date. */
-export function formatDate(iso: string | Date | null | undefined, context: DateContext, settings: DateSettings = {}): string {
+export function formatDate(
+  iso: string | Date | null | undefined,
+  context: DateContext,
+  settings: DateSettings = {},
+): string {
   if (iso == null) return '—'
   const d = iso instanceof Date ? iso : new Date(iso)
   if (Number.isNaN(d.getTime())) return '—'
@@ -45,8 +51,7 @@ export function localeFromHeader(header: string | null | undefined): string | un
   if (!first || first === '*') return undefined
   try {
     return Intl.getCanonicalLocales(first)[0]
-  }
-  catch {
+  } catch {
     return undefined
   }
 }

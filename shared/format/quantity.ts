@@ -29,7 +29,19 @@ export const confidenceOf = (valid: boolean): Confidence => (valid ? 'estimate' 
 
 const NNBSP = '\u202F'
 const MINUS = '\u2212'
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' }
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+}
 
 /** Groups the integer part in threes when it has five digits or more (SI Brochure 9th ed. §5.4.4). */
 function group(digits: string): string {
@@ -63,7 +75,10 @@ export function formatNumber(v: number, figures = 3): string {
   return `${sign}${m === '1' ? '' : `${m} × `}10${power}`
 }
 
-interface Step { factor: number; unit: string }
+interface Step {
+  factor: number
+  unit: string
+}
 
 /** Picks the first step whose number is ≥ 1 (steps ordered from the largest unit down); the smallest otherwise. */
 function withPrefix(value: number, steps: Step[], figures: number): string {
@@ -72,36 +87,64 @@ function withPrefix(value: number, steps: Step[], figures: number): string {
   let step = steps[steps.length - 1]!
   for (const s of steps) {
     // Round first, so 999.7 µm at 3 figures reads "1 mm", not "1000 µm".
-    if (a !== 0 && Number((a / s.factor).toPrecision(figures)) >= 1) { step = s; break }
+    if (a !== 0 && Number((a / s.factor).toPrecision(figures)) >= 1) {
+      step = s
+      break
+    }
   }
   if (a === 0) step = steps.find(s => s.factor === 1) ?? step
   return `${formatNumber(value / step.factor, figures)} ${step.unit}`
 }
 
-const LENGTH_UM: Step[] = [{ factor: 1e3, unit: 'mm' }, { factor: 1, unit: 'µm' }, { factor: 1e-3, unit: 'nm' }]
-const VOLUME_PL: Step[] = [{ factor: 1e6, unit: 'µL' }, { factor: 1e3, unit: 'nL' }, { factor: 1, unit: 'pL' }, { factor: 1e-3, unit: 'fL' }]
-const RATE_HZ: Step[] = [{ factor: 1e6, unit: 'MHz' }, { factor: 1e3, unit: 'kHz' }, { factor: 1, unit: 'Hz' }, { factor: 1e-3, unit: 'mHz' }]
+const LENGTH_UM: Step[] = [
+  { factor: 1e3, unit: 'mm' },
+  { factor: 1, unit: 'µm' },
+  { factor: 1e-3, unit: 'nm' },
+]
+const VOLUME_PL: Step[] = [
+  { factor: 1e6, unit: 'µL' },
+  { factor: 1e3, unit: 'nL' },
+  { factor: 1, unit: 'pL' },
+  { factor: 1e-3, unit: 'fL' },
+]
+const RATE_HZ: Step[] = [
+  { factor: 1e6, unit: 'MHz' },
+  { factor: 1e3, unit: 'kHz' },
+  { factor: 1, unit: 'Hz' },
+  { factor: 1e-3, unit: 'mHz' },
+]
 
 const figuresOf = (c: Confidence | number) => (typeof c === 'number' ? c : SIGNIFICANT_FIGURES[c])
 
 /** A length given in µm: nm below 1 µm, mm from 1000 µm ("40.5 mm"). */
-export const formatLengthUm = (um: number, c: Confidence | number = 'estimate') => withPrefix(um, LENGTH_UM, figuresOf(c))
+export const formatLengthUm = (um: number, c: Confidence | number = 'estimate') =>
+  withPrefix(um, LENGTH_UM, figuresOf(c))
 /** A droplet volume given in pL: fL, pL, nL or µL. */
-export const formatVolumePl = (pl: number, c: Confidence | number = 'estimate') => withPrefix(pl, VOLUME_PL, figuresOf(c))
+export const formatVolumePl = (pl: number, c: Confidence | number = 'estimate') =>
+  withPrefix(pl, VOLUME_PL, figuresOf(c))
 /** A generation rate given in Hz: Hz, kHz or MHz. */
 export const formatRateHz = (hz: number, c: Confidence | number = 'estimate') => withPrefix(hz, RATE_HZ, figuresOf(c))
 /** A pressure given in mbar, always in mbar (the trade's unit for chip pressures). */
-export const formatPressureMbar = (mbar: number, c: Confidence | number = 'estimate') => `${formatNumber(mbar, figuresOf(c))} mbar`
+export const formatPressureMbar = (mbar: number, c: Confidence | number = 'estimate') =>
+  `${formatNumber(mbar, figuresOf(c))} mbar`
 /** A flow rate given in µL/min, always in µL/min (the unit pumps are set in). */
-export const formatFlowUlMin = (ulMin: number, c: Confidence | number = 'estimate') => `${formatNumber(ulMin, figuresOf(c))} µL/min`
+export const formatFlowUlMin = (ulMin: number, c: Confidence | number = 'estimate') =>
+  `${formatNumber(ulMin, figuresOf(c))} µL/min`
 /** A fraction (0.12) as a percentage with a space before "%" (SI Brochure 9th ed. §5.4.7): "12 %". */
-export const formatPercent = (fraction: number, c: Confidence | number = 'estimate') => `${formatNumber(fraction * 100, figuresOf(c))} %`
+export const formatPercent = (fraction: number, c: Confidence | number = 'estimate') =>
+  `${formatNumber(fraction * 100, figuresOf(c))} %`
 /** A dimensionless number (Ca, Re, a ratio). */
 export const formatPlain = (v: number, c: Confidence | number = 'estimate') => formatNumber(v, figuresOf(c))
 
 /** Units as people read them: the document stores ASCII names ("uL/min"), the screen shows "µL/min". */
 export function displayUnitName(unit: string): string {
-  return unit.replace(/^u(?=[LmM])/, 'µ').replace(/\bu(?=m\b)/, 'µ').replace('degC', '°C').replace('Pa*s', 'Pa·s').replace('^3', '³').replace('^2', '²')
+  return unit
+    .replace(/^u(?=[LmM])/, 'µ')
+    .replace(/\bu(?=m\b)/, 'µ')
+    .replace('degC', '°C')
+    .replace('Pa*s', 'Pa·s')
+    .replace('^3', '³')
+    .replace('^2', '²')
 }
 
 /**
@@ -110,18 +153,35 @@ export function displayUnitName(unit: string): string {
  */
 export function formatSi(value: number, unit: string, c: Confidence | number = 'estimate'): string {
   switch (unit) {
-    case 'm': return formatLengthUm(value * 1e6, c)
-    case 'm^3': return formatVolumePl(value * 1e15, c)
-    case 'Hz': return formatRateHz(value, c)
-    case 'Pa': return formatPressureMbar(value / 100, c)
-    case 'm^3/s': return formatFlowUlMin(value * 6e10, c)
-    case 'Pa*s': return `${formatNumber(value * 1e3, figuresOf(c))} mPa·s`
-    case 'N/m': return `${formatNumber(value * 1e3, figuresOf(c))} mN/m`
-    case 'm/s': return value !== 0 && Math.abs(value) < 1e-3 ? `${formatNumber(value * 1e6, figuresOf(c))} µm/s` : `${formatNumber(value * 1e3, figuresOf(c))} mm/s`
-    case 's': return value !== 0 && Math.abs(value) < 1 ? `${formatNumber(value * 1e3, figuresOf(c))} ms` : `${formatNumber(value, figuresOf(c))} s`
-    case 'K': return `${formatNumber(value - 273.15, figuresOf(c))} °C`
-    case '1': case '': return formatNumber(value, figuresOf(c))
-    default: return `${formatNumber(value, figuresOf(c))} ${displayUnitName(unit)}`
+    case 'm':
+      return formatLengthUm(value * 1e6, c)
+    case 'm^3':
+      return formatVolumePl(value * 1e15, c)
+    case 'Hz':
+      return formatRateHz(value, c)
+    case 'Pa':
+      return formatPressureMbar(value / 100, c)
+    case 'm^3/s':
+      return formatFlowUlMin(value * 6e10, c)
+    case 'Pa*s':
+      return `${formatNumber(value * 1e3, figuresOf(c))} mPa·s`
+    case 'N/m':
+      return `${formatNumber(value * 1e3, figuresOf(c))} mN/m`
+    case 'm/s':
+      return value !== 0 && Math.abs(value) < 1e-3
+        ? `${formatNumber(value * 1e6, figuresOf(c))} µm/s`
+        : `${formatNumber(value * 1e3, figuresOf(c))} mm/s`
+    case 's':
+      return value !== 0 && Math.abs(value) < 1
+        ? `${formatNumber(value * 1e3, figuresOf(c))} ms`
+        : `${formatNumber(value, figuresOf(c))} s`
+    case 'K':
+      return `${formatNumber(value - 273.15, figuresOf(c))} °C`
+    case '1':
+    case '':
+      return formatNumber(value, figuresOf(c))
+    default:
+      return `${formatNumber(value, figuresOf(c))} ${displayUnitName(unit)}`
   }
 }
 

@@ -56,7 +56,8 @@ export interface Measurement {
   method: string
 }
 
-export const DETECTION_METHOD = 'flat-field (tile 90th percentile) + Otsu 1979 threshold + hole fill + connected components; edge, circularity ≥ 0.8 and Feret ratio ≥ 0.85 filters; 50 % edge refinement on 32 rays'
+export const DETECTION_METHOD =
+  'flat-field (tile 90th percentile) + Otsu 1979 threshold + hole fill + connected components; edge, circularity ≥ 0.8 and Feret ratio ≥ 0.85 filters; 50 % edge refinement on 32 rays'
 
 const TILE = 64
 
@@ -72,11 +73,20 @@ function background(image: GreyImage): Float32Array {
       histogram.fill(0)
       let count = 0
       for (let y = j * TILE; y < Math.min(height, (j + 1) * TILE); y++) {
-        for (let x = i * TILE; x < Math.min(width, (i + 1) * TILE); x++) { histogram[data[y * width + x]!]!++; count++ }
+        for (let x = i * TILE; x < Math.min(width, (i + 1) * TILE); x++) {
+          histogram[data[y * width + x]!]!++
+          count++
+        }
       }
       let seen = 0
       let v = 255
-      for (let g = 0; g < 256; g++) { seen += histogram[g]!; if (seen >= count * 0.9) { v = g; break } }
+      for (let g = 0; g < 256; g++) {
+        seen += histogram[g]!
+        if (seen >= count * 0.9) {
+          v = g
+          break
+        }
+      }
       level[j * tx + i] = Math.max(1, v)
     }
   }
@@ -91,7 +101,9 @@ function background(image: GreyImage): Float32Array {
       const i0 = Math.floor(fx)
       const i1 = Math.min(tx - 1, i0 + 1)
       const wx = fx - i0
-      out[y * width + x] = (1 - wy) * ((1 - wx) * level[j0 * tx + i0]! + wx * level[j0 * tx + i1]!) + wy * ((1 - wx) * level[j1 * tx + i0]! + wx * level[j1 * tx + i1]!)
+      out[y * width + x] =
+        (1 - wy) * ((1 - wx) * level[j0 * tx + i0]! + wx * level[j0 * tx + i1]!) +
+        wy * ((1 - wx) * level[j1 * tx + i0]! + wx * level[j1 * tx + i1]!)
     }
   }
   return out
@@ -139,9 +151,20 @@ function fillHoles(values: Uint8Array, width: number, height: number, threshold:
   const outside = new Uint8Array(n)
   const stack = new Int32Array(n)
   let top = 0
-  const push = (i: number) => { if (!mask[i] && !outside[i]) { outside[i] = 1; stack[top++] = i } }
-  for (let x = 0; x < width; x++) { push(x); push((height - 1) * width + x) }
-  for (let y = 0; y < height; y++) { push(y * width); push(y * width + width - 1) }
+  const push = (i: number) => {
+    if (!mask[i] && !outside[i]) {
+      outside[i] = 1
+      stack[top++] = i
+    }
+  }
+  for (let x = 0; x < width; x++) {
+    push(x)
+    push((height - 1) * width + x)
+  }
+  for (let y = 0; y < height; y++) {
+    push(y * width)
+    push(y * width + width - 1)
+  }
   while (top > 0) {
     const i = stack[--top]!
     const x = i % width
@@ -163,7 +186,10 @@ function sample(values: Uint8Array, width: number, height: number, x: number, y:
   const wx = fx - x0
   const wy = fy - y0
   const i = y0 * width + x0
-  return (1 - wy) * ((1 - wx) * values[i]! + wx * values[i + 1]!) + wy * ((1 - wx) * values[i + width]! + wx * values[i + width + 1]!)
+  return (
+    (1 - wy) * ((1 - wx) * values[i]! + wx * values[i + 1]!) +
+    wy * ((1 - wx) * values[i + width]! + wx * values[i + width + 1]!)
+  )
 }
 
 /**
@@ -192,14 +218,17 @@ function refineRadius(flat: Uint8Array, width: number, height: number, x: number
     let darkestAt = 0
     for (let s = 0; s <= reach; s += step) {
       const v = sample(flat, width, height, x + dx * s, y + dy * s)
-      if (v < darkest) { darkest = v; darkestAt = s }
+      if (v < darkest) {
+        darkest = v
+        darkestAt = s
+      }
     }
     const half = (local + darkest) / 2
     let previous = darkest
     for (let s = darkestAt; s <= reach; s += step) {
       const v = sample(flat, width, height, x + dx * s, y + dy * s)
       if (v >= half) {
-        total += s - step * (v - half) / Math.max(1e-6, v - previous)
+        total += s - (step * (v - half)) / Math.max(1e-6, v - previous)
         counted++
         break
       }
@@ -211,8 +240,10 @@ function refineRadius(flat: Uint8Array, width: number, height: number, x: number
 
 export function measureDrops(image: GreyImage, options: MeasureOptions): Measurement {
   const { width, height, data } = image
-  if (!(options.umPerPx > 0) || !Number.isFinite(options.umPerPx)) throw new RangeError(`Scale must be > 0 µm per pixel (got ${options.umPerPx})`)
-  if (width * height !== data.length) throw new RangeError(`Image data has ${data.length} pixels, expected ${width} × ${height}`)
+  if (!(options.umPerPx > 0) || !Number.isFinite(options.umPerPx))
+    throw new RangeError(`Scale must be > 0 µm per pixel (got ${options.umPerPx})`)
+  if (width * height !== data.length)
+    throw new RangeError(`Image data has ${data.length} pixels, expected ${width} × ${height}`)
   const progress = options.onProgress ?? (() => {})
   const minDiameter = options.minDiameterPx ?? 4
   const minCircularity = options.minCircularity ?? 0.8
@@ -256,8 +287,16 @@ export function measureDrops(image: GreyImage, options: MeasureOptions): Measure
       if (r !== null && Math.abs(2 * r - d0) < 0.25 * d0) diameterPx = 2 * r
     }
     drops.push({
-      id, x, y, diameterPx, diameterUm: diameterPx * options.umPerPx, areaPx: area,
-      circularity: round(circularity, 3), aspect: round(aspect, 3), accepted: !reason, ...(reason ? { reason } : {}),
+      id,
+      x,
+      y,
+      diameterPx,
+      diameterUm: diameterPx * options.umPerPx,
+      areaPx: area,
+      circularity: round(circularity, 3),
+      aspect: round(aspect, 3),
+      accepted: !reason,
+      ...(reason ? { reason } : {}),
     })
   }
   progress(1)
@@ -277,6 +316,12 @@ export function excludeDrops(measurement: Measurement, excluded: readonly number
   const out = new Set(excluded)
   return summarise({
     ...measurement,
-    drops: measurement.drops.map(d => (out.has(d.id) ? { ...d, accepted: false, reason: 'excluded' as const } : d.reason === 'excluded' ? { ...d, accepted: true, reason: undefined } : d)),
+    drops: measurement.drops.map(d =>
+      out.has(d.id)
+        ? { ...d, accepted: false, reason: 'excluded' as const }
+        : d.reason === 'excluded'
+          ? { ...d, accepted: true, reason: undefined }
+          : d,
+    ),
   })
 }

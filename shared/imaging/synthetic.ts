@@ -4,7 +4,11 @@
 // noise. Pure code: no image library, no I/O.
 import type { GreyImage } from './types'
 
-export interface SyntheticDrop { x: number, y: number, diameter: number }
+export interface SyntheticDrop {
+  x: number
+  y: number
+  diameter: number
+}
 
 export interface SyntheticOptions {
   width: number
@@ -42,7 +46,9 @@ function edge(distance: number, blur: number): number {
   if (blur <= 0) return distance < 0 ? 1 : 0
   const x = -distance / (blur * Math.SQRT2)
   const t = 1 / (1 + 0.3275911 * Math.abs(x))
-  const y = 1 - (((((1.061405429 * t - 1.453152027) * t) + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t * Math.exp(-x * x)
+  const y =
+    1 -
+    ((((1.061405429 * t - 1.453152027) * t + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t * Math.exp(-x * x)
   return 0.5 * (1 + (x >= 0 ? y : -y))
 }
 
@@ -104,7 +110,7 @@ export interface ScatterOptions {
 }
 
 /** Non-overlapping drops with normally distributed diameters, plus optional touching pairs. */
-export function scatterDrops(options: ScatterOptions): { separated: SyntheticDrop[], touching: SyntheticDrop[] } {
+export function scatterDrops(options: ScatterOptions): { separated: SyntheticDrop[]; touching: SyntheticDrop[] } {
   const { width, height, count, meanDiameter, cv, seed = 7, touching = 0, gap = 6 } = options
   const random = seededRandom(seed * 7919 + 13)
   const separated: SyntheticDrop[] = []
@@ -126,7 +132,10 @@ export function scatterDrops(options: ScatterOptions): { separated: SyntheticDro
   }
   let attempts = 0
   while (separated.length < count) {
-    if (++attempts > count * 400) throw new RangeError(`Only ${separated.length} of ${count} drops of ${meanDiameter} px fit in ${width} × ${height} px: use a larger image or fewer drops`)
+    if (++attempts > count * 400)
+      throw new RangeError(
+        `Only ${separated.length} of ${count} drops of ${meanDiameter} px fit in ${width} × ${height} px: use a larger image or fewer drops`,
+      )
     const d = Math.max(4, meanDiameter * (1 + cv * normal(random)))
     const margin = d / 2 + gap
     const x = margin + random() * (width - 2 * margin)

@@ -7,7 +7,7 @@ export interface InputIssue {
 export class ForecastInputError extends Error {
   readonly issues: InputIssue[]
   constructor(issues: InputIssue[]) {
-    super(issues.map((issue) => `${issue.path || '(request)'}: ${issue.message}`).join('; '))
+    super(issues.map(issue => `${issue.path || '(request)'}: ${issue.message}`).join('; '))
     this.name = 'ForecastInputError'
     this.issues = issues
   }

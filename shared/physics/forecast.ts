@@ -19,11 +19,18 @@ export type ForecastAnswer = JunctionForecast | NetworkForecast | DocumentForeca
  */
 export function runForecast(request: unknown, library?: LiquidLibrary): ForecastAnswer {
   if (typeof request !== 'object' || request === null || Array.isArray(request)) {
-    throw new ForecastInputError([{ path: '', message: 'the request must be a JSON object with "junction", "network" or "document"' }])
+    throw new ForecastInputError([
+      { path: '', message: 'the request must be a JSON object with "junction", "network" or "document"' },
+    ])
   }
-  const keys = ['junction', 'network', 'document'].filter((key) => key in request)
+  const keys = ['junction', 'network', 'document'].filter(key => key in request)
   if (keys.length !== 1) {
-    throw new ForecastInputError([{ path: '', message: `give exactly one of "junction", "network" or "document" (got ${keys.length ? keys.join(', ') : 'none'})` }])
+    throw new ForecastInputError([
+      {
+        path: '',
+        message: `give exactly one of "junction", "network" or "document" (got ${keys.length ? keys.join(', ') : 'none'})`,
+      },
+    ])
   }
   if (keys[0] === 'junction') return runJunctionForecast(request, library)
   if (keys[0] === 'network') return runNetworkForecast(request, library)

@@ -23,7 +23,9 @@ export interface Warning {
 /** Builds a quantity; refuses a non-finite value so NaN or Infinity never reaches an answer. */
 export function quantity(value: number, unit: string, method: Method, valid = true): Quantity {
   if (!Number.isFinite(value)) {
-    throw new Error(`Internal: method "${method.id}" produced a non-finite value (${value}); report this input as a bug`)
+    throw new Error(
+      `Internal: method "${method.id}" produced a non-finite value (${value}); report this input as a bug`,
+    )
   }
   return { value, unit, method: method.id, source: method.source, valid }
 }

@@ -16,16 +16,31 @@ export const STARTER_LABELS: Record<(typeof STARTER_KINDS)[number], string> = {
 
 export const designParams = labParams.extend({ designId: z.uuid('Design id must be a UUID') })
 export const revisionParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID') })
-export const compareParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID'), otherId: z.uuid('Revision id must be a UUID') })
+export const compareParams = labParams.extend({
+  revisionId: z.uuid('Revision id must be a UUID'),
+  otherId: z.uuid('Revision id must be a UUID'),
+})
 
-const name = safeText(undefined, 'Name').trim().min(1, 'Give the design a name').max(120, 'A name is at most 120 characters')
-const message = safeText(undefined, 'Message').trim().min(1, 'Say what changed in this revision').max(500, 'A message is at most 500 characters')
+const name = safeText(undefined, 'Name')
+  .trim()
+  .min(1, 'Give the design a name')
+  .max(120, 'A name is at most 120 characters')
+const message = safeText(undefined, 'Message')
+  .trim()
+  .min(1, 'Say what changed in this revision')
+  .max(500, 'A message is at most 500 characters')
 
 export const designCreate = z.object({
   name,
   description: safeText(undefined, 'Description').max(2000, 'A description is at most 2000 characters').default(''),
   /** A built-in process, or one of the lab's own ("lab-…", checked against the lab's library on the server). */
-  processId: safeText().max(64).refine(id => BUILT_IN_PROCESSES.some(p => p.id === id) || LAB_PROCESS_ID.test(id), 'Choose one of the fabrication processes').optional(),
+  processId: safeText()
+    .max(64)
+    .refine(
+      id => BUILT_IN_PROCESSES.some(p => p.id === id) || LAB_PROCESS_ID.test(id),
+      'Choose one of the fabrication processes',
+    )
+    .optional(),
   /** A chip document (validated by the chip schema on the server); omitted → a starter document. */
   document: z.unknown().optional(),
   /** Which starter chip when no document is given (default the T-junction). */
@@ -52,8 +67,18 @@ export const designListQuery = z.object({
   sort: z.enum(['updated', 'name', 'created']).default('updated'),
   dir: z.enum(['asc', 'desc']).default('desc'),
   /** 1-based page of `pageSize` rows in the chosen order; the answer's X-Total-Count header gives the total. */
-  page: z.coerce.number('Page must be a whole number from 1').int('Page must be a whole number from 1').min(1, 'Page must be a whole number from 1').max(MAX_DESIGN_PAGE, `Page is at most ${MAX_DESIGN_PAGE}: narrow the list with a search or filter`).default(1),
-  pageSize: z.coerce.number('Page size must be a whole number from 1 to 200').int('Page size must be a whole number from 1 to 200').min(1, 'Page size must be a whole number from 1 to 200').max(MAX_DESIGN_PAGE_SIZE, `Page size is at most ${MAX_DESIGN_PAGE_SIZE} designs`).default(DESIGN_PAGE_SIZE),
+  page: z.coerce
+    .number('Page must be a whole number from 1')
+    .int('Page must be a whole number from 1')
+    .min(1, 'Page must be a whole number from 1')
+    .max(MAX_DESIGN_PAGE, `Page is at most ${MAX_DESIGN_PAGE}: narrow the list with a search or filter`)
+    .default(1),
+  pageSize: z.coerce
+    .number('Page size must be a whole number from 1 to 200')
+    .int('Page size must be a whole number from 1 to 200')
+    .min(1, 'Page size must be a whole number from 1 to 200')
+    .max(MAX_DESIGN_PAGE_SIZE, `Page size is at most ${MAX_DESIGN_PAGE_SIZE} designs`)
+    .default(DESIGN_PAGE_SIZE),
 })
 export type DesignListQueryParsed = z.infer<typeof designListQuery>
 
@@ -76,5 +101,9 @@ export const dxfQuery = z.object({
   /** Comma-separated layer ids or DXF layer names; all layers when omitted. */
   layers: safeText(undefined, 'Layer list').max(500, 'The layer list is at most 500 characters').optional(),
   /** Text as closed outlines (the default: every plotter prints them) or as DXF TEXT entities in a font. */
-  text: z.enum(['outline', 'font'], { error: 'Text must be "outline" (letters drawn as shapes) or "font" (DXF text entities)' }).default('outline'),
+  text: z
+    .enum(['outline', 'font'], {
+      error: 'Text must be "outline" (letters drawn as shapes) or "font" (DXF text entities)',
+    })
+    .default('outline'),
 })

@@ -6,7 +6,11 @@ import { safeText } from './text'
 
 export const INVITATION_DAYS = 7
 
-const email = safeText(undefined, 'E-mail').trim().toLowerCase().max(254, 'E-mail is at most 254 characters').email('Enter an e-mail address')
+const email = safeText(undefined, 'E-mail')
+  .trim()
+  .toLowerCase()
+  .max(254, 'E-mail is at most 254 characters')
+  .email('Enter an e-mail address')
 
 /** An admin invites an address with a role. */
 export const invitationCreate = z.object({ email, role: z.enum(ROLES, 'Choose a role') })
@@ -16,7 +20,10 @@ export const invitationParams = labParams.extend({ invitationId: z.uuid('Invitat
 
 /** The secret in the link: 32 random bytes, base64url. */
 export const invitationTokenParams = z.object({
-  token: safeText(undefined, 'Invitation link').regex(/^[A-Za-z0-9_-]{43}$/, 'This invitation link is not valid: copy the whole link from the e-mail'),
+  token: safeText(undefined, 'Invitation link').regex(
+    /^[A-Za-z0-9_-]{43}$/,
+    'This invitation link is not valid: copy the whole link from the e-mail',
+  ),
 })
 
 /** The account created when someone without one accepts: the password follows the policy in ./auth. */

@@ -36,39 +36,60 @@ function normalise(text: string): string {
 export function extraQuantity(kind: Extra) {
   const info = EXTRA[kind]
   return z.union([z.number(), z.string().max(100, 'a quantity is at most 100 characters')]).transform((input, ctx) => {
-    const fail = (message: string) => { ctx.addIssue({ code: 'custom', message }); return z.NEVER }
+    const fail = (message: string) => {
+      ctx.addIssue({ code: 'custom', message })
+      return z.NEVER
+    }
     let value: number
     if (typeof input === 'number') value = input
     else {
       const broken = textProblem(input)
       if (broken) return fail(`a quantity ${broken}`)
-      if (/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(input.trim())) return fail(`"${input}" has no unit; write it with one, e.g. "${info.example}"`)
+      if (/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(input.trim()))
+        return fail(`"${input}" has no unit; write it with one, e.g. "${info.example}"`)
       try {
         const parsed = mathUnit(normalise(input))
-        if (!parsed.equalBase(mathUnit(`1 ${info.si}`))) return fail(`"${input}" is not a ${kind}; use a unit such as "${info.example}"`)
+        if (!parsed.equalBase(mathUnit(`1 ${info.si}`)))
+          return fail(`"${input}" is not a ${kind}; use a unit such as "${info.example}"`)
         value = parsed.toNumber(info.si)
       } catch {
         return fail(`"${input}" is not a quantity; write a ${kind} such as "${info.example}"`)
       }
     }
-    if (!Number.isFinite(value) || value < info.min || value > info.max) return fail(`must be between ${info.shown} (got ${JSON.stringify(input)})`)
+    if (!Number.isFinite(value) || value < info.min || value > info.max)
+      return fail(`must be between ${info.shown} (got ${JSON.stringify(input)})`)
     return value
   })
 }
 
 const range = (what: 'volumeFlow' | 'pressure', name: string) =>
-  z.tuple([quantityField(what), quantityField(what)]).refine(([a, b]) => a < b, `${name}: give [low, high] with low < high`)
+  z
+    .tuple([quantityField(what), quantityField(what)])
+    .refine(([a, b]) => a < b, `${name}: give [low, high] with low < high`)
 
 const count = (what: string, min = 1) =>
-  z.number().int(`${what} is a whole number`).min(min, `${what} must be at least ${min}`).max(PLAN_LIMITS.count, `${what} is at most ${PLAN_LIMITS.count}`)
+  z
+    .number()
+    .int(`${what} is a whole number`)
+    .min(min, `${what} must be at least ${min}`)
+    .max(PLAN_LIMITS.count, `${what} is at most ${PLAN_LIMITS.count}`)
 
-export const planTarget = z.strictObject({
-  dropletDiameter: quantityField('length').optional(),
-  dropletVolume: extraQuantity('volume').optional(),
-  /** Relative tolerance on the diameter, e.g. 0.05 for ± 5 %. */
-  tolerance: z.number().gt(0, 'tolerance is a fraction > 0, e.g. 0.05 for ± 5 %').max(0.5, 'tolerance is at most 0.5 (± 50 %)').default(0.05),
-  minFrequency: extraQuantity('frequency').optional(),
-}).refine((t) => (t.dropletDiameter === undefined) !== (t.dropletVolume === undefined), 'give exactly one of "dropletDiameter" (e.g. "40 um") or "dropletVolume" (e.g. "33 pL")')
+export const planTarget = z
+  .strictObject({
+    dropletDiameter: quantityField('length').optional(),
+    dropletVolume: extraQuantity('volume').optional(),
+    /** Relative tolerance on the diameter, e.g. 0.05 for ± 5 %. */
+    tolerance: z
+      .number()
+      .gt(0, 'tolerance is a fraction > 0, e.g. 0.05 for ± 5 %')
+      .max(0.5, 'tolerance is at most 0.5 (± 50 %)')
+      .default(0.05),
+    minFrequency: extraQuantity('frequency').optional(),
+  })
+  .refine(
+    t => (t.dropletDiameter === undefined) !== (t.dropletVolume === undefined),
+    'give exactly one of "dropletDiameter" (e.g. "40 um") or "dropletVolume" (e.g. "33 pL")',
+  )
 
 export const planSearch = z.strictObject({
   continuous: range('volumeFlow', 'search.continuous').optional(),
@@ -76,37 +97,72 @@ export const planSearch = z.strictObject({
   continuousPressure: range('pressure', 'search.continuousPressure').optional(),
   dispersedPressure: range('pressure', 'search.dispersedPressure').optional(),
   /** Grid points along each axis. */
-  points: z.number().int('search.points is a whole number')
+  points: z
+    .number()
+    .int('search.points is a whole number')
     .min(PLAN_LIMITS.pointsPerAxis.min, `search.points must be at least ${PLAN_LIMITS.pointsPerAxis.min}`)
-    .max(PLAN_LIMITS.pointsPerAxis.max, `search.points is at most ${PLAN_LIMITS.pointsPerAxis.max} (a ${PLAN_LIMITS.pointsPerAxis.max} × ${PLAN_LIMITS.pointsPerAxis.max} grid)`).optional(),
+    .max(
+      PLAN_LIMITS.pointsPerAxis.max,
+      `search.points is at most ${PLAN_LIMITS.pointsPerAxis.max} (a ${PLAN_LIMITS.pointsPerAxis.max} × ${PLAN_LIMITS.pointsPerAxis.max} grid)`,
+    )
+    .optional(),
 })
 
 export const planEncapsulation = z.strictObject({
   concentration: extraQuantity('concentration'),
   /** Mean cells (or beads) per droplet wanted; default 0.1 (about one loaded drop in ten). */
-  targetLambda: z.number().gt(0, 'targetLambda must be > 0, e.g. 0.1').max(100, 'targetLambda is at most 100').optional(),
+  targetLambda: z
+    .number()
+    .gt(0, 'targetLambda must be > 0, e.g. 0.1')
+    .max(100, 'targetLambda is at most 100')
+    .optional(),
 })
 
-export const planDigital = z.strictObject({
-  partitions: count('digital.partitions'),
-  positives: z.number().int('digital.positives is a whole number').min(0, 'digital.positives must be ≥ 0').optional(),
-  confidence: z.number().gt(0.5, 'digital.confidence is a fraction such as 0.95').lt(1, 'digital.confidence must be < 1').optional(),
-}).refine((d) => d.positives === undefined || d.positives <= d.partitions, { message: 'digital.positives cannot exceed digital.partitions', path: ['positives'] })
+export const planDigital = z
+  .strictObject({
+    partitions: count('digital.partitions'),
+    positives: z.number().int('digital.positives is a whole number').min(0, 'digital.positives must be ≥ 0').optional(),
+    confidence: z
+      .number()
+      .gt(0.5, 'digital.confidence is a fraction such as 0.95')
+      .lt(1, 'digital.confidence must be < 1')
+      .optional(),
+  })
+  .refine(d => d.positives === undefined || d.positives <= d.partitions, {
+    message: 'digital.positives cannot exceed digital.partitions',
+    path: ['positives'],
+  })
 
-export const planRun = z.strictObject({
-  droplets: count('run.droplets').optional(),
-  minutes: z.number().gt(0, 'run.minutes must be > 0').max(PLAN_LIMITS.minutes, `run.minutes is at most ${PLAN_LIMITS.minutes}`).optional(),
-}).refine((r) => (r.droplets === undefined) !== (r.minutes === undefined), 'give exactly one of "droplets" (a count) or "minutes"')
+export const planRun = z
+  .strictObject({
+    droplets: count('run.droplets').optional(),
+    minutes: z
+      .number()
+      .gt(0, 'run.minutes must be > 0')
+      .max(PLAN_LIMITS.minutes, `run.minutes is at most ${PLAN_LIMITS.minutes}`)
+      .optional(),
+  })
+  .refine(
+    r => (r.droplets === undefined) !== (r.minutes === undefined),
+    'give exactly one of "droplets" (a count) or "minutes"',
+  )
 
 /** A built-in process or a lab's own ("lab-…"); which lab processes exist is the planner's to check (it is given them). */
-const processId = safeText().max(64).refine((id) => BUILT_IN_PROCESSES.some((p) => p.id === id) || LAB_PROCESS_ID.test(id), {
-  message: `use one of the fabrication processes ${BUILT_IN_PROCESSES.map((p) => `"${p.id}"`).join(', ')} or one of your lab's ("lab-…")`,
-})
+const processId = safeText()
+  .max(64)
+  .refine(id => BUILT_IN_PROCESSES.some(p => p.id === id) || LAB_PROCESS_ID.test(id), {
+    message: `use one of the fabrication processes ${BUILT_IN_PROCESSES.map(p => `"${p.id}"`).join(', ')} or one of your lab's ("lab-…")`,
+  })
 
 const planQuestions = {
   target: planTarget,
   search: planSearch.optional(),
-  limits: z.strictObject({ bondPressure: quantityField('pressure').optional(), pumpPressure: quantityField('pressure').optional() }).optional(),
+  limits: z
+    .strictObject({
+      bondPressure: quantityField('pressure').optional(),
+      pumpPressure: quantityField('pressure').optional(),
+    })
+    .optional(),
   process: processId.optional(),
   encapsulation: planEncapsulation.optional(),
   digital: planDigital.optional(),
@@ -120,7 +176,10 @@ export type PlanJunctionRequest = z.output<typeof planJunctionRequest>
 /** A chip document and the junction to plan (default its first); the operating point to start from (default the active one). */
 export const planDocumentRequest = z.strictObject({
   document: z.unknown(),
-  operatingPoint: safeText().min(1, 'name an operating point id or leave "operatingPoint" out for the active one').max(64).optional(),
+  operatingPoint: safeText()
+    .min(1, 'name an operating point id or leave "operatingPoint" out for the active one')
+    .max(64)
+    .optional(),
   junctionId: safeText().min(1, 'name a junction id of the document, e.g. "tj-1"').max(96).optional(),
   ...planQuestions,
 })

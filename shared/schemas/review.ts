@@ -5,12 +5,21 @@ import { safeText } from './text'
 
 export const threadParams = labParams.extend({ revisionId: z.uuid(), threadId: z.uuid('Thread id must be a UUID') })
 
-const body = safeText(undefined, 'Comment').trim().min(1, 'Write a comment').max(5000, 'A comment is at most 5000 characters')
+const body = safeText(undefined, 'Comment')
+  .trim()
+  .min(1, 'Write a comment')
+  .max(5000, 'A comment is at most 5000 characters')
 const micrometres = z.number().finite('A pin position must be a finite number of µm').min(-1e6).max(1e6)
 
-export const reviewRequestBody = z.object({ reviewerIds: z.array(z.uuid()).min(1, 'Choose at least one reviewer').max(20) })
+export const reviewRequestBody = z.object({
+  reviewerIds: z.array(z.uuid()).min(1, 'Choose at least one reviewer').max(20),
+})
 export const threadCreate = z.object({
-  anchor: z.object({ x: micrometres, y: micrometres, elementId: safeText().max(100, 'An element id is at most 100 characters').optional() }),
+  anchor: z.object({
+    x: micrometres,
+    y: micrometres,
+    elementId: safeText().max(100, 'An element id is at most 100 characters').optional(),
+  }),
   body,
 })
 export const commentCreate = z.object({ body })

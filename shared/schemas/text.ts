@@ -13,8 +13,10 @@ export function textProblem(s: string): string | null {
   if (nul >= 0) return `must not contain a NUL character (U+0000, at character ${nul + 1}): remove it`
   const lone = LONE_SURROGATE.exec(s)
   if (lone) {
-    return `contains a broken character (a lone UTF-16 surrogate ${hex(lone[0].charCodeAt(0))} at character ${lone.index + 1}): ` +
+    return (
+      `contains a broken character (a lone UTF-16 surrogate ${hex(lone[0].charCodeAt(0))} at character ${lone.index + 1}): ` +
       'the text was cut or mis-encoded; type it again'
+    )
   }
   return null
 }

@@ -8,7 +8,10 @@ export const TOKEN_NAME_MAX = 80
 export const TOKENS_PER_PERSON = 20
 
 export const tokenCreate = z.object({
-  name: safeText(undefined, 'Token name').trim().min(1, 'Give the token a name, e.g. "sweep script"').max(TOKEN_NAME_MAX, `Token name is at most ${TOKEN_NAME_MAX} characters`),
+  name: safeText(undefined, 'Token name')
+    .trim()
+    .min(1, 'Give the token a name, e.g. "sweep script"')
+    .max(TOKEN_NAME_MAX, `Token name is at most ${TOKEN_NAME_MAX} characters`),
   labId: z.uuid('Choose the lab the token works in'),
   role: z.enum(ROLES, { error: `Role must be one of ${ROLES.join(', ')}` }),
 })

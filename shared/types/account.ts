@@ -1,6 +1,16 @@
 /** What a password reset link offers, for the page that opens it. */
-export interface PasswordResetInfo { email: string, name: string, expiresAt: string }
+export interface PasswordResetInfo {
+  email: string
+  name: string
+  expiresAt: string
+}
 
-export interface PasswordChanged { otherSessionsEnded: number }
-export interface SignedOutEverywhere { sessionsEnded: number }
-export interface PasswordResetDone { sessionsEnded: number }
+export interface PasswordChanged {
+  otherSessionsEnded: number
+}
+export interface SignedOutEverywhere {
+  sessionsEnded: number
+}
+export interface PasswordResetDone {
+  sessionsEnded: number
+}

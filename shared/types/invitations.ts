@@ -22,4 +22,8 @@ export interface InvitationInfo {
   hasAccount: boolean
 }
 
-export interface InvitationAccepted { labId: string, role: Role, newAccount: boolean }
+export interface InvitationAccepted {
+  labId: string
+  role: Role
+  newAccount: boolean
+}

@@ -15,4 +15,6 @@ export interface ApiTokenInfo {
 }
 
 /** The answer to creating a token: the only time the token itself is shown. */
-export interface NewApiToken extends ApiTokenInfo { token: string }
+export interface NewApiToken extends ApiTokenInfo {
+  token: string
+}

@@ -13,7 +13,8 @@ export const JUNCTION_KIND_LABELS: Record<JunctionKind, string> = {
   'y-junction': 'Y-junction',
 }
 
-export const isJunctionKind = (kind: string): kind is JunctionKind => (JUNCTION_KINDS as readonly string[]).includes(kind)
+export const isJunctionKind = (kind: string): kind is JunctionKind =>
+  (JUNCTION_KINDS as readonly string[]).includes(kind)
 
 /** A kind's label; `inline` lower-cases it for the middle of a sentence (T- and Y-junction keep their capital). */
 export function kindLabel(kind: string, style: 'start' | 'inline' = 'start'): string {

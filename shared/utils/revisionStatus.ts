@@ -4,11 +4,11 @@ export const REVISION_STATUSES = ['draft', 'in-review', 'changes-requested', 'ap
 export type RevisionStatus = (typeof REVISION_STATUSES)[number]
 
 export const REVISION_STATUS_LABELS: Record<RevisionStatus, string> = {
-  'draft': 'Draft',
+  draft: 'Draft',
   'in-review': 'In review',
   'changes-requested': 'Changes requested',
-  'approved': 'Approved',
-  'released': 'Released',
+  approved: 'Approved',
+  released: 'Released',
 }
 
 /** Statuses in which a reviewer may still give a verdict (everything under review, not a draft, not released). */

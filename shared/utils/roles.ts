@@ -33,7 +33,17 @@ export type Permission = (typeof PERMISSIONS)[number]
 const everyoneInLab: Permission[] = ['lab:view', 'members:view', 'designs:view', 'released:view', 'forecast:run']
 
 export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
-  admin: [...everyoneInLab, 'members:manage', 'designs:edit', 'designs:archive', 'review:comment', 'review:verdict', 'release:manage', 'measurements:record', 'libraries:manage'],
+  admin: [
+    ...everyoneInLab,
+    'members:manage',
+    'designs:edit',
+    'designs:archive',
+    'review:comment',
+    'review:verdict',
+    'release:manage',
+    'measurements:record',
+    'libraries:manage',
+  ],
   designer: [...everyoneInLab, 'designs:edit', 'designs:archive', 'review:comment', 'measurements:record'],
   reviewer: [...everyoneInLab, 'review:comment', 'review:verdict'],
   experimenter: [...everyoneInLab, 'designs:edit', 'measurements:record'],
@@ -46,7 +56,11 @@ export function can(role: Role | null | undefined, permission: Permission): bool
 }
 
 /** Archive or restore a design: with 'designs:archive' any of the lab's, with 'designs:edit' only one you created. */
-export function canArchive(role: Role | null | undefined, userId: string | null | undefined, createdBy: string): boolean {
+export function canArchive(
+  role: Role | null | undefined,
+  userId: string | null | undefined,
+  createdBy: string,
+): boolean {
   return can(role, 'designs:archive') || (can(role, 'designs:edit') && userId != null && userId === createdBy)
 }
 
@@ -58,15 +72,15 @@ export const PERMISSION_LABELS: Record<Permission, string> = {
   'lab:view': 'Open the lab',
   'members:view': 'See who is in the lab',
   'members:manage': 'Invite people, change roles, remove members',
-  'designs:view': 'Open the lab\'s designs and revisions',
+  'designs:view': "Open the lab's designs and revisions",
   'designs:edit': 'Create designs and save revisions',
-  'designs:archive': 'Archive or restore any of the lab\'s designs',
+  'designs:archive': "Archive or restore any of the lab's designs",
   'review:comment': 'Comment on revisions',
   'review:verdict': 'Approve revisions or request changes',
   'release:manage': 'Release approved revisions to fabrication',
   'released:view': 'Open released revisions, masks and fab sheets',
   'fabrication:report': 'Report order status and as-built sizes',
   'measurements:record': 'Record measured droplet sizes',
-  'libraries:manage': 'Edit the lab\'s liquids and fabrication processes',
+  'libraries:manage': "Edit the lab's liquids and fabrication processes",
   'forecast:run': 'Run forecasts and sweeps',
 }

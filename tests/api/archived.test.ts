@@ -25,17 +25,25 @@ beforeAll(async () => {
 }, 120_000)
 
 describe('an archived design is read-only', () => {
-  const refused = () => [
-    ['pin a comment', ctx.as.designer.post(`${rev}/threads`, { anchor: { x: 1, y: 1 }, body: 'after' })],
-    ['reply', ctx.as.designer.post(`${rev}/threads/${threadId}/comments`, { body: 'after' })],
-    ['resolve a thread', ctx.as.designer.patch(`${rev}/threads/${threadId}`, { resolved: true })],
-    ['request review', ctx.as.designer.post(`${rev}/review-requests`, { reviewerIds: [ctx.ids.reviewer] })],
-    ['verdict', ctx.as.reviewer.post(`${rev}/verdicts`, { verdict: 'request-changes', note: 'late' })],
-    ['release', ctx.as.admin.post(`${rev}/release`, { note: 'late' })],
-    ['DXF download', ctx.as.designer.get(`${rev}/dxf`)],
-    ['save a revision', ctx.as.designer.post(`${design}/revisions`, { parentId: ctx.revisionId, message: 'late', document: fixtureDocument() })],
-    ['rename', ctx.as.designer.patch(design, { name: 'Renamed while archived' })],
-  ] as const
+  const refused = () =>
+    [
+      ['pin a comment', ctx.as.designer.post(`${rev}/threads`, { anchor: { x: 1, y: 1 }, body: 'after' })],
+      ['reply', ctx.as.designer.post(`${rev}/threads/${threadId}/comments`, { body: 'after' })],
+      ['resolve a thread', ctx.as.designer.patch(`${rev}/threads/${threadId}`, { resolved: true })],
+      ['request review', ctx.as.designer.post(`${rev}/review-requests`, { reviewerIds: [ctx.ids.reviewer] })],
+      ['verdict', ctx.as.reviewer.post(`${rev}/verdicts`, { verdict: 'request-changes', note: 'late' })],
+      ['release', ctx.as.admin.post(`${rev}/release`, { note: 'late' })],
+      ['DXF download', ctx.as.designer.get(`${rev}/dxf`)],
+      [
+        'save a revision',
+        ctx.as.designer.post(`${design}/revisions`, {
+          parentId: ctx.revisionId,
+          message: 'late',
+          document: fixtureDocument(),
+        }),
+      ],
+      ['rename', ctx.as.designer.patch(design, { name: 'Renamed while archived' })],
+    ] as const
 
   it('refuses every change and the mask download with 409 saying to restore it first', async () => {
     for (const [what, pending] of refused()) {
@@ -57,7 +65,9 @@ describe('an archived design is read-only', () => {
     // A duplicate changes nothing on the archived design: reviving an old design that worked is what it is for.
     const copy = await ctx.as.experimenter.post(`${rev}/duplicate`, { targetLabId: ctx.lab.id, name: 'Revived copy' })
     expect(copy.status, JSON.stringify(copy.json)).toBeLessThan(300)
-    expect((await ctx.as.experimenter.get(`/api/labs/${ctx.lab.id}/designs/${copy.json.designId}`)).json.design.archived).toBe(false)
+    expect(
+      (await ctx.as.experimenter.get(`/api/labs/${ctx.lab.id}/designs/${copy.json.designId}`)).json.design.archived,
+    ).toBe(false)
   })
 
   it('takes comments and serves its DXF again once restored', async () => {
@@ -70,7 +80,7 @@ describe('an archived design is read-only', () => {
 })
 
 describe('who may archive', () => {
-  it('an experimenter may archive and restore a design they created, not anyone else\'s', async () => {
+  it("an experimenter may archive and restore a design they created, not anyone else's", async () => {
     const { as, lab, designId } = await labWithDesign() // created by the designer
     const others = `/api/labs/${lab.id}/designs/${designId}`
     const denied = await as.experimenter.patch(others, { archived: true })
@@ -80,7 +90,10 @@ describe('who may archive', () => {
     // Renaming stays with designs:edit.
     expect((await as.experimenter.patch(others, { name: 'Renamed by the experimenter' })).status).toBe(200)
 
-    const mine = await as.experimenter.post(`/api/labs/${lab.id}/designs`, { name: 'Bench copy', document: fixtureDocument() })
+    const mine = await as.experimenter.post(`/api/labs/${lab.id}/designs`, {
+      name: 'Bench copy',
+      document: fixtureDocument(),
+    })
     expect(mine.status).toBe(201)
     const own = `/api/labs/${lab.id}/designs/${mine.json.designId}`
     expect((await as.experimenter.patch(own, { archived: true })).status).toBe(200)
@@ -91,7 +104,7 @@ describe('who may archive', () => {
     expect((await as.reviewer.patch(own, { archived: true })).status).toBe(403)
   })
 
-  it('the design detail names its creator\'s id, which the page\'s archive button checks with canArchive', async () => {
+  it("the design detail names its creator's id, which the page's archive button checks with canArchive", async () => {
     const { as, lab, designId, ids } = await labWithDesign()
     const detail = (await as.experimenter.get(`/api/labs/${lab.id}/designs/${designId}`)).json
     expect(detail.design.createdById).toBe(ids.designer)

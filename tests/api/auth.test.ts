@@ -8,8 +8,10 @@ describe('sign-in and sessions (real server, real PostgreSQL)', () => {
     const session = await api.get('/api/auth/session')
     expect(session.status).toBe(200)
     expect(session.json.user.email).toBe('designer@quillmere.example')
-    expect(session.json.memberships.map((m: { slug: string, role: string }) => `${m.slug}:${m.role}`).sort())
-      .toEqual(['orrin-valley:reviewer', 'quillmere:designer'])
+    expect(session.json.memberships.map((m: { slug: string; role: string }) => `${m.slug}:${m.role}`).sort()).toEqual([
+      'orrin-valley:reviewer',
+      'quillmere:designer',
+    ])
   })
 
   it('keeps the credential in an httpOnly SameSite cookie', async () => {
@@ -32,9 +34,12 @@ describe('sign-in and sessions (real server, real PostgreSQL)', () => {
   })
 
   it('throttles repeated failures for one e-mail, even with the right password after', async () => {
-    const { people: [person] } = await makeLab(['designer'])
+    const {
+      people: [person],
+    } = await makeLab(['designer'])
     const api = new ApiClient()
-    for (let i = 0; i < 5; i++) expect((await api.post('/api/auth/login', { email: person!.email, password: 'wrong' })).status).toBe(401)
+    for (let i = 0; i < 5; i++)
+      expect((await api.post('/api/auth/login', { email: person!.email, password: 'wrong' })).status).toBe(401)
     const blocked = await api.post('/api/auth/login', { email: person!.email, password: TEST_PASSWORD })
     expect(blocked.status).toBe(429)
     expect(blocked.json.message).toMatch(/Too many failed sign-ins/)
@@ -58,7 +63,9 @@ describe('sign-in and sessions (real server, real PostgreSQL)', () => {
     const { inject } = await import('vitest')
     const client = new pg.default.Client({ connectionString: inject('databaseUrl') })
     await client.connect()
-    await client.query(`update sessions set expires_at = now() - interval '1 second' where token_hash = $1`, [createHash('sha256').update(token).digest('hex')])
+    await client.query(`update sessions set expires_at = now() - interval '1 second' where token_hash = $1`, [
+      createHash('sha256').update(token).digest('hex'),
+    ])
     await client.end()
     expect((await api.get('/api/auth/session')).status).toBe(401)
     expect((await api.get('/api/labs')).status).toBe(401)
@@ -69,7 +76,9 @@ describe('sign-in and sessions (real server, real PostgreSQL)', () => {
     const res = await api.post('/api/auth/login', { email: 42 })
     expect(res.status).toBe(400)
     expect(res.json.data.issues.map((i: { path: string }) => i.path).sort()).toEqual(['email', 'password'])
-    const notJson = await api.request('POST', '/api/auth/login', '{"email":', { headers: { 'content-type': 'application/json' } })
+    const notJson = await api.request('POST', '/api/auth/login', '{"email":', {
+      headers: { 'content-type': 'application/json' },
+    })
     expect(notJson.status).toBe(400)
     const long = await api.post('/api/auth/login', { email: `${'x'.repeat(300)}@a.example`, password: 'p' })
     expect(long.status).toBe(400)
@@ -77,7 +86,13 @@ describe('sign-in and sessions (real server, real PostgreSQL)', () => {
 
   it('answers 401 to every API route without a session', async () => {
     const api = new ApiClient()
-    for (const [method, path] of [['GET', '/api/auth/session'], ['GET', '/api/labs'], ['GET', '/api/labs/8f27fa87-b6bd-47d9-a2cc-3643ca281458/members'], ['POST', '/api/auth/logout'], ['GET', '/api/not-a-route']] as const) {
+    for (const [method, path] of [
+      ['GET', '/api/auth/session'],
+      ['GET', '/api/labs'],
+      ['GET', '/api/labs/8f27fa87-b6bd-47d9-a2cc-3643ca281458/members'],
+      ['POST', '/api/auth/logout'],
+      ['GET', '/api/not-a-route'],
+    ] as const) {
       expect((await api.request(method, path)).status, `${method} ${path}`).toBe(401)
     }
   })

@@ -17,21 +17,32 @@ function withDb(url: string) {
   return async <T>(fn: (client: pg.Client) => Promise<T>) => {
     const client = new pg.Client({ connectionString: url })
     await client.connect()
-    try { return await fn(client) } finally { await client.end() }
+    try {
+      return await fn(client)
+    } finally {
+      await client.end()
+    }
   }
 }
 
-const urlFor = (base: string, name: string) => { const u = new URL(base); u.pathname = `/${name}`; return u.toString() }
+const urlFor = (base: string, name: string) => {
+  const u = new URL(base)
+  u.pathname = `/${name}`
+  return u.toString()
+}
 
 /** Row count of every table (all schemas, the migrations journal included) and a checksum of every revision. */
 async function fingerprint(url: string) {
-  return withDb(url)(async (c) => {
+  return withDb(url)(async c => {
     const { rows: tables } = await c.query<{ name: string }>(
       `select format('%I.%I', schemaname, tablename) as name from pg_tables
-        where schemaname not in ('pg_catalog', 'information_schema') order by 1`)
+        where schemaname not in ('pg_catalog', 'information_schema') order by 1`,
+    )
     const counts: Record<string, number> = {}
     for (const { name } of tables) counts[name] = Number((await c.query(`select count(*) from ${name}`)).rows[0].count)
-    const { rows: [sums] } = await c.query(`
+    const {
+      rows: [sums],
+    } = await c.query(`
       select md5(coalesce(string_agg(id::text || ':' || document::text, ',' order by id), '')) as documents,
              md5(coalesce(string_agg(id::text || ':' || summary::text, ',' order by id), '')) as summaries
         from revisions`)
@@ -67,11 +78,15 @@ describe('backup and restore (pg_dump custom format)', () => {
     expect(restored.summaries).toBe(before.summaries)
 
     // The restored database keeps its guards: revisions stay immutable there too.
-    await withDb(urlFor(databaseUrl, scratch))(async (c) => {
-      await expect(c.query(`update revisions set message = 'changed' where id = (select id from revisions limit 1)`)).rejects.toThrow(/immutable/)
+    await withDb(urlFor(databaseUrl, scratch))(async c => {
+      await expect(
+        c.query(`update revisions set message = 'changed' where id = (select id from revisions limit 1)`),
+      ).rejects.toThrow(/immutable/)
     })
     // A second restore into a database that now holds tables refuses without --replace and leaves it as it was.
-    const refused = await run('bash', ['scripts/db-restore.sh', file, scratch], { cwd: root, env }).catch((e: { code: number, stderr: string }) => e)
+    const refused = await run('bash', ['scripts/db-restore.sh', file, scratch], { cwd: root, env }).catch(
+      (e: { code: number; stderr: string }) => e,
+    )
     expect(refused).toMatchObject({ code: 1, stderr: expect.stringMatching(/already holds \d+ tables: add --replace/) })
     await run('bash', ['scripts/db-restore.sh', file, scratch, '--replace'], { cwd: root, env })
     expect((await fingerprint(urlFor(databaseUrl, scratch))).counts).toEqual(before.counts)
@@ -80,12 +95,20 @@ describe('backup and restore (pg_dump custom format)', () => {
 
 describe('revisions cannot be wiped', () => {
   // Inside a transaction that is always rolled back, so a missing trigger cannot empty the test database.
-  const tryAsAppUser = (statement: string) => withDb(inject('databaseUrl'))(async (c) => {
-    await c.query('begin')
-    try { await c.query(statement); return null } catch (e) { return e as Error } finally { await c.query('rollback') }
-  })
+  const tryAsAppUser = (statement: string) =>
+    withDb(inject('databaseUrl'))(async c => {
+      await c.query('begin')
+      try {
+        await c.query(statement)
+        return null
+      } catch (e) {
+        return e as Error
+      } finally {
+        await c.query('rollback')
+      }
+    })
 
-  it('TRUNCATE revisions fails with the trigger\'s message', async () => {
+  it("TRUNCATE revisions fails with the trigger's message", async () => {
     const error = await tryAsAppUser('truncate revisions cascade')
     expect(error?.message).toMatch(/revisions are immutable and cannot be truncated/)
   })

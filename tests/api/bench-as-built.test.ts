@@ -4,7 +4,12 @@ import { describe, expect, it } from 'vitest'
 import { labWithDesign } from '../support/designs'
 import { releasedOrder } from '../support/orders'
 
-const typed = (extra: Record<string, unknown> = {}) => ({ source: 'typed', values: [48, 50, 52], operatingPointId: 'op-1', ...extra })
+const typed = (extra: Record<string, unknown> = {}) => ({
+  source: 'typed',
+  values: [48, 50, 52],
+  operatingPointId: 'op-1',
+  ...extra,
+})
 
 describe('bench runs on the as-built chip', () => {
   it('forecast on the as-built chip by default once one is reported, as drawn on request, and say which', async () => {
@@ -14,7 +19,12 @@ describe('bench runs on the as-built chip', () => {
 
     const drawn = await c.as.experimenter.post(runs, typed())
     expect(drawn.status, JSON.stringify(drawn.json)).toBe(201)
-    expect(drawn.json.predicted.chip).toEqual({ basis: 'as-drawn', asBuiltId: null, reportedAt: null, benchSizes: false })
+    expect(drawn.json.predicted.chip).toEqual({
+      basis: 'as-drawn',
+      asBuiltId: null,
+      reportedAt: null,
+      benchSizes: false,
+    })
     expect(drawn.json.predicted.depthUm).toBeCloseTo(50, 9)
     expect((await c.as.experimenter.get(runs)).json.asBuilt).toBeNull()
     // Asking for an as-built chip that nobody reported is refused, naming why; nothing is recorded.
@@ -25,7 +35,9 @@ describe('bench runs on the as-built chip', () => {
     expect((await c.as.experimenter.get(runs)).json.runs).toHaveLength(1)
 
     // The fab measured the 50 µm layer at 40 µm.
-    const report = await c.as.fabricator.post(`/api/labs/${c.lab.id}/revisions/${revisionId}/as-built`, { depths: [{ layerId: 'ch50', depthUm: 40 }] })
+    const report = await c.as.fabricator.post(`/api/labs/${c.lab.id}/revisions/${revisionId}/as-built`, {
+      depths: [{ layerId: 'ch50', depthUm: 40 }],
+    })
     expect(report.status, JSON.stringify(report.json)).toBe(201)
     const list = (await c.as.experimenter.get(runs)).json
     expect(list.asBuilt).toMatchObject({ id: report.json.asBuiltId, depths: [{ layerId: 'ch50', depthUm: 40 }] })
@@ -33,7 +45,11 @@ describe('bench runs on the as-built chip', () => {
 
     const built = await c.as.experimenter.post(runs, typed())
     expect(built.status, JSON.stringify(built.json)).toBe(201)
-    expect(built.json.predicted.chip).toMatchObject({ basis: 'as-built', asBuiltId: report.json.asBuiltId, benchSizes: false })
+    expect(built.json.predicted.chip).toMatchObject({
+      basis: 'as-built',
+      asBuiltId: report.json.asBuiltId,
+      benchSizes: false,
+    })
     expect(built.json.predicted.depthUm).toBeCloseTo(40, 9)
     // A squeezing plug fills the channel's cross-section: a shallower channel makes a smaller drop at the same flows.
     expect(built.json.predicted.diameterUm).toBeLessThan(drawn.json.predicted.diameterUm)

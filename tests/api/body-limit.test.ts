@@ -14,14 +14,32 @@ const MiB = 1024 * 1024
 const DOCUMENT_LIMIT = 8 * MiB
 const SMALL_LIMIT = 64 * 1024
 
-interface Upload { status: number, json: any, sentAtAnswer: number, uploadDone: boolean, ms: number }
+interface Upload {
+  status: number
+  json: any
+  sentAtAnswer: number
+  uploadDone: boolean
+  ms: number
+}
 
 /**
  * Sends `total` bytes (`head`, spaces, `tail`) to `path`, chunked or with a Content-Length, in 1 MiB writes that
  * wait for the socket; stops sending as soon as an answer arrives and reports how much had been sent by then.
  * `hold` sends `total` bytes and then waits for the answer without ending the body.
  */
-function upload(base: string, path: string, opts: { cookie: string, total: number, head?: string, tail?: string, chunked: boolean, declared?: number, hold?: boolean }): Promise<Upload> {
+function upload(
+  base: string,
+  path: string,
+  opts: {
+    cookie: string
+    total: number
+    head?: string
+    tail?: string
+    chunked: boolean
+    declared?: number
+    hold?: boolean
+  },
+): Promise<Upload> {
   const head = Buffer.from(opts.head ?? '')
   const tail = Buffer.from(opts.tail ?? '')
   const headers: Record<string, string> = { 'content-type': 'application/json', cookie: opts.cookie }
@@ -32,27 +50,39 @@ function upload(base: string, path: string, opts: { cookie: string, total: numbe
     let answered = false
     let uploadDone = false
     let wake = () => {}
-    const req = httpRequest(new URL(path, base), { method: 'POST', headers }, (res) => {
+    const req = httpRequest(new URL(path, base), { method: 'POST', headers }, res => {
       answered = true
       const sentAtAnswer = sent
       const doneAtAnswer = uploadDone
       wake()
       let text = ''
       res.setEncoding('utf8')
-      res.on('data', (d) => { text += d })
+      res.on('data', d => {
+        text += d
+      })
       res.on('end', () => {
         let json: any = text
-        try { json = JSON.parse(text) } catch { /* not JSON */ }
+        try {
+          json = JSON.parse(text)
+        } catch {
+          /* not JSON */
+        }
         if (!uploadDone) req.destroy()
         resolve({ status: res.statusCode!, json, sentAtAnswer, uploadDone: doneAtAnswer, ms: Date.now() - started })
       })
     })
-    req.on('error', (error) => { if (!answered) reject(error) })
+    req.on('error', error => {
+      if (!answered) reject(error)
+    })
     const spaces = Buffer.alloc(MiB, 0x20)
     void (async () => {
       const write = async (chunk: Buffer) => {
         sent += chunk.length
-        if (!req.write(chunk)) await new Promise<void>((r) => { wake = r; req.once('drain', r) })
+        if (!req.write(chunk))
+          await new Promise<void>(r => {
+            wake = r
+            req.once('drain', r)
+          })
       }
       await write(head)
       let left = opts.total - head.length - tail.length
@@ -85,10 +115,22 @@ describe('body limits counted on the stream', () => {
     const how = chunked ? 'chunked' : 'with Content-Length'
     it(`a document route (forecast, 8 MiB) takes exactly 8 MiB and refuses one byte more, ${how}`, async () => {
       const base = inject('baseURL')
-      const under = await upload(base, '/api/v1/forecast', { cookie, chunked, total: DOCUMENT_LIMIT, head: forecast.slice(0, -1), tail: '}' })
+      const under = await upload(base, '/api/v1/forecast', {
+        cookie,
+        chunked,
+        total: DOCUMENT_LIMIT,
+        head: forecast.slice(0, -1),
+        tail: '}',
+      })
       expect(under.status, JSON.stringify(under.json).slice(0, 300)).toBe(200)
       expect(under.json.dropletDiameter).toBeDefined()
-      const over = await upload(base, '/api/v1/forecast', { cookie, chunked, total: DOCUMENT_LIMIT + 1, head: forecast.slice(0, -1), tail: '}' })
+      const over = await upload(base, '/api/v1/forecast', {
+        cookie,
+        chunked,
+        total: DOCUMENT_LIMIT + 1,
+        head: forecast.slice(0, -1),
+        tail: '}',
+      })
       expect(over.status).toBe(413)
       expect(over.json.message).toMatch(/8 MiB/)
     })
@@ -96,9 +138,21 @@ describe('body limits counted on the stream', () => {
     it(`a small route (invitations, 64 KiB) takes exactly 64 KiB and refuses one byte more, ${how}`, async () => {
       const base = inject('baseURL')
       const body = (email: string) => JSON.stringify({ email, role: 'reviewer' }).slice(0, -1)
-      const under = await upload(base, `/api/labs/${labId}/invitations`, { cookie, chunked, total: SMALL_LIMIT, head: body(`lim-${randomUUID().slice(0, 8)}@invited.example`), tail: '}' })
+      const under = await upload(base, `/api/labs/${labId}/invitations`, {
+        cookie,
+        chunked,
+        total: SMALL_LIMIT,
+        head: body(`lim-${randomUUID().slice(0, 8)}@invited.example`),
+        tail: '}',
+      })
       expect(under.status, JSON.stringify(under.json)).toBe(201)
-      const over = await upload(base, `/api/labs/${labId}/invitations`, { cookie, chunked, total: SMALL_LIMIT + 1, head: body(`lim-${randomUUID().slice(0, 8)}@invited.example`), tail: '}' })
+      const over = await upload(base, `/api/labs/${labId}/invitations`, {
+        cookie,
+        chunked,
+        total: SMALL_LIMIT + 1,
+        head: body(`lim-${randomUUID().slice(0, 8)}@invited.example`),
+        tail: '}',
+      })
       expect(over.status).toBe(413)
       expect(over.json.message).toMatch(/64 KiB/)
     })
@@ -106,7 +160,13 @@ describe('body limits counted on the stream', () => {
 
   it('answers 413 at once to a declared Content-Length over the limit, without waiting for the body', async () => {
     // 400 MiB announced, 1 KiB sent, then the client waits: the answer comes anyway, in well under a second.
-    const res = await upload(inject('baseURL'), `/api/labs/${labId}/invitations`, { cookie, chunked: false, total: 1024, declared: 400 * MiB, hold: true })
+    const res = await upload(inject('baseURL'), `/api/labs/${labId}/invitations`, {
+      cookie,
+      chunked: false,
+      total: 1024,
+      declared: 400 * MiB,
+      hold: true,
+    })
     expect(res.status).toBe(413)
     expect(res.json.message).toMatch(/400 MiB.*64 KiB/)
     expect(res.ms).toBeLessThan(2000)
@@ -128,14 +188,20 @@ describe('memory stays bounded under huge uploads (own server instance)', () => 
     // Warm the route up, so the baseline below includes its code.
     expect((await api.post('/api/v1/forecast', example)).status).toBe(200)
   })
-  afterAll(async () => { await server?.stop() })
+  afterAll(async () => {
+    await server?.stop()
+  })
 
-  const peakRss = () => Number(/VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${server.child.pid}/status`, 'utf8'))![1]) * 1024
+  const peakRss = () =>
+    Number(/VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${server.child.pid}/status`, 'utf8'))![1]) * 1024
 
   it('four 200 MiB chunked uploads at once: each answered 413 long before it ends, peak memory grows < 64 MiB', async () => {
     const before = peakRss()
-    const results = await Promise.all([0, 1, 2, 3].map(() =>
-      upload(server.baseURL, '/api/v1/forecast', { cookie: instanceCookie, chunked: true, total: 200 * MiB })))
+    const results = await Promise.all(
+      [0, 1, 2, 3].map(() =>
+        upload(server.baseURL, '/api/v1/forecast', { cookie: instanceCookie, chunked: true, total: 200 * MiB }),
+      ),
+    )
     for (const r of results) {
       expect(r.status).toBe(413)
       expect(r.uploadDone).toBe(false)
@@ -150,7 +216,11 @@ describe('memory stays bounded under huge uploads (own server instance)', () => 
   it('a 200 MiB chunked body on a small route (invitations) is refused the same way, at 64 KiB', async () => {
     const before = peakRss()
     // Sessions live in PostgreSQL: the lab admin's cookie from the main test server works on this instance too.
-    const r = await upload(server.baseURL, `/api/labs/${labId}/invitations`, { cookie, chunked: true, total: 200 * MiB })
+    const r = await upload(server.baseURL, `/api/labs/${labId}/invitations`, {
+      cookie,
+      chunked: true,
+      total: 200 * MiB,
+    })
     expect(r.status).toBe(413)
     expect(r.uploadDone).toBe(false)
     expect(r.sentAtAnswer).toBeLessThan(100 * MiB)

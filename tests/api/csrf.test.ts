@@ -26,9 +26,16 @@ beforeAll(async () => {
   own = inject('baseURL')
 })
 
-const pending = async () => ((await admin.get(`/api/labs/${labId}/invitations`)).json as Array<{ email: string }>).map(i => i.email)
-const invite = (email: string, headers: Record<string, string>, body: string = JSON.stringify({ email, role: 'admin' })) =>
-  admin.request('POST', `/api/labs/${labId}/invitations`, body, { headers: { 'content-type': 'application/json', ...headers } })
+const pending = async () =>
+  ((await admin.get(`/api/labs/${labId}/invitations`)).json as Array<{ email: string }>).map(i => i.email)
+const invite = (
+  email: string,
+  headers: Record<string, string>,
+  body: string = JSON.stringify({ email, role: 'admin' }),
+) =>
+  admin.request('POST', `/api/labs/${labId}/invitations`, body, {
+    headers: { 'content-type': 'application/json', ...headers },
+  })
 
 describe('CSRF: the origin of state-changing requests', () => {
   it('refuses a foreign Origin with 403 in plain words, and nothing is created', async () => {
@@ -80,13 +87,21 @@ describe('CSRF: the origin of state-changing requests', () => {
     // Still signed in, the reviewer is still a reviewer, the invitation still pending.
     const members = await admin.get(`/api/labs/${labId}/members`)
     expect(members.status).toBe(200)
-    expect((members.json as Array<{ userId: string, role: string }>).find(m => m.userId === memberId)?.role).toBe('reviewer')
+    expect((members.json as Array<{ userId: string; role: string }>).find(m => m.userId === memberId)?.role).toBe(
+      'reviewer',
+    )
     expect(await pending()).toContain(created.json.email)
     expect((await admin.get(`/api/labs/${labId}/designs/${design.json.designId}`)).json.design.archived).toBe(false)
   })
 
   it('lets reads through from anywhere (they change nothing)', async () => {
-    expect((await admin.request('GET', '/api/labs', undefined, { headers: { origin: EVIL, 'sec-fetch-site': 'cross-site' } })).status).toBe(200)
+    expect(
+      (
+        await admin.request('GET', '/api/labs', undefined, {
+          headers: { origin: EVIL, 'sec-fetch-site': 'cross-site' },
+        })
+      ).status,
+    ).toBe(200)
   })
 
   it('accepts the same request from the app itself (Origin or Referer of its own address) and from scripts', async () => {
@@ -108,7 +123,10 @@ describe('CSRF: only JSON bodies', () => {
     const boundary = '----dwform'
     const forms: Array<[string, string]> = [
       ['application/x-www-form-urlencoded', `email=${encodeURIComponent(email)}&role=admin`],
-      [`multipart/form-data; boundary=${boundary}`, `--${boundary}\r\nContent-Disposition: form-data; name="email"\r\n\r\n${email}\r\n--${boundary}--\r\n`],
+      [
+        `multipart/form-data; boundary=${boundary}`,
+        `--${boundary}\r\nContent-Disposition: form-data; name="email"\r\n\r\n${email}\r\n--${boundary}--\r\n`,
+      ],
       ['text/plain', JSON.stringify({ email, role: 'admin' })],
     ]
     for (const [type, body] of forms) {
@@ -126,15 +144,24 @@ describe('CSRF: only JSON bodies', () => {
     expect(res.status).toBe(415)
     expect(await pending()).not.toContain(email)
     // The sign-in route too (a public route).
-    const login = await new ApiClient().request('POST', '/api/auth/login', JSON.stringify({ email: 'admin@quillmere.example', password: 'drop-demo-2026' }), { headers: { 'content-type': 'multipart/form-data; boundary=x' } })
+    const login = await new ApiClient().request(
+      'POST',
+      '/api/auth/login',
+      JSON.stringify({ email: 'admin@quillmere.example', password: 'drop-demo-2026' }),
+      { headers: { 'content-type': 'multipart/form-data; boundary=x' } },
+    )
     expect(login.status).toBe(415)
   })
 
   it('accepts a bodiless write without a content type (sign-out, delete) but not one with a form type', async () => {
     const created = await invite(fresh(), {})
-    const form = await admin.request('DELETE', `/api/labs/${labId}/invitations/${created.json.id}`, '', { headers: { 'content-type': 'application/x-www-form-urlencoded' } })
+    const form = await admin.request('DELETE', `/api/labs/${labId}/invitations/${created.json.id}`, '', {
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    })
     expect(form.status).toBe(415)
-    const plain = await admin.request('DELETE', `/api/labs/${labId}/invitations/${created.json.id}`, undefined, { headers: sameOrigin() })
+    const plain = await admin.request('DELETE', `/api/labs/${labId}/invitations/${created.json.id}`, undefined, {
+      headers: sameOrigin(),
+    })
     expect(plain.status).toBe(204)
   })
 })
@@ -145,10 +172,14 @@ describe('link origin: never the Host header', () => {
     const url = new URL(`/api/labs/${labId}/invitations`, own)
     const cookie = [...admin.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
     const status = await new Promise<number>((resolve, reject) => {
-      const req = httpRequest(url, { method: 'POST', headers: { host: 'evil.example', 'content-type': 'application/json', cookie } }, (res) => {
-        res.resume()
-        res.on('end', () => resolve(res.statusCode!))
-      })
+      const req = httpRequest(
+        url,
+        { method: 'POST', headers: { host: 'evil.example', 'content-type': 'application/json', cookie } },
+        res => {
+          res.resume()
+          res.on('end', () => resolve(res.statusCode!))
+        },
+      )
       req.on('error', reject)
       req.end(JSON.stringify({ email, role: 'reviewer' }))
     })

@@ -6,7 +6,15 @@ import { makeLab, TEST_PASSWORD } from '../support/factory'
 describe('designs list paging (real server, real PostgreSQL)', () => {
   let api: ApiClient
   let labId: string
-  const names = ['Paging chip 1', 'Paging chip 2', 'Paging chip 3', 'Paging chip 4', 'Paging chip 5', 'Paging chip 6', 'Other chip 7']
+  const names = [
+    'Paging chip 1',
+    'Paging chip 2',
+    'Paging chip 3',
+    'Paging chip 4',
+    'Paging chip 5',
+    'Paging chip 6',
+    'Other chip 7',
+  ]
 
   beforeAll(async () => {
     const { lab, people } = await makeLab(['designer'])
@@ -64,7 +72,7 @@ describe('designs list paging (real server, real PostgreSQL)', () => {
     expect((await page('page=two')).status).toBe(400)
   })
 
-  it('counts only the caller\'s lab', async () => {
+  it("counts only the caller's lab", async () => {
     const other = await makeLab(['designer'])
     const them = await new ApiClient().signIn(other.people[0]!.email, TEST_PASSWORD)
     const res = await them.get(`/api/labs/${other.lab.id}/designs`)

@@ -9,8 +9,15 @@ import { releasedOrder } from '../support/orders'
 import type { ApiClient } from '../support/api'
 
 async function download(client: ApiClient, path: string) {
-  const res = await fetch(inject('baseURL') + path, { headers: { cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } })
-  return { status: res.status, type: res.headers.get('content-type'), disposition: res.headers.get('content-disposition'), bytes: new Uint8Array(await res.arrayBuffer()) }
+  const res = await fetch(inject('baseURL') + path, {
+    headers: { cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+  })
+  return {
+    status: res.status,
+    type: res.headers.get('content-type'),
+    disposition: res.headers.get('content-disposition'),
+    bytes: new Uint8Array(await res.arrayBuffer()),
+  }
 }
 
 describe('fab sheet PDF (real server; pdftotext reads it back)', () => {
@@ -43,9 +50,15 @@ describe('fab sheet PDF (real server; pdftotext reads it back)', () => {
 
   it('is 404 for a fabricator before the release, and for another lab', async () => {
     const c = await labWithDesign()
-    expect((await download(c.as.fabricator, `/api/labs/${c.lab.id}/revisions/${c.revisionId}/fab-sheet.pdf`)).status).toBe(404)
-    expect((await download(c.as.designer, `/api/labs/${c.lab.id}/revisions/${c.revisionId}/fab-sheet.pdf`)).status).toBe(200)
+    expect(
+      (await download(c.as.fabricator, `/api/labs/${c.lab.id}/revisions/${c.revisionId}/fab-sheet.pdf`)).status,
+    ).toBe(404)
+    expect(
+      (await download(c.as.designer, `/api/labs/${c.lab.id}/revisions/${c.revisionId}/fab-sheet.pdf`)).status,
+    ).toBe(200)
     const other = await labWithDesign()
-    expect((await download(other.as.admin, `/api/labs/${other.lab.id}/revisions/${c.revisionId}/fab-sheet.pdf`)).status).toBe(404)
+    expect(
+      (await download(other.as.admin, `/api/labs/${other.lab.id}/revisions/${c.revisionId}/fab-sheet.pdf`)).status,
+    ).toBe(404)
   })
 })

@@ -10,7 +10,8 @@ function expectCommon(h: Headers, what: string) {
   expect(h.get('referrer-policy'), what).toBe('same-origin')
   expect(h.get('x-frame-options'), what).toBe('DENY')
   const pp = h.get('permissions-policy') ?? ''
-  for (const feature of ['camera=()', 'microphone=()', 'geolocation=()', 'payment=()']) expect(pp, what).toContain(feature)
+  for (const feature of ['camera=()', 'microphone=()', 'geolocation=()', 'payment=()'])
+    expect(pp, what).toContain(feature)
   expect(h.get('content-security-policy') ?? '', what).toMatch(/frame-ancestors 'none'/)
 }
 
@@ -21,10 +22,17 @@ function expectApi(h: Headers, what: string) {
   expect(h.get('content-security-policy') ?? '', what).toMatch(/default-src 'none'/)
 }
 
-const directives = (csp: string) => Object.fromEntries(csp.split(';').map(d => d.trim()).filter(Boolean).map((d) => {
-  const [name, ...sources] = d.split(/\s+/)
-  return [name!, sources]
-}))
+const directives = (csp: string) =>
+  Object.fromEntries(
+    csp
+      .split(';')
+      .map(d => d.trim())
+      .filter(Boolean)
+      .map(d => {
+        const [name, ...sources] = d.split(/\s+/)
+        return [name!, sources]
+      }),
+  )
 
 describe('security headers', () => {
   it('a page: CSP with a fresh nonce on every script, no inline script without it, no framing', async () => {
@@ -68,13 +76,22 @@ describe('security headers', () => {
     const notFound = await api.get('/api/labs/00000000-0000-4000-8000-000000000000/designs')
     expect(notFound.status).toBe(404)
     expectApi(notFound.headers, '404')
-    const bad = await new ApiClient().request('POST', '/api/auth/login', '{"email":', { headers: { 'content-type': 'application/json' } })
+    const bad = await new ApiClient().request('POST', '/api/auth/login', '{"email":', {
+      headers: { 'content-type': 'application/json' },
+    })
     expect(bad.status).toBe(400)
     expectApi(bad.headers, '400')
-    const foreign = await new ApiClient().request('POST', '/api/auth/login', { email: 'a@b.example', password: 'x' }, { headers: { origin: 'https://evil.example' } })
+    const foreign = await new ApiClient().request(
+      'POST',
+      '/api/auth/login',
+      { email: 'a@b.example', password: 'x' },
+      { headers: { origin: 'https://evil.example' } },
+    )
     expect(foreign.status).toBe(403)
     expectApi(foreign.headers, '403')
-    const form = await new ApiClient().request('POST', '/api/auth/login', 'email=a', { headers: { 'content-type': 'application/x-www-form-urlencoded' } })
+    const form = await new ApiClient().request('POST', '/api/auth/login', 'email=a', {
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    })
     expect(form.status).toBe(415)
     expectApi(form.headers, '415')
   })

@@ -9,7 +9,7 @@ describe('the built server', () => {
     expect(res.json).toEqual({ ok: true, database: 'ok', summaryWorker: true })
   })
 
-  it('stores the worker\'s summary with a saved revision (forecast and rule counts)', async () => {
+  it("stores the worker's summary with a saved revision (forecast and rule counts)", async () => {
     const { lab, as, revisionId } = await labWithDesign()
     const revision = (await as.designer.get(`/api/labs/${lab.id}/revisions/${revisionId}`)).json
     expect(revision.summary.junctionKinds).toEqual(['t-junction'])

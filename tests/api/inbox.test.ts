@@ -14,11 +14,18 @@ describe('lab overview: recent designs, waiting for my review, my open comments 
 
     expect((await as.designer.post(`${base}/review-requests`, { reviewerIds: [ids.reviewer] })).status).toBe(200)
     r = await inbox('reviewer')
-    expect(r.json.waitingForMe).toEqual([expect.objectContaining({ revisionId, designId, designName: 'Cell drops T-junction', number: 1 })])
+    expect(r.json.waitingForMe).toEqual([
+      expect.objectContaining({ revisionId, designId, designName: 'Cell drops T-junction', number: 1 }),
+    ])
     expect((await inbox('admin')).json.waitingForMe).toEqual([]) // asked of the reviewer only
 
-    const pin = await as.reviewer.post(`${base}/threads`, { anchor: { x: 5000, y: 3000, elementId: 'tj-1' }, body: 'Narrower here?' })
-    expect((await inbox('reviewer')).json.myOpenThreads.map((t: { threadId: string }) => t.threadId)).toEqual([pin.json.threadId])
+    const pin = await as.reviewer.post(`${base}/threads`, {
+      anchor: { x: 5000, y: 3000, elementId: 'tj-1' },
+      body: 'Narrower here?',
+    })
+    expect((await inbox('reviewer')).json.myOpenThreads.map((t: { threadId: string }) => t.threadId)).toEqual([
+      pin.json.threadId,
+    ])
     expect((await inbox('designer')).json.myOpenThreads).toEqual([]) // not written in yet
     await as.designer.post(`${base}/threads/${pin.json.threadId}/comments`, { body: 'Will do' })
     expect((await inbox('designer')).json.myOpenThreads).toHaveLength(1)

@@ -11,18 +11,25 @@ const fresh = (what = 'new') => `${what}-${randomUUID().slice(0, 8)}@invited.exa
 async function sql(text: string, params: unknown[]) {
   const client = new pg.Client({ connectionString: inject('databaseUrl') })
   await client.connect()
-  try { return (await client.query(text, params)).rows } finally { await client.end() }
+  try {
+    return (await client.query(text, params)).rows
+  } finally {
+    await client.end()
+  }
 }
 
 async function invite(admin: ApiClient, labId: string, email: string, role = 'reviewer') {
   const res = await admin.post(`/api/labs/${labId}/invitations`, { email, role })
   expect(res.status, JSON.stringify(res.json)).toBe(201)
-  return res.json as { id: string, email: string, role: string }
+  return res.json as { id: string; email: string; role: string }
 }
 
 describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () => {
   it('mails a link; accepting it with a new account signs the new person in with the invited role', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const a = await as(admin!.email)
     const email = fresh()
     const created = await invite(a, lab.id, email.toUpperCase(), 'reviewer')
@@ -42,7 +49,10 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
     expect(info.status).toBe(200)
     expect(info.json).toMatchObject({ labName: lab.name, role: 'reviewer', email, expired: false, hasAccount: false })
 
-    const accepted = await visitor.post(`/api/invitations/${token}/accept`, { name: 'Ines Varro', password: 'a-long-enough-pass' })
+    const accepted = await visitor.post(`/api/invitations/${token}/accept`, {
+      name: 'Ines Varro',
+      password: 'a-long-enough-pass',
+    })
     expect(accepted.status, JSON.stringify(accepted.json)).toBe(200)
     expect(accepted.json).toEqual({ labId: lab.id, role: 'reviewer', newAccount: true })
     const labs = await visitor.get('/api/labs')
@@ -51,20 +61,31 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
     // The new account signs in with its own password later.
     await new ApiClient().signIn(email, 'a-long-enough-pass')
     // Used once: 410, and it no longer shows as pending.
-    const again = await new ApiClient().post(`/api/invitations/${token}/accept`, { name: 'Someone', password: 'another-password' })
+    const again = await new ApiClient().post(`/api/invitations/${token}/accept`, {
+      name: 'Someone',
+      password: 'another-password',
+    })
     expect(again.status).toBe(410)
     expect(again.json.message).toMatch(/already been used/)
     expect((await a.get(`/api/labs/${lab.id}/invitations`)).json).toEqual([])
   })
 
   it('lets a signed-in person with the invited address join; another address or a signed-out one must sign in first', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
-    const { people: [outsider, other] } = await makeLab(['designer', 'designer'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
+    const {
+      people: [outsider, other],
+    } = await makeLab(['designer', 'designer'])
     const a = await as(admin!.email)
     await invite(a, lab.id, outsider!.email, 'designer')
     const { token } = invitationLink(await waitForMail(outsider!.email))
 
-    const anonymous = await new ApiClient().post(`/api/invitations/${token}/accept`, { name: 'X', password: 'long-enough-1' })
+    const anonymous = await new ApiClient().post(`/api/invitations/${token}/accept`, {
+      name: 'X',
+      password: 'long-enough-1',
+    })
     expect(anonymous.status).toBe(401)
     expect(anonymous.json.message).toMatch(/sign in as .* first/)
     expect((await new ApiClient().get(`/api/invitations/${token}`)).json.hasAccount).toBe(true)
@@ -81,7 +102,10 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
   })
 
   it('answers 410 for an expired link, with what to do', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const a = await as(admin!.email)
     const email = fresh('late')
     const created = await invite(a, lab.id, email)
@@ -89,18 +113,27 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
     await sql(`update invitations set expires_at = now() - interval '1 hour' where id = $1`, [created.id])
     const info = await new ApiClient().get(`/api/invitations/${token}`)
     expect(info.json.expired).toBe(true)
-    const res = await new ApiClient().post(`/api/invitations/${token}/accept`, { name: 'Late Comer', password: 'long-enough-1' })
+    const res = await new ApiClient().post(`/api/invitations/${token}/accept`, {
+      name: 'Late Comer',
+      password: 'long-enough-1',
+    })
     expect(res.status).toBe(410)
     expect(res.json.message).toMatch(/expired on \d{4}-\d\d-\d\d\. Ask an admin of .* to invite you again/)
     expect((await a.get(`/api/labs/${lab.id}/invitations`)).json[0]).toMatchObject({ id: created.id, expired: true })
   })
 
   it('forbids a role that may not manage members (403) and hides other labs (404)', async () => {
-    const { lab, people: [admin, designer] } = await makeLab(['admin', 'designer'])
+    const {
+      lab,
+      people: [admin, designer],
+    } = await makeLab(['admin', 'designer'])
     const d = await as(designer!.email)
     expect((await d.post(`/api/labs/${lab.id}/invitations`, { email: fresh(), role: 'designer' })).status).toBe(403)
     expect((await d.get(`/api/labs/${lab.id}/invitations`)).status).toBe(403)
-    const { lab: otherLab, people: [otherAdmin] } = await makeLab(['admin'])
+    const {
+      lab: otherLab,
+      people: [otherAdmin],
+    } = await makeLab(['admin'])
     const o = await as(otherAdmin!.email)
     expect((await o.post(`/api/labs/${lab.id}/invitations`, { email: fresh(), role: 'designer' })).status).toBe(404)
     expect((await o.get(`/api/labs/${lab.id}/invitations`)).status).toBe(404)
@@ -113,7 +146,10 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
   })
 
   it('rejects a bad e-mail or role with 400 naming the field, and an existing member with 409', async () => {
-    const { lab, people: [admin, designer] } = await makeLab(['admin', 'designer'])
+    const {
+      lab,
+      people: [admin, designer],
+    } = await makeLab(['admin', 'designer'])
     const a = await as(admin!.email)
     const bad = await a.post(`/api/labs/${lab.id}/invitations`, { email: 'not-an-address', role: 'designer' })
     expect(bad.status).toBe(400)
@@ -127,7 +163,10 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
   })
 
   it('asks a new account for a name and a long enough password (400 naming the field)', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const a = await as(admin!.email)
     const email = fresh()
     await invite(a, lab.id, email)
@@ -138,19 +177,27 @@ describe('invitations by e-mail (real server, real PostgreSQL, real SMTP)', () =
   })
 
   it('lists pending invitations to admins; revoking one kills its link; inviting again replaces the old link', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const a = await as(admin!.email)
     const email = fresh()
     const first = await invite(a, lab.id, email, 'designer')
     const second = await invite(a, lab.id, email, 'experimenter')
     const list = await a.get(`/api/labs/${lab.id}/invitations`)
-    expect(list.json).toEqual([expect.objectContaining({ id: second.id, email, role: 'experimenter', invitedByName: admin!.name })])
+    expect(list.json).toEqual([
+      expect.objectContaining({ id: second.id, email, role: 'experimenter', invitedByName: admin!.name }),
+    ])
     await waitForMail(email, { index: 1 })
     const [oldMail, newMail] = mailTo(email)
     expect((await new ApiClient().get(`/api/invitations/${invitationLink(oldMail!).token}`)).status).toBe(404)
     expect((await a.delete(`/api/labs/${lab.id}/invitations/${first.id}`)).status).toBe(404)
     expect((await a.delete(`/api/labs/${lab.id}/invitations/${second.id}`)).status).toBe(204)
-    const res = await new ApiClient().post(`/api/invitations/${invitationLink(newMail!).token}/accept`, { name: 'N', password: 'long-enough-1' })
+    const res = await new ApiClient().post(`/api/invitations/${invitationLink(newMail!).token}/accept`, {
+      name: 'N',
+      password: 'long-enough-1',
+    })
     expect(res.status).toBe(404)
   })
 

@@ -17,7 +17,10 @@ const outboxRow = async (to: string) => (await pool.query('select * from mail_ou
 
 describe('e-mail through SMTP (real server, real fake SMTP)', () => {
   it('answers the request at once while the mail server refuses, then retries and delivers', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const a = await as(admin!.email)
     const email = `flaky-${randomUUID().slice(0, 8)}@invited.example` // the fake SMTP refuses these once (451)
     const started = Date.now()
@@ -35,8 +38,14 @@ describe('e-mail through SMTP (real server, real fake SMTP)', () => {
   it('sends the review notifications with every value in the HTML escaped', async () => {
     const { lab } = await makeLab(['admin'])
     const to = `notify-${randomUUID().slice(0, 8)}@test.example`
-    const base = { labId: lab.id, to, designName: 'Cell loader <v2>', revisionNumber: 3, link: 'http://127.0.0.1/labs/x/designs/y' }
-    await db.transaction(async (tx) => {
+    const base = {
+      labId: lab.id,
+      to,
+      designName: 'Cell loader <v2>',
+      revisionNumber: 3,
+      link: 'http://127.0.0.1/labs/x/designs/y',
+    }
+    await db.transaction(async tx => {
       await mailReviewRequested(tx, { ...base, requesterName: 'Tomas "T" Reyvik' })
       await mailNewComment(tx, { ...base, commenterName: 'Ines', excerpt: '<script>alert(1)</script> narrower here' })
       await mailVerdict(tx, { ...base, reviewerName: 'Ines', verdict: 'request-changes', note: 'Widen the oil inlet' })
@@ -56,9 +65,15 @@ describe('e-mail through SMTP (real server, real fake SMTP)', () => {
     expect(comment.text).toContain('Open the comment: http://127.0.0.1/labs/x/designs/y')
   })
 
-  it('shows a lab\'s admins the messages of their lab only, in the development outbox', async () => {
-    const { lab, people: [admin, designer] } = await makeLab(['admin', 'designer'])
-    const { lab: other, people: [otherAdmin] } = await makeLab(['admin'])
+  it("shows a lab's admins the messages of their lab only, in the development outbox", async () => {
+    const {
+      lab,
+      people: [admin, designer],
+    } = await makeLab(['admin', 'designer'])
+    const {
+      lab: other,
+      people: [otherAdmin],
+    } = await makeLab(['admin'])
     const a = await as(admin!.email)
     const o = await as(otherAdmin!.email)
     const ours = `ours-${randomUUID().slice(0, 8)}@invited.example`

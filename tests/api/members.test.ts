@@ -5,15 +5,17 @@ import { makeLab, TEST_PASSWORD } from '../support/factory'
 const as = (email: string) => new ApiClient().signIn(email, TEST_PASSWORD)
 
 describe('lab members (real server, real PostgreSQL)', () => {
-  it('lists members and roles of the caller\'s lab', async () => {
+  it("lists members and roles of the caller's lab", async () => {
     const api = await signedIn('reviewer@quillmere.example')
     const labId = await api.labId('quillmere')
     const res = await api.get(`/api/labs/${labId}/members`)
     expect(res.status).toBe(200)
-    expect(res.json.map((m: { email: string, role: string }) => `${m.email}:${m.role}`)).toContain('designer@quillmere.example:designer')
+    expect(res.json.map((m: { email: string; role: string }) => `${m.email}:${m.role}`)).toContain(
+      'designer@quillmere.example:designer',
+    )
   })
 
-  it('hides another lab\'s members behind 404, and an unknown lab too', async () => {
+  it("hides another lab's members behind 404, and an unknown lab too", async () => {
     const api = await signedIn('designer@quillmere.example')
     const other = await (await signedIn('fabricator@brackenfold.example')).labId('brackenfold')
     expect((await api.get(`/api/labs/${other}/members`)).status).toBe(404)
@@ -27,14 +29,20 @@ describe('lab members (real server, real PostgreSQL)', () => {
     const fab = await signedIn('fabricator@brackenfold.example')
     const quillmere = await fab.labId('quillmere')
     expect((await fab.get(`/api/labs/${quillmere}/members`)).status).toBe(403)
-    const { lab, people: [admin, designer] } = await makeLab(['admin', 'designer'])
+    const {
+      lab,
+      people: [admin, designer],
+    } = await makeLab(['admin', 'designer'])
     const d = await as(designer!.email)
     expect((await d.patch(`/api/labs/${lab.id}/members/${admin!.id}`, { role: 'designer' })).status).toBe(403)
     expect((await d.delete(`/api/labs/${lab.id}/members/${admin!.id}`)).status).toBe(403)
   })
 
   it('lets an admin change a role and remove a member', async () => {
-    const { lab, people: [admin, designer, reviewer] } = await makeLab(['admin', 'designer', 'reviewer'])
+    const {
+      lab,
+      people: [admin, designer, reviewer],
+    } = await makeLab(['admin', 'designer', 'reviewer'])
     const a = await as(admin!.email)
     const changed = await a.patch(`/api/labs/${lab.id}/members/${designer!.id}`, { role: 'reviewer' })
     expect(changed.status).toBe(200)
@@ -48,7 +56,10 @@ describe('lab members (real server, real PostgreSQL)', () => {
   })
 
   it('keeps the last admin: no self-removal, no self-demotion', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin', 'designer'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin', 'designer'])
     const a = await as(admin!.email)
     const removal = await a.delete(`/api/labs/${lab.id}/members/${admin!.id}`)
     expect(removal.status).toBe(409)
@@ -57,7 +68,10 @@ describe('lab members (real server, real PostgreSQL)', () => {
   })
 
   it('rejects an unknown role with 400 naming the field', async () => {
-    const { lab, people: [admin, designer] } = await makeLab(['admin', 'designer'])
+    const {
+      lab,
+      people: [admin, designer],
+    } = await makeLab(['admin', 'designer'])
     const a = await as(admin!.email)
     const res = await a.patch(`/api/labs/${lab.id}/members/${designer!.id}`, { role: 'owner' })
     expect(res.status).toBe(400)

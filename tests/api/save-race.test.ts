@@ -13,15 +13,23 @@ const READERS = 16
 const TIMEOUT_MS = 20_000
 
 let second: ServerInstance
-beforeAll(async () => { second = await startServer({ databaseUrl: inject('databaseUrl'), name: 'api-second', env: { DW_MAIL_WORKER: '0' } }) })
-afterAll(async () => { await second?.stop() })
+beforeAll(async () => {
+  second = await startServer({ databaseUrl: inject('databaseUrl'), name: 'api-second', env: { DW_MAIL_WORKER: '0' } })
+})
+afterAll(async () => {
+  await second?.stop()
+})
 
 type Outcome = number | 'timeout' | 'network'
 async function send(client: ApiClient, base: string, method: string, path: string, body?: unknown): Promise<Outcome> {
   try {
     const res = await fetch(base + path, {
-      method, signal: AbortSignal.timeout(TIMEOUT_MS),
-      headers: { 'content-type': 'application/json', cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+      method,
+      signal: AbortSignal.timeout(TIMEOUT_MS),
+      headers: {
+        'content-type': 'application/json',
+        cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; '),
+      },
       body: body === undefined ? undefined : JSON.stringify(body),
     })
     await res.arrayBuffer()
@@ -50,13 +58,23 @@ describe('saves racing on one design across two server instances', () => {
           readerOutcomes.push(await send(api, bases[i % 2]!, 'GET', path))
         }
       })
-      const outcomes = await Promise.all(Array.from({ length: SAVES_PER_ROUND }, (_, i) =>
-        send(api, bases[i % 2]!, 'POST', `/api/labs/${lab.id}/designs/${designId}/revisions`, { parentId: parent, message: `round ${round}, save ${i}`, document: doc })))
+      const outcomes = await Promise.all(
+        Array.from({ length: SAVES_PER_ROUND }, (_, i) =>
+          send(api, bases[i % 2]!, 'POST', `/api/labs/${lab.id}/designs/${designId}/revisions`, {
+            parentId: parent,
+            message: `round ${round}, save ${i}`,
+            document: doc,
+          }),
+        ),
+      )
       reading = false
       await Promise.all(readers)
       const tally = (xs: Outcome[]) => xs.reduce<Record<string, number>>((t, o) => ({ ...t, [o]: (t[o] ?? 0) + 1 }), {})
       expect(tally(outcomes), `round ${round}`).toEqual({ 201: 1, 409: SAVES_PER_ROUND - 1 })
-      expect(readerOutcomes.every(o => o === 200), `readers in round ${round}: ${JSON.stringify(tally(readerOutcomes))}`).toBe(true)
+      expect(
+        readerOutcomes.every(o => o === 200),
+        `readers in round ${round}: ${JSON.stringify(tally(readerOutcomes))}`,
+      ).toBe(true)
       const list = await api.get(`/api/labs/${lab.id}/designs/${designId}/revisions`)
       expect(list.json.length).toBe(round + 2)
       parent = list.json.at(-1).id
@@ -64,7 +82,12 @@ describe('saves racing on one design across two server instances', () => {
     // Nothing is left holding a lock or a connection: a sign-in on each instance answers within a second.
     for (const base of bases) {
       const t0 = performance.now()
-      const res = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: people[0]!.email, password: TEST_PASSWORD }), signal: AbortSignal.timeout(5000) })
+      const res = await fetch(`${base}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email: people[0]!.email, password: TEST_PASSWORD }),
+        signal: AbortSignal.timeout(5000),
+      })
       expect(res.status).toBe(200)
       expect(performance.now() - t0).toBeLessThan(1000)
     }

@@ -9,7 +9,8 @@ import { startServer, type ServerInstance } from '../support/instance'
 
 const login = (api: ApiClient, email: string, password: string, headers: Record<string, string> = {}) =>
   api.request('POST', '/api/auth/login', { email, password }, { headers })
-const statuses = (results: Array<{ status: number }>) => results.map(r => r.status).reduce<Record<number, number>>((acc, s) => ({ ...acc, [s]: (acc[s] ?? 0) + 1 }), {})
+const statuses = (results: Array<{ status: number }>) =>
+  results.map(r => r.status).reduce<Record<number, number>>((acc, s) => ({ ...acc, [s]: (acc[s] ?? 0) + 1 }), {})
 
 // Two more instances on the same database, with a small per-address limit: one trusts no proxy (the default), the
 // other trusts the loopback proxy in front of it.
@@ -19,10 +20,16 @@ const used = new Set<string>()
 async function sql(text: string, values: unknown[] = []) {
   const client = new pg.Client({ connectionString: inject('databaseUrl') })
   await client.connect()
-  try { return (await client.query(text, values)).rows } finally { await client.end() }
+  try {
+    return (await client.query(text, values)).rows
+  } finally {
+    await client.end()
+  }
 }
 const person = async () => {
-  const { people: [p] } = await makeLab(['designer'])
+  const {
+    people: [p],
+  } = await makeLab(['designer'])
   used.add(p!.email)
   return p!
 }
@@ -45,7 +52,9 @@ afterAll(async () => {
 describe('sign-in throttling', () => {
   it('checks at most the limit of 40 concurrent wrong passwords for one account; the rest get 429 with Retry-After', async () => {
     const victim = await person()
-    const results = await Promise.all(Array.from({ length: 40 }, () => login(new ApiClient(), victim.email, 'wrong-guess-000')))
+    const results = await Promise.all(
+      Array.from({ length: 40 }, () => login(new ApiClient(), victim.email, 'wrong-guess-000')),
+    )
     expect(statuses(results)).toEqual({ 401: 5, 429: 35 })
     const limited = results.find(r => r.status === 429)!
     expect(limited.json.message).toMatch(/Too many failed sign-ins for this account\. Wait 15 minutes/)
@@ -119,23 +128,38 @@ describe('sign-in throttling', () => {
     for (let i = 0; i < 5; i++) {
       const someone = await person()
       forged.push(`203.0.113.${i + 1}`)
-      results.push(await login(new ApiClient(direct.baseURL), someone.email, 'wrong-guess-000', { 'x-forwarded-for': forged[i]! }))
+      results.push(
+        await login(new ApiClient(direct.baseURL), someone.email, 'wrong-guess-000', { 'x-forwarded-for': forged[i]! }),
+      )
     }
     expect(results.map(r => r.status)).toEqual([401, 401, 401, 429, 429])
     expect(results[3]!.json.message).toMatch(/Too many failed sign-ins from this network/)
-    expect(await sql('select ip, count(*)::int as n from sign_in_failures where ip = any($1) group by ip', [[...forged, '127.0.0.1']]))
-      .toEqual([{ ip: '127.0.0.1', n: 3 }])
+    expect(
+      await sql('select ip, count(*)::int as n from sign_in_failures where ip = any($1) group by ip', [
+        [...forged, '127.0.0.1'],
+      ]),
+    ).toEqual([{ ip: '127.0.0.1', n: 3 }])
   })
 
   it('believes X-Forwarded-For from a configured proxy, and holds the per-address limit under concurrency', async () => {
     const emails = await Promise.all(Array.from({ length: 12 }, async () => (await person()).email))
     const base = behindProxy.baseURL
     // 12 concurrent guesses at 12 accounts from one client address behind the proxy: the limit of 3 holds.
-    const burst = await Promise.all(emails.map(email => login(new ApiClient(base), email, 'wrong-guess-000', { 'x-forwarded-for': '203.0.113.50' })))
+    const burst = await Promise.all(
+      emails.map(email => login(new ApiClient(base), email, 'wrong-guess-000', { 'x-forwarded-for': '203.0.113.50' })),
+    )
     expect(statuses(burst)).toEqual({ 401: 3, 429: 9 })
     // A client cannot escape by prepending addresses: the proxy appends the real one, and that is what counts.
-    expect((await login(new ApiClient(base), emails[0]!, 'wrong-guess-000', { 'x-forwarded-for': '198.51.100.9, 203.0.113.50' })).status).toBe(429)
+    expect(
+      (
+        await login(new ApiClient(base), emails[0]!, 'wrong-guess-000', {
+          'x-forwarded-for': '198.51.100.9, 203.0.113.50',
+        })
+      ).status,
+    ).toBe(429)
     // Another client address behind the same proxy is counted on its own.
-    expect((await login(new ApiClient(base), emails[1]!, 'wrong-guess-000', { 'x-forwarded-for': '203.0.113.51' })).status).toBe(401)
+    expect(
+      (await login(new ApiClient(base), emails[1]!, 'wrong-guess-000', { 'x-forwarded-for': '203.0.113.51' })).status,
+    ).toBe(401)
   })
 })

@@ -13,7 +13,9 @@ const ROUNDS = 8
 async function approvedRevision() {
   const setup = await labWithDesign()
   const base = `/api/labs/${setup.lab.id}/revisions/${setup.revisionId}`
-  expect((await setup.as.designer.post(`${base}/review-requests`, { reviewerIds: [setup.ids.reviewer] })).status).toBe(200)
+  expect((await setup.as.designer.post(`${base}/review-requests`, { reviewerIds: [setup.ids.reviewer] })).status).toBe(
+    200,
+  )
   expect((await setup.as.reviewer.post(`${base}/verdicts`, { verdict: 'approve' })).status).toBe(200)
   return { ...setup, base }
 }
@@ -21,7 +23,11 @@ async function approvedRevision() {
 async function sql<T extends pg.QueryResultRow>(text: string, values: unknown[]): Promise<T[]> {
   const client = new pg.Client({ connectionString: inject('databaseUrl') })
   await client.connect()
-  try { return (await client.query<T>(text, values)).rows } finally { await client.end() }
+  try {
+    return (await client.query<T>(text, values)).rows
+  } finally {
+    await client.end()
+  }
 }
 
 describe('state machines under races (real server, real PostgreSQL)', () => {
@@ -57,7 +63,10 @@ describe('state machines under races (real server, real PostgreSQL)', () => {
 
   it(`two admins demoting each other leave the lab one admin (${ROUNDS} rounds)`, async () => {
     for (let round = 0; round < ROUNDS; round++) {
-      const { lab, people: [a, b] } = await makeLab(['admin', 'admin'])
+      const {
+        lab,
+        people: [a, b],
+      } = await makeLab(['admin', 'admin'])
       const [asA, asB] = await Promise.all([a!, b!].map(p => new ApiClient().signIn(p.email, TEST_PASSWORD)))
       const [ab, ba] = await Promise.all([
         asA!.patch(`/api/labs/${lab.id}/members/${b!.id}`, { role: 'designer' }),
@@ -74,9 +83,15 @@ describe('state machines under races (real server, real PostgreSQL)', () => {
   }, 120_000)
 
   it('an admin removed meanwhile cannot remove the last admin', async () => {
-    const { lab, people: [a, b] } = await makeLab(['admin', 'admin'])
+    const {
+      lab,
+      people: [a, b],
+    } = await makeLab(['admin', 'admin'])
     const [asA, asB] = await Promise.all([a!, b!].map(p => new ApiClient().signIn(p.email, TEST_PASSWORD)))
-    const [ab, ba] = await Promise.all([asA!.delete(`/api/labs/${lab.id}/members/${b!.id}`), asB!.delete(`/api/labs/${lab.id}/members/${a!.id}`)])
+    const [ab, ba] = await Promise.all([
+      asA!.delete(`/api/labs/${lab.id}/members/${b!.id}`),
+      asB!.delete(`/api/labs/${lab.id}/members/${a!.id}`),
+    ])
     const [won, lost] = [ab.status, ba.status].sort()
     expect(won).toBe(204)
     expect([403, 404, 409]).toContain(lost) // refused inside the lock (409), or at the door once no longer an admin or member
@@ -84,14 +99,24 @@ describe('state machines under races (real server, real PostgreSQL)', () => {
   })
 
   it('ten concurrent invitations to one address leave one live link', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const api = await new ApiClient().signIn(admin!.email, TEST_PASSWORD)
     const email = `race-${lab.id.slice(0, 8)}@test.example`
-    const answers = await Promise.all(Array.from({ length: 10 }, () => api.post(`/api/labs/${lab.id}/invitations`, { email, role: 'designer' })))
+    const answers = await Promise.all(
+      Array.from({ length: 10 }, () => api.post(`/api/labs/${lab.id}/invitations`, { email, role: 'designer' })),
+    )
     expect(answers.map(a => a.status)).toEqual(Array(10).fill(201))
-    const open = await sql('select 1 from invitations where lab_id = $1 and lower(email) = $2 and accepted_at is null', [lab.id, email])
+    const open = await sql(
+      'select 1 from invitations where lab_id = $1 and lower(email) = $2 and accepted_at is null',
+      [lab.id, email],
+    )
     expect(open).toHaveLength(1)
-    expect((await api.get(`/api/labs/${lab.id}/invitations`)).json.filter((i: { email: string }) => i.email === email)).toHaveLength(1)
+    expect(
+      (await api.get(`/api/labs/${lab.id}/invitations`)).json.filter((i: { email: string }) => i.email === email),
+    ).toHaveLength(1)
   })
 
   it('order status moves are guarded: of two racing moves one applies, and delivered is final', async () => {

@@ -20,7 +20,9 @@ beforeAll(async () => {
   revisionId = (await releasedOrder(c)).revisionId
   emails = await memberEmails(c.as.admin, c.lab.id)
 }, 120_000)
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 const as = (role: string): Promise<Page> => signedInPage(browser, emails[role]!, TEST_PASSWORD)
 
@@ -69,15 +71,29 @@ describe('the as-built report in the browser (real Chromium, server, PostgreSQL,
     await fab.click('[data-test="as-built-record"]')
     await fab.waitForSelector('[data-test="as-built-changes"]')
     const recorded = (await c.as.fabricator.get(base)).json.asBuilt
-    expect(recorded).toMatchObject({ depths: [{ layerId: 'ch50', depthUm: 55 }], widths: [{ elementId: 'tj-1', field: 'mainWidth', widthUm: 108 }], note: 'Stylus profilometer, 3 traces' })
+    expect(recorded).toMatchObject({
+      depths: [{ layerId: 'ch50', depthUm: 55 }],
+      widths: [{ elementId: 'tj-1', field: 'mainWidth', widthUm: 108 }],
+      note: 'Stylus profilometer, 3 traces',
+    })
     // The date is written for people, not as an ISO stamp.
     expect(await fab.textContent('[data-test="as-built-recorded"]')).not.toMatch(/\d{4}-\d{2}-\d{2}/)
 
     // Files: a PDF named .csv is refused in words; the profilometer CSV is attached and listed.
-    await fab.setInputFiles('[data-test="as-built-file-input"]', { name: 'trace.csv', mimeType: 'text/csv', buffer: Buffer.from('%PDF-1.4\n%âãÏÓ\n1 0 obj\n<<>>\nendobj\n', 'latin1') })
+    await fab.setInputFiles('[data-test="as-built-file-input"]', {
+      name: 'trace.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from('%PDF-1.4\n%âãÏÓ\n1 0 obj\n<<>>\nendobj\n', 'latin1'),
+    })
     await fab.click('[data-test="as-built-attach"]')
-    await expect.poll(() => fab.textContent('[data-test="as-built-file-error"]').catch(() => '')).toMatch(/"trace\.csv" is a PDF file/)
-    await fab.setInputFiles('[data-test="as-built-file-input"]', { name: 'trace.csv', mimeType: 'text/csv', buffer: Buffer.from('x_um,height_um\n0,0.1\n10,54.9\n20,55.1\n') })
+    await expect
+      .poll(() => fab.textContent('[data-test="as-built-file-error"]').catch(() => ''))
+      .toMatch(/"trace\.csv" is a PDF file/)
+    await fab.setInputFiles('[data-test="as-built-file-input"]', {
+      name: 'trace.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from('x_um,height_um\n0,0.1\n10,54.9\n20,55.1\n'),
+    })
     await fab.click('[data-test="as-built-attach"]')
     await expect.poll(() => fab.locator('[data-test="as-built-file"]').allTextContents()).toEqual(['trace.csv'])
     await shot(fab, 'as-built-1-recorded')
@@ -94,13 +110,20 @@ describe('the as-built report in the browser (real Chromium, server, PostgreSQL,
     expect(table).toMatch(/\d µm/)
     expect(table).toMatch(/mbar/)
     expect(await designer.locator('[data-test="as-built-file"]').allTextContents()).toEqual(['trace.csv'])
-    await expect.poll(() => mailTo(emails.designer!).filter(m => m.subject.startsWith('As-built recorded')).length, { timeout: 30_000 }).toBe(1)
+    await expect
+      .poll(() => mailTo(emails.designer!).filter(m => m.subject.startsWith('As-built recorded')).length, {
+        timeout: 30_000,
+      })
+      .toBe(1)
 
     // The fab sheet PDF downloads from the browser.
     await designer.goto(`/labs/${c.lab.id}/revisions/${revisionId}/fab-sheet`)
     await hydrated(designer)
     const href = (await designer.getAttribute('[data-test="fab-sheet-pdf"]', 'href'))!
-    const [download] = await Promise.all([designer.waitForEvent('download'), designer.click('[data-test="fab-sheet-pdf"]')])
+    const [download] = await Promise.all([
+      designer.waitForEvent('download'),
+      designer.click('[data-test="fab-sheet-pdf"]'),
+    ])
     const path = await download.path()
     const { readFileSync } = await import('node:fs')
     expect(readFileSync(path!).subarray(0, 4).toString('latin1')).toBe('%PDF')

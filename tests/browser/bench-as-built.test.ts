@@ -9,14 +9,20 @@ import { TEST_PASSWORD } from '../support/factory'
 import { releasedOrder } from '../support/orders'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('bench runs on the as-built chip, in the browser', () => {
   it('offers the reported chip, refuses a bad measured size in place, and labels the run', async () => {
     const c = await labWithDesign()
     const { revisionId } = await releasedOrder(c)
-    const reported = await c.as.fabricator.post(`/api/labs/${c.lab.id}/revisions/${revisionId}/as-built`, { depths: [{ layerId: 'ch50', depthUm: 42 }] })
+    const reported = await c.as.fabricator.post(`/api/labs/${c.lab.id}/revisions/${revisionId}/as-built`, {
+      depths: [{ layerId: 'ch50', depthUm: 42 }],
+    })
     expect(reported.status).toBe(201)
     const emails = await memberEmails(c.as.admin, c.lab.id)
     const page = await signedInPage(browser, emails.experimenter!, TEST_PASSWORD)
@@ -38,7 +44,9 @@ describe('bench runs on the as-built chip, in the browser', () => {
     // A bench temperature out of range is refused beside its field, nothing recorded.
     await page.fill('[data-test="bench-temperature"]', '200')
     await page.click('[data-test="bench-submit"]')
-    await expect.poll(() => page.locator('[data-test="bench-temperature"] + [role="alert"]').textContent()).toBe('Temperature must be between −20 °C and 150 °C')
+    await expect
+      .poll(() => page.locator('[data-test="bench-temperature"] + [role="alert"]').textContent())
+      .toBe('Temperature must be between −20 °C and 150 °C')
     expect(await page.locator('[data-test="bench-run-1"]').count()).toBe(0)
     await page.fill('[data-test="bench-temperature"]', '')
     await page.click('[data-test="bench-submit"]')

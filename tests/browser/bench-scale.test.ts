@@ -11,14 +11,21 @@ import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
 import { dropsPng } from '../support/micrograph'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('scale bar picked on the micrograph', () => {
   it('turns two clicks on the image into the bar length in pixels and measures at that scale', async () => {
     const { lab, people } = await makeLab(['designer', 'experimenter'])
     const designer = await new ApiClient().signIn(people[0]!.email, TEST_PASSWORD)
-    const made = await designer.post(`/api/labs/${lab.id}/designs`, { name: 'Scale bar chip', document: fixtureDocument() })
+    const made = await designer.post(`/api/labs/${lab.id}/designs`, {
+      name: 'Scale bar chip',
+      document: fixtureDocument(),
+    })
     expect(made.status).toBe(201)
     const size = 480
     const { png } = await dropsPng(12, 44, size, 9)

@@ -13,14 +13,21 @@ import { fixtureDocument, makeLab, TEST_PASSWORD } from '../support/factory'
 import { dropsPng } from '../support/micrograph'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('bench results in the browser', () => {
   it('records a CSV run and a micrograph run, excludes a detection, and switches the forecast', async () => {
     const { lab, people } = await makeLab(['designer', 'experimenter'])
     const designer = await new ApiClient().signIn(people[0]!.email, TEST_PASSWORD)
-    const made = await designer.post(`/api/labs/${lab.id}/designs`, { name: 'Bench story chip', document: fixtureDocument() })
+    const made = await designer.post(`/api/labs/${lab.id}/designs`, {
+      name: 'Bench story chip',
+      document: fixtureDocument(),
+    })
     expect(made.status).toBe(201)
     const { png } = await dropsPng(12, 44, 480, 9)
     const image = join(tmpdir(), `dw-bench-${Date.now()}.png`)
@@ -38,7 +45,9 @@ describe('bench results in the browser', () => {
     // CSV with a bad row: named before sending, nothing imported.
     await page.click('[data-test="bench-mode-csv"]')
     await page.fill('[data-test="bench-csv-text"]', 'drop,diameter\n1,50.1\n2,abc\n3,49.8')
-    await expect.poll(() => page.textContent('[data-test="bench-csv-errors"]')).toContain('Row 3: "abc" is not a number')
+    await expect
+      .poll(() => page.textContent('[data-test="bench-csv-errors"]'))
+      .toContain('Row 3: "abc" is not a number')
     await page.click('[data-test="bench-submit"]')
     expect(await page.locator('[data-test^="bench-run-"]').count()).toBe(0)
     await page.fill('[data-test="bench-csv-text"]', 'drop,diameter\n1,50.1\n2,50.6\n3,49.8')
@@ -67,7 +76,9 @@ describe('bench results in the browser', () => {
     // Measured against forecast, the fitted α with its interval, and the switch.
     expect(await page.locator('[data-test="bench-plot"] circle').count()).toBe(2)
     // The fixture chip forecasts dripping: a correction factor k, fitted apart from squeezing's α.
-    await expect.poll(() => page.textContent('[data-test="calibration-t-junction/dripping"]')).toMatch(/dripping regime: k .*95 % interval .* – /)
+    await expect
+      .poll(() => page.textContent('[data-test="calibration-t-junction/dripping"]'))
+      .toMatch(/dripping regime: k .*95 % interval .* – /)
     await page.click('[data-test="mode-calibrated"]')
     await expect.poll(() => page.getAttribute('[data-test="mode-calibrated"]', 'aria-checked')).toBe('true')
     expect(await page.textContent('[data-test="calibrated-label"]')).toMatch(/Lab-calibrated: k .* from 2 runs/)

@@ -19,21 +19,34 @@ beforeAll(async () => {
   labId = made.labId
   designId = made.designId
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
-interface Watch { violations: string[], errors: string[] }
+interface Watch {
+  violations: string[]
+  errors: string[]
+}
 
 /** Collects CSP violations (the DOM event, in every document of the page) and console errors. */
 async function watch(page: Page): Promise<Watch> {
   const seen: Watch = { violations: [], errors: [] }
-  await page.exposeFunction('__dwViolation', (text: string) => { seen.violations.push(text) })
+  await page.exposeFunction('__dwViolation', (text: string) => {
+    seen.violations.push(text)
+  })
   await page.addInitScript(() => {
-    document.addEventListener('securitypolicyviolation', (e) => {
-      (window as unknown as { __dwViolation: (t: string) => void }).__dwViolation(`${e.violatedDirective} blocked ${e.blockedURI || 'inline'} at ${e.sourceFile}:${e.lineNumber}`)
+    document.addEventListener('securitypolicyviolation', e => {
+      ;(window as unknown as { __dwViolation: (t: string) => void }).__dwViolation(
+        `${e.violatedDirective} blocked ${e.blockedURI || 'inline'} at ${e.sourceFile}:${e.lineNumber}`,
+      )
     })
   })
-  page.on('console', (m: ConsoleMessage) => { if (m.type() === 'error') seen.errors.push(m.text()) })
-  page.on('pageerror', (e) => { seen.errors.push(String(e)) })
+  page.on('console', (m: ConsoleMessage) => {
+    if (m.type() === 'error') seen.errors.push(m.text())
+  })
+  page.on('pageerror', e => {
+    seen.errors.push(String(e))
+  })
   return seen
 }
 
@@ -78,7 +91,9 @@ describe('Content-Security-Policy in Chromium', () => {
     const p = await at(page, 5000, 3000)
     await page.mouse.click(p.x, p.y)
     await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('tj-1')
-    await expect.poll(() => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()).toMatch(/µm$/)
+    await expect
+      .poll(() => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent())
+      .toMatch(/µm$/)
     await page.waitForSelector('[data-test="plot-ratio"] svg path', { state: 'attached' })
     await page.waitForTimeout(300)
     // Fonts are the app's own files and loaded.

@@ -25,7 +25,9 @@ beforeAll(async () => {
   await hydrated(page)
   await page.click('[data-test="new-design"]')
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('new design form', () => {
   it('a file that is not JSON blocks Create and creates nothing; clearing it unblocks', async () => {
@@ -44,7 +46,8 @@ describe('new design form', () => {
   })
 
   it('a name over 120 characters is kept whole with a message, and blocks Create', async () => {
-    const long = 'Parallel step emulsifier for single-cell encapsulation with a tapered supply manifold and two reservoir outlets, revised for the bench'
+    const long =
+      'Parallel step emulsifier for single-cell encapsulation with a tapered supply manifold and two reservoir outlets, revised for the bench'
     expect(long.length).toBeGreaterThan(120)
     await page.fill('[data-test="design-create"] input[name=name]', long)
     expect(await page.inputValue('[data-test="design-create"] input[name=name]')).toBe(long)

@@ -18,16 +18,25 @@ beforeAll(async () => {
   labId = lab.id
   // 56 designs straight into the database (the list needs no revision to show a row).
   const pool = new pg.Pool({ connectionString: inject('databaseUrl'), max: 1 })
-  await drizzle(pool).insert(designs).values(Array.from({ length: 56 }, (_, i) => ({
-    labId, name: `Array chip ${String(i + 1).padStart(2, '0')}`, createdBy: people[0]!.id, updatedAt: new Date(Date.UTC(2026, 0, 1, 0, i)),
-  })))
+  await drizzle(pool)
+    .insert(designs)
+    .values(
+      Array.from({ length: 56 }, (_, i) => ({
+        labId,
+        name: `Array chip ${String(i + 1).padStart(2, '0')}`,
+        createdBy: people[0]!.id,
+        updatedAt: new Date(Date.UTC(2026, 0, 1, 0, i)),
+      })),
+    )
   await pool.end()
   browser = await launch()
   page = await newPage(browser)
   await signInAs(page, people[0]!.email, TEST_PASSWORD)
   await page.waitForURL(/\/labs\//)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('designs list pages', () => {
   it('shows 50 of 56, moves to page 2, keeps it in the URL across a reload, and a search starts at page 1', async () => {
@@ -39,7 +48,9 @@ describe('designs list pages', () => {
     await page.waitForURL(/page=2/)
     await expect.poll(() => page.locator('[data-test="designs-range"]').textContent()).toContain('Designs 51–56 of 56')
     expect(await rows()).toBe(6)
-    await expect.poll(() => page.locator('[data-test="designs-table"] tbody tr a').first().textContent()).toBe('Array chip 51')
+    await expect
+      .poll(() => page.locator('[data-test="designs-table"] tbody tr a').first().textContent())
+      .toBe('Array chip 51')
     await shot(page, 'designs-paging')
     await page.reload()
     await hydrated(page)

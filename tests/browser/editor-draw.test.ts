@@ -15,15 +15,25 @@ beforeAll(async () => {
   const lab = await labWithDesign()
   page = await editorPage(browser, lab.as.designer, lab.lab.id, lab.designId)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
-const clickAt = async (x: number, y: number) => { const p = await at(page, x, y); await page.mouse.click(p.x, p.y) }
+const clickAt = async (x: number, y: number) => {
+  const p = await at(page, x, y)
+  await page.mouse.click(p.x, p.y)
+}
 const selected = () => page.locator('[data-test="inspector-id"]').textContent()
 async function place(tool: string, x: number, y: number): Promise<string> {
   await page.click(`[data-test="tool-${tool}"]`)
   const before = (await editorDoc(page)).components.length + (await editorDoc(page)).ports.length
   await clickAt(x, y)
-  await expect.poll(async () => { const d = await editorDoc(page); return d.components.length + d.ports.length }).toBe(before + 1)
+  await expect
+    .poll(async () => {
+      const d = await editorDoc(page)
+      return d.components.length + d.ports.length
+    })
+    .toBe(before + 1)
   return (await selected())!
 }
 async function terminal(id: string, name: string) {
@@ -41,7 +51,9 @@ async function channel(points: Array<{ x: number; y: number }>) {
 async function forecastOf(x: number, y: number) {
   await page.click('[data-test="tool-select"]')
   await clickAt(x, y)
-  await expect.poll(() => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()).toMatch(/\d µm$/)
+  await expect
+    .poll(() => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent())
+    .toMatch(/\d µm$/)
   return page.locator('[data-test="forecast-regime"] td').nth(1).textContent()
 }
 
@@ -55,7 +67,12 @@ describe('drawing junctions by mouse', () => {
     const feed = await channel([{ x: 1200, y: 1600 }, await terminal(ff, 'dispersed')])
     expect(feed).toMatchObject({ start: { element: d, terminal: 'port' }, end: { element: ff, terminal: 'dispersed' } })
     await channel([{ x: 2000, y: 2300 }, { x: 3000, y: 2300 }, await terminal(ff, 'continuous-a')])
-    await channel([{ x: 2000, y: 2300 }, { x: 2000, y: 1000 }, { x: 3000, y: 1000 }, await terminal(ff, 'continuous-b')])
+    await channel([
+      { x: 2000, y: 2300 },
+      { x: 2000, y: 1000 },
+      { x: 3000, y: 1000 },
+      await terminal(ff, 'continuous-b'),
+    ])
     const out = await channel([await terminal(ff, 'outlet'), { x: 4800, y: 1600 }])
     expect(out).toMatchObject({ start: { element: ff, terminal: 'outlet' }, end: { element: o, terminal: 'port' } })
     expect(c).toBe('continuous-in-1')

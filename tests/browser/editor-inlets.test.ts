@@ -14,11 +14,15 @@ beforeAll(async () => {
   const lab = await labWithDesign()
   page = await editorPage(browser, lab.as.designer, lab.lab.id, lab.designId)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 const cell = (what: 'pressure' | 'flow', port: string) => page.locator(`[data-test="inlet-${what}-${port}"]`)
-const number = async (what: 'pressure' | 'flow', port: string) => Number.parseFloat((await cell(what, port).textContent()) ?? 'NaN')
-const waterSetting = async () => (await editorDoc(page)).operatingPoints[0].inlets.find((i: any) => i.portId === 'water-in')
+const number = async (what: 'pressure' | 'flow', port: string) =>
+  Number.parseFloat((await cell(what, port).textContent()) ?? 'NaN')
+const waterSetting = async () =>
+  (await editorDoc(page)).operatingPoints[0].inlets.find((i: any) => i.portId === 'water-in')
 
 describe('pressure-driven inlets in the editor', () => {
   it('switches the water inlet to pressure at the pressure it needs: its flow stays 5 µL/min', async () => {
@@ -31,7 +35,7 @@ describe('pressure-driven inlets in the editor', () => {
     expect(setting.unit).toBe('mbar')
     expect(setting.value).toBeCloseTo(needed, 6)
     // Three significant figures of the needed pressure give back the flow within 1 %.
-    await expect.poll(async () => Math.abs(await number('flow', 'water-in') - 5)).toBeLessThan(0.05)
+    await expect.poll(async () => Math.abs((await number('flow', 'water-in')) - 5)).toBeLessThan(0.05)
     await shot(page, 'editor-inlet-pressure')
   })
 
@@ -39,7 +43,9 @@ describe('pressure-driven inlets in the editor', () => {
     const before = await waterSetting()
     await page.fill('[data-test="inlet-value-water-in"]', '-1')
     await page.press('[data-test="inlet-value-water-in"]', 'Enter')
-    await expect.poll(() => page.locator('[data-test="inlet-error-water-in"]').textContent()).toContain('Inlet pressure must be ≥ 0')
+    await expect
+      .poll(() => page.locator('[data-test="inlet-error-water-in"]').textContent())
+      .toContain('Inlet pressure must be ≥ 0')
     expect(await page.inputValue('[data-test="inlet-value-water-in"]')).toBe('-1')
     expect(await waterSetting()).toEqual(before)
   })

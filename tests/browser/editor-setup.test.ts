@@ -16,7 +16,9 @@ beforeAll(async () => {
   lab = await labWithDesign()
   page = await editorPage(browser, lab.as.designer, lab.lab.id, lab.designId)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 const waterFeed = async () => (await editorDoc(page)).channels.find((c: any) => c.id === 'water-feed')
 const diameter = () => page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()
@@ -46,7 +48,10 @@ describe('editor set-up in Chromium', () => {
     await page.fill('[data-test="field-width"]', '10')
     await page.press('[data-test="field-width"]', 'Enter')
     // The finding on the channel alone (another one names the junction it meets as well).
-    const finding = page.locator('[data-test="findings-panel"] button').filter({ hasText: 'Channel “water-feed” · at' }).filter({ hasNotText: 'tj-1' })
+    const finding = page
+      .locator('[data-test="findings-panel"] button')
+      .filter({ hasText: 'Channel “water-feed” · at' })
+      .filter({ hasNotText: 'tj-1' })
     await expect.poll(() => finding.count()).toBeGreaterThan(0)
     expect(await page.locator('[data-test="findings-panel"]').textContent()).toMatch(/film-mask/i)
     await page.locator('[data-test="editor-canvas"]').focus()
@@ -75,7 +80,9 @@ describe('editor set-up in Chromium', () => {
     await page.keyboard.press('Enter')
     await expect.poll(async () => (await editorDoc(page)).channels.at(-1).layerId).toBe(id)
     // Not wired yet: the forecast leaves it out and says so, and the rest of the chip keeps its forecast.
-    await expect.poll(() => page.locator('[data-test="forecast-error"]').textContent()).toBe('Not yet connected, so not forecast: channel-1')
+    await expect
+      .poll(() => page.locator('[data-test="forecast-error"]').textContent())
+      .toBe('Not yet connected, so not forecast: channel-1')
     await expect.poll(() => page.locator(`[data-test="layer-row-${id}"]`).textContent()).toContain('1 element')
     expect(await page.isDisabled(`[data-test="layer-remove-${id}"]`)).toBe(true)
     await page.fill(`[data-test="layer-name-${id}"]`, 'Deep bypass')
@@ -100,10 +107,16 @@ describe('editor set-up in Chromium', () => {
     await expect.poll(async () => (await editorDoc(page)).operatingPoints[1]?.name).toBe('Fast oil')
     await page.fill('[data-test="inlet-value-oil-in"]', '40')
     await page.press('[data-test="inlet-value-oil-in"]', 'Tab')
-    await expect.poll(async () => (await editorDoc(page)).operatingPoints[1]?.inlets.find((i: any) => i.portId === 'oil-in')?.value).toBe(40)
+    await expect
+      .poll(
+        async () => (await editorDoc(page)).operatingPoints[1]?.inlets.find((i: any) => i.portId === 'oil-in')?.value,
+      )
+      .toBe(40)
     // The forecast of a new operating point runs in the editor's worker: give a cold worker on a busy machine time.
     await expect.poll(diameter, { timeout: 10_000 }).not.toBe(first)
-    expect(parseFloat((await diameter())!.replace(/[^\d.]/g, ''))).toBeLessThan(parseFloat(first!.replace(/[^\d.]/g, '')))
+    expect(parseFloat((await diameter())!.replace(/[^\d.]/g, ''))).toBeLessThan(
+      parseFloat(first!.replace(/[^\d.]/g, '')),
+    )
     const d = await editorDoc(page)
     expect(d.operatingPoints.map((o: any) => o.name)).toEqual([d.operatingPoints[0].name, 'Fast oil'])
     await page.selectOption('[data-test="op-active"]', d.operatingPoints[0].id)

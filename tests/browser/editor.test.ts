@@ -20,7 +20,9 @@ beforeAll(async () => {
   labId = made.labId
   designId = made.designId
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 async function openEditor(page: Page) {
   await page.goto(`/labs/${labId}/designs/${designId}/edit`)
@@ -66,7 +68,9 @@ describe('chip editor in Chromium', () => {
     await page.press('[data-test="field-armLength"]', 'Enter')
     await expect.poll(() => page.locator('[data-test="error-armLength"]').textContent()).toContain('must be > 0 µm')
     expect(await page.inputValue('[data-test="field-armLength"]')).toBe('-5')
-    const doc = await page.evaluate(() => (window as any).__dwEditor.store.doc.components.find((c: any) => c.id === 'tj-2'))
+    const doc = await page.evaluate(() =>
+      (window as any).__dwEditor.store.doc.components.find((c: any) => c.id === 'tj-2'),
+    )
     expect(doc).toMatchObject({ mainWidth: 80, inletWidth: 40, armLength: 300 })
   })
 
@@ -106,7 +110,9 @@ describe('chip editor in Chromium', () => {
     expect(doc.components.map((c: any) => c.id)).toEqual(['tj-1', 'tj-2'])
     expect(doc.operatingPoints[0].inlets.find((i: any) => i.portId === 'water-in').value).toBe(1)
     await page.goto(`/labs/${labId}/designs/${designId}`)
-    await expect.poll(() => page.locator('[data-test="revisions-table"]').textContent()).toContain('Second T-junction, slower water')
+    await expect
+      .poll(() => page.locator('[data-test="revisions-table"]').textContent())
+      .toContain('Second T-junction, slower water')
   })
 
   it('a save that lost the race to a second tab offers reload or a branch, and keeps the edits', async () => {
@@ -150,7 +156,10 @@ describe('chip editor in Chromium', () => {
   })
 
   it('builds 8 step nozzles on a manifold beside the chip from the array form, and one undo takes them away', async () => {
-    const count = () => page.evaluate(() => (window as any).__dwEditor.store.doc.components.filter((c: any) => c.kind === 'step-nozzle').length)
+    const count = () =>
+      page.evaluate(
+        () => (window as any).__dwEditor.store.doc.components.filter((c: any) => c.kind === 'step-nozzle').length,
+      )
     const before = await count()
     await page.click('[data-test="cmd-array"]')
     await page.fill('[data-test="array-count"]', '8')
@@ -171,12 +180,16 @@ describe('chip editor in Chromium', () => {
     await expect.poll(() => page.evaluate(() => (window as any).__dwEditor.store.doc.outline?.width)).toBe(12000)
     await page.fill('[data-test="field-outline.height"]', '0')
     await page.press('[data-test="field-outline.height"]', 'Enter')
-    await expect.poll(() => page.locator('[data-test="error-outline.height"]').textContent()).toContain('must be > 0 µm')
+    await expect
+      .poll(() => page.locator('[data-test="error-outline.height"]').textContent())
+      .toContain('must be > 0 µm')
     await page.click('[data-test="tool-mark"]')
     const p = await at(page, 500, 500)
     await page.mouse.click(p.x, p.y)
     await expect.poll(() => page.locator('[data-test="inspector-id"]').textContent()).toBe('mark-1')
-    const mark = await page.evaluate(() => (window as any).__dwEditor.store.doc.marks.find((m: any) => m.id === 'mark-1'))
+    const mark = await page.evaluate(() =>
+      (window as any).__dwEditor.store.doc.marks.find((m: any) => m.id === 'mark-1'),
+    )
     expect(mark).toMatchObject({ kind: 'cross', size: 500, lineWidth: 50 })
   })
 })
@@ -189,7 +202,9 @@ describe('a demo-like design in the editor', () => {
     lab = await labWithDesign()
     page = await editorPage(browser, lab.as.designer, lab.lab.id, lab.designId)
   })
-  afterAll(async () => { await page?.context().close() })
+  afterAll(async () => {
+    await page?.context().close()
+  })
 
   it('opens, takes a new main-channel width in the inspector and saves it as revision 2', async () => {
     const p = await at(page, 5000, 3000)
@@ -218,8 +233,12 @@ describe('a demo-like design in the editor', () => {
     await page.click('[data-test="tool-place:y-junction"]')
     const q = await at(page, 8000, 1500)
     await page.mouse.click(q.x, q.y)
-    await expect.poll(() => page.evaluate(() => (window as any).__dwEditor.store.doc.components.length)).toBe(exported.components.length + 1)
+    await expect
+      .poll(() => page.evaluate(() => (window as any).__dwEditor.store.doc.components.length))
+      .toBe(exported.components.length + 1)
     await page.setInputFiles('[data-test="import-json"]', path)
-    await expect.poll(() => page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))).toEqual(exported)
+    await expect
+      .poll(() => page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc))))
+      .toEqual(exported)
   })
 })

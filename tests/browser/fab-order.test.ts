@@ -17,7 +17,9 @@ beforeAll(async () => {
   await c.as.reviewer.post(`${base}/verdicts`, { verdict: 'approve' })
   emails = await memberEmails(c.as.admin, c.lab.id)
 }, 120_000)
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 const as = (role: string): Promise<Page> => signedInPage(browser, emails[role]!, TEST_PASSWORD)
 

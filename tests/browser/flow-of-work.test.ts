@@ -26,7 +26,9 @@ beforeAll(async () => {
   lab.designId = (await newDesign(lab.as.designer, 'Cell drops T-junction')).designId
   designer = await as('designer')
 }, 120_000)
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 async function as(role: 'designer' | 'reviewer'): Promise<Page> {
   const page = await newPage(browser)
@@ -39,14 +41,15 @@ const labId = () => lab.lab.id
 async function newDesign(api: ApiClient, name: string) {
   const r = await api.post(`/api/labs/${labId()}/designs`, { name, document: fixtureDocument() })
   expect(r.status).toBe(201)
-  return r.json as { designId: string, revisionId: string }
+  return r.json as { designId: string; revisionId: string }
 }
 async function openEditor(page: Page, designId: string) {
   await page.goto(`/labs/${labId()}/designs/${designId}/edit`)
   await hydrated(page)
   await page.waitForSelector('[data-test="editor-canvas"] canvas')
 }
-const isArchived = async (designId: string) => (await lab.as.designer.get(`/api/labs/${labId()}/designs/${designId}`)).json.design.archived as boolean
+const isArchived = async (designId: string) =>
+  (await lab.as.designer.get(`/api/labs/${labId()}/designs/${designId}`)).json.design.archived as boolean
 
 describe('flow of work', () => {
   it('archiving asks first, says what it does, and is offered only to those who may archive', async () => {
@@ -95,14 +98,18 @@ describe('flow of work', () => {
     await designer.fill('[data-test="field-mainWidth"]', '80')
     await designer.press('[data-test="field-mainWidth"]', 'Enter')
     await expect.poll(async () => (await editorDoc(designer)).components[0].mainWidth).toBe(80)
-    await expect.poll(() => designer.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('editor-canvas')
+    await expect
+      .poll(() => designer.evaluate(() => document.activeElement?.getAttribute('data-test')))
+      .toBe('editor-canvas')
     await designer.keyboard.press('r')
     await expect.poll(async () => (await editorDoc(designer)).components[0].rotation).toBe(90)
     expect(await designer.inputValue('[data-test="field-mainWidth"]')).toBe('80')
     // A refused value keeps the focus in the field, to be corrected.
     await designer.fill('[data-test="field-mainWidth"]', '-5')
     await designer.press('[data-test="field-mainWidth"]', 'Enter')
-    await expect.poll(() => designer.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('field-mainWidth')
+    await expect
+      .poll(() => designer.evaluate(() => document.activeElement?.getAttribute('data-test')))
+      .toBe('field-mainWidth')
   })
 
   it('the Import JSON error shows beside the control and the page does not move', async () => {
@@ -110,18 +117,25 @@ describe('flow of work', () => {
     await openEditor(designer, designId)
     // The side panel scrolled to its end once its lazy sections have loaded (its height no longer changes).
     const aside = designer.locator('[data-test="editor-side"]')
-    await expect.poll(async () => {
-      const h = await aside.evaluate(el => el.scrollHeight)
-      await designer.waitForTimeout(300)
-      return (await aside.evaluate(el => el.scrollHeight)) === h
-    }).toBe(true)
-    await aside.evaluate(el => { el.scrollTop = el.scrollHeight })
+    await expect
+      .poll(async () => {
+        const h = await aside.evaluate(el => el.scrollHeight)
+        await designer.waitForTimeout(300)
+        return (await aside.evaluate(el => el.scrollHeight)) === h
+      })
+      .toBe(true)
+    await aside.evaluate(el => {
+      el.scrollTop = el.scrollHeight
+    })
     const before = await designer.evaluate(() => window.scrollY)
     const control = (await designer.locator('[data-test="import-json-control"]').boundingBox())!
     const path = join(tmpdir(), `not-a-chip-${Date.now()}.json`)
     await writeFile(path, JSON.stringify({ version: 1, name: 'Half a chip', layers: [] }))
     // As a person does it: a click on the control opens the file dialog, the chosen file comes back to the input.
-    const [chooser] = await Promise.all([designer.waitForEvent('filechooser'), designer.click('[data-test="import-json-control"]')])
+    const [chooser] = await Promise.all([
+      designer.waitForEvent('filechooser'),
+      designer.click('[data-test="import-json-control"]'),
+    ])
     await chooser.setFiles(path)
     const error = designer.locator('[data-test="import-error"]')
     await expect.poll(() => error.count()).toBe(1)
@@ -136,9 +150,13 @@ describe('flow of work', () => {
     expect((await editorDoc(designer)).name).toBe(fixtureDocument().name)
   })
 
-  it('any revision can be duplicated, and the editor of the copy is headed by the copy\'s name', async () => {
+  it("any revision can be duplicated, and the editor of the copy is headed by the copy's name", async () => {
     const { designId, revisionId } = await newDesign(lab.as.designer, 'Source of copies')
-    const r2 = await lab.as.designer.post(`/api/labs/${labId()}/designs/${designId}/revisions`, { parentId: revisionId, message: 'Second', document: { ...fixtureDocument(), name: 'Second document' } })
+    const r2 = await lab.as.designer.post(`/api/labs/${labId()}/designs/${designId}/revisions`, {
+      parentId: revisionId,
+      message: 'Second',
+      document: { ...fixtureDocument(), name: 'Second document' },
+    })
     expect(r2.status).toBe(201)
     await designer.goto(`/labs/${labId()}/revisions/${revisionId}`)
     await hydrated(designer)
@@ -147,10 +165,13 @@ describe('flow of work', () => {
     await designer.click('[data-test="duplicate-revision-form"] button.btn-primary')
     await designer.waitForURL(url => /\/designs\/[^/]+$/.test(url.pathname) && !url.pathname.endsWith(designId))
     await hydrated(designer)
-    await expect.poll(() => designer.locator('[data-test="design-origin"]').textContent()).toMatch(/Source of copies\s+revision\s+r1/)
+    await expect
+      .poll(() => designer.locator('[data-test="design-origin"]').textContent())
+      .toMatch(/Source of copies\s+revision\s+r1/)
     const copyId = new URL(designer.url()).pathname.split('/').pop()!
     const copy = (await lab.as.designer.get(`/api/labs/${labId()}/designs/${copyId}`)).json
-    const doc = (await lab.as.designer.get(`/api/labs/${labId()}/revisions/${copy.design.latestRevisionId}`)).json.document
+    const doc = (await lab.as.designer.get(`/api/labs/${labId()}/revisions/${copy.design.latestRevisionId}`)).json
+      .document
     expect(doc.name).toBe(fixtureDocument().name)
     await openEditor(designer, copyId)
     expect(await designer.locator('[data-test="editor-title"]').textContent()).toBe('Copy of the first revision')
@@ -158,9 +179,18 @@ describe('flow of work', () => {
 
   it('the revision list says which revision a branch came from', async () => {
     const { designId, revisionId } = await newDesign(lab.as.designer, 'Branches')
-    const r2 = await lab.as.designer.post(`/api/labs/${labId()}/designs/${designId}/revisions`, { parentId: revisionId, message: 'Straight on', document: fixtureDocument() })
+    const r2 = await lab.as.designer.post(`/api/labs/${labId()}/designs/${designId}/revisions`, {
+      parentId: revisionId,
+      message: 'Straight on',
+      document: fixtureDocument(),
+    })
     expect(r2.status).toBe(201)
-    const r3 = await lab.as.designer.post(`/api/labs/${labId()}/designs/${designId}/revisions`, { parentId: revisionId, message: 'Another way from r1', document: fixtureDocument(), branch: true })
+    const r3 = await lab.as.designer.post(`/api/labs/${labId()}/designs/${designId}/revisions`, {
+      parentId: revisionId,
+      message: 'Another way from r1',
+      document: fixtureDocument(),
+      branch: true,
+    })
     expect(r3.status).toBe(201)
     await designer.goto(`/labs/${labId()}/designs/${designId}`)
     await hydrated(designer)

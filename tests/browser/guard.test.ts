@@ -3,8 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { launch, newPage, shot, signInAs, labOptionValue } from '../support/browser'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('page guards and role menus in Chromium', () => {
   it('sends a signed-out visitor of a guarded page to sign-in, then back', async () => {

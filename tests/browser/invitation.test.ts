@@ -6,12 +6,19 @@ import { makeLab, TEST_PASSWORD } from '../support/factory'
 import { invitationLink, waitForMail } from '../support/mail'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('invitations in Chromium', () => {
   it('an admin invites by e-mail; the invited person follows the link, creates an account and lands in the lab', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin', 'designer'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin', 'designer'])
     const email = `ines-${randomUUID().slice(0, 8)}@invited.example`
 
     const page = await newPage(browser)
@@ -58,7 +65,9 @@ describe('invitations in Chromium', () => {
     // The admin sees the message in the development outbox, and the invitation is no longer open.
     await page.click('[data-test="nav-outbox"]')
     await page.waitForURL(/\/outbox$/)
-    await expect.poll(() => page.textContent(`[data-test="outbox-message-${email}"]`).catch(() => null)).toContain(lab.name)
+    await expect
+      .poll(() => page.textContent(`[data-test="outbox-message-${email}"]`).catch(() => null))
+      .toContain(lab.name)
     await page.click(`[data-test="outbox-message-${email}"] summary`)
     await shot(page, 'outbox')
     await page.click('[data-test="nav-members"]')
@@ -67,8 +76,13 @@ describe('invitations in Chromium', () => {
   })
 
   it('sends someone with an account to sign in first, then lets them join', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
-    const { people: [existing] } = await makeLab(['designer'])
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
+    const {
+      people: [existing],
+    } = await makeLab(['designer'])
     const page = await newPage(browser)
     await signInAs(page, admin!.email, TEST_PASSWORD)
     await page.waitForURL(/\/labs\//)

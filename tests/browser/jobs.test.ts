@@ -10,15 +10,35 @@ import { makeLab, TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
 const pool = new pg.Pool({ connectionString: inject('databaseUrl'), max: 1 })
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close(); await pool.end(); await closeDb() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+  await pool.end()
+  await closeDb()
+})
 
 describe('failed background jobs in Chromium', () => {
-  it('shows a lab admin the lab\'s failed job, its error and its tries, from the menu', async () => {
-    const { lab, people: [admin] } = await makeLab(['admin'])
+  it("shows a lab admin the lab's failed job, its error and its tries, from the menu", async () => {
+    const {
+      lab,
+      people: [admin],
+    } = await makeLab(['admin'])
     const marker = randomUUID()
-    const id = await enqueueJob('diagnostic.fail', { labId: lab.id, marker, message: 'Micrograph 14 could not be decoded' }, { retryLimit: 0 })
-    await expect.poll(async () => (await pool.query(`select state from pgboss.job where id = $1 and name = 'diagnostic.fail'`, [id])).rows[0]?.state, { timeout: 15_000 }).toBe('failed')
+    const id = await enqueueJob(
+      'diagnostic.fail',
+      { labId: lab.id, marker, message: 'Micrograph 14 could not be decoded' },
+      { retryLimit: 0 },
+    )
+    await expect
+      .poll(
+        async () =>
+          (await pool.query(`select state from pgboss.job where id = $1 and name = 'diagnostic.fail'`, [id])).rows[0]
+            ?.state,
+        { timeout: 15_000 },
+      )
+      .toBe('failed')
 
     const page = await newPage(browser)
     await signInAs(page, admin!.email, TEST_PASSWORD)

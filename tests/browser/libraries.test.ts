@@ -27,7 +27,9 @@ beforeAll(async () => {
   await signInAs(designer, people[1]!.email, TEST_PASSWORD)
   await designer.waitForURL(/\/labs\//)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('libraries page', () => {
   it('an admin adds a liquid; a refused value is named beside its field and kept', async () => {
@@ -40,7 +42,9 @@ describe('libraries page', () => {
     await form.locator('input[name="table.0.viscosityMPaS"]').fill('-3')
     await form.locator('input[name="table.0.densityKgPerM3"]').fill('815')
     await admin.click('[data-test="library-save"]')
-    await expect.poll(() => form.locator('[role="alert"]').first().textContent()).toContain('Viscosity must be above 0 mPa·s')
+    await expect
+      .poll(() => form.locator('[role="alert"]').first().textContent())
+      .toContain('Viscosity must be above 0 mPa·s')
     expect(await form.locator('input[name="name"]').inputValue()).toBe('Bench oil, lot 9')
     await form.locator('input[name="table.0.viscosityMPaS"]').fill('3.4')
     await admin.click('[data-test="library-add-row"]')
@@ -72,7 +76,13 @@ describe('libraries page', () => {
   })
 
   it('the editor lists the lab oil marked (lab); the revision page re-forecasts with the current library and shows the difference', async () => {
-    const pair = await adminApi.post(`/api/labs/${labId}/libraries`, { kind: 'pair', liquids: ['water', 'lab-bench-oil-9'], surfactant: 'bench-mix', interfacialTensionMNPerM: 4, source: 'measured in our lab' })
+    const pair = await adminApi.post(`/api/labs/${labId}/libraries`, {
+      kind: 'pair',
+      liquids: ['water', 'lab-bench-oil-9'],
+      surfactant: 'bench-mix',
+      interfacialTensionMNPerM: 4,
+      source: 'measured in our lab',
+    })
     expect(pair.status).toBe(201)
     const doc = fixtureDocument()
     doc.operatingPoints[0].continuousLiquid = { liquid: 'lab-bench-oil-9' }
@@ -83,13 +93,27 @@ describe('libraries page', () => {
     await designer.goto(`/labs/${labId}/designs/${made.json.designId}/edit`)
     await hydrated(designer)
     await designer.waitForSelector('[data-test="editor-canvas"] canvas')
-    await expect.poll(() => designer.locator('[data-test="op-continuous"] option', { hasText: 'Bench oil, lot 9 (lab)' }).count()).toBe(1)
+    await expect
+      .poll(() => designer.locator('[data-test="op-continuous"] option', { hasText: 'Bench oil, lot 9 (lab)' }).count())
+      .toBe(1)
     expect(await designer.locator('[data-test="op-continuous"]').inputValue()).toBe('lab-bench-oil-9')
 
-    expect((await adminApi.patch(`/api/labs/${labId}/libraries/${pair.json.id}`, { kind: 'pair', liquids: ['water', 'lab-bench-oil-9'], surfactant: 'bench-mix', interfacialTensionMNPerM: 2, source: 'measured in our lab' })).status).toBe(200)
+    expect(
+      (
+        await adminApi.patch(`/api/labs/${labId}/libraries/${pair.json.id}`, {
+          kind: 'pair',
+          liquids: ['water', 'lab-bench-oil-9'],
+          surfactant: 'bench-mix',
+          interfacialTensionMNPerM: 2,
+          source: 'measured in our lab',
+        })
+      ).status,
+    ).toBe(200)
     await designer.goto(`/labs/${labId}/revisions/${made.json.revisionId}`)
     await hydrated(designer)
-    expect(await designer.locator('[data-test="snapshot-tension"]').textContent()).toContain('γ = 4 mN/m (the lab\'s library)')
+    expect(await designer.locator('[data-test="snapshot-tension"]').textContent()).toContain(
+      "γ = 4 mN/m (the lab's library)",
+    )
     await designer.click('[data-test="reforecast-run"]')
     const table = designer.locator('[data-test="reforecast-differences"]')
     await table.waitFor()

@@ -8,7 +8,11 @@ import { ApiClient } from '../support/api'
 import { makeLab, TEST_PASSWORD } from '../support/factory'
 import { demoDesigns } from '../../server/db/demo-designs'
 
-interface Made { name: string, revisionIds: string[], namedIds: string[] }
+interface Made {
+  name: string
+  revisionIds: string[]
+  namedIds: string[]
+}
 let browser: Browser
 let page: Page
 let labId = ''
@@ -16,7 +20,9 @@ const made: Made[] = []
 
 /** Ids of the elements that have a name of their own (operating points, layers, named channels). */
 function namedIds(doc: any): string[] {
-  return [...doc.operatingPoints, ...doc.layers, ...doc.channels.filter((c: any) => c.name)].filter((e: any) => e.name && e.name !== e.id).map((e: any) => e.id)
+  return [...doc.operatingPoints, ...doc.layers, ...doc.channels.filter((c: any) => c.name)]
+    .filter((e: any) => e.name && e.name !== e.id)
+    .map((e: any) => e.id)
 }
 
 beforeAll(async () => {
@@ -30,22 +36,35 @@ beforeAll(async () => {
     expect(created.status).toBe(201)
     const ids = [created.json.revisionId as string]
     for (const r of rest) {
-      const saved = await designer.post(`/api/labs/${lab.id}/designs/${created.json.designId}/revisions`, { parentId: ids.at(-1), message: r.message, document: r.document })
+      const saved = await designer.post(`/api/labs/${lab.id}/designs/${created.json.designId}/revisions`, {
+        parentId: ids.at(-1),
+        message: r.message,
+        document: r.document,
+      })
       expect(saved.status).toBe(201)
       ids.push(saved.json.revisionId)
     }
-    made.push({ name: d.name, revisionIds: ids, namedIds: [...new Set(d.revisions.flatMap(r => namedIds(r.document)))] })
+    made.push({
+      name: d.name,
+      revisionIds: ids,
+      namedIds: [...new Set(d.revisions.flatMap(r => namedIds(r.document)))],
+    })
   }
   page = await newPage(browser)
   await signInAs(page, people.find(p => p.role === 'reviewer')!.email, TEST_PASSWORD)
   await page.waitForURL(/\/labs\//)
 }, 180_000)
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
-const raw = (text: string, ids: string[]) => [...(text.match(/\bop-\d+\b/g) ?? []), ...ids.filter(id => new RegExp(`["“]${id.replace(/[-[\]]/g, '\\$&')}["”]`).test(text))]
+const raw = (text: string, ids: string[]) => [
+  ...(text.match(/\bop-\d+\b/g) ?? []),
+  ...ids.filter(id => new RegExp(`["“]${id.replace(/[-[\]]/g, '\\$&')}["”]`).test(text)),
+]
 
 describe('names, not ids, on the revision page', () => {
-  it('every revision of the demo designs lists its findings with the elements\' names', async () => {
+  it("every revision of the demo designs lists its findings with the elements' names", async () => {
     let findings = 0
     for (const d of made) {
       for (const id of d.revisionIds) {
@@ -62,7 +81,9 @@ describe('names, not ids, on the revision page', () => {
     const bead = made.find(d => d.name === 'Hydrogel bead flow-focuser')!
     await page.goto(`/labs/${labId}/revisions/${bead.revisionIds[0]}`)
     await hydrated(page)
-    await expect.poll(() => page.locator('[data-test="findings-panel"]').textContent()).toContain('Operating point “Beads at 4:1 oil”')
+    await expect
+      .poll(() => page.locator('[data-test="findings-panel"]').textContent())
+      .toContain('Operating point “Beads at 4:1 oil”')
   })
 
   it('the compare table names the operating point by its name', async () => {

@@ -6,12 +6,19 @@ import { makeLab, TEST_PASSWORD } from '../support/factory'
 import { resetLink, waitForMail } from '../support/mail'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('forgotten password in Chromium', () => {
   it('asks for a link from the sign-in page, sets a new password from the mail, and is signed in; other sessions end', async () => {
-    const { lab, people: [person] } = await makeLab(['designer'])
+    const {
+      lab,
+      people: [person],
+    } = await makeLab(['designer'])
     const elsewhere = await new ApiClient().signIn(person!.email, TEST_PASSWORD)
 
     const page = await newPage(browser)
@@ -22,7 +29,9 @@ describe('forgotten password in Chromium', () => {
     await hydrated(page)
     await page.fill('#forgot-email', person!.email)
     await page.click('[data-test="forgot-submit"]')
-    await expect.poll(() => page.textContent('[data-test="forgot-sent"]').catch(() => null)).toMatch(/If a Dropwright account uses that address/)
+    await expect
+      .poll(() => page.textContent('[data-test="forgot-sent"]').catch(() => null))
+      .toMatch(/If a Dropwright account uses that address/)
     await shot(page, 'forgot-password')
 
     const { path } = resetLink(await waitForMail(person!.email))
@@ -32,11 +41,15 @@ describe('forgotten password in Chromium', () => {
     // The browser checks what it can (the address as the password)…
     await page.fill('#reset-password', person!.email.split('@')[0]!)
     await page.click('[data-test="reset-submit"]')
-    await expect.poll(() => page.textContent('[data-test="reset-password-error"]').catch(() => null)).toMatch(/your e-mail address or your name/)
+    await expect
+      .poll(() => page.textContent('[data-test="reset-password-error"]').catch(() => null))
+      .toMatch(/your e-mail address or your name/)
     // …and shows the server's message for a password on the common list.
     await page.fill('#reset-password', 'password123')
     await page.click('[data-test="reset-submit"]')
-    await expect.poll(() => page.textContent('[data-test="reset-password-error"]').catch(() => null)).toMatch(/common and leaked passwords/)
+    await expect
+      .poll(() => page.textContent('[data-test="reset-password-error"]').catch(() => null))
+      .toMatch(/common and leaked passwords/)
     await shot(page, 'reset-password')
     await page.fill('#reset-password', 'heron-basalt-capillary')
     await page.click('[data-test="reset-submit"]')
@@ -48,11 +61,15 @@ describe('forgotten password in Chromium', () => {
 
     const late = await newPage(browser)
     await late.goto(path)
-    await expect.poll(() => late.textContent('[data-test="reset-invalid"]').catch(() => null)).toMatch(/already been used/)
+    await expect
+      .poll(() => late.textContent('[data-test="reset-invalid"]').catch(() => null))
+      .toMatch(/already been used/)
   })
 
   it('changes the password on the account page, then signs out everywhere', async () => {
-    const { people: [person] } = await makeLab(['designer'])
+    const {
+      people: [person],
+    } = await makeLab(['designer'])
     const elsewhere = await new ApiClient().signIn(person!.email, TEST_PASSWORD)
     const page = await newPage(browser)
     await signInAs(page, person!.email, TEST_PASSWORD)
@@ -66,7 +83,9 @@ describe('forgotten password in Chromium', () => {
     await expect.poll(() => page.textContent('[data-test="password-form"]')).toMatch(/common and leaked passwords/)
     await page.fill('#new-password', 'lichen-sextant-marrow')
     await page.click('[data-test="password-submit"]')
-    await expect.poll(() => page.textContent('[data-test="password-changed"]').catch(() => null)).toBe('Password changed. 1 other session was signed out.')
+    await expect
+      .poll(() => page.textContent('[data-test="password-changed"]').catch(() => null))
+      .toBe('Password changed. 1 other session was signed out.')
     await shot(page, 'account')
     expect((await elsewhere.get('/api/auth/session')).status).toBe(401)
 

@@ -21,11 +21,16 @@ beforeAll(async () => {
   const { lab, people } = await makeLab(['designer'])
   labId = lab.id
   api = await new ApiClient().signIn(people[0]!.email, TEST_PASSWORD)
-  const created = await api.post(`/api/labs/${lab.id}/designs`, { name: 'Planner story T-junction', document: demoTJunction })
+  const created = await api.post(`/api/labs/${lab.id}/designs`, {
+    name: 'Planner story T-junction',
+    document: demoTJunction,
+  })
   if (created.status !== 201) throw new Error(`create failed: ${created.status} ${JSON.stringify(created.json)}`)
   designId = created.json.designId
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 const umOf = (text: string | null) => Number.parseFloat((text ?? '').replace(/[^\d.]/g, ''))
 
@@ -35,8 +40,10 @@ describe('planner in Chromium', () => {
 
   it('plans 40 µm at ≥ 500 Hz for the selected junction, applies the point as one undoable edit, and the forecast matches', async () => {
     page = await editorPage(browser, api, labId, designId)
-    page.on('console', (m) => { if (m.type() === 'error') problems.push(m.text()) })
-    page.on('pageerror', (e) => problems.push(e.message))
+    page.on('console', m => {
+      if (m.type() === 'error') problems.push(m.text())
+    })
+    page.on('pageerror', e => problems.push(e.message))
     const p = await at(page, 5000, 3000)
     await page.mouse.click(p.x, p.y)
     await page.waitForSelector('[data-test="planner-target"]')
@@ -52,7 +59,9 @@ describe('planner in Chromium', () => {
     await page.waitForSelector('[data-test="planner-map"] svg path', { state: 'attached' })
     const planned = umOf(await page.locator('[data-test="planner-recommended-diameter"]').textContent())
     expect(Math.abs(planned - 40)).toBeLessThanOrEqual(2)
-    expect(Number.parseFloat((await page.locator('[data-test="planner-recommended-rate"]').textContent())!)).toBeGreaterThan(0)
+    expect(
+      Number.parseFloat((await page.locator('[data-test="planner-recommended-rate"]').textContent())!),
+    ).toBeGreaterThan(0)
     expect(await page.locator('[data-test="planner-reason"]').textContent()).toMatch(/scanned point/)
     // 2e6 cells/mL in ≈ 33.5 pL drops: λ ≈ 0.067 (Poisson loading, Collins et al. 2015)
     expect(Number.parseFloat((await page.locator('[data-test="planner-lambda"]').textContent())!)).toBeCloseTo(0.067, 2)
@@ -64,12 +73,20 @@ describe('planner in Chromium', () => {
 
     const before = await editorDoc(page)
     await page.click('[data-test="planner-apply"]')
-    await expect.poll(async () => JSON.stringify((await editorDoc(page)).operatingPoints[0].inlets)).not.toBe(JSON.stringify(before.operatingPoints[0].inlets))
+    await expect
+      .poll(async () => JSON.stringify((await editorDoc(page)).operatingPoints[0].inlets))
+      .not.toBe(JSON.stringify(before.operatingPoints[0].inlets))
     expect(await page.getAttribute('[data-test="cmd-undo"]', 'title')).toBe('Undo set inlets (Ctrl Z)')
     // The live forecast of the applied point gives the planned size.
-    await expect.poll(async () => umOf(await page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()), { timeout: 15_000 }).toBeCloseTo(planned, 0)
+    await expect
+      .poll(async () => umOf(await page.locator('[data-test="forecast-dropletDiameter"] td').nth(1).textContent()), {
+        timeout: 15_000,
+      })
+      .toBeCloseTo(planned, 0)
     await page.click('[data-test="cmd-undo"]')
-    await expect.poll(async () => JSON.stringify((await editorDoc(page)).operatingPoints[0].inlets)).toBe(JSON.stringify(before.operatingPoints[0].inlets))
+    await expect
+      .poll(async () => JSON.stringify((await editorDoc(page)).operatingPoints[0].inlets))
+      .toBe(JSON.stringify(before.operatingPoints[0].inlets))
   })
 
   it('plans a new 25 µm step emulsifier from the design list and opens its nozzle array in the editor', async () => {
@@ -90,7 +107,9 @@ describe('planner in Chromium', () => {
     const doc = await editorDoc(page)
     expect(doc.layers.some((l: { depth: number }) => l.depth === 6.25)).toBe(true)
     expect(doc.components.filter((c: { kind: string }) => c.kind === 'step-nozzle').length).toBeGreaterThan(1)
-    await expect.poll(() => page.locator('[data-test="findings-count"]').textContent(), { timeout: 15_000 }).toMatch(/^0 errors/)
+    await expect
+      .poll(() => page.locator('[data-test="findings-count"]').textContent(), { timeout: 15_000 })
+      .toMatch(/^0 errors/)
     await shot(page, 'planner-new-design')
     expect(problems).toEqual([])
   })

@@ -16,13 +16,24 @@ beforeAll(async () => {
   for (const p of people) emails[p.role] = p.email
   labId = lab.id
   const designer = await new ApiClient().signIn(emails.designer!, TEST_PASSWORD)
-  const created = await designer.post(`/api/labs/${lab.id}/designs`, { name: 'Overview drops', document: fixtureDocument() })
+  const created = await designer.post(`/api/labs/${lab.id}/designs`, {
+    name: 'Overview drops',
+    document: fixtureDocument(),
+  })
   expect(created.status).toBe(201)
   revisionUrl = `/labs/${lab.id}/revisions/${created.json.revisionId}`
   const reviewerId = people.find(p => p.role === 'reviewer')!.id
-  expect((await designer.post(`/api/labs/${lab.id}/revisions/${created.json.revisionId}/review-requests`, { reviewerIds: [reviewerId] })).status).toBe(200)
+  expect(
+    (
+      await designer.post(`/api/labs/${lab.id}/revisions/${created.json.revisionId}/review-requests`, {
+        reviewerIds: [reviewerId],
+      })
+    ).status,
+  ).toBe(200)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 async function as(role: string, width = 1440): Promise<Page> {
   const page = await newPage(browser)
@@ -33,7 +44,7 @@ async function as(role: string, width = 1440): Promise<Page> {
 }
 
 describe('flow of work and numbers as the trade writes them', () => {
-  it('the reviewer\'s lab overview lists the revision waiting for their review and the recent design', async () => {
+  it("the reviewer's lab overview lists the revision waiting for their review and the recent design", async () => {
     for (const width of [1440, 1024]) {
       const page = await as('reviewer', width)
       await page.goto(`/labs/${labId}`)

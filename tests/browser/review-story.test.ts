@@ -16,10 +16,16 @@ beforeAll(async () => {
   browser = await launch()
   lab = await makeLab(['admin', 'designer', 'reviewer', 'experimenter', 'fabricator'])
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 // The reviewer of this story joins by an e-mail invitation (first test); everyone else was made by the factory.
-const invited = { email: `story-reviewer-${Date.now()}@invited.example`, name: 'Priya Story-Reviewer', password: 'review-pass-2026' }
+const invited = {
+  email: `story-reviewer-${Date.now()}@invited.example`,
+  name: 'Priya Story-Reviewer',
+  password: 'review-pass-2026',
+}
 
 async function as(role: string): Promise<Page> {
   const page = await newPage(browser)
@@ -48,12 +54,19 @@ async function uploadRevision(page: Page, mainWidth: number, message: string) {
 async function pinComment(page: Page, fx: number, fy: number, text: string, shown: string) {
   await page.click('[data-test="pin-mode"]')
   // Pin mode brings the drawing into view (it sits above the comments).
-  await expect.poll(async () => { const b = (await page.locator('canvas').first().boundingBox())!; return b.y >= 0 && b.y + b.height <= page.viewportSize()!.height }).toBe(true)
+  await expect
+    .poll(async () => {
+      const b = (await page.locator('canvas').first().boundingBox())!
+      return b.y >= 0 && b.y + b.height <= page.viewportSize()!.height
+    })
+    .toBe(true)
   const box = (await page.locator('canvas').first().boundingBox())!
   await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy)
   await page.fill('[data-test="pin-form"] textarea', text)
   await page.click('[data-test="pin-form"] button:has-text("Pin comment")')
-  await expect.poll(() => page.locator('[data-test^="thread-"]').allTextContents()).toEqual(expect.arrayContaining([expect.stringContaining(shown)]))
+  await expect
+    .poll(() => page.locator('[data-test^="thread-"]').allTextContents())
+    .toEqual(expect.arrayContaining([expect.stringContaining(shown)]))
 }
 
 describe('review story in Chromium', () => {

@@ -15,21 +15,28 @@ beforeAll(async () => {
   const designer = await new ApiClient().signIn(people.find(p => p.role === 'designer')!.email, TEST_PASSWORD)
   const doc = fixtureDocument()
   doc.channels[1].width = 100 // onto the T-junction's 50 µm dispersed arm: one width-step warning
-  const created = await designer.post(`/api/labs/${lab.id}/designs`, { name: 'Findings on the revision page', document: doc })
+  const created = await designer.post(`/api/labs/${lab.id}/designs`, {
+    name: 'Findings on the revision page',
+    document: doc,
+  })
   expect(created.status).toBe(201)
   url = `/labs/${lab.id}/revisions/${created.json.revisionId}`
   page = await newPage(browser)
   await signInAs(page, people.find(p => p.role === 'reviewer')!.email, TEST_PASSWORD)
   await page.waitForURL(/\/labs\//)
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('findings on the revision page', () => {
   it('the reviewer sees each finding in words and can go to it on the drawing', async () => {
     await page.goto(url)
     await hydrated(page)
     const panel = page.locator('[data-test="findings-panel"]')
-    await expect.poll(() => panel.textContent()).toContain('is 100 µm wide where it joins terminal "dispersed" of "tj-1"')
+    await expect
+      .poll(() => panel.textContent())
+      .toContain('is 100 µm wide where it joins terminal "dispersed" of "tj-1"')
     expect(await page.locator('[data-test="findings-count"]').textContent()).toMatch(/^0 errors, 2 warnings, 1 note$/)
     expect(await page.locator('aside').textContent()).not.toMatch(/\b1 (errors|warnings|notes)\b/)
     await page.waitForSelector('[data-test="viewer-canvas"] canvas')

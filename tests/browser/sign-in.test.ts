@@ -3,8 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { launch, newPage, shot, signInAs, labOptionValue } from '../support/browser'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('sign-in in Chromium', () => {
   it('signs the demo designer in and lands in their lab', async () => {

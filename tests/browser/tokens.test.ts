@@ -5,12 +5,18 @@ import { hydrated, launch, newPage, shot, signInAs } from '../support/browser'
 import { makeLab, TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
 describe('API tokens in Chromium', () => {
   it('creates a token shown once, lists it, revokes it; the reference page lists the routes', async () => {
-    const { people: [designer] } = await makeLab(['designer'])
+    const {
+      people: [designer],
+    } = await makeLab(['designer'])
     const page = await newPage(browser)
     await signInAs(page, designer!.email, TEST_PASSWORD)
     await page.waitForURL(/\/labs\//)

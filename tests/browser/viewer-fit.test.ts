@@ -15,19 +15,24 @@ beforeAll(async () => {
   browser = await launch()
   setup = await designerWithDesign('Viewer fit T-junction')
 })
-afterAll(async () => { await browser?.close() })
+afterAll(async () => {
+  await browser?.close()
+})
 
 /** What the chip layer of the viewer paints within `band` CSS px of the frame's visible edges. */
 async function edgeInk(page: Page, band = 6) {
-  return page.evaluate((band) => {
+  return page.evaluate(band => {
     const frame = document.querySelector('[data-test="viewer-canvas"]') as HTMLElement
     const canvas = frame.querySelector('canvas') as HTMLCanvasElement
     const ratio = canvas.width / parseFloat(canvas.style.width)
     const w = Math.min(frame.clientWidth, parseFloat(canvas.style.width))
     const h = Math.min(frame.clientHeight, parseFloat(canvas.style.height))
     const data = canvas.getContext('2d')!.getImageData(0, 0, Math.round(w * ratio), Math.round(h * ratio))
-    const W = data.width, H = data.height, b = Math.round(band * ratio)
-    let inked = 0, total = 0
+    const W = data.width,
+      H = data.height,
+      b = Math.round(band * ratio)
+    let inked = 0,
+      total = 0
     for (let y = 0; y < H; y++) {
       for (let x = 0; x < W; x++) {
         if (x >= b && x < W - b && y >= b && y < H - b) continue
@@ -37,7 +42,13 @@ async function edgeInk(page: Page, band = 6) {
     }
     let anyInk = 0
     for (let i = 3; i < data.data.length; i += 4) if (data.data[i]! > 0) anyInk++
-    return { frame: [frame.clientWidth, frame.clientHeight], canvas: [parseFloat(canvas.style.width), parseFloat(canvas.style.height)], inked, total, anyInk }
+    return {
+      frame: [frame.clientWidth, frame.clientHeight],
+      canvas: [parseFloat(canvas.style.width), parseFloat(canvas.style.height)],
+      inked,
+      total,
+      anyInk,
+    }
   }, band)
 }
 
@@ -68,7 +79,14 @@ describe('revision viewer framing', () => {
       await hydrated(page)
       await page.waitForSelector('[data-test="viewer-canvas"] canvas')
       // The canvas takes the frame's size once the layout has settled.
-      await expect.poll(async () => { const r = await edgeInk(page); return r.canvas.join('×') }, { timeout: 5000 })
+      await expect
+        .poll(
+          async () => {
+            const r = await edgeInk(page)
+            return r.canvas.join('×')
+          },
+          { timeout: 5000 },
+        )
         .toBe((await edgeInk(page)).frame.join('×'))
       const loaded = await edgeInk(page)
       expect(loaded.anyInk, 'the chip is drawn').toBeGreaterThan(1000)

@@ -7,25 +7,37 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { hydrated, launch, signInAs } from '../support/browser'
 
 let browser: Browser
-beforeAll(async () => { browser = await launch() })
-afterAll(async () => { await browser?.close() })
+beforeAll(async () => {
+  browser = await launch()
+})
+afterAll(async () => {
+  await browser?.close()
+})
 
-async function demoPage(email: string, width: number): Promise<{ page: Page, labId: string }> {
-  const context = await browser.newContext({ baseURL: inject('baseURL'), viewport: { width, height: width === 1440 ? 900 : 768 } })
+async function demoPage(email: string, width: number): Promise<{ page: Page; labId: string }> {
+  const context = await browser.newContext({
+    baseURL: inject('baseURL'),
+    viewport: { width, height: width === 1440 ? 900 : 768 },
+  })
   const page = await context.newPage()
   await signInAs(page, email)
   await page.waitForURL(/\/labs\//)
   await hydrated(page)
-  const labs = (await (await page.request.get('/api/labs')).json()) as Array<{ labId: string, name: string }>
+  const labs = (await (await page.request.get('/api/labs')).json()) as Array<{ labId: string; name: string }>
   return { page, labId: labs.find(l => l.name.startsWith('Quillmere'))!.labId }
 }
 
 /** Every entry of the header: its height, and whether the bar's content fits its width. */
-const headerBoxes = (page: Page) => page.evaluate(() => {
-  const bar = document.querySelector('header > div') as HTMLElement
-  const items = [...bar.querySelectorAll('a, button, select')].map(e => ({ text: (e.textContent ?? '').trim().slice(0, 30), height: e.getBoundingClientRect().height, right: e.getBoundingClientRect().right }))
-  return { items, overflow: bar.scrollWidth - bar.clientWidth, viewport: window.innerWidth }
-})
+const headerBoxes = (page: Page) =>
+  page.evaluate(() => {
+    const bar = document.querySelector('header > div') as HTMLElement
+    const items = [...bar.querySelectorAll('a, button, select')].map(e => ({
+      text: (e.textContent ?? '').trim().slice(0, 30),
+      height: e.getBoundingClientRect().height,
+      right: e.getBoundingClientRect().right,
+    }))
+    return { items, overflow: bar.scrollWidth - bar.clientWidth, viewport: window.innerWidth }
+  })
 
 /** The day a person reads ("3 Dec 2026", "Dec 3, 2026" …), never a machine's date. */
 const MACHINE_DATE = /^\d{4}-\d{2}-\d{2}|^\d{1,2}\/\d{1,2}\/\d{2,4}$/
@@ -64,22 +76,30 @@ describe('the walk at 1440 and 1024 px wide', () => {
     })
   }
 
-  it('1024 px: the revision page\'s forecast keeps each number with its unit on one line', async () => {
+  it("1024 px: the revision page's forecast keeps each number with its unit on one line", async () => {
     const { page, labId } = await demoPage('reviewer@quillmere.example', 1024)
-    const designs = (await (await page.request.get(`/api/labs/${labId}/designs?q=flow-focuser`)).json()) as { items?: Array<{ id: string, latestRevisionId: string }> }
+    const designs = (await (await page.request.get(`/api/labs/${labId}/designs?q=flow-focuser`)).json()) as {
+      items?: Array<{ id: string; latestRevisionId: string }>
+    }
     const listed = JSON.stringify(designs)
-    const revisionId = /"latestRevisionId":"([^"]+)"/.exec(listed)?.[1] ?? /"latestRevision":\{"id":"([^"]+)"/.exec(listed)?.[1]
+    const revisionId =
+      /"latestRevisionId":"([^"]+)"/.exec(listed)?.[1] ?? /"latestRevision":\{"id":"([^"]+)"/.exec(listed)?.[1]
     expect(revisionId, listed.slice(0, 300)).toBeTruthy()
     await page.goto(`/labs/${labId}/revisions/${revisionId}`)
     await hydrated(page)
     const cells = page.locator('[data-test="revision-forecast"] td.num')
     await cells.first().waitFor()
     // The line boxes of each cell's text (a cell is as tall as its row, so its own height says nothing).
-    const lines = await cells.evaluateAll(tds => tds.map((td) => {
-      const range = document.createRange()
-      range.selectNodeContents(td)
-      return { text: td.textContent!.trim(), lines: new Set([...range.getClientRects()].filter(r => r.width > 0).map(r => Math.round(r.top))).size }
-    }))
+    const lines = await cells.evaluateAll(tds =>
+      tds.map(td => {
+        const range = document.createRange()
+        range.selectNodeContents(td)
+        return {
+          text: td.textContent!.trim(),
+          lines: new Set([...range.getClientRects()].filter(r => r.width > 0).map(r => Math.round(r.top))).size,
+        }
+      }),
+    )
     expect(lines.length).toBeGreaterThanOrEqual(2)
     for (const l of lines) expect(l.lines, `"${l.text}" on one line`).toBe(1)
     await page.context().close()
@@ -87,9 +107,13 @@ describe('the walk at 1440 and 1024 px wide', () => {
 
   it('1024 px: the compare table keeps each inlet setting whole and inside its column', async () => {
     const { page, labId } = await demoPage('reviewer@quillmere.example', 1024)
-    const listed = JSON.stringify(await (await page.request.get(`/api/labs/${labId}/designs?q=Cell%20encapsulation`)).json())
+    const listed = JSON.stringify(
+      await (await page.request.get(`/api/labs/${labId}/designs?q=Cell%20encapsulation`)).json(),
+    )
     const designId = /"id":"([^"]+)"/.exec(listed)![1]
-    const revisions = JSON.stringify(await (await page.request.get(`/api/labs/${labId}/designs/${designId}/revisions`)).json())
+    const revisions = JSON.stringify(
+      await (await page.request.get(`/api/labs/${labId}/designs/${designId}/revisions`)).json(),
+    )
     const ids = [...revisions.matchAll(/"id":"([0-9a-f-]{36})"/g)].map(m => m[1]!)
     expect(ids.length).toBeGreaterThanOrEqual(2)
     await page.goto(`/labs/${labId}/revisions/${ids.at(-1)}/compare/${ids.at(-2)}`)
@@ -97,25 +121,30 @@ describe('the walk at 1440 and 1024 px wide', () => {
     const cells = page.locator('[data-test="compare-parameters"] td.num')
     await cells.first().waitFor()
     // Each cell's text as the lines it is laid out in (character by character), and how far it runs past the cell.
-    const seen = await cells.evaluateAll(tds => tds.map((td) => {
-      const lines: string[] = []
-      let top: number | null = null
-      let over = 0
-      const walker = document.createTreeWalker(td, NodeFilter.SHOW_TEXT)
-      for (let node = walker.nextNode(); node; node = walker.nextNode()) {
-        for (let i = 0; i < node.textContent!.length; i++) {
-          const r = document.createRange()
-          r.setStart(node, i)
-          r.setEnd(node, i + 1)
-          const box = r.getBoundingClientRect()
-          if (box.width === 0 && box.height === 0) continue
-          over = Math.max(over, box.right - td.getBoundingClientRect().right)
-          if (top === null || Math.abs(box.top - top) > 2) { lines.push(''); top = box.top }
-          lines[lines.length - 1] = `${lines.at(-1) ?? ''}${node.textContent!.charAt(i)}`
+    const seen = await cells.evaluateAll(tds =>
+      tds.map(td => {
+        const lines: string[] = []
+        let top: number | null = null
+        let over = 0
+        const walker = document.createTreeWalker(td, NodeFilter.SHOW_TEXT)
+        for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+          for (let i = 0; i < node.textContent!.length; i++) {
+            const r = document.createRange()
+            r.setStart(node, i)
+            r.setEnd(node, i + 1)
+            const box = r.getBoundingClientRect()
+            if (box.width === 0 && box.height === 0) continue
+            over = Math.max(over, box.right - td.getBoundingClientRect().right)
+            if (top === null || Math.abs(box.top - top) > 2) {
+              lines.push('')
+              top = box.top
+            }
+            lines[lines.length - 1] = `${lines.at(-1) ?? ''}${node.textContent!.charAt(i)}`
+          }
         }
-      }
-      return { text: td.textContent!, lines: lines.map(l => l.trim()), over }
-    }))
+        return { text: td.textContent!, lines: lines.map(l => l.trim()), over }
+      }),
+    )
     const inlets = seen.filter(c => /µL\/min/.test(c.text))
     expect(inlets.length).toBeGreaterThanOrEqual(2)
     for (const c of inlets) {
@@ -123,7 +152,10 @@ describe('the walk at 1440 and 1024 px wide', () => {
       for (const [k, line] of c.lines.entries()) {
         const next = c.lines[k + 1]
         if (next === undefined) continue
-        expect(`${line} | ${next}`, 'no line ends on a number whose unit starts the next, or inside "oil-in"').not.toMatch(/(\d \| [µn]L)|(- \| )/)
+        expect(
+          `${line} | ${next}`,
+          'no line ends on a number whose unit starts the next, or inside "oil-in"',
+        ).not.toMatch(/(\d \| [µn]L)|(- \| )/)
       }
     }
     await page.context().close()
@@ -131,11 +163,14 @@ describe('the walk at 1440 and 1024 px wide', () => {
 
   it('the demo fabrication order tells its story up to now, never in the future', async () => {
     const { page, labId } = await demoPage('fabricator@brackenfold.example', 1024)
-    const orders = (await (await page.request.get(`/api/labs/${labId}/orders`)).json()) as { orders: Array<{ id: string }> } | Array<{ id: string }>
+    const orders = (await (await page.request.get(`/api/labs/${labId}/orders`)).json()) as
+      { orders: Array<{ id: string }> } | Array<{ id: string }>
     const list = Array.isArray(orders) ? orders : orders.orders
     expect(list.length).toBeGreaterThan(0)
     const order = await (await page.request.get(`/api/labs/${labId}/orders/${list[0]!.id}`)).json()
-    const dates = JSON.stringify(order).match(/"\d{4}-\d{2}-\d{2}T[^"]+"/g)!.map(d => new Date(JSON.parse(d)).getTime())
+    const dates = JSON.stringify(order)
+      .match(/"\d{4}-\d{2}-\d{2}T[^"]+"/g)!
+      .map(d => new Date(JSON.parse(d)).getTime())
     expect(dates.length).toBeGreaterThan(2)
     expect(Math.max(...dates)).toBeLessThanOrEqual(Date.now() + 5_000)
     await page.context().close()

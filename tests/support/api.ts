@@ -11,7 +11,10 @@ export class ApiClient {
     if (body !== undefined && !headers.has('content-type')) headers.set('content-type', 'application/json')
     if (this.cookies.size) headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '))
     const res = await fetch(this.baseURL + path, {
-      ...init, method, headers, redirect: 'manual',
+      ...init,
+      method,
+      headers,
+      redirect: 'manual',
       body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
     })
     for (const line of res.headers.getSetCookie()) {
@@ -22,7 +25,11 @@ export class ApiClient {
     }
     const text = await res.text()
     let json: any = null
-    try { json = text ? JSON.parse(text) : null } catch { json = text }
+    try {
+      json = text ? JSON.parse(text) : null
+    } catch {
+      json = text
+    }
     return { status: res.status, headers: res.headers, json }
   }
 
@@ -39,7 +46,7 @@ export class ApiClient {
 
   async labId(slug: string): Promise<string> {
     const res = await this.get('/api/labs')
-    const lab = (res.json as Array<{ slug: string, labId: string }>).find(l => l.slug === slug)
+    const lab = (res.json as Array<{ slug: string; labId: string }>).find(l => l.slug === slug)
     if (!lab) throw new Error(`not a member of ${slug}`)
     return lab.labId
   }

@@ -6,8 +6,16 @@ import { DEMO_PASSWORD } from '../../server/db/demo'
 export async function launch(): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-      '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
     // playwright gives every launch a fresh, empty profile folder of its own.
   })
 }
@@ -35,9 +43,12 @@ export async function signedInPage(browser: Browser, email: string, password = D
 }
 
 /** Role → e-mail of a lab's members, as its admin sees them (tests whose lab has one person per role). */
-export async function memberEmails(admin: { get: (path: string) => Promise<{ json: unknown }> }, labId: string): Promise<Record<string, string>> {
-  const members = (await admin.get(`/api/labs/${labId}/members`)).json as { role: string, email: string }[]
-  return Object.fromEntries(members.map((m) => [m.role, m.email]))
+export async function memberEmails(
+  admin: { get: (path: string) => Promise<{ json: unknown }> },
+  labId: string,
+): Promise<Record<string, string>> {
+  const members = (await admin.get(`/api/labs/${labId}/members`)).json as { role: string; email: string }[]
+  return Object.fromEntries(members.map(m => [m.role, m.email]))
 }
 
 export const shot = (page: Page, name: string) => page.screenshot({ path: `test-results/${name}.png`, fullPage: true })
@@ -45,7 +56,10 @@ export const shot = (page: Page, name: string) => page.screenshot({ path: `test-
 /** Resolves once Nuxt has hydrated the page, so a click reaches Vue and not the browser's own form submission. */
 export async function hydrated(page: Page) {
   await page.waitForFunction(() => {
-    const app = (document.querySelector('#__nuxt') as (Element & { __vue_app__?: { config: { globalProperties: { $nuxt?: { isHydrating?: boolean } } } } }) | null)?.__vue_app__
+    const app = (
+      document.querySelector('#__nuxt') as
+        (Element & { __vue_app__?: { config: { globalProperties: { $nuxt?: { isHydrating?: boolean } } } } }) | null
+    )?.__vue_app__
     return app?.config.globalProperties.$nuxt?.isHydrating === false
   })
 }

@@ -2,7 +2,12 @@
 // ("scale tx ty"), so a test clicks the right spot however Fit framed the chip (beside or below the layer panel).
 import type { Page } from 'playwright-core'
 
-export async function worldOnPage(page: Page, selector: string, x: number, y: number): Promise<{ x: number, y: number }> {
+export async function worldOnPage(
+  page: Page,
+  selector: string,
+  x: number,
+  y: number,
+): Promise<{ x: number; y: number }> {
   const frame = page.locator(selector)
   const b = (await frame.boundingBox())!
   const [scale, tx, ty] = (await frame.getAttribute('data-view'))!.split(' ').map(Number) as [number, number, number]

@@ -13,9 +13,18 @@ export async function labWithDesign() {
     clients[p.role] = await new ApiClient().signIn(p.email, TEST_PASSWORD)
     ids[p.role] = p.id
   }
-  const created = await clients.designer.post(`/api/labs/${lab.id}/designs`, { name: 'Cell drops T-junction', document: fixtureDocument() })
+  const created = await clients.designer.post(`/api/labs/${lab.id}/designs`, {
+    name: 'Cell drops T-junction',
+    document: fixtureDocument(),
+  })
   if (created.status !== 201) throw new Error(`create failed: ${created.status} ${JSON.stringify(created.json)}`)
-  return { lab, as: clients, ids, designId: created.json.designId as string, revisionId: created.json.revisionId as string }
+  return {
+    lab,
+    as: clients,
+    ids,
+    designId: created.json.designId as string,
+    revisionId: created.json.revisionId as string,
+  }
 }
 
 /** A lab with one designer, signed in, and one design of the fixture chip, made through the API. */
@@ -25,5 +34,11 @@ export async function designerWithDesign(name: string) {
   const api = await new ApiClient().signIn(email, TEST_PASSWORD)
   const created = await api.post(`/api/labs/${lab.id}/designs`, { name, document: fixtureDocument() })
   if (created.status !== 201) throw new Error(`create failed: ${created.status} ${JSON.stringify(created.json)}`)
-  return { labId: lab.id, email, api, designId: created.json.designId as string, revisionId: created.json.revisionId as string }
+  return {
+    labId: lab.id,
+    email,
+    api,
+    designId: created.json.designId as string,
+    revisionId: created.json.revisionId as string,
+  }
 }

@@ -9,11 +9,16 @@ import type { ApiClient } from './api'
 export const at = (page: Page, x: number, y: number) => worldOnPage(page, '[data-test="editor-canvas"]', x, y)
 
 /** The editor's working document, as plain JSON. */
-export const editorDoc = (page: Page) => page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))
+export const editorDoc = (page: Page) =>
+  page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))
 
 /** A 1280 × 800 page signed in with an API client's cookies, on the editor of a design. */
 export async function editorPage(browser: Browser, as: ApiClient, labId: string, designId: string) {
-  const context = await browser.newContext({ baseURL: inject('baseURL'), viewport: { width: 1280, height: 800 }, acceptDownloads: true })
+  const context = await browser.newContext({
+    baseURL: inject('baseURL'),
+    viewport: { width: 1280, height: 800 },
+    acceptDownloads: true,
+  })
   await context.addCookies([...as.cookies].map(([name, value]) => ({ name, value, url: inject('baseURL') })))
   const page = await context.newPage()
   page.setDefaultTimeout(15_000)

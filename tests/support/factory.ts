@@ -14,11 +14,17 @@ export async function makeLab(members: Role[]) {
   const pool = new pg.Pool({ connectionString: inject('databaseUrl'), max: 2 })
   const db = drizzle(pool)
   const tag = randomUUID().slice(0, 8)
-  const [lab] = await db.insert(labs).values({ slug: `test-${tag}`, name: `Test lab ${tag}` }).returning()
+  const [lab] = await db
+    .insert(labs)
+    .values({ slug: `test-${tag}`, name: `Test lab ${tag}` })
+    .returning()
   const passwordHash = await hashPassword(TEST_PASSWORD)
   const people = []
   for (const [i, role] of members.entries()) {
-    const [user] = await db.insert(users).values({ email: `${role}-${i}-${tag}@test.example`, name: `${role} ${i} ${tag}`, passwordHash }).returning()
+    const [user] = await db
+      .insert(users)
+      .values({ email: `${role}-${i}-${tag}@test.example`, name: `${role} ${i} ${tag}`, passwordHash })
+      .returning()
     await db.insert(memberships).values({ userId: user!.id, labId: lab!.id, role })
     people.push({ ...user!, role })
   }

@@ -6,10 +6,12 @@ import { createServer } from 'node:net'
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
-    const srv = createServer().listen(0, '127.0.0.1', () => {
-      const port = (srv.address() as { port: number }).port
-      srv.close(() => resolve(port))
-    }).on('error', reject)
+    const srv = createServer()
+      .listen(0, '127.0.0.1', () => {
+        const port = (srv.address() as { port: number }).port
+        srv.close(() => resolve(port))
+      })
+      .on('error', reject)
   })
 }
 
@@ -32,32 +34,57 @@ export function mailEnv(): Record<string, string> {
     // The diagnostic jobs tests/api/jobs.test.ts watches the queue with (server/services/diagnosticJobs.ts).
     DW_DIAGNOSTIC_JOBS: '1',
   }
-  if (!env.SMTP_URL) throw new Error('SMTP_URL is not set: run the tests with `npm test` (it starts the local fake SMTP)')
+  if (!env.SMTP_URL)
+    throw new Error('SMTP_URL is not set: run the tests with `npm test` (it starts the local fake SMTP)')
   return env
 }
 
-export interface ServerInstance { baseURL: string, child: ChildProcess, log: () => string, stop: () => Promise<void> }
+export interface ServerInstance {
+  baseURL: string
+  child: ChildProcess
+  log: () => string
+  stop: () => Promise<void>
+}
 
 /** Spawns `.output/server/index.mjs` against `databaseUrl` and waits until /api/health answers (any status). */
-export async function startServer(opts: { databaseUrl: string, name: string, env?: Record<string, string> }): Promise<ServerInstance> {
+export async function startServer(opts: {
+  databaseUrl: string
+  name: string
+  env?: Record<string, string>
+}): Promise<ServerInstance> {
   const port = await freePort()
   let output = ''
   const child = spawn(process.execPath, ['.output/server/index.mjs'], {
-    env: { ...process.env, ...mailEnv(), HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: opts.databaseUrl, ...opts.env },
+    env: {
+      ...process.env,
+      ...mailEnv(),
+      HOST: '127.0.0.1',
+      PORT: String(port),
+      DATABASE_URL: opts.databaseUrl,
+      ...opts.env,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   // Also kept in .data/test-server-<name>.log, for a server that dies in the middle of a run.
   mkdirSync('.data', { recursive: true })
   const logFile = createWriteStream(`.data/test-server-${opts.name}.log`)
-  child.stdout!.on('data', (d) => { output += d; logFile.write(d) })
-  child.stderr!.on('data', (d) => { output += d; logFile.write(d) })
+  child.stdout!.on('data', d => {
+    output += d
+    logFile.write(d)
+  })
+  child.stderr!.on('data', d => {
+    output += d
+    logFile.write(d)
+  })
   const baseURL = `http://127.0.0.1:${port}`
   for (let i = 0; ; i++) {
     if (child.exitCode !== null) throw new Error(`server exited early:\n${output}`)
     try {
       await fetch(`${baseURL}/api/health`)
       break
-    } catch { /* not up yet */ }
+    } catch {
+      /* not up yet */
+    }
     if (i > 200) throw new Error(`server did not answer ${baseURL}/api/health in 20 s:\n${output}`)
     await new Promise(r => setTimeout(r, 100))
   }

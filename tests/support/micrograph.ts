@@ -2,9 +2,13 @@
 import sharp from 'sharp'
 import { renderMicrograph, scatterDrops, type SyntheticOptions } from '../../shared/imaging/synthetic'
 
-export async function micrographPng(options: Omit<SyntheticOptions, 'drops'> & { drops: SyntheticOptions['drops'] }): Promise<Uint8Array> {
+export async function micrographPng(
+  options: Omit<SyntheticOptions, 'drops'> & { drops: SyntheticOptions['drops'] },
+): Promise<Uint8Array> {
   const image = renderMicrograph(options)
-  return sharp(Buffer.from(image.data), { raw: { width: image.width, height: image.height, channels: 1 } }).png().toBuffer()
+  return sharp(Buffer.from(image.data), { raw: { width: image.width, height: image.height, channels: 1 } })
+    .png()
+    .toBuffer()
 }
 
 export async function dropsPng(count: number, diameterPx: number, size = 512, seed = 3) {

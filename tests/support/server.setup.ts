@@ -5,7 +5,10 @@ import pg from 'pg'
 import { startServer } from './instance'
 
 declare module 'vitest' {
-  export interface ProvidedContext { baseURL: string, databaseUrl: string }
+  export interface ProvidedContext {
+    baseURL: string
+    databaseUrl: string
+  }
 }
 
 export default async function setup(project: TestProject) {

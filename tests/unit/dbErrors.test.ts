@@ -17,7 +17,10 @@ describe('isDatabaseUnavailable', () => {
     ['pool acquire time-out', new Error('timeout exceeded when trying to connect')],
     ['lost connection', new Error('Connection terminated unexpectedly')],
     ['wrapped by the query builder', new Error('Failed query: select 1', { cause: pgError('57P01') })],
-    ['several addresses', Object.assign(new AggregateError([Object.assign(new Error('r'), { code: 'ECONNREFUSED' })], 'all failed'))],
+    [
+      'several addresses',
+      Object.assign(new AggregateError([Object.assign(new Error('r'), { code: 'ECONNREFUSED' })], 'all failed')),
+    ],
   ])('%s → unavailable', (_, error) => expect(isDatabaseUnavailable(error)).toBe(true))
 
   it.each([

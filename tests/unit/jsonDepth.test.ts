@@ -2,7 +2,11 @@
 import { describe, expect, it } from 'vitest'
 import { assertJsonDepth, MAX_JSON_DEPTH } from '../../server/utils/jsonDepth'
 
-const nested = (depth: number) => { let v: unknown = 1; for (let i = 0; i < depth; i++) v = [v]; return v }
+const nested = (depth: number) => {
+  let v: unknown = 1
+  for (let i = 0; i < depth; i++) v = [v]
+  return v
+}
 
 describe('assertJsonDepth', () => {
   it('passes documents up to the limit and scalars', () => {

@@ -29,14 +29,27 @@ describe('lint: the pure core stays pure', { timeout: 60_000 }, () => {
       for (const [code, why] of forbidden) {
         const messages = await lint(`${code}\n`, `${dir}/example.ts`)
         expect(messages.map(m => m.message).join(' | '), code).toMatch(why)
-        expect(messages.every(m => m.severity === 2), code).toBe(true)
+        expect(
+          messages.every(m => m.severity === 2),
+          code,
+        ).toBe(true)
       }
     })
   }
 
   it('allows the same imports outside the core, and the core its own imports', async () => {
-    expect(await lint(`import { ref } from 'vue'\nimport Konva from 'konva'\nexport const a = [ref, Konva]\n`, 'components/viewer/example.ts')).toEqual([])
-    expect(await lint(`import { z } from 'zod'\nimport { add } from '~~/geometry/vec'\nexport const a = [z, add]\n`, 'shared/physics/example.ts')).toEqual([])
+    expect(
+      await lint(
+        `import { ref } from 'vue'\nimport Konva from 'konva'\nexport const a = [ref, Konva]\n`,
+        'components/viewer/example.ts',
+      ),
+    ).toEqual([])
+    expect(
+      await lint(
+        `import { z } from 'zod'\nimport { add } from '~~/geometry/vec'\nexport const a = [z, add]\n`,
+        'shared/physics/example.ts',
+      ),
+    ).toEqual([])
   })
 
   it('reports ordinary lint errors too (the gate fails on them)', async () => {

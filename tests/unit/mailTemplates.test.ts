@@ -4,8 +4,11 @@ import { escapeHtml, invitationMail, passwordResetMail, verdictMail } from '../.
 describe('mail templates', () => {
   it('escapes every interpolated value in the HTML and keeps the text plain', () => {
     const mail = invitationMail({
-      labName: 'Lab <img src=x onerror=alert(1)>', role: 'designer', inviterName: 'Ada "A" O\'Neil',
-      link: 'http://127.0.0.1:3000/invitations/abc', expiresAt: new Date('2027-01-08T10:00:00Z'),
+      labName: 'Lab <img src=x onerror=alert(1)>',
+      role: 'designer',
+      inviterName: 'Ada "A" O\'Neil',
+      link: 'http://127.0.0.1:3000/invitations/abc',
+      expiresAt: new Date('2027-01-08T10:00:00Z'),
     })
     expect(mail.subject).toBe('Ada "A" O\'Neil invited you to Lab <img src=x onerror=alert(1)> on Dropwright')
     expect(mail.text).toContain('as Designer.')
@@ -18,14 +21,24 @@ describe('mail templates', () => {
   })
 
   it('never turns a non-http link into an anchor', () => {
-    const mail = verdictMail({ designName: 'D', revisionNumber: 1, reviewerName: 'R', verdict: 'approve', link: 'javascript:alert(1)' })
+    const mail = verdictMail({
+      designName: 'D',
+      revisionNumber: 1,
+      reviewerName: 'R',
+      verdict: 'approve',
+      link: 'javascript:alert(1)',
+    })
     expect(mail.subject).toBe('Approved: "D" revision 1')
     expect(mail.html).not.toContain('href=')
     expect(escapeHtml('&<>"\'')).toBe('&amp;&lt;&gt;&quot;&#39;')
   })
 
   it('writes the password reset mail with its link, how long it works, and the name escaped', () => {
-    const mail = passwordResetMail({ name: 'Ines <b>Varro</b>', link: 'http://127.0.0.1:3000/reset-password/abc', minutes: 60 })
+    const mail = passwordResetMail({
+      name: 'Ines <b>Varro</b>',
+      link: 'http://127.0.0.1:3000/reset-password/abc',
+      minutes: 60,
+    })
     expect(mail.subject).toBe('Reset your Dropwright password')
     expect(mail.text).toContain('Choose a new password: http://127.0.0.1:3000/reset-password/abc')
     expect(mail.text).toContain('works once and for 60 minutes')

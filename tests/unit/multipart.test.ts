@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest'
 import { parseMultipart } from '../../server/utils/multipart'
 
-async function encode(form: FormData): Promise<{ body: Buffer, type: string }> {
+async function encode(form: FormData): Promise<{ body: Buffer; type: string }> {
   const response = new Response(form)
   return { body: Buffer.from(await response.arrayBuffer()), type: response.headers.get('content-type')! }
 }
@@ -32,7 +32,10 @@ describe('parseMultipart', () => {
     const { body, type } = await encode(form)
     let turns = 0
     let ticking = true
-    const tick = () => { turns++; if (ticking) setImmediate(tick) }
+    const tick = () => {
+      turns++
+      if (ticking) setImmediate(tick)
+    }
     setImmediate(tick)
     const parts = await parseMultipart(body, type)
     ticking = false
@@ -45,7 +48,13 @@ describe('parseMultipart', () => {
     const form = new FormData()
     form.set('image', new Blob([new Uint8Array(100)]), 'x.png')
     const { body, type } = await encode(form)
-    await expect(parseMultipart(body.subarray(0, body.length - 20), type)).rejects.toMatchObject({ statusCode: 400, message: expect.stringContaining('malformed') })
-    await expect(parseMultipart(body, 'multipart/form-data')).rejects.toMatchObject({ statusCode: 400, message: expect.stringContaining('boundary') })
+    await expect(parseMultipart(body.subarray(0, body.length - 20), type)).rejects.toMatchObject({
+      statusCode: 400,
+      message: expect.stringContaining('malformed'),
+    })
+    await expect(parseMultipart(body, 'multipart/form-data')).rejects.toMatchObject({
+      statusCode: 400,
+      message: expect.stringContaining('boundary'),
+    })
   })
 })

@@ -8,8 +8,14 @@ const asOpenApi = (template: string) => template.replace(/\[(\w+)\]/g, '{$1}')
 
 describe('OpenAPI document (server/utils/openapi.ts)', () => {
   it('lists every route under server/api/v1 and server/api/labs, with its method', () => {
-    const wanted = apiRoutes().filter(r => /^\/api\/(v1|labs)(\/|$)/.test(r.template) && r.template !== '/api/v1/openapi.json')
-    for (const r of wanted) expect(doc.paths[asOpenApi(r.template)]?.[r.method.toLowerCase()], `${r.method} ${r.template} is missing`).toBeDefined()
+    const wanted = apiRoutes().filter(
+      r => /^\/api\/(v1|labs)(\/|$)/.test(r.template) && r.template !== '/api/v1/openapi.json',
+    )
+    for (const r of wanted)
+      expect(
+        doc.paths[asOpenApi(r.template)]?.[r.method.toLowerCase()],
+        `${r.method} ${r.template} is missing`,
+      ).toBeDefined()
     expect(OPERATIONS).toHaveLength(wanted.length) // and nothing that does not exist
   })
 
@@ -17,7 +23,9 @@ describe('OpenAPI document (server/utils/openapi.ts)', () => {
     const create = (doc.paths['/api/labs/{labId}/designs']!.post as any).requestBody.content['application/json'].schema
     expect(create.properties.name).toMatchObject({ type: 'string' })
     expect(create.required).toEqual(expect.arrayContaining(['name']))
-    const verdict = (doc.paths['/api/labs/{labId}/revisions/{revisionId}/verdicts']!.post as any).requestBody.content['application/json'].schema
+    const verdict = (doc.paths['/api/labs/{labId}/revisions/{revisionId}/verdicts']!.post as any).requestBody.content[
+      'application/json'
+    ].schema
     expect(verdict.properties.verdict.enum).toEqual(['approve', 'request-changes'])
     const forecast = (doc.paths['/api/v1/forecast']!.post as any).requestBody.content['application/json'].schema
     expect(forecast.anyOf).toHaveLength(3)

@@ -21,7 +21,14 @@ describe('password policy (shared/schemas/auth.ts)', () => {
   })
 
   it('refuses the e-mail, its local part and the name, whatever the case, spacing or digits added', () => {
-    for (const pw of ['ines.varro@quillmere.example', 'INES.VARRO@QUILLMERE.EXAMPLE', 'ines.varro', 'Ines Varro', 'inesvarro2026', 'my ines.varro@quillmere.example!']) {
+    for (const pw of [
+      'ines.varro@quillmere.example',
+      'INES.VARRO@QUILLMERE.EXAMPLE',
+      'ines.varro',
+      'Ines Varro',
+      'inesvarro2026',
+      'my ines.varro@quillmere.example!',
+    ]) {
       expect(problem(pw), pw).toMatch(/your e-mail address or your name/)
     }
     expect(problem('varro-ines-pipettes')).toBeNull()
@@ -37,22 +44,61 @@ describe('password policy (shared/schemas/auth.ts)', () => {
   })
 
   it('lets the demo and test passwords through', () => {
-    expect(passwordProblem(DEMO_PASSWORD, { email: 'designer@quillmere.example', name: 'Dana Designer' }, serverPasswordChecks)).toBeNull()
-    expect(passwordProblem(TEST_PASSWORD, { email: 'designer-0-1a2b3c4d@test.example', name: 'designer 0 1a2b3c4d' }, serverPasswordChecks)).toBeNull()
+    expect(
+      passwordProblem(
+        DEMO_PASSWORD,
+        { email: 'designer@quillmere.example', name: 'Dana Designer' },
+        serverPasswordChecks,
+      ),
+    ).toBeNull()
+    expect(
+      passwordProblem(
+        TEST_PASSWORD,
+        { email: 'designer-0-1a2b3c4d@test.example', name: 'designer 0 1a2b3c4d' },
+        serverPasswordChecks,
+      ),
+    ).toBeNull()
   })
 
   it('is the rule of every form that sets a password: new account, change, reset', () => {
-    const account = newAccountFor(owner.email, serverPasswordChecks).safeParse({ name: 'Ines Varro', password: 'inesvarro1' })
-    expect(account.error?.issues).toEqual([expect.objectContaining({ path: ['password'], message: expect.stringMatching(/your e-mail address or your name/) })])
-    expect(newAccountFor(owner.email).safeParse({ name: 'Ines Varro', password: 'aaaaaaaaaa' }).error?.issues[0]?.message).toMatch(/Do not repeat/)
+    const account = newAccountFor(owner.email, serverPasswordChecks).safeParse({
+      name: 'Ines Varro',
+      password: 'inesvarro1',
+    })
+    expect(account.error?.issues).toEqual([
+      expect.objectContaining({
+        path: ['password'],
+        message: expect.stringMatching(/your e-mail address or your name/),
+      }),
+    ])
+    expect(
+      newAccountFor(owner.email).safeParse({ name: 'Ines Varro', password: 'aaaaaaaaaa' }).error?.issues[0]?.message,
+    ).toMatch(/Do not repeat/)
 
-    const change = passwordChangeBody(owner, serverPasswordChecks).safeParse({ currentPassword: 'old-password-1', newPassword: 'qwertyuiop' })
-    expect(change.error?.issues[0]).toMatchObject({ path: ['newPassword'], message: expect.stringMatching(/common and leaked/) })
-    const same = passwordChangeBody(owner).safeParse({ currentPassword: 'river-glass-lantern', newPassword: 'river-glass-lantern' })
-    expect(same.error?.issues[0]).toMatchObject({ path: ['newPassword'], message: expect.stringMatching(/differs from the current one/) })
+    const change = passwordChangeBody(owner, serverPasswordChecks).safeParse({
+      currentPassword: 'old-password-1',
+      newPassword: 'qwertyuiop',
+    })
+    expect(change.error?.issues[0]).toMatchObject({
+      path: ['newPassword'],
+      message: expect.stringMatching(/common and leaked/),
+    })
+    const same = passwordChangeBody(owner).safeParse({
+      currentPassword: 'river-glass-lantern',
+      newPassword: 'river-glass-lantern',
+    })
+    expect(same.error?.issues[0]).toMatchObject({
+      path: ['newPassword'],
+      message: expect.stringMatching(/differs from the current one/),
+    })
 
     const reset = passwordResetBody(owner, serverPasswordChecks).safeParse({ password: 'short' })
-    expect(reset.error?.issues[0]).toMatchObject({ path: ['password'], message: 'Choose a password of at least 10 characters' })
-    expect(passwordResetBody(owner, serverPasswordChecks).parse({ password: 'river-glass-lantern' }).password).toBe('river-glass-lantern')
+    expect(reset.error?.issues[0]).toMatchObject({
+      path: ['password'],
+      message: 'Choose a password of at least 10 characters',
+    })
+    expect(passwordResetBody(owner, serverPasswordChecks).parse({ password: 'river-glass-lantern' }).password).toBe(
+      'river-glass-lantern',
+    )
   })
 })

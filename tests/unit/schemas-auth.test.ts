@@ -4,7 +4,9 @@ import { memberRoleUpdate } from '../../shared/schemas/labs'
 
 describe('sign-in body', () => {
   it('normalises the e-mail', () => {
-    expect(signInBody.parse({ email: '  Designer@Quillmere.Example ', password: 'x' }).email).toBe('designer@quillmere.example')
+    expect(signInBody.parse({ email: '  Designer@Quillmere.Example ', password: 'x' }).email).toBe(
+      'designer@quillmere.example',
+    )
   })
   it('names each bad field', () => {
     const r = signInBody.safeParse({ email: 'not-an-address', password: '' })

@@ -14,7 +14,19 @@
 // first edit: on the 512-nozzle chip a first edit's run took 56–70 ms cold and 12–18 ms warmed. A request
 // arriving meanwhile stops the warm-up and is answered at once.
 import type { ChipDocument } from '#shared/schemas/chip'
-import { applyPatch, focusOn, forecastUnchanged, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveLab, type LiveRequest, type RulesAnswer } from './liveRun'
+import {
+  applyPatch,
+  focusOn,
+  forecastUnchanged,
+  runLiveForecast,
+  runLiveRules,
+  type FocusAnswer,
+  type FocusRequest,
+  type LiveAnswer,
+  type LiveLab,
+  type LiveRequest,
+  type RulesAnswer,
+} from './liveRun'
 
 const WARM_UP_RUNS = 6
 let warmUp: ReturnType<typeof setTimeout> | undefined
@@ -27,7 +39,11 @@ let lab: LiveLab | null = null
 self.onmessage = (e: MessageEvent<LiveRequest | FocusRequest>) => {
   if ('refocus' in e.data) {
     const f = e.data
-    self.postMessage({ seq: f.seq, focus: f.focus, junctions: focusOn(last?.forecast ?? null, f.focus)?.junctions ?? [] } satisfies FocusAnswer)
+    self.postMessage({
+      seq: f.seq,
+      focus: f.focus,
+      junctions: focusOn(last?.forecast ?? null, f.focus)?.junctions ?? [],
+    } satisfies FocusAnswer)
     return
   }
   clearTimeout(warmUp)
@@ -37,13 +53,27 @@ self.onmessage = (e: MessageEvent<LiveRequest | FocusRequest>) => {
   const labChanged = req.lab !== undefined && JSON.stringify(req.lab) !== JSON.stringify(lab)
   if (req.lab !== undefined) lab = req.lab
   doc = req.doc ?? (before && req.patch ? applyPatch(before, req.patch) : null)
-  if (!doc) { self.postMessage({ seq: req.seq, forecast: null, summary: null, error: 'The forecast worker lost its document: reload the page' } satisfies LiveAnswer); return }
+  if (!doc) {
+    self.postMessage({
+      seq: req.seq,
+      forecast: null,
+      summary: null,
+      error: 'The forecast worker lost its document: reload the page',
+    } satisfies LiveAnswer)
+    return
+  }
   const d = doc
   if (req.warm) {
     // The opened chip's findings first (the page shows them), then the warm-up runs.
-    if (req.processId !== undefined) self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId, lab) } satisfies RulesAnswer)
+    if (req.processId !== undefined)
+      self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId, lab) } satisfies RulesAnswer)
     let left = WARM_UP_RUNS
-    const next = () => { if (left-- > 0) { runLiveForecast(d, 0, lab); warmUp = setTimeout(next, 0) } }
+    const next = () => {
+      if (left-- > 0) {
+        runLiveForecast(d, 0, lab)
+        warmUp = setTimeout(next, 0)
+      }
+    }
     warmUp = setTimeout(next, 0)
     last = null
     return
@@ -52,5 +82,9 @@ self.onmessage = (e: MessageEvent<LiveRequest | FocusRequest>) => {
   last = same ? { ...last!, seq: req.seq } : runLiveForecast(d, req.seq, lab)
   // The page gets the junctions of the focused element only; the rest stay here for a later focus request.
   self.postMessage({ ...last, forecast: focusOn(last.forecast, req.focus) } satisfies LiveAnswer)
-  if (req.processId !== undefined) rules = setTimeout(() => self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId, lab) } satisfies RulesAnswer), 0)
+  if (req.processId !== undefined)
+    rules = setTimeout(
+      () => self.postMessage({ seq: req.seq, findings: runLiveRules(d, req.processId, lab) } satisfies RulesAnswer),
+      0,
+    )
 }

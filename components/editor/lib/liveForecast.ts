@@ -8,11 +8,26 @@ import { confidenceOf, formatFlowUlMin, formatLengthUm, formatPressureMbar } fro
 import type { Finding } from '~~/geometry/rules'
 import type { LabLiquidsData } from '#shared/physics/liquids'
 import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
-import { diffDocument, runLiveForecast, runLiveRules, type FocusAnswer, type FocusRequest, type LiveAnswer, type LiveLab, type LiveRequest, type RulesAnswer } from './liveRun'
+import {
+  diffDocument,
+  runLiveForecast,
+  runLiveRules,
+  type FocusAnswer,
+  type FocusRequest,
+  type LiveAnswer,
+  type LiveLab,
+  type LiveRequest,
+  type RulesAnswer,
+} from './liveRun'
 
 export type { LiveLab } from './liveRun'
 
-export interface LiveForecast { forecast: DocumentForecast | null; summary: ForecastSummary | null; error: string | null; at: number }
+export interface LiveForecast {
+  forecast: DocumentForecast | null
+  summary: ForecastSummary | null
+  error: string | null
+  at: number
+}
 
 /** Runs one forecast: in a Web Worker in the browser, in the calling thread where there is none (tests, old browsers). */
 export type ForecastRunner = (doc: ChipDocument, seq: number, lab?: LabLiquidsData | null) => Promise<LiveAnswer>
@@ -23,7 +38,13 @@ export type ForecastRunner = (doc: ChipDocument, seq: number, lab?: LabLiquidsDa
  * request carries only a patch of what changed (liveRun.ts).
  */
 interface WorkerRunner {
-  run: (doc: ChipDocument, seq: number, processId: string | null, focus: string | null, lab: LiveLab | null) => Promise<LiveAnswer>
+  run: (
+    doc: ChipDocument,
+    seq: number,
+    processId: string | null,
+    focus: string | null,
+    lab: LiveLab | null,
+  ) => Promise<LiveAnswer>
   warm: (doc: ChipDocument, seq: number, processId: string | null, lab: LiveLab | null) => void
   /** The junctions of another element from the worker's last forecast. */
   refocus: (seq: number, focus: string | null) => void
@@ -35,7 +56,11 @@ interface WorkerRunner {
 function workerRunner(): WorkerRunner | null {
   if (typeof Worker === 'undefined') return null
   let worker: Worker
-  try { worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' }) } catch { return null }
+  try {
+    worker = new Worker(new URL('./forecast.worker.ts', import.meta.url), { type: 'module' })
+  } catch {
+    return null
+  }
   const waiting = new Map<number, { doc: ChipDocument; lab: LiveLab | null; done: (a: LiveAnswer) => void }>()
   let rules: (a: RulesAnswer) => void = () => {}
   let focused: (a: FocusAnswer) => void = () => {}
@@ -44,31 +69,57 @@ function workerRunner(): WorkerRunner | null {
   /** The lab library the worker holds (undefined: none sent yet). */
   let sentLab: LiveLab | null | undefined
   worker.onmessage = (e: MessageEvent<LiveAnswer | RulesAnswer | FocusAnswer>) => {
-    if ('findings' in e.data) { rules(e.data); return }
-    if ('junctions' in e.data) { focused(e.data); return }
+    if ('findings' in e.data) {
+      rules(e.data)
+      return
+    }
+    if ('junctions' in e.data) {
+      focused(e.data)
+      return
+    }
     waiting.get(e.data.seq)?.done(e.data)
     waiting.delete(e.data.seq)
   }
   // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
   let broken = false
-  worker.onerror = () => { broken = true; for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq, w.lab)); waiting.clear() }
+  worker.onerror = () => {
+    broken = true
+    for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq, w.lab))
+    waiting.clear()
+  }
   const send = (doc: ChipDocument, lab: LiveLab | null, req: Omit<LiveRequest, 'doc' | 'patch' | 'lab'>) => {
     const raw = toRaw(doc)
     const withLab = lab !== sentLab ? { lab: lab ? toRaw(lab) : null } : {}
-    worker.postMessage({ ...req, ...withLab, ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }) } satisfies LiveRequest)
+    worker.postMessage({
+      ...req,
+      ...withLab,
+      ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }),
+    } satisfies LiveRequest)
     sent = raw
     sentLab = lab
   }
   return {
-    run: (doc, seq, processId, focus, lab) => new Promise((done) => {
-      if (broken) { done(runLiveForecast(doc, seq, lab)); return }
-      waiting.set(seq, { doc, lab, done })
-      send(doc, lab, { seq, processId, focus })
-    }),
-    refocus: (seq, focus) => { if (!broken) worker.postMessage({ seq, refocus: true, focus } satisfies FocusRequest) },
-    onFocus: (f) => { focused = f },
-    warm: (doc, seq, processId, lab) => { if (!broken) send(doc, lab, { seq, warm: true, processId }) },
-    onRules: (f) => { rules = f },
+    run: (doc, seq, processId, focus, lab) =>
+      new Promise(done => {
+        if (broken) {
+          done(runLiveForecast(doc, seq, lab))
+          return
+        }
+        waiting.set(seq, { doc, lab, done })
+        send(doc, lab, { seq, processId, focus })
+      }),
+    refocus: (seq, focus) => {
+      if (!broken) worker.postMessage({ seq, refocus: true, focus } satisfies FocusRequest)
+    },
+    onFocus: f => {
+      focused = f
+    },
+    warm: (doc, seq, processId, lab) => {
+      if (!broken) send(doc, lab, { seq, warm: true, processId })
+    },
+    onRules: f => {
+      rules = f
+    },
     stop: () => worker.terminate(),
   }
 }
@@ -86,7 +137,16 @@ const SLOW_MS = 150
  * the forecast carries that element's junctions only (focusOn in liveRun.ts), the summary every junction. `lab`:
  * the lab's own liquids, pairs and processes (GET /api/v1/liquids?lab=); null → built-in only.
  */
-export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?: number; processId?: Ref<string | null>; runner?: ForecastRunner; focus?: Ref<string | null>; lab?: Ref<LiveLab | null> } = {}) {
+export function useLiveForecast(
+  doc: Ref<ChipDocument | null>,
+  opts: {
+    delayMs?: number
+    processId?: Ref<string | null>
+    runner?: ForecastRunner
+    focus?: Ref<string | null>
+    lab?: Ref<LiveLab | null>
+  } = {},
+) {
   const live = shallowRef<LiveForecast>({ forecast: null, summary: null, error: null, at: 0 })
   const findings = shallowRef<Finding[]>([])
   /** True while a run has taken longer than SLOW_MS, so the panel can say the numbers are being updated. */
@@ -98,30 +158,41 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
   // Rule findings: from the worker, for the newest document it was sent; without one, in the page a moment after
   // the forecast (they cost more on a large chip).
   let rulesFor = 0
-  worker?.onRules((a) => { if (a.seq === rulesFor) findings.value = a.findings })
+  worker?.onRules(a => {
+    if (a.seq === rulesFor) findings.value = a.findings
+  })
   // The seq of the forecast shown, and whether it came from the worker (then it holds the focused junctions only).
   let shown = 0
   let fromWorker = false
   let sentFocus: string | null = null
   const focus = () => opts.focus?.value ?? null
-  worker?.onFocus((a) => {
+  worker?.onFocus(a => {
     const f = live.value.forecast
-    if (a.seq === shown && f && a.focus === focus()) live.value = { ...live.value, forecast: { ...f, junctions: a.junctions } }
+    if (a.seq === shown && f && a.focus === focus())
+      live.value = { ...live.value, forecast: { ...f, junctions: a.junctions } }
   })
   // On a small chip the first forecast runs in the page, right after the chip is drawn, while the worker loads,
   // checks the rules and warms up on the same document; every later one runs in the worker. A large chip's first
   // forecast goes to the worker too: on 4,096 nozzles it would hold the page for a second or more.
   let first = !!worker && !!doc.value && elementCount(doc.value) <= IN_PAGE_FIRST_MAX
   let busy = false
-  if (worker && opts.focus) watch(opts.focus, (id) => { if (fromWorker && !busy) worker.refocus(shown, id) })
+  if (worker && opts.focus)
+    watch(opts.focus, id => {
+      if (fromWorker && !busy) worker.refocus(shown, id)
+    })
   let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
   let rulesTimer: ReturnType<typeof setTimeout> | undefined
   // One run at a time; edits made meanwhile are folded into one run of the newest document when it ends.
   const run = async (d: ChipDocument) => {
-    if (busy) { pending = d; return }
+    if (busy) {
+      pending = d
+      return
+    }
     busy = true
-    slowTimer = setTimeout(() => { slow.value = true }, SLOW_MS)
+    slowTimer = setTimeout(() => {
+      slow.value = true
+    }, SLOW_MS)
     const n = ++seq
     const lab = opts.lab?.value ?? null
     const here = first
@@ -129,7 +200,9 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     let a: LiveAnswer
     if (!worker) {
       clearTimeout(rulesTimer)
-      rulesTimer = setTimeout(() => { findings.value = runLiveRules(d, processId(), lab) }, 120)
+      rulesTimer = setTimeout(() => {
+        findings.value = runLiveRules(d, processId(), lab)
+      }, 120)
       a = await (opts.runner ?? inThread)(d, n, lab)
     } else if (here) {
       rulesFor = n
@@ -146,36 +219,60 @@ export function useLiveForecast(doc: Ref<ChipDocument | null>, opts: { delayMs?:
     slow.value = false
     shown = n
     live.value = { forecast: a.forecast, summary: a.summary, error: a.error, at: performance.now() }
-    if (pending) { const next = pending; pending = null; run(next) }
-    else if (fromWorker && focus() !== sentFocus) worker!.refocus(n, focus()) // the selection changed meanwhile
+    if (pending) {
+      const next = pending
+      pending = null
+      run(next)
+    } else if (fromWorker && focus() !== sentFocus) worker!.refocus(n, focus()) // the selection changed meanwhile
   }
   // With a worker the document is sent at once, so the forecast runs while the page redraws the chip; in the
   // page itself it waits for the redraw.
-  watch(doc, (d) => {
+  watch(
+    doc,
+    d => {
+      clearTimeout(timer)
+      if (!d) return
+      if (worker && !opts.delayMs && !first) run(d)
+      else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
+    },
+    { immediate: true, flush: worker ? 'sync' : 'pre' },
+  )
+  if (opts.processId)
+    watch(opts.processId, () => {
+      if (doc.value) run(doc.value)
+    })
+  if (opts.lab)
+    watch(opts.lab, () => {
+      if (doc.value) run(doc.value)
+    })
+  onScopeDispose(() => {
     clearTimeout(timer)
-    if (!d) return
-    if (worker && !opts.delayMs && !first) run(d)
-    else timer = setTimeout(() => run(d), opts.delayMs ?? 0)
-  }, { immediate: true, flush: worker ? 'sync' : 'pre' })
-  if (opts.processId) watch(opts.processId, () => { if (doc.value) run(doc.value) })
-  if (opts.lab) watch(opts.lab, () => { if (doc.value) run(doc.value) })
-  onScopeDispose(() => { clearTimeout(timer); clearTimeout(rulesTimer); clearTimeout(slowTimer); worker?.stop() })
+    clearTimeout(rulesTimer)
+    clearTimeout(slowTimer)
+    worker?.stop()
+  })
   return { live, findings, slow }
 }
-
 
 /**
  * Junction callouts (regime, Ø µm, caution when outside validity) and inlet callouts (pressure and flow; a fault
  * when the pressure exceeds the bond limit of the design's process).
  */
-export function canvasLabels(doc: ChipDocument, summary: ForecastSummary | null, bondLimitMbar = Infinity): ViewerLabel[] {
+export function canvasLabels(
+  doc: ChipDocument,
+  summary: ForecastSummary | null,
+  bondLimitMbar = Infinity,
+): ViewerLabel[] {
   if (!summary) return []
   const comps = new Map(doc.components.map(c => [c.id, c]))
   const labels: ViewerLabel[] = []
   for (const j of summary.junctions) {
     const c = comps.get(j.id)
     if (!c) continue
-    const lines = [`${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`, j.dropletDiameterUm != null ? `Ø ${formatLengthUm(j.dropletDiameterUm, confidenceOf(j.valid))}` : 'Ø —']
+    const lines = [
+      `${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`,
+      j.dropletDiameterUm != null ? `Ø ${formatLengthUm(j.dropletDiameterUm, confidenceOf(j.valid))}` : 'Ø —',
+    ]
     labels.push({ elementId: j.id, x: c.position.x, y: c.position.y, lines, tone: j.valid ? 'ok' : 'caution' })
   }
   const ports = new Map(doc.ports.map(p => [p.id, p]))

@@ -21,7 +21,10 @@ export function useNumberDraft(source: NumberDraftSource) {
   const editing = ref(false)
   /** What was last sent: Enter and the change event that follows it send a value once. */
   let sent: string | null = null
-  watch(source.value, (v) => { sent = null; if (!editing.value || !source.error()) text.value = shown(v) })
+  watch(source.value, v => {
+    sent = null
+    if (!editing.value || !source.error()) text.value = shown(v)
+  })
   function commit() {
     if (text.value === sent) return
     sent = text.value
@@ -34,5 +37,15 @@ export function useNumberDraft(source: NumberDraftSource) {
     await nextTick()
     if (!source.error()) focusCanvas()
   }
-  return { text, commit, enter, focus: () => { editing.value = true }, blur: () => { editing.value = false } }
+  return {
+    text,
+    commit,
+    enter,
+    focus: () => {
+      editing.value = true
+    },
+    blur: () => {
+      editing.value = false
+    },
+  }
 }

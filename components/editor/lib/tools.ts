@@ -4,7 +4,12 @@ import type { PlaceableKind } from '~~/shared/editor'
 export type PortTool = 'port:continuous' | 'port:dispersed' | 'port:outlet'
 export type Tool = 'select' | 'channel' | 'measure' | 'mark' | `place:${PlaceableKind}` | PortTool
 
-export interface ToolEntry { tool: Tool; label: string; key: string; group: 'edit' | 'parts' | 'ports' | 'frame' }
+export interface ToolEntry {
+  tool: Tool
+  label: string
+  key: string
+  group: 'edit' | 'parts' | 'ports' | 'frame'
+}
 
 export const TOOLS: ToolEntry[] = [
   { tool: 'select', label: 'Select and move', key: 's', group: 'edit' },
@@ -21,7 +26,19 @@ export const TOOLS: ToolEntry[] = [
   { tool: 'mark', label: 'Alignment cross', key: 'x', group: 'frame' },
 ]
 
-export type Command = 'array' | 'undo' | 'redo' | 'delete' | 'duplicate' | 'rotate' | 'copy' | 'paste' | 'escape' | 'help' | 'save' | 'select-all'
+export type Command =
+  | 'array'
+  | 'undo'
+  | 'redo'
+  | 'delete'
+  | 'duplicate'
+  | 'rotate'
+  | 'copy'
+  | 'paste'
+  | 'escape'
+  | 'help'
+  | 'save'
+  | 'select-all'
 
 /** Commands with their keys as shown in the help overlay (Ctrl stands for ⌘ on a Mac). */
 export const COMMANDS: Array<{ command: Command; label: string; keys: string }> = [
@@ -38,13 +55,21 @@ export const COMMANDS: Array<{ command: Command; label: string; keys: string }> 
   { command: 'help', label: 'This list', keys: '?' },
 ]
 
-const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, 1], ArrowDown: [0, -1] }
+const ARROWS: Record<string, [number, number]> = {
+  ArrowLeft: [-1, 0],
+  ArrowRight: [1, 0],
+  ArrowUp: [0, 1],
+  ArrowDown: [0, -1],
+}
 
 /**
  * How far an arrow key moves the selection, µm (y up, as on the chip): one grid step, ten with Shift; 10 µm a step
  * with the grid off. Null for any other key, or with Ctrl, ⌘ or Alt held.
  */
-export function nudgeOf(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>, gridPitch: number): { dx: number; dy: number } | null {
+export function nudgeOf(
+  e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>,
+  gridPitch: number,
+): { dx: number; dy: number } | null {
   const dir = ARROWS[e.key]
   if (!dir || e.ctrlKey || e.metaKey || e.altKey) return null
   const step = (gridPitch > 0 ? gridPitch : 10) * (e.shiftKey ? 10 : 1)
@@ -52,12 +77,21 @@ export function nudgeOf(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | '
 }
 
 /** The command or tool a key press means, or null. */
-export function keyAction(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>): { command: Command } | { tool: Tool } | null {
+export function keyAction(
+  e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey'>,
+): { command: Command } | { tool: Tool } | null {
   const mod = e.ctrlKey || e.metaKey
   const k = e.key.toLowerCase()
   if (mod) {
     if (k === 'z') return { command: e.shiftKey ? 'redo' : 'undo' }
-    const byKey: Record<string, Command> = { y: 'redo', d: 'duplicate', c: 'copy', v: 'paste', s: 'save', a: 'select-all' }
+    const byKey: Record<string, Command> = {
+      y: 'redo',
+      d: 'duplicate',
+      c: 'copy',
+      v: 'paste',
+      s: 'save',
+      a: 'select-all',
+    }
     return byKey[k] ? { command: byKey[k]! } : null
   }
   if (e.altKey) return null
@@ -65,6 +99,6 @@ export function keyAction(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' |
   if (e.key === 'Delete' || e.key === 'Backspace') return { command: 'delete' }
   if (e.key === 'Escape' || e.key === 'Enter') return { command: 'escape' }
   if (k === 'r') return { command: 'rotate' }
-  const t = TOOLS.find((x) => x.key === k)
+  const t = TOOLS.find(x => x.key === k)
   return t ? { tool: t.tool } : null
 }

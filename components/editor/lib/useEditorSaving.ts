@@ -9,15 +9,29 @@ import type { useEditorStore } from '~/stores/editor'
 export function useEditorSaving(store: ReturnType<typeof useEditorStore>) {
   const restore = ref<LocalCopy | null>(null)
   const paused = ref(false)
-  useLocalCopy(() => store.designId, toRef(store, 'doc'), toRef(store, 'dirty'), () => store.base?.id, paused)
+  useLocalCopy(
+    () => store.designId,
+    toRef(store, 'doc'),
+    toRef(store, 'dirty'),
+    () => store.base?.id,
+    paused,
+  )
 
   /** The revision number of the last save in this visit; the save bar clears its message on it. */
   const savedAs = ref<number | null>(null)
   async function save(message: string, branch = false) {
-    if (await store.save(message, branch)) { dropLocalCopy(store.designId); savedAs.value = store.base?.number ?? null }
+    if (await store.save(message, branch)) {
+      dropLocalCopy(store.designId)
+      savedAs.value = store.base?.number ?? null
+    }
   }
   async function reloadLatest() {
-    if (store.doc && store.base) writeLocalCopy(store.designId, { baseRevisionId: store.base.id, savedAt: new Date().toISOString(), doc: store.doc })
+    if (store.doc && store.base)
+      writeLocalCopy(store.designId, {
+        baseRevisionId: store.base.id,
+        savedAt: new Date().toISOString(),
+        doc: store.doc,
+      })
     paused.value = true
     savedAs.value = null
     const kept = readLocalCopy(store.designId)
@@ -25,8 +39,14 @@ export function useEditorSaving(store: ReturnType<typeof useEditorStore>) {
     restore.value = kept
     paused.value = false
   }
-  function takeRestore() { if (restore.value) store.replace(restore.value.doc); restore.value = null }
-  function dropRestore() { dropLocalCopy(store.designId); restore.value = null }
+  function takeRestore() {
+    if (restore.value) store.replace(restore.value.doc)
+    restore.value = null
+  }
+  function dropRestore() {
+    dropLocalCopy(store.designId)
+    restore.value = null
+  }
 
   function exportJson() {
     if (!store.doc) return
@@ -46,7 +66,12 @@ export function useEditorSaving(store: ReturnType<typeof useEditorStore>) {
     ;(e.target as HTMLInputElement).value = ''
   }
 
-  const unload = (e: BeforeUnloadEvent) => { if (store.dirty) { e.preventDefault(); e.returnValue = '' } }
+  const unload = (e: BeforeUnloadEvent) => {
+    if (store.dirty) {
+      e.preventDefault()
+      e.returnValue = ''
+    }
+  }
   onMounted(() => {
     window.addEventListener('beforeunload', unload)
     const kept = readLocalCopy(store.designId)

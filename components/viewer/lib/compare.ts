@@ -30,7 +30,7 @@ const byElement = (scene: ChipScene): Map<string, Placed> => {
 }
 
 const rings = (placed: Placed | undefined): Float64Array[] =>
-  (placed ?? []).flatMap((p) => p.pieces.flatMap((poly) => poly.map((r, i) => flatRing(r, i === 0))))
+  (placed ?? []).flatMap(p => p.pieces.flatMap(poly => poly.map((r, i) => flatRing(r, i === 0))))
 
 function sameGeometry(a: Placed, b: Placed, depthA: Map<string, number>, depthB: Map<string, number>): boolean {
   if (a.length !== b.length) return false
@@ -40,10 +40,16 @@ function sameGeometry(a: Placed, b: Placed, depthA: Map<string, number>, depthB:
     if (pa.pieces.length !== pb.pieces.length) return false
     return pa.pieces.every((poly, j) => {
       const q = pb.pieces[j]!
-      return poly.length === q.length && poly.every((ring, k) => {
-        const r = q[k]!
-        return ring.length === r.length && ring.every((pt, n) => Math.abs(pt[0] - r[n]![0]) < 1e-6 && Math.abs(pt[1] - r[n]![1]) < 1e-6)
-      })
+      return (
+        poly.length === q.length &&
+        poly.every((ring, k) => {
+          const r = q[k]!
+          return (
+            ring.length === r.length &&
+            ring.every((pt, n) => Math.abs(pt[0] - r[n]![0]) < 1e-6 && Math.abs(pt[1] - r[n]![1]) < 1e-6)
+          )
+        })
+      )
     })
   })
 }
@@ -53,9 +59,15 @@ const memo = new WeakMap<ChipDocument, WeakMap<ChipDocument, CompareOverlay>>()
 /** The overlay of `now` against `before`, memoised per pair of document objects. */
 export function compareOverlay(now: ChipDocument, before: ChipDocument): CompareOverlay {
   let inner = memo.get(now)
-  if (!inner) { inner = new WeakMap(); memo.set(now, inner) }
+  if (!inner) {
+    inner = new WeakMap()
+    memo.set(now, inner)
+  }
   let o = inner.get(before)
-  if (!o) { o = buildCompareOverlay(now, before); inner.set(before, o) }
+  if (!o) {
+    o = buildCompareOverlay(now, before)
+    inner.set(before, o)
+  }
   return o
 }
 
@@ -63,17 +75,19 @@ export function buildCompareOverlay(now: ChipDocument, before: ChipDocument): Co
   const diff = diffDocuments(before, now)
   const a = byElement(sceneFor(now))
   const b = byElement(sceneFor(before))
-  const depthNow = new Map(now.layers.map((l) => [l.id, l.depth]))
-  const depthBefore = new Map(before.layers.map((l) => [l.id, l.depth]))
-  const changedIds = [...a.keys()].filter((id) => b.has(id) && !sameGeometry(a.get(id)!, b.get(id)!, depthNow, depthBefore))
-  const addedIds = [...a.keys()].filter((id) => !b.has(id))
-  const removedIds = [...b.keys()].filter((id) => !a.has(id))
+  const depthNow = new Map(now.layers.map(l => [l.id, l.depth]))
+  const depthBefore = new Map(before.layers.map(l => [l.id, l.depth]))
+  const changedIds = [...a.keys()].filter(
+    id => b.has(id) && !sameGeometry(a.get(id)!, b.get(id)!, depthNow, depthBefore),
+  )
+  const addedIds = [...a.keys()].filter(id => !b.has(id))
+  const removedIds = [...b.keys()].filter(id => !a.has(id))
   return {
     diff,
-    added: addedIds.flatMap((id) => rings(a.get(id))),
-    removed: removedIds.flatMap((id) => rings(b.get(id))),
-    changed: changedIds.flatMap((id) => rings(a.get(id))),
-    changedBefore: changedIds.flatMap((id) => rings(b.get(id))),
+    added: addedIds.flatMap(id => rings(a.get(id))),
+    removed: removedIds.flatMap(id => rings(b.get(id))),
+    changed: changedIds.flatMap(id => rings(a.get(id))),
+    changedBefore: changedIds.flatMap(id => rings(b.get(id))),
     ids: { added: addedIds, removed: removedIds, changed: changedIds },
   }
 }

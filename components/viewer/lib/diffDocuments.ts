@@ -2,11 +2,16 @@
 // server can import it for the compare table as well as the viewer's overlay.
 import type { ChipDocument } from '#shared/schemas/chip'
 
-export type DiffCollection = 'document' | 'layers' | 'ports' | 'channels' | 'components' | 'marks' | 'outline' | 'operatingPoints'
+export type DiffCollection =
+  'document' | 'layers' | 'ports' | 'channels' | 'components' | 'marks' | 'outline' | 'operatingPoints'
 export type DiffStatus = 'added' | 'removed' | 'changed'
 
 /** One changed field: a dotted path into the element (`position.x`, `mainWidth`); arrays count as one field. */
-export interface FieldChange { path: string; before: unknown; after: unknown }
+export interface FieldChange {
+  path: string
+  before: unknown
+  after: unknown
+}
 
 export interface DiffEntry {
   collection: DiffCollection
@@ -42,8 +47,8 @@ type Keyed = { id: string; kind?: string }
 export function diffDocuments(before: ChipDocument, after: ChipDocument): DocumentDiff {
   const entries: DiffEntry[] = []
   const docFields = (['name', 'activeOperatingPoint'] as const)
-    .filter((k) => !same(before[k], after[k]))
-    .map((k) => ({ path: k, before: before[k], after: after[k] }))
+    .filter(k => !same(before[k], after[k]))
+    .map(k => ({ path: k, before: before[k], after: after[k] }))
   if (docFields.length) entries.push({ collection: 'document', id: 'document', status: 'changed', fields: docFields })
 
   const lists: Array<[DiffCollection, Keyed[], Keyed[]]> = [
@@ -52,28 +57,36 @@ export function diffDocuments(before: ChipDocument, after: ChipDocument): Docume
     ['channels', before.channels, after.channels],
     ['components', before.components, after.components],
     ['marks', before.marks, after.marks],
-    ['outline', before.outline ? [{ id: 'outline', ...before.outline }] : [], after.outline ? [{ id: 'outline', ...after.outline }] : []],
+    [
+      'outline',
+      before.outline ? [{ id: 'outline', ...before.outline }] : [],
+      after.outline ? [{ id: 'outline', ...after.outline }] : [],
+    ],
     ['operatingPoints', before.operatingPoints, after.operatingPoints],
   ]
   for (const [collection, a, b] of lists) entries.push(...diffList(collection, a, b))
 
-  const ids = (s: DiffStatus) => entries.filter((e) => e.status === s && GEOMETRY.has(e.collection)).map((e) => e.id)
+  const ids = (s: DiffStatus) => entries.filter(e => e.status === s && GEOMETRY.has(e.collection)).map(e => e.id)
   return { entries, added: ids('added'), removed: ids('removed'), changed: ids('changed') }
 }
 
 function diffList(collection: DiffCollection, before: Keyed[], after: Keyed[]): DiffEntry[] {
-  const old = new Map(before.map((e) => [e.id, e]))
-  const now = new Set(after.map((e) => e.id))
+  const old = new Map(before.map(e => [e.id, e]))
+  const now = new Set(after.map(e => e.id))
   const out: DiffEntry[] = []
   for (const e of after) {
     const prev = old.get(e.id)
     const kind = kindOf(e)
-    if (!prev) { out.push({ collection, id: e.id, status: 'added', kind, fields: [] }); continue }
+    if (!prev) {
+      out.push({ collection, id: e.id, status: 'added', kind, fields: [] })
+      continue
+    }
     const fields: FieldChange[] = []
     fieldChanges(prev, e, '', fields)
     if (fields.length) out.push({ collection, id: e.id, status: 'changed', kind, fields })
   }
-  for (const e of before) if (!now.has(e.id)) out.push({ collection, id: e.id, status: 'removed', kind: kindOf(e), fields: [] })
+  for (const e of before)
+    if (!now.has(e.id)) out.push({ collection, id: e.id, status: 'removed', kind: kindOf(e), fields: [] })
   return out
 }
 
@@ -97,7 +110,8 @@ function fieldChanges(a: unknown, b: unknown, prefix: string, out: FieldChange[]
 
 /** Deep equality with a small tolerance on numbers; `undefined` fields equal missing ones. */
 export function same(a: unknown, b: unknown): boolean {
-  if (typeof a === 'number' && typeof b === 'number') return a === b || Math.abs(a - b) <= EPS * Math.max(1, Math.abs(a), Math.abs(b))
+  if (typeof a === 'number' && typeof b === 'number')
+    return a === b || Math.abs(a - b) <= EPS * Math.max(1, Math.abs(a), Math.abs(b))
   if (Array.isArray(a) && Array.isArray(b)) return a.length === b.length && a.every((v, i) => same(v, b[i]))
   if (isPlainObject(a) && isPlainObject(b)) {
     const keys = new Set([...Object.keys(a), ...Object.keys(b)])

@@ -51,7 +51,12 @@ function hatchPattern(ctx: CanvasRenderingContext2D): CanvasPattern | null {
   t.strokeStyle = C.changed
   t.lineWidth = 2
   t.beginPath()
-  t.moveTo(-2, 10); t.lineTo(10, -2); t.moveTo(-2, 2); t.lineTo(2, -2); t.moveTo(6, 10); t.lineTo(10, 6)
+  t.moveTo(-2, 10)
+  t.lineTo(10, -2)
+  t.moveTo(-2, 2)
+  t.lineTo(2, -2)
+  t.moveTo(6, 10)
+  t.lineTo(10, 6)
   t.stroke()
   hatch = ctx.createPattern(tile, 'repeat')
   return hatch
@@ -107,7 +112,11 @@ export const DETAIL_PX = 3
 export const BLOCK_PX = 2
 
 /** What drawWorld does with a chunk at this view: skip it (outside the view), one box, its pieces' boxes, its rings. */
-export function chunkDetail(chunk: SceneChunk, seen: Bounds | null, scale: number): 'outside' | 'block' | 'boxes' | 'full' {
+export function chunkDetail(
+  chunk: SceneChunk,
+  seen: Bounds | null,
+  scale: number,
+): 'outside' | 'block' | 'boxes' | 'full' {
   const b = chunk.box
   if (!(b.maxX >= b.minX)) return 'outside'
   if (seen && (b.maxX < seen.minX || b.minX > seen.maxX || b.maxY < seen.minY || b.minY > seen.maxY)) return 'outside'
@@ -132,9 +141,13 @@ export function boxesPath(rings: Float64Array[]): Path2D {
   if (!p) {
     p = new Path2D()
     for (const r of rings) {
-      let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity
+      let minX = Infinity,
+        minY = Infinity,
+        maxX = -Infinity,
+        maxY = -Infinity
       for (let i = 0; i < r.length; i += 2) {
-        const x = r[i]!, y = r[i + 1]!
+        const x = r[i]!,
+          y = r[i + 1]!
         if (x < minX) minX = x
         if (x > maxX) maxX = x
         if (y < minY) minY = y
@@ -145,7 +158,11 @@ export function boxesPath(rings: Float64Array[]): Path2D {
       let a = 0
       for (let i = 0, j = r.length - 2; i < r.length; j = i, i += 2) a += r[j]! * r[i + 1]! - r[i]! * r[j + 1]!
       if (a < 0) continue
-      p.moveTo(minX, minY); p.lineTo(maxX, minY); p.lineTo(maxX, maxY); p.lineTo(minX, maxY); p.closePath()
+      p.moveTo(minX, minY)
+      p.lineTo(maxX, minY)
+      p.lineTo(maxX, maxY)
+      p.lineTo(minX, maxY)
+      p.closePath()
     }
     boxPaths.set(rings, p)
   }
@@ -205,7 +222,13 @@ function drawCompare(ctx: CanvasRenderingContext2D, o: CompareOverlay, outlineBe
 }
 
 /** Outlines one element's pieces (hover or selection), in screen-constant line width. */
-export function drawHighlight(ctx: CanvasRenderingContext2D, rings: Float64Array[], view: View, color: string, widthPx: number): void {
+export function drawHighlight(
+  ctx: CanvasRenderingContext2D,
+  rings: Float64Array[],
+  view: View,
+  color: string,
+  widthPx: number,
+): void {
   ctx.save()
   ctx.transform(view.scale, 0, 0, -view.scale, view.tx, view.ty)
   ctx.strokeStyle = color
@@ -223,8 +246,14 @@ export function drawCallouts(ctx: CanvasRenderingContext2D, callouts: PlacedCall
     const near = { x: c.ax < x ? x : x + w, y: c.ay < y ? y : y + h }
     ctx.strokeStyle = C.tone[c.tone]
     ctx.lineWidth = 1
-    ctx.beginPath(); ctx.moveTo(c.ax, c.ay); ctx.lineTo(near.x, near.y); ctx.stroke()
-    ctx.beginPath(); ctx.arc(c.ax, c.ay, 2.5, 0, Math.PI * 2); ctx.fillStyle = C.tone[c.tone]; ctx.fill()
+    ctx.beginPath()
+    ctx.moveTo(c.ax, c.ay)
+    ctx.lineTo(near.x, near.y)
+    ctx.stroke()
+    ctx.beginPath()
+    ctx.arc(c.ax, c.ay, 2.5, 0, Math.PI * 2)
+    ctx.fillStyle = C.tone[c.tone]
+    ctx.fill()
     ctx.fillStyle = 'rgba(255,255,255,0.94)'
     ctx.fillRect(x, y, w, h)
     ctx.strokeRect(x + 0.5, y + 0.5, w - 1, h - 1)
@@ -245,10 +274,19 @@ export function drawFindings(ctx: CanvasRenderingContext2D, findings: PlacedFind
     ctx.strokeStyle = '#ffffff'
     ctx.lineWidth = 1.5
     ctx.beginPath()
-    if (finding.severity === 'error') { ctx.moveTo(x, y - s); ctx.lineTo(x + s, y); ctx.lineTo(x, y + s); ctx.lineTo(x - s, y) }
-    else if (finding.severity === 'warning') { ctx.moveTo(x, y - s); ctx.lineTo(x + s, y + s * 0.8); ctx.lineTo(x - s, y + s * 0.8) }
-    else ctx.arc(x, y, s * 0.85, 0, Math.PI * 2)
-    ctx.closePath(); ctx.fill(); ctx.stroke()
+    if (finding.severity === 'error') {
+      ctx.moveTo(x, y - s)
+      ctx.lineTo(x + s, y)
+      ctx.lineTo(x, y + s)
+      ctx.lineTo(x - s, y)
+    } else if (finding.severity === 'warning') {
+      ctx.moveTo(x, y - s)
+      ctx.lineTo(x + s, y + s * 0.8)
+      ctx.lineTo(x - s, y + s * 0.8)
+    } else ctx.arc(x, y, s * 0.85, 0, Math.PI * 2)
+    ctx.closePath()
+    ctx.fill()
+    ctx.stroke()
     ctx.fillStyle = '#ffffff'
     ctx.fillText(finding.severity === 'info' ? 'i' : '!', x, y + (finding.severity === 'warning' ? 2 : 0.5))
   }
@@ -263,7 +301,10 @@ export function drawPins(ctx: CanvasRenderingContext2D, pins: PlacedPin[]): void
   for (const { pin, x, y, cx, cy } of pins) {
     const fill = pin.resolved ? C.pinResolved : C.pin
     if (pin.active) {
-      ctx.beginPath(); ctx.arc(cx, cy, r + 4, 0, Math.PI * 2); ctx.fillStyle = C.pinActive; ctx.fill()
+      ctx.beginPath()
+      ctx.arc(cx, cy, r + 4, 0, Math.PI * 2)
+      ctx.fillStyle = C.pinActive
+      ctx.fill()
     }
     ctx.beginPath()
     ctx.moveTo(x, y)
@@ -273,7 +314,8 @@ export function drawPins(ctx: CanvasRenderingContext2D, pins: PlacedPin[]): void
     ctx.fillStyle = fill
     ctx.strokeStyle = '#ffffff'
     ctx.lineWidth = 1.5
-    ctx.fill(); ctx.stroke()
+    ctx.fill()
+    ctx.stroke()
     ctx.fillStyle = pin.resolved ? C.hover : '#ffffff'
     ctx.fillText(String(pin.index), cx, cy + 0.5)
   }

@@ -5,12 +5,40 @@ import { worldPoint, worldToScreen, type View, type ViewportSize } from './viewp
 export type Tone = 'ok' | 'caution' | 'fault'
 export type Severity = 'error' | 'warning' | 'info'
 
-export interface ViewerLabel { elementId: string; x: number; y: number; lines: string[]; tone: Tone }
-export interface ViewerPin { id: string; x: number; y: number; index: number; resolved: boolean; active?: boolean }
-export interface ViewerFinding { id: string; severity: Severity; x: number; y: number; message: string }
-export interface PinAddEvent { x: number; y: number; elementId?: string }
+export interface ViewerLabel {
+  elementId: string
+  x: number
+  y: number
+  lines: string[]
+  tone: Tone
+}
+export interface ViewerPin {
+  id: string
+  x: number
+  y: number
+  index: number
+  resolved: boolean
+  active?: boolean
+}
+export interface ViewerFinding {
+  id: string
+  severity: Severity
+  x: number
+  y: number
+  message: string
+}
+export interface PinAddEvent {
+  x: number
+  y: number
+  elementId?: string
+}
 
-export interface Box { x: number; y: number; w: number; h: number }
+export interface Box {
+  x: number
+  y: number
+  w: number
+  h: number
+}
 
 /** Callout text metrics: JetBrains Mono advances 0.6 em per character. */
 export const CALLOUT = { fontPx: 11, charPx: 6.6, linePx: 14, padX: 6, padY: 4, gap: 10 } as const
@@ -21,28 +49,47 @@ export const ANCHOR_CLEARANCE_PX = 5
 /** Junctions closer than this on screen (px) are too crowded to label one by one: zoom in to read them. */
 export const CROWD_PX = 20
 
-export interface PlacedCallout { key: string; ax: number; ay: number; box: Box; lines: string[]; tone: Tone }
-export interface PlacedPin { pin: ViewerPin; x: number; y: number; cx: number; cy: number }
-export interface PlacedFinding { finding: ViewerFinding; x: number; y: number }
+export interface PlacedCallout {
+  key: string
+  ax: number
+  ay: number
+  box: Box
+  lines: string[]
+  tone: Tone
+}
+export interface PlacedPin {
+  pin: ViewerPin
+  x: number
+  y: number
+  cx: number
+  cy: number
+}
+export interface PlacedFinding {
+  finding: ViewerFinding
+  x: number
+  y: number
+}
 
 export const calloutSize = (lines: string[]): { w: number; h: number } => ({
-  w: Math.ceil(Math.max(1, ...lines.map((l) => l.length)) * CALLOUT.charPx + 2 * CALLOUT.padX),
+  w: Math.ceil(Math.max(1, ...lines.map(l => l.length)) * CALLOUT.charPx + 2 * CALLOUT.padX),
   h: lines.length * CALLOUT.linePx + 2 * CALLOUT.padY,
 })
 
-export const overlaps = (a: Box, b: Box): boolean => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h
+export const overlaps = (a: Box, b: Box): boolean =>
+  a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h
 
-const inside = (b: Box, size: ViewportSize): boolean => b.x >= 0 && b.y >= 0 && b.x + b.w <= size.width && b.y + b.h <= size.height
+const inside = (b: Box, size: ViewportSize): boolean =>
+  b.x >= 0 && b.y >= 0 && b.x + b.w <= size.width && b.y + b.h <= size.height
 
 export function placePins(pins: ViewerPin[], view: View): PlacedPin[] {
-  return pins.map((pin) => {
+  return pins.map(pin => {
     const s = worldToScreen(view, worldPoint(pin.x, pin.y))
     return { pin, x: s.x, y: s.y, cx: s.x, cy: s.y - PIN.lift }
   })
 }
 
 export function placeFindings(findings: ViewerFinding[], view: View): PlacedFinding[] {
-  return findings.map((finding) => {
+  return findings.map(finding => {
     const s = worldToScreen(view, worldPoint(finding.x, finding.y))
     return { finding, x: s.x, y: s.y }
   })
@@ -54,7 +101,12 @@ export function placeFindings(findings: ViewerFinding[], view: View): PlacedFind
  * viewport — so where junctions crowd (a nozzle array seen whole) the callouts give way to the geometry.
  * Labels are taken in the order given; `hidden` counts the ones on screen that found no room.
  */
-export function layoutCallouts(labels: ViewerLabel[], view: View, size: ViewportSize, blocked: Box[] = []): { placed: PlacedCallout[]; hidden: number } {
+export function layoutCallouts(
+  labels: ViewerLabel[],
+  view: View,
+  size: ViewportSize,
+  blocked: Box[] = [],
+): { placed: PlacedCallout[]; hidden: number } {
   const cell = 64
   const grid = new Map<string, Array<{ box: Box; owner: number }>>()
   const cellsOf = (b: Box) => {
@@ -64,14 +116,19 @@ export function layoutCallouts(labels: ViewerLabel[], view: View, size: Viewport
     }
     return keys
   }
-  const free = (b: Box, self: number) => cellsOf(b).every((k) => !(grid.get(k) ?? []).some((o) => o.owner !== self && overlaps(o.box, b)))
-  const take = (box: Box, owner = -1) => { for (const k of cellsOf(box)) grid.set(k, [...(grid.get(k) ?? []), { box, owner }]) }
-  blocked.forEach((b) => take(b))
+  const free = (b: Box, self: number) =>
+    cellsOf(b).every(k => !(grid.get(k) ?? []).some(o => o.owner !== self && overlaps(o.box, b)))
+  const take = (box: Box, owner = -1) => {
+    for (const k of cellsOf(box)) grid.set(k, [...(grid.get(k) ?? []), { box, owner }])
+  }
+  blocked.forEach(b => take(b))
 
   const r = ANCHOR_CLEARANCE_PX
-  const anchors = labels.map((l) => worldToScreen(view, worldPoint(l.x, l.y)))
-  const onScreen = anchors.map((a) => a.x >= 0 && a.y >= 0 && a.x <= size.width && a.y <= size.height)
-  anchors.forEach((a, i) => { if (onScreen[i]) take({ x: a.x - r, y: a.y - r, w: 2 * r, h: 2 * r }, i) })
+  const anchors = labels.map(l => worldToScreen(view, worldPoint(l.x, l.y)))
+  const onScreen = anchors.map(a => a.x >= 0 && a.y >= 0 && a.x <= size.width && a.y <= size.height)
+  anchors.forEach((a, i) => {
+    if (onScreen[i]) take({ x: a.x - r, y: a.y - r, w: 2 * r, h: 2 * r }, i)
+  })
   const crowded = crowdedAnchors(anchors, onScreen)
 
   const placed: PlacedCallout[] = []
@@ -79,15 +136,23 @@ export function layoutCallouts(labels: ViewerLabel[], view: View, size: Viewport
   labels.forEach((l, i) => {
     const a = anchors[i]!
     if (!onScreen[i]) return
-    if (crowded[i]) { hidden++; return }
+    if (crowded[i]) {
+      hidden++
+      return
+    }
     const { w, h } = calloutSize(l.lines)
     const g = CALLOUT.gap
     const spots: Box[] = [
-      { x: a.x + g, y: a.y - g - h, w, h }, { x: a.x + g, y: a.y + g, w, h },
-      { x: a.x - g - w, y: a.y - g - h, w, h }, { x: a.x - g - w, y: a.y + g, w, h },
+      { x: a.x + g, y: a.y - g - h, w, h },
+      { x: a.x + g, y: a.y + g, w, h },
+      { x: a.x - g - w, y: a.y - g - h, w, h },
+      { x: a.x - g - w, y: a.y + g, w, h },
     ]
-    const box = spots.find((b) => inside(b, size) && free(b, i))
-    if (!box) { hidden++; return }
+    const box = spots.find(b => inside(b, size) && free(b, i))
+    if (!box) {
+      hidden++
+      return
+    }
     take(box, i)
     placed.push({ key: l.elementId, ax: a.x, ay: a.y, box, lines: l.lines, tone: l.tone })
   })
@@ -107,17 +172,28 @@ function crowdedAnchors(anchors: Array<{ x: number; y: number }>, onScreen: bool
     if (!onScreen[i]) return false
     const cx = Math.floor(a.x / c)
     const cy = Math.floor(a.y / c)
-    for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) {
-      for (const j of cells.get(`${cx + dx},${cy + dy}`) ?? []) {
-        if (j !== i && Math.hypot(anchors[j]!.x - a.x, anchors[j]!.y - a.y) < c) return true
+    for (let dx = -1; dx <= 1; dx++)
+      for (let dy = -1; dy <= 1; dy++) {
+        for (const j of cells.get(`${cx + dx},${cy + dy}`) ?? []) {
+          if (j !== i && Math.hypot(anchors[j]!.x - a.x, anchors[j]!.y - a.y) < c) return true
+        }
       }
-    }
     return false
   })
 }
 
-export const pinBox = (p: PlacedPin): Box => ({ x: p.cx - PIN.radius, y: p.cy - PIN.radius, w: 2 * PIN.radius, h: PIN.radius * 2 + PIN.lift })
-export const findingBox = (f: PlacedFinding): Box => ({ x: f.x - FINDING.size - 1, y: f.y - FINDING.size - 1, w: 2 * FINDING.size + 2, h: 2 * FINDING.size + 2 })
+export const pinBox = (p: PlacedPin): Box => ({
+  x: p.cx - PIN.radius,
+  y: p.cy - PIN.radius,
+  w: 2 * PIN.radius,
+  h: PIN.radius * 2 + PIN.lift,
+})
+export const findingBox = (f: PlacedFinding): Box => ({
+  x: f.x - FINDING.size - 1,
+  y: f.y - FINDING.size - 1,
+  w: 2 * FINDING.size + 2,
+  h: 2 * FINDING.size + 2,
+})
 
 /** The pin whose head is under the screen point (topmost = last drawn), or null. */
 export function pinAt(pins: PlacedPin[], x: number, y: number): ViewerPin | null {

@@ -7,7 +7,11 @@ export const colors = c
 export type Family = 'aqueous' | 'oil' | 'graphite'
 type Shade = 300 | 400 | 500 | 600 | 700
 
-export interface LayerStyle { family: Family; shade: Shade; fill: string }
+export interface LayerStyle {
+  family: Family
+  shade: Shade
+  fill: string
+}
 
 const FAMILIES: Family[] = ['aqueous', 'oil', 'graphite']
 
@@ -18,7 +22,7 @@ const FAMILIES: Family[] = ['aqueous', 'oil', 'graphite']
  */
 export function layerStyles(layers: Array<{ id: string; depth: number }>): Map<string, LayerStyle> {
   const sorted = [...layers].sort((a, b) => a.depth - b.depth)
-  const depths = [...new Set(sorted.map((l) => l.depth))]
+  const depths = [...new Set(sorted.map(l => l.depth))]
   const out = new Map<string, LayerStyle>()
   sorted.forEach((l, rank) => {
     const family = FAMILIES[rank % FAMILIES.length]!

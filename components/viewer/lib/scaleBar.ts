@@ -1,7 +1,11 @@
 // Scale bar and length formatting. Lengths come in µm; the bar picks the longest "nice" length (1, 2 or 5 times
 // a power of ten) that fits, so it reads 100 µm, 200 µm, 500 µm, 1 mm, 2 mm …
 
-export interface ScaleBar { lengthUm: number; label: string; px: number }
+export interface ScaleBar {
+  lengthUm: number
+  label: string
+  px: number
+}
 
 const STEPS = [1, 2, 5] as const
 
@@ -33,7 +37,10 @@ export function niceScaleBar(pixelsPerMicrometre: number, maxPx: number): ScaleB
       if (len <= maxUm * (1 + 1e-12) && len > best) best = len
     }
   }
-  if (best === 0) { exp -= 1; best = 10 ** exp }
+  if (best === 0) {
+    exp -= 1
+    best = 10 ** exp
+  }
   return { lengthUm: best, label: formatLength(best), px: best * pixelsPerMicrometre }
 }
 

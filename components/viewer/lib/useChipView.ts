@@ -1,7 +1,20 @@
 // The view state of a chip canvas: size, zoom and pan, with wheel, keyboard and drag handling. Shared by the
 // read-only viewer and, later, the editor (which adds tools on top of the same view).
 import { ref, shallowRef } from 'vue'
-import { centreOn, fitClearOf, fitToBounds, panBy, screenPoint, screenToWorld, worldPoint, zoomAround, type Bounds, type View, type ViewportSize, type WorldPoint } from './viewport'
+import {
+  centreOn,
+  fitClearOf,
+  fitToBounds,
+  panBy,
+  screenPoint,
+  screenToWorld,
+  worldPoint,
+  zoomAround,
+  type Bounds,
+  type View,
+  type ViewportSize,
+  type WorldPoint,
+} from './viewport'
 
 export const ZOOM_STEP = 1.5
 /** Space left around the chip by Fit, in CSS pixels. */
@@ -20,11 +33,20 @@ export function useChipView(bounds: () => Bounds, corner: () => { width: number;
   // The view follows Fit (on first layout and on every resize) until the person zooms or pans.
   let following = true
 
-  const fit = () => { view.value = fitClearOf(bounds(), size.value, FIT_MARGIN_PX, corner()); following = true }
+  const fit = () => {
+    view.value = fitClearOf(bounds(), size.value, FIT_MARGIN_PX, corner())
+    following = true
+  }
   /** Fits again after something the fit depends on changed (the corner panel opened or closed), unless the person has zoomed or panned. */
-  const refit = () => { if (following) fit() }
-  const moved = (next: View) => { view.value = next; following = false }
-  const zoomBy = (factor: number, at = screenPoint(size.value.width / 2, size.value.height / 2)) => moved(zoomAround(view.value, factor, at))
+  const refit = () => {
+    if (following) fit()
+  }
+  const moved = (next: View) => {
+    view.value = next
+    following = false
+  }
+  const zoomBy = (factor: number, at = screenPoint(size.value.width / 2, size.value.height / 2)) =>
+    moved(zoomAround(view.value, factor, at))
   const centre = (x: number, y: number) => moved(centreOn(view.value, worldPoint(x, y), size.value))
   const setView = (v: View) => moved(v)
 
@@ -51,9 +73,15 @@ export function useChipView(bounds: () => Bounds, corner: () => { width: number;
     const stepX = size.value.width * 0.15
     const stepY = size.value.height * 0.15
     const actions: Record<string, () => void> = {
-      '+': () => zoomBy(ZOOM_STEP), '=': () => zoomBy(ZOOM_STEP), '-': () => zoomBy(1 / ZOOM_STEP), '_': () => zoomBy(1 / ZOOM_STEP),
-      '0': fit, 'ArrowLeft': () => moved(panBy(view.value, stepX, 0)), 'ArrowRight': () => moved(panBy(view.value, -stepX, 0)),
-      'ArrowUp': () => moved(panBy(view.value, 0, stepY)), 'ArrowDown': () => moved(panBy(view.value, 0, -stepY)),
+      '+': () => zoomBy(ZOOM_STEP),
+      '=': () => zoomBy(ZOOM_STEP),
+      '-': () => zoomBy(1 / ZOOM_STEP),
+      _: () => zoomBy(1 / ZOOM_STEP),
+      '0': fit,
+      ArrowLeft: () => moved(panBy(view.value, stepX, 0)),
+      ArrowRight: () => moved(panBy(view.value, -stepX, 0)),
+      ArrowUp: () => moved(panBy(view.value, 0, stepY)),
+      ArrowDown: () => moved(panBy(view.value, 0, -stepY)),
     }
     const act = e.ctrlKey || e.metaKey || e.altKey ? undefined : actions[e.key]
     if (!act) return false
@@ -64,7 +92,10 @@ export function useChipView(bounds: () => Bounds, corner: () => { width: number;
 
   // Drag to pan. A press that moves less than a few pixels is a click.
   let press: { x: number; y: number; view: View } | null = null
-  function pointerDown(at: { x: number; y: number }) { press = { ...at, view: view.value }; panning.value = false }
+  function pointerDown(at: { x: number; y: number }) {
+    press = { ...at, view: view.value }
+    panning.value = false
+  }
   function pointerMove(at: { x: number; y: number }) {
     cursor.value = screenToWorld(view.value, screenPoint(at.x, at.y))
     if (!press) return
@@ -82,5 +113,21 @@ export function useChipView(bounds: () => Bounds, corner: () => { width: number;
     return click
   }
 
-  return { size, view, cursor, panning, fit, refit, zoomBy, centre, setView, resize, onWheel, onKey, pointerDown, pointerMove, pointerUp }
+  return {
+    size,
+    view,
+    cursor,
+    panning,
+    fit,
+    refit,
+    zoomBy,
+    centre,
+    setView,
+    resize,
+    onWheel,
+    onKey,
+    pointerDown,
+    pointerMove,
+    pointerUp,
+  }
 }

@@ -10,12 +10,24 @@ export const worldPoint = (x: number, y: number): WorldPoint => ({ x, y }) as Wo
 export const screenPoint = (x: number, y: number): ScreenPoint => ({ x, y }) as ScreenPoint
 
 /** `scale` is CSS pixels per micrometre; (tx, ty) is where the world origin lands on the screen. */
-export interface View { readonly scale: number; readonly tx: number; readonly ty: number }
+export interface View {
+  readonly scale: number
+  readonly tx: number
+  readonly ty: number
+}
 
 /** An axis-aligned box in world µm. */
-export interface Bounds { minX: number; minY: number; maxX: number; maxY: number }
+export interface Bounds {
+  minX: number
+  minY: number
+  maxX: number
+  maxY: number
+}
 
-export interface ViewportSize { width: number; height: number }
+export interface ViewportSize {
+  width: number
+  height: number
+}
 
 /** Zoom limits: 1 px = 10 mm at the widest, 1 px = 5 nm at the closest. */
 export const MIN_SCALE = 1e-4
@@ -47,7 +59,12 @@ export function fitToBounds(bounds: Bounds, viewportPx: ViewportSize, margin = 2
 }
 
 /** A box on the screen, in CSS pixels from the viewport's top-left corner. */
-export interface ScreenBox { x: number; y: number; width: number; height: number }
+export interface ScreenBox {
+  x: number
+  y: number
+  width: number
+  height: number
+}
 
 /** `fitToBounds` inside a part of the viewport (`box`), the view still in the viewport's own pixels. */
 export function fitInBox(bounds: Bounds, box: ScreenBox, margin = 24): View {
@@ -67,13 +84,26 @@ export function screenBoxOf(view: View, bounds: Bounds): ScreenBox {
  * bottom edges, CSS px): the plain fit when the chip misses the panel, else the larger of the fits below it and
  * beside it, so no part of the chip is hidden under the panel.
  */
-export function fitClearOf(bounds: Bounds, viewportPx: ViewportSize, margin = 24, corner?: { width: number; height: number } | null): View {
+export function fitClearOf(
+  bounds: Bounds,
+  viewportPx: ViewportSize,
+  margin = 24,
+  corner?: { width: number; height: number } | null,
+): View {
   const plain = fitToBounds(bounds, viewportPx, margin)
   if (!corner || corner.width <= 0 || corner.height <= 0) return plain
   const on = screenBoxOf(plain, bounds)
   if (on.x >= corner.width || on.y >= corner.height) return plain
-  const below = fitInBox(bounds, { x: 0, y: corner.height, width: viewportPx.width, height: Math.max(viewportPx.height - corner.height, 1) }, margin)
-  const beside = fitInBox(bounds, { x: corner.width, y: 0, width: Math.max(viewportPx.width - corner.width, 1), height: viewportPx.height }, margin)
+  const below = fitInBox(
+    bounds,
+    { x: 0, y: corner.height, width: viewportPx.width, height: Math.max(viewportPx.height - corner.height, 1) },
+    margin,
+  )
+  const beside = fitInBox(
+    bounds,
+    { x: corner.width, y: 0, width: Math.max(viewportPx.width - corner.width, 1), height: viewportPx.height },
+    margin,
+  )
   return below.scale >= beside.scale ? below : beside
 }
 
@@ -91,7 +121,11 @@ export function panBy(view: View, dxPx: number, dyPx: number): View {
 
 /** Centres the view on a world point at the current scale. */
 export function centreOn(view: View, p: WorldPoint, viewportPx: ViewportSize): View {
-  return { scale: view.scale, tx: viewportPx.width / 2 - view.scale * p.x, ty: viewportPx.height / 2 + view.scale * p.y }
+  return {
+    scale: view.scale,
+    tx: viewportPx.width / 2 - view.scale * p.x,
+    ty: viewportPx.height / 2 + view.scale * p.y,
+  }
 }
 
 /** The world box visible in the viewport. */

@@ -4,10 +4,13 @@ import { clientAddress } from '../../utils/clientAddress'
 import { readDeviceCookie, startSignedIn, withRetryAfter } from '../../utils/signedIn'
 import { validBody } from '../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const body = await validBody(event, signInBody)
-  const { userId, deviceId } = await checkCredentials({ ...body, ip: clientAddress(event), deviceToken: readDeviceCookie(event) })
-    .catch(withRetryAfter(event))
+  const { userId, deviceId } = await checkCredentials({
+    ...body,
+    ip: clientAddress(event),
+    deviceToken: readDeviceCookie(event),
+  }).catch(withRetryAfter(event))
   await startSignedIn(event, userId, deviceId)
   // `marker` is what the auth module stores client-side: it is not a credential.
   return { marker: 'signed-in' }

@@ -1,7 +1,7 @@
 import { endSession } from '../../services/sessions'
 import { clearSessionCookies, readSessionCookie } from '../../utils/cookies'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const token = readSessionCookie(event)
   if (token) await endSession(token)
   clearSessionCookies(event)

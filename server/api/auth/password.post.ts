@@ -12,6 +12,8 @@ import { validBody } from '../../utils/validate'
 export default defineEventHandler(async (event): Promise<PasswordChanged> => {
   const session = requireSession(event)
   const body = await validBody(event, passwordChangeBody(session.user, serverPasswordChecks))
-  return changePassword(session, readSessionCookie(event)!, body, { ip: clientAddress(event), deviceToken: readDeviceCookie(event) })
-    .catch(withRetryAfter(event))
+  return changePassword(session, readSessionCookie(event)!, body, {
+    ip: clientAddress(event),
+    deviceToken: readDeviceCookie(event),
+  }).catch(withRetryAfter(event))
 })

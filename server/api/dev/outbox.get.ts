@@ -3,7 +3,7 @@
 import { outboxAvailable } from '../../services/outbox'
 import { requireSession } from '../../utils/access'
 
-export default defineEventHandler((event) => {
+export default defineEventHandler(event => {
   requireSession(event)
   return { available: outboxAvailable() }
 })

@@ -8,7 +8,7 @@ import { useDb } from '../../utils/db'
 import { forecastOffThread } from '../../utils/summaryWorker'
 import { validQuery } from '../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   requireSession(event)
   const { lab } = validQuery(event, forecastQuery)
   if (lab) requireLabPermission(event, lab, 'forecast:run')

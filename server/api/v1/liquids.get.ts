@@ -6,7 +6,7 @@ import { labLibraryListing } from '../../services/libraries'
 import { requireLabPermission, requireSession } from '../../utils/access'
 import { validQuery } from '../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   requireSession(event)
   const { lab } = validQuery(event, liquidsQuery)
   if (!lab) return listLiquids()

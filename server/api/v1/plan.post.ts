@@ -9,7 +9,7 @@ import { useDb } from '../../utils/db'
 import { planOffThread } from '../../utils/summaryWorker'
 import { validQuery } from '../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   requireSession(event)
   const { lab } = validQuery(event, planQuery)
   if (lab) requireLabPermission(event, lab, 'forecast:run')

@@ -17,7 +17,9 @@ const UL_PER_MIN = { 'uL/min': 1, 'uL/h': 1 / 60, 'nL/min': 1e-3 } as const
 
 /** Whether a run typed anything the forecast can use (flows, pressures, temperature). */
 export function hasBenchSettings(c: BenchConditions): boolean {
-  return [c.continuousFlow, c.dispersedFlow, c.continuousPressureMbar, c.dispersedPressureMbar, c.temperatureC].some(v => v !== undefined)
+  return [c.continuousFlow, c.dispersedFlow, c.continuousPressureMbar, c.dispersedPressureMbar, c.temperatureC].some(
+    v => v !== undefined,
+  )
 }
 
 /**
@@ -26,7 +28,12 @@ export function hasBenchSettings(c: BenchConditions): boolean {
  * by pressure, a typed temperature replaces the point's. `phases` says which phase each inlet port carries (the
  * forecast's `network.inlets`). Liquids and surfactant typed at the bench are kept with the run, not applied.
  */
-export function benchPoint(doc: ChipDocument, operatingPointId: string | undefined, c: BenchConditions, phases: InletPhases): BenchPoint | null {
+export function benchPoint(
+  doc: ChipDocument,
+  operatingPointId: string | undefined,
+  c: BenchConditions,
+  phases: InletPhases,
+): BenchPoint | null {
   const op = doc.operatingPoints.find(o => o.id === operatingPointId) ?? doc.operatingPoints[0]
   if (!op) return null
   const applied: string[] = []
@@ -39,12 +46,18 @@ export function benchPoint(doc: ChipDocument, operatingPointId: string | undefin
     if (!ports.length) continue
     const share = flow ? (flow.value * UL_PER_MIN[flow.unit]) / ports.length : 0
     const others = inlets.filter(s => !ports.includes(s.portId))
-    const set = ports.map(portId => (flow
-      ? { portId, mode: 'flow' as const, value: share, unit: 'uL/min' as const }
-      : { portId, mode: 'pressure' as const, value: pressure!, unit: 'mbar' as const }))
+    const set = ports.map(portId =>
+      flow
+        ? { portId, mode: 'flow' as const, value: share, unit: 'uL/min' as const }
+        : { portId, mode: 'pressure' as const, value: pressure!, unit: 'mbar' as const },
+    )
     inlets = [...others, ...set]
     const over = ports.length > 1 ? ` over ${ports.length} inlets` : ''
-    applied.push(flow ? `${phase} flow ${flow.value} ${flow.unit.replace('u', 'µ')}${over}` : `${phase} pressure ${pressure} mbar${over}`)
+    applied.push(
+      flow
+        ? `${phase} flow ${flow.value} ${flow.unit.replace('u', 'µ')}${over}`
+        : `${phase} pressure ${pressure} mbar${over}`,
+    )
   }
   let temperatureC = op.temperatureC
   if (c.temperatureC !== undefined) {
@@ -53,5 +66,9 @@ export function benchPoint(doc: ChipDocument, operatingPointId: string | undefin
   }
   if (!applied.length) return { document: doc, operatingPointId: op.id, applied }
   const bench = { ...op, inlets, temperatureC }
-  return { document: { ...doc, operatingPoints: doc.operatingPoints.map(o => (o.id === op.id ? bench : o)) }, operatingPointId: op.id, applied }
+  return {
+    document: { ...doc, operatingPoints: doc.operatingPoints.map(o => (o.id === op.id ? bench : o)) },
+    operatingPointId: op.id,
+    applied,
+  }
 }

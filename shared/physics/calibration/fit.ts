@@ -6,7 +6,8 @@ import { tQuantile975 } from './student'
 
 export const LEAST_SQUARES: Method = {
   id: 'least-squares-through-origin',
-  source: 'linear least squares through the origin, standard error s/√Σx², 95 % interval with Student t (Montgomery & Runger 2014, Applied Statistics and Probability for Engineers, sec. 11.4)',
+  source:
+    'linear least squares through the origin, standard error s/√Σx², 95 % interval with Student t (Montgomery & Runger 2014, Applied Statistics and Probability for Engineers, sec. 11.4)',
 }
 
 export interface Fit {
@@ -21,7 +22,10 @@ export interface Fit {
 /** Fits y = k x through the origin. Needs two points or more, with some x ≠ 0. */
 export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Fit {
   const n = x.length
-  if (n < 2 || y.length !== n) throw new RangeError(`Calibration needs at least two (x, y) points of equal count (got ${n} and ${y.length}); measure at two or more flow ratios`)
+  if (n < 2 || y.length !== n)
+    throw new RangeError(
+      `Calibration needs at least two (x, y) points of equal count (got ${n} and ${y.length}); measure at two or more flow ratios`,
+    )
   let sxx = 0
   let sxy = 0
   for (let i = 0; i < n; i++) ((sxx += x[i]! * x[i]!), (sxy += x[i]! * y[i]!))
@@ -31,7 +35,14 @@ export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Fi
   for (let i = 0; i < n; i++) rss += (y[i]! - k * x[i]!) ** 2
   const standardError = Math.sqrt(rss / (n - 1) / sxx)
   const half = tQuantile975(n - 1) * standardError
-  return { value: k, standardError, interval95: [k - half, k + half], points: n, method: LEAST_SQUARES.id, source: LEAST_SQUARES.source }
+  return {
+    value: k,
+    standardError,
+    interval95: [k - half, k + half],
+    points: n,
+    method: LEAST_SQUARES.id,
+    source: LEAST_SQUARES.source,
+  }
 }
 
 export interface DropletPoint {
@@ -50,8 +61,11 @@ export function fitSqueezingAlpha(points: readonly DropletPoint[], width: Metres
   const x: number[] = []
   const y: number[] = []
   points.forEach((point, i) => {
-    const length = point.length ?? (point.diameter !== undefined ? plugLength(sphereVolume(point.diameter as Metres), width, depth) : undefined)
-    if (length === undefined || !(length > 0) || !(point.flowRatio > 0)) throw new RangeError(`Calibration point ${i} needs flowRatio > 0 and a length or diameter > 0`)
+    const length =
+      point.length ??
+      (point.diameter !== undefined ? plugLength(sphereVolume(point.diameter as Metres), width, depth) : undefined)
+    if (length === undefined || !(length > 0) || !(point.flowRatio > 0))
+      throw new RangeError(`Calibration point ${i} needs flowRatio > 0 and a length or diameter > 0`)
     x.push(point.flowRatio)
     y.push(length / width - 1)
   })

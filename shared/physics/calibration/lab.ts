@@ -37,10 +37,10 @@ export interface LabCalibration {
   runs: number
   latestRunAt: string
   /** Per run: x, measured y, fitted y and the residual (y − fitted), in the fit's own variables. */
-  residuals: { runId: string, x: number, y: number, fitted: number, residual: number }[]
+  residuals: { runId: string; x: number; y: number; fitted: number; residual: number }[]
 }
 
-const MODEL: Record<string, { model: CalibrationModel, parameter: string }> = {
+const MODEL: Record<string, { model: CalibrationModel; parameter: string }> = {
   't-junction': { model: 'squeezing-alpha', parameter: 'α (L/w = 1 + α Qd/Qc)' },
   'step-nozzle': { model: 'step-ratio', parameter: 'd/h' },
   'step-array': { model: 'step-ratio', parameter: 'd/h' },
@@ -52,7 +52,9 @@ const MODEL: Record<string, { model: CalibrationModel, parameter: string }> = {
  * correction instead of bending α.
  */
 export function calibrationKey(kind: string, regime?: string | null): string {
-  return kind === 't-junction' && regime && regime !== 'squeezing' && regime !== 'transition' ? `t-junction/${regime}` : kind
+  return kind === 't-junction' && regime && regime !== 'squeezing' && regime !== 'transition'
+    ? `t-junction/${regime}`
+    : kind
 }
 
 const um = (v: number) => (v * 1e-6) as Metres
@@ -63,7 +65,7 @@ export function plugDiameterUm(lengthUm: number, widthUm: number, depthUm: numbe
   return Math.cbrt((6 * volume) / Math.PI) * 1e6
 }
 
-function points(kind: string, runs: CalibrationRun[]): { x: number[], y: number[], used: CalibrationRun[] } {
+function points(kind: string, runs: CalibrationRun[]): { x: number[]; y: number[]; used: CalibrationRun[] } {
   const x: number[] = []
   const y: number[] = []
   const used: CalibrationRun[] = []
@@ -71,7 +73,10 @@ function points(kind: string, runs: CalibrationRun[]): { x: number[], y: number[
   for (const run of runs) {
     if (model === 'squeezing-alpha') {
       if (!(run.flowRatio! > 0 && run.mainWidthUm! > 0 && run.depthUm! > 0)) continue
-      const length = run.quantity === 'plug-length' ? run.measuredUm : plugLength(sphereVolume(um(run.measuredUm)), um(run.mainWidthUm!), um(run.depthUm!)) * 1e6
+      const length =
+        run.quantity === 'plug-length'
+          ? run.measuredUm
+          : plugLength(sphereVolume(um(run.measuredUm)), um(run.mainWidthUm!), um(run.depthUm!)) * 1e6
       x.push(run.flowRatio!)
       y.push(length / run.mainWidthUm! - 1)
     } else if (model === 'step-ratio') {
@@ -93,14 +98,34 @@ export function fitLabCalibrations(runs: readonly CalibrationRun[]): LabCalibrat
   const keys = [...new Set(runs.map(r => calibrationKey(r.kind, r.regime)))].sort()
   const out: LabCalibration[] = []
   for (const kind of keys) {
-    const { x, y, used } = points(kind, runs.filter(r => calibrationKey(r.kind, r.regime) === kind))
+    const { x, y, used } = points(
+      kind,
+      runs.filter(r => calibrationKey(r.kind, r.regime) === kind),
+    )
     if (used.length < 2 || !x.some(v => v !== 0)) continue
-    const { model, parameter } = MODEL[kind] ?? { model: 'correction-factor' as const, parameter: 'k (measured = k × predicted)' }
+    const { model, parameter } = MODEL[kind] ?? {
+      model: 'correction-factor' as const,
+      parameter: 'k (measured = k × predicted)',
+    }
     const fit = model === 'correction-factor' ? fitCorrectionFactor(x, y) : fitThroughOrigin(x, y)
     out.push({
-      kind, junctionKind: used[0]!.kind, model, parameter, fit, runs: used.length,
-      latestRunAt: used.map(r => r.ranAt).sort().at(-1)!,
-      residuals: used.map((r, i) => ({ runId: r.id, x: x[i]!, y: y[i]!, fitted: fit.value * x[i]!, residual: y[i]! - fit.value * x[i]! })),
+      kind,
+      junctionKind: used[0]!.kind,
+      model,
+      parameter,
+      fit,
+      runs: used.length,
+      latestRunAt: used
+        .map(r => r.ranAt)
+        .sort()
+        .at(-1)!,
+      residuals: used.map((r, i) => ({
+        runId: r.id,
+        x: x[i]!,
+        y: y[i]!,
+        fitted: fit.value * x[i]!,
+        residual: y[i]! - fit.value * x[i]!,
+      })),
     })
   }
   return out
@@ -109,12 +134,21 @@ export function fitLabCalibrations(runs: readonly CalibrationRun[]): LabCalibrat
 /** The calibrated diameter (µm) of a forecast junction, with the range its 95 % interval gives. */
 export function calibratedDiameterUm(
   calibration: LabCalibration,
-  junction: { predictedDiameterUm: number | null, flowRatio: number | null, mainWidthUm: number | null, depthUm: number | null },
-): { value: number, interval95: [number, number] } | null {
+  junction: {
+    predictedDiameterUm: number | null
+    flowRatio: number | null
+    mainWidthUm: number | null
+    depthUm: number | null
+  },
+): { value: number; interval95: [number, number] } | null {
   const at = (k: number): number | null => {
     if (calibration.model === 'squeezing-alpha') {
       if (!(junction.flowRatio! > 0 && junction.mainWidthUm! > 0 && junction.depthUm! > 0)) return null
-      return plugDiameterUm(junction.mainWidthUm! * (1 + k * junction.flowRatio!), junction.mainWidthUm!, junction.depthUm!)
+      return plugDiameterUm(
+        junction.mainWidthUm! * (1 + k * junction.flowRatio!),
+        junction.mainWidthUm!,
+        junction.depthUm!,
+      )
     }
     if (calibration.model === 'step-ratio') return junction.depthUm! > 0 ? k * junction.depthUm! : null
     return junction.predictedDiameterUm! > 0 ? k * junction.predictedDiameterUm! : null

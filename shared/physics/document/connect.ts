@@ -102,4 +102,5 @@ export class Connections {
 }
 
 /** Key of a terminal: a port is its own id; a component terminal is "<id>:<terminal>". */
-export const terminalKey = (element: string, terminal: string, isPort: boolean): string => (isPort ? element : `${element}:${terminal}`)
+export const terminalKey = (element: string, terminal: string, isPort: boolean): string =>
+  isPort ? element : `${element}:${terminal}`

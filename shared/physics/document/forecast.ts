@@ -12,14 +12,26 @@ import type { DocumentForecast, DocumentForecastOptions } from './types'
  * Forecasts a parsed chip document at `operatingPointId` (default: the active one, else the only one).
  * Throws ForecastInputError whose issues name the element (`document.channels[3]`) and the fix.
  */
-export function forecastDocument(doc: ChipDocument, operatingPointId?: string, options: DocumentForecastOptions = {}): DocumentForecast {
+export function forecastDocument(
+  doc: ChipDocument,
+  operatingPointId?: string,
+  options: DocumentForecastOptions = {},
+): DocumentForecast {
   const op = resolveOperatingPoint(doc, operatingPointId, options.library)
   const compiled = compileDocument(doc, op)
   const solved = solveTwoPhase(doc, compiled, op, options)
   const network = networkAnswer(compiled, solved, op, options)
   network.operatingWindow = operatingWindows(doc, compiled, solved, op, options)
-  const flowScale = Math.max(0, ...solved.solution.sources.map((s) => Math.abs(s.flow)))
-  const { junctions, warnings } = forecastJunctions(compiled.junctions, solved.solution.flow, op, flowScale, solved, compiled.sources, network.operatingWindow)
+  const flowScale = Math.max(0, ...solved.solution.sources.map(s => Math.abs(s.flow)))
+  const { junctions, warnings } = forecastJunctions(
+    compiled.junctions,
+    solved.solution.flow,
+    op,
+    flowScale,
+    solved,
+    compiled.sources,
+    network.operatingWindow,
+  )
   return {
     document: { name: doc.name },
     operatingPoint: { id: op.point.id, name: op.point.name },

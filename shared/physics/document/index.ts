@@ -11,7 +11,17 @@ export { COINCIDENCE_UM } from './connect'
 export { SINGLE_PHASE } from './network'
 export { TWO_PHASE, COUPLING_TOLERANCE } from './twophase'
 export { documentForecastRequest } from './request'
-export type { CompiledDocument, DocumentChannel, DocumentForecast, DocumentForecastOptions, DocumentJunction, DocumentJunctionKind, DocumentNetwork, DocumentWarning, OperatingWindow } from './types'
+export type {
+  CompiledDocument,
+  DocumentChannel,
+  DocumentForecast,
+  DocumentForecastOptions,
+  DocumentJunction,
+  DocumentJunctionKind,
+  DocumentNetwork,
+  DocumentWarning,
+  OperatingWindow,
+} from './types'
 
 /** `{ "document": <chip document>, "operatingPoint"?: id, "limits"?, "resistanceMethod"? }` → DocumentForecast. */
 export function runDocumentForecast(request: unknown, library?: LiquidLibrary): DocumentForecast {

@@ -23,34 +23,67 @@ export interface ResolvedOperatingPoint {
 
 /** The requested operating point, else the active one, else the only one. */
 export function chooseOperatingPoint(doc: ChipDocument, id?: string): { point: OperatingPoint; index: number } {
-  const ids = doc.operatingPoints.map((op) => `"${op.id}"`).join(', ')
+  const ids = doc.operatingPoints.map(op => `"${op.id}"`).join(', ')
   if (doc.operatingPoints.length === 0) {
-    throw new ForecastInputError([{ path: 'document.operatingPoints', message: `Design "${doc.name}" has no operating point: add one with its liquids, temperature and a setting for every inlet` }])
+    throw new ForecastInputError([
+      {
+        path: 'document.operatingPoints',
+        message: `Design "${doc.name}" has no operating point: add one with its liquids, temperature and a setting for every inlet`,
+      },
+    ])
   }
-  const wanted = id ?? doc.activeOperatingPoint ?? (doc.operatingPoints.length === 1 ? doc.operatingPoints[0]!.id : undefined)
+  const wanted =
+    id ?? doc.activeOperatingPoint ?? (doc.operatingPoints.length === 1 ? doc.operatingPoints[0]!.id : undefined)
   if (wanted === undefined) {
-    throw new ForecastInputError([{ path: 'operatingPoint', message: `Design "${doc.name}" has ${doc.operatingPoints.length} operating points and no active one: name one of ${ids} in "operatingPoint"` }])
+    throw new ForecastInputError([
+      {
+        path: 'operatingPoint',
+        message: `Design "${doc.name}" has ${doc.operatingPoints.length} operating points and no active one: name one of ${ids} in "operatingPoint"`,
+      },
+    ])
   }
-  const index = doc.operatingPoints.findIndex((op) => op.id === wanted)
-  if (index < 0) throw new ForecastInputError([{ path: 'operatingPoint', message: `Operating point "${wanted}" is not in design "${doc.name}": use one of ${ids}` }])
+  const index = doc.operatingPoints.findIndex(op => op.id === wanted)
+  if (index < 0)
+    throw new ForecastInputError([
+      {
+        path: 'operatingPoint',
+        message: `Operating point "${wanted}" is not in design "${doc.name}": use one of ${ids}`,
+      },
+    ])
   return { point: doc.operatingPoints[index]!, index }
 }
 
 /** The document's liquid (viscosity in mPa·s) as the forecast's liquid spec (SI). */
 function liquidSpec(ref: LiquidRef): LiquidSpec {
-  if ('liquid' in ref) return ref.massFraction === undefined ? { liquid: ref.liquid } : { liquid: ref.liquid, massFraction: ref.massFraction }
-  return { name: ref.name ?? 'liquid given by its properties', viscosity: ref.viscosityMPaS * 1e-3, density: ref.densityKgPerM3 }
+  if ('liquid' in ref)
+    return ref.massFraction === undefined
+      ? { liquid: ref.liquid }
+      : { liquid: ref.liquid, massFraction: ref.massFraction }
+  return {
+    name: ref.name ?? 'liquid given by its properties',
+    viscosity: ref.viscosityMPaS * 1e-3,
+    density: ref.densityKgPerM3,
+  }
 }
 
 /** Re-homes the library's issue paths ("continuous.liquid") onto the document ("document.operatingPoints[0].continuousLiquid.liquid"). */
 function rehome(error: unknown, from: string, to: string): never {
   if (error instanceof ForecastInputError) {
-    throw new ForecastInputError(error.issues.map((issue) => ({ path: issue.path.startsWith(from) ? to + issue.path.slice(from.length) : to, message: issue.message })))
+    throw new ForecastInputError(
+      error.issues.map(issue => ({
+        path: issue.path.startsWith(from) ? to + issue.path.slice(from.length) : to,
+        message: issue.message,
+      })),
+    )
   }
   throw error
 }
 
-export function resolveOperatingPoint(doc: ChipDocument, id?: string, library: LiquidLibrary = BUILT_IN_LIBRARY): ResolvedOperatingPoint {
+export function resolveOperatingPoint(
+  doc: ChipDocument,
+  id?: string,
+  library: LiquidLibrary = BUILT_IN_LIBRARY,
+): ResolvedOperatingPoint {
   const { point, index } = chooseOperatingPoint(doc, id)
   const base = documentPath(['operatingPoints', index])
   const temperature = (point.temperatureC + ZERO_CELSIUS) as Kelvin
@@ -64,7 +97,12 @@ export function resolveOperatingPoint(doc: ChipDocument, id?: string, library: L
   const continuous = resolve(point.continuousLiquid, 'continuousLiquid')
   const dispersed = resolve(point.dispersedLiquid, 'dispersedLiquid')
   const resolved: ResolvedOperatingPoint = {
-    point, index, temperature, continuous: continuous.liquid, dispersed: dispersed.liquid, warnings: [...continuous.warnings, ...dispersed.warnings],
+    point,
+    index,
+    temperature,
+    continuous: continuous.liquid,
+    dispersed: dispersed.liquid,
+    warnings: [...continuous.warnings, ...dispersed.warnings],
   }
   if (point.contactAngleDeg !== undefined) resolved.contactAngle = (point.contactAngleDeg * Math.PI) / 180
   if (point.interfacialTensionMNPerM !== undefined) {
@@ -74,14 +112,20 @@ export function resolveOperatingPoint(doc: ChipDocument, id?: string, library: L
   const surfactant = point.surfactant ?? 'none'
   const fix = `give "interfacialTensionMNPerM" at ${base} (e.g. 5 for a surfactant-laden pair)`
   if (!library.surfactants.includes(surfactant)) {
-    resolved.tensionProblem = { code: 'tension-missing', message: `Operating point "${point.id}" names surfactant "${surfactant}", which is not in the library (${library.surfactants.join(', ')}): ${fix}; junctions are not forecast until then` }
+    resolved.tensionProblem = {
+      code: 'tension-missing',
+      message: `Operating point "${point.id}" names surfactant "${surfactant}", which is not in the library (${library.surfactants.join(', ')}): ${fix}; junctions are not forecast until then`,
+    }
     return resolved
   }
   try {
     resolved.interfacialTension = resolveTension(undefined, continuous.liquid, dispersed.liquid, surfactant, library)
   } catch (error) {
     if (!(error instanceof ForecastInputError)) throw error
-    resolved.tensionProblem = { code: 'tension-missing', message: `Operating point "${point.id}": the interfacial tension of ${dispersed.liquid.id ?? dispersed.liquid.name} in ${continuous.liquid.id ?? continuous.liquid.name} with surfactant "${surfactant}" is not in the library; ${fix}; junctions are not forecast until then` }
+    resolved.tensionProblem = {
+      code: 'tension-missing',
+      message: `Operating point "${point.id}": the interfacial tension of ${dispersed.liquid.id ?? dispersed.liquid.name} in ${continuous.liquid.id ?? continuous.liquid.name} with surfactant "${surfactant}" is not in the library; ${fix}; junctions are not forecast until then`,
+    }
   }
   return resolved
 }
@@ -91,5 +135,7 @@ const FLOW_M3_PER_S = { 'uL/min': 1e-9 / 60, 'uL/h': 1e-9 / 3600, 'nL/min': 1e-1
 
 /** An inlet setting in SI: pressure in Pa (gauge) or flow in m³/s. */
 export function inletInSi(setting: OperatingPoint['inlets'][number]): { pressure: number } | { flow: number } {
-  return setting.mode === 'pressure' ? { pressure: setting.value * PRESSURE_PA[setting.unit] } : { flow: setting.value * FLOW_M3_PER_S[setting.unit] }
+  return setting.mode === 'pressure'
+    ? { pressure: setting.value * PRESSURE_PA[setting.unit] }
+    : { flow: setting.value * FLOW_M3_PER_S[setting.unit] }
 }

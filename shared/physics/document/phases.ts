@@ -50,7 +50,7 @@ export interface PhaseMap {
 export function labelPhases(doc: ChipDocument, compiled: CompiledDocument): PhaseMap {
   const { channels, junctions, sources } = compiled
   const nodes = nodeTable(compiled)
-  const centre = junctions.map((j) => (j.dispersed >= 0 ? channels[j.dispersed]!.to : undefined))
+  const centre = junctions.map(j => (j.dispersed >= 0 ? channels[j.dispersed]!.to : undefined))
   const stop = new Uint8Array(nodes.count)
   for (const c of centre) if (c !== undefined) stop[nodes.index.get(c)!] = 1
   for (const s of sources) stop[nodes.index.get(s.node)!] = 1
@@ -60,7 +60,7 @@ export function labelPhases(doc: ChipDocument, compiled: CompiledDocument): Phas
     if (j.dispersed >= 0) dispersedArm[j.dispersed] = 1
     for (const k of j.continuous) if (k >= 0) continuousArm[k] = 1
   }
-  const feeds = new Map(doc.ports.map((p) => [p.id, p.feed?.phase]))
+  const feeds = new Map(doc.ports.map(p => [p.id, p.feed?.phase]))
 
   const phase: (ChannelPhase | undefined)[] = new Array(channels.length).fill(undefined)
   const inletPhase = new Map<string, 'continuous' | 'dispersed'>()
@@ -87,7 +87,8 @@ export function labelPhases(doc: ChipDocument, compiled: CompiledDocument): Phas
     }
     // The port says which phase it carries; without a feed, an inlet that reaches only dispersed arms is dispersed.
     const given = feeds.get(source.port)
-    const inferred = reached.some((k) => dispersedArm[k]) && !reached.some((k) => continuousArm[k]) ? 'dispersed' : 'continuous'
+    const inferred =
+      reached.some(k => dispersedArm[k]) && !reached.some(k => continuousArm[k]) ? 'dispersed' : 'continuous'
     const liquid = given ?? inferred
     inletPhase.set(source.port, liquid)
     for (const k of reached) {
@@ -97,7 +98,11 @@ export function labelPhases(doc: ChipDocument, compiled: CompiledDocument): Phas
   })
   for (const k of mixed) {
     phase[k] = 'continuous'
-    warnings.push({ code: 'phases-meet', element: channels[k]!.element, message: `Both phases reach "${channels[k]!.id}" without passing a junction, so its liquid is uncertain; it is counted as the continuous phase — check the feeds of the inlets that reach it` })
+    warnings.push({
+      code: 'phases-meet',
+      element: channels[k]!.element,
+      message: `Both phases reach "${channels[k]!.id}" without passing a junction, so its liquid is uncertain; it is counted as the continuous phase — check the feeds of the inlets that reach it`,
+    })
   }
-  return { phase: phase.map((p) => p ?? 'emulsion'), inletPhase, centre, nodes, warnings }
+  return { phase: phase.map(p => p ?? 'emulsion'), inletPhase, centre, nodes, warnings }
 }

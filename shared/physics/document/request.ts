@@ -11,18 +11,38 @@ import type { DocumentForecastOptions } from './types'
 export const documentForecastRequest = z.strictObject({
   document: z.unknown(),
   /** Operating point id; default the document's active one. */
-  operatingPoint: z.string().min(1, 'name an operating point id or leave "operatingPoint" out for the active one').optional(),
-  limits: z.strictObject({ bondPressure: quantityField('pressure').optional(), pumpPressure: quantityField('pressure').optional() }).optional(),
+  operatingPoint: z
+    .string()
+    .min(1, 'name an operating point id or leave "operatingPoint" out for the active one')
+    .optional(),
+  limits: z
+    .strictObject({
+      bondPressure: quantityField('pressure').optional(),
+      pumpPressure: quantityField('pressure').optional(),
+    })
+    .optional(),
   resistanceMethod: z.enum(['series', 'approximate']).optional(),
 })
 
-export function parseDocumentRequest(input: unknown): { document: ChipDocument; operatingPoint?: string; options: DocumentForecastOptions } {
+export function parseDocumentRequest(input: unknown): {
+  document: ChipDocument
+  operatingPoint?: string
+  options: DocumentForecastOptions
+} {
   const request = parseOrThrow(documentForecastRequest, input)
-  if (request.document === undefined) throw new ForecastInputError([{ path: 'document', message: 'required field is missing: give the chip document (JSON) under "document"' }])
+  if (request.document === undefined)
+    throw new ForecastInputError([
+      { path: 'document', message: 'required field is missing: give the chip document (JSON) under "document"' },
+    ])
   const parsed = parseChipDocument(request.document)
-  if (!parsed.ok) throw new ForecastInputError(parsed.errors.map((error) => ({ path: documentPath(error.path), message: error.message })))
+  if (!parsed.ok)
+    throw new ForecastInputError(
+      parsed.errors.map(error => ({ path: documentPath(error.path), message: error.message })),
+    )
   const options: DocumentForecastOptions = {}
   if (request.limits) options.limits = request.limits
   if (request.resistanceMethod) options.resistanceMethod = request.resistanceMethod
-  return request.operatingPoint === undefined ? { document: parsed.document, options } : { document: parsed.document, operatingPoint: request.operatingPoint, options }
+  return request.operatingPoint === undefined
+    ? { document: parsed.document, options }
+    : { document: parsed.document, operatingPoint: request.operatingPoint, options }
 }

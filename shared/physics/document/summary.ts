@@ -3,7 +3,14 @@ import type { DocumentForecast } from './types'
 
 export interface ForecastSummary {
   operatingPoint: string
-  junctions: { id: string; kind: string; regime: string | null; dropletDiameterUm: number | null; frequencyHz: number | null; valid: boolean }[]
+  junctions: {
+    id: string
+    kind: string
+    regime: string | null
+    dropletDiameterUm: number | null
+    frequencyHz: number | null
+    valid: boolean
+  }[]
   inlets: { port: string; mode: 'pressure' | 'flow'; pressureMbar: number; flowUlPerMin: number }[]
 }
 
@@ -23,6 +30,11 @@ export function summarizeForecast(answer: DocumentForecast): ForecastSummary {
       frequencyHz: forecast ? figures(forecast.frequency.value) : null,
       valid: forecast !== null && forecast.regime.valid && forecast.dropletDiameter.valid && forecast.frequency.valid,
     })),
-    inlets: answer.network.inlets.map((inlet) => ({ port: inlet.port, mode: inlet.mode, pressureMbar: figures(inlet.pressure.value / 100), flowUlPerMin: figures(inlet.flow.value * UL_PER_MIN_PER_M3_PER_S) })),
+    inlets: answer.network.inlets.map(inlet => ({
+      port: inlet.port,
+      mode: inlet.mode,
+      pressureMbar: figures(inlet.pressure.value / 100),
+      flowUlPerMin: figures(inlet.flow.value * UL_PER_MIN_PER_M3_PER_S),
+    })),
   }
 }

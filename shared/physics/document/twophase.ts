@@ -15,7 +15,13 @@ import { CORE_KIND } from './junctions'
 import type { ResolvedOperatingPoint } from './operating-point'
 import { labelPhases, type ChannelPhase, type NodeTable, type PhaseMap } from './phases'
 import { DocumentSolver } from './solveProblem'
-import type { CompiledChannel, CompiledDocument, CompiledJunction, DocumentForecastOptions, DocumentWarning } from './types'
+import type {
+  CompiledChannel,
+  CompiledDocument,
+  CompiledJunction,
+  DocumentForecastOptions,
+  DocumentWarning,
+} from './types'
 
 export const TWO_PHASE: Method = {
   id: 'two-phase-network',
@@ -66,8 +72,10 @@ export interface TwoPhaseSolution {
   warnings: DocumentWarning[]
 }
 
-const area = (ch: CompiledChannel) => ('diameter' in ch ? (Math.PI * (ch as { diameter: number }).diameter ** 2) / 4 : ch.width * ch.depth)
-const smallest = (ch: CompiledChannel) => ('diameter' in ch ? (ch as { diameter: number }).diameter : Math.min(ch.width, ch.depth))
+const area = (ch: CompiledChannel) =>
+  'diameter' in ch ? (Math.PI * (ch as { diameter: number }).diameter ** 2) / 4 : ch.width * ch.depth
+const smallest = (ch: CompiledChannel) =>
+  'diameter' in ch ? (ch as { diameter: number }).diameter : Math.min(ch.width, ch.depth)
 
 export function continuousFlow(j: CompiledJunction, flow: ArrayLike<number> | ((k: number) => number)): number {
   const at = typeof flow === 'function' ? flow : (k: number) => (k >= 0 ? flow[k]! : 0)
@@ -79,16 +87,30 @@ export function continuousFlow(j: CompiledJunction, flow: ArrayLike<number> | ((
 
 export function resolvedAt(j: CompiledJunction, op: ResolvedOperatingPoint, qc: number, qd: number): ResolvedJunction {
   const resolved: ResolvedJunction = {
-    kind: CORE_KIND[j.kind], mainWidth: j.mainWidth, inletWidth: j.inletWidth, depth: j.depth,
-    continuous: op.continuous, dispersed: op.dispersed, interfacialTension: op.interfacialTension!,
-    temperature: op.temperature, flowContinuous: qc, flowDispersed: qd,
+    kind: CORE_KIND[j.kind],
+    mainWidth: j.mainWidth,
+    inletWidth: j.inletWidth,
+    depth: j.depth,
+    continuous: op.continuous,
+    dispersed: op.dispersed,
+    interfacialTension: op.interfacialTension!,
+    temperature: op.temperature,
+    flowContinuous: qc,
+    flowDispersed: qd,
   }
   if (op.contactAngle !== undefined) resolved.contactAngle = op.contactAngle
   return resolved
 }
 
 /** Drops per second and drop volume flux entering each emulsion channel, carried downhill from every junction. */
-function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseMap, flow: Float64Array, op: ResolvedOperatingPoint, zero: number): { rate: Float64Array; volume: Float64Array } {
+function carryDrops(
+  compiled: CompiledDocument,
+  nodes: NodeTable,
+  phases: PhaseMap,
+  flow: Float64Array,
+  op: ResolvedOperatingPoint,
+  zero: number,
+): { rate: Float64Array; volume: Float64Array } {
   const { channels, junctions } = compiled
   const rate = new Float64Array(channels.length)
   const volume = new Float64Array(channels.length)
@@ -127,7 +149,8 @@ function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseM
   for (let i = 0; i < nodes.count; i++) if (waiting[i] === 0) ready[tail++] = i
   while (head < tail) {
     const node = ready[head++]!
-    for (let e = outStart[node]!; e < outStart[node + 1]!; e++) if (--waiting[downstream(outList[e]!)]! === 0) ready[tail++] = downstream(outList[e]!)
+    for (let e = outStart[node]!; e < outStart[node + 1]!; e++)
+      if (--waiting[downstream(outList[e]!)]! === 0) ready[tail++] = downstream(outList[e]!)
     const r = inRate[node]!
     if (r <= 0 || outStart[node] === outStart[node + 1]) continue
     const v = inVolume[node]!
@@ -147,7 +170,14 @@ function carryDrops(compiled: CompiledDocument, nodes: NodeTable, phases: PhaseM
 }
 
 /** Pressure the drops add to channel k (Pa). */
-function dropPressure(ch: CompiledChannel, q: number, rate: number, volumeFlux: number, base: number, op: ResolvedOperatingPoint): number {
+function dropPressure(
+  ch: CompiledChannel,
+  q: number,
+  rate: number,
+  volumeFlux: number,
+  base: number,
+  op: ResolvedOperatingPoint,
+): number {
   const flux = Math.abs(q)
   if (!(rate > 0) || !(flux > 0) || !op.interfacialTension) return 0
   const a = area(ch)
@@ -181,9 +211,11 @@ function feedOnlyByFlow(compiled: CompiledDocument, phases: PhaseMap, upstream: 
     return x
   }
   for (let k = 0; k < channels.length; k++) {
-    const a = nodes.from[k]!, b = nodes.to[k]!
+    const a = nodes.from[k]!,
+      b = nodes.to[k]!
     if (arm[k] || centre[a] || centre[b]) continue
-    const ra = root(a), rb = root(b)
+    const ra = root(a),
+      rb = root(b)
     if (ra !== rb) parent[ra] = rb
   }
   const pressureOf = new Map<number, string>()
@@ -203,7 +235,12 @@ function feedOnlyByFlow(compiled: CompiledDocument, phases: PhaseMap, upstream: 
   return forced
 }
 
-export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op: ResolvedOperatingPoint, options: DocumentForecastOptions): TwoPhaseSolution {
+export function solveTwoPhase(
+  doc: ChipDocument,
+  compiled: CompiledDocument,
+  op: ResolvedOperatingPoint,
+  options: DocumentForecastOptions,
+): TwoPhaseSolution {
   const method = options.resistanceMethod ?? 'series'
   const { channels, junctions } = compiled
   const phases = labelPhases(doc, compiled)
@@ -218,11 +255,18 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
   })
 
   // Entry barriers of dispersed arms (contact angle > 90°: the continuous phase wets, the dispersed must be pushed in).
-  const arms: JunctionArm[] = junctions.map((j) => {
+  const arms: JunctionArm[] = junctions.map(j => {
     const arm: JunctionArm = { state: 'open' }
     if (j.dispersed < 0 || op.contactAngle === undefined || !op.interfacialTension) return arm
-    const constriction = (CORE_KIND[j.kind] === 't-junction' ? Math.min(j.inletWidth, j.mainWidth) : j.mainWidth) as Metres
-    const barrier = entryBarrier(op.interfacialTension.value as NewtonsPerMetre, op.contactAngle as Radians, constriction, j.depth as Metres)
+    const constriction = (
+      CORE_KIND[j.kind] === 't-junction' ? Math.min(j.inletWidth, j.mainWidth) : j.mainWidth
+    ) as Metres
+    const barrier = entryBarrier(
+      op.interfacialTension.value as NewtonsPerMetre,
+      op.contactAngle as Radians,
+      constriction,
+      j.depth as Metres,
+    )
     if (barrier > 0) arm.barrier = barrier
     return arm
   })
@@ -251,8 +295,14 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
       arm.drive = drive
       // A flow-driven feed that only this arm drains cannot stall: its pump pushes through the barrier.
       const forced = forcedArms.has(k)
-      const next: ArmState = arm.state === 'open' && flow[j.dispersed]! >= 0 ? 'open'
-        : drive > arm.barrier || forced ? 'open' : drive < 0 ? 'backflow' : 'below-barrier'
+      const next: ArmState =
+        arm.state === 'open' && flow[j.dispersed]! >= 0
+          ? 'open'
+          : drive > arm.barrier || forced
+            ? 'open'
+            : drive < 0
+              ? 'backflow'
+              : 'below-barrier'
       if (next !== arm.state) ((arm.state = next), (changed = true))
     })
     return changed
@@ -279,7 +329,7 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
     flow = solution.flow
     // Pressures by our own node numbering (one map per solver topology: its nodeIds array is reused).
     let map = nodeMaps.get(solution.nodeIds)
-    if (!map) nodeMaps.set(solution.nodeIds, (map = Int32Array.from(solution.nodeIds, (id) => nodes.index.get(id)!)))
+    if (!map) nodeMaps.set(solution.nodeIds, (map = Int32Array.from(solution.nodeIds, id => nodes.index.get(id)!)))
     for (let i = 0; i < map.length; i++) pressure[map[i]!] = solution.pressure[i]!
   }
   applyArms()
@@ -289,7 +339,7 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
     solve()
     // Settle the entry barriers at these resistances (each arm changes state at most twice).
     for (let pass = 0; pass < 2 * junctions.length + 2 && updateArms(flow); pass++) (applyArms(), solve())
-    const scale = Math.max(0, ...solution.sources.map((s) => Math.abs(s.flow)))
+    const scale = Math.max(0, ...solution.sources.map(s => Math.abs(s.flow)))
     const zero = 1e-9 * scale
     if (previous) {
       change = 0
@@ -307,10 +357,14 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
     let any = false
     for (let k = 0; k < n; k++) {
       const q = Math.abs(flow[k]!)
-      const dp = phases.phase[k] === 'emulsion' ? dropPressure(channels[k]!, flow[k]!, drops.rate[k]!, drops.volume[k]!, base[k]!, op) : 0
+      const dp =
+        phases.phase[k] === 'emulsion'
+          ? dropPressure(channels[k]!, flow[k]!, drops.rate[k]!, drops.volume[k]!, base[k]!, op)
+          : 0
       const target = q > zero && dp > 0 ? dp / q : 0
       if (target > 0 || added[k]! > 0) any = true
-      added[k] = previous === undefined || iterations === 1 ? target : relaxation * target + (1 - relaxation) * added[k]!
+      added[k] =
+        previous === undefined || iterations === 1 ? target : relaxation * target + (1 - relaxation) * added[k]!
     }
     if (!any && iterations > 1) {
       converged = true
@@ -323,12 +377,29 @@ export function solveTwoPhase(doc: ChipDocument, compiled: CompiledDocument, op:
     added.fill(0)
     solve()
     for (let pass = 0; pass < 2 * junctions.length + 2 && updateArms(flow); pass++) (applyArms(), solve())
-    warnings.push({ code: 'two-phase-not-converged', message: `The coupled drops–flows iteration did not settle within ${maxIterations} iterations (last relative change ${change.toExponential(2)}, tolerance ${COUPLING_TOLERANCE}); flows and pressures are given WITHOUT the drops' added resistance and marked invalid` })
+    warnings.push({
+      code: 'two-phase-not-converged',
+      message: `The coupled drops–flows iteration did not settle within ${maxIterations} iterations (last relative change ${change.toExponential(2)}, tolerance ${COUPLING_TOLERANCE}); flows and pressures are given WITHOUT the drops' added resistance and marked invalid`,
+    })
   }
   for (let k = 0; k < n; k++) dropletPressure[k] = added[k]! * Math.abs(flow[k]!)
   return {
-    solution, resistance, base, dropletPressure, offset, phases, viscosity, arms, solver,
-    coupling: { method: 'damped-fixed-point', tolerance: COUPLING_TOLERANCE, iterations, converged, change: Number.isFinite(change) ? change : 0 },
+    solution,
+    resistance,
+    base,
+    dropletPressure,
+    offset,
+    phases,
+    viscosity,
+    arms,
+    solver,
+    coupling: {
+      method: 'damped-fixed-point',
+      tolerance: COUPLING_TOLERANCE,
+      iterations,
+      converged,
+      change: Number.isFinite(change) ? change : 0,
+    },
     warnings,
   }
 }

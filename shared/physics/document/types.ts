@@ -41,7 +41,9 @@ export interface CompiledJunction {
   parallelKey: string
 }
 
-export type DocumentSource = { port: string; kind: 'inlet' | 'outlet'; node: string } & ({ mode: 'pressure'; pressure: number } | { mode: 'flow'; flow: number })
+export type DocumentSource = { port: string; kind: 'inlet' | 'outlet'; node: string } & (
+  { mode: 'pressure'; pressure: number } | { mode: 'flow'; flow: number }
+)
 
 export interface CompiledDocument {
   channels: CompiledChannel[]
@@ -80,7 +82,14 @@ export interface DocumentNetwork {
   nodes: { id: string; pressure: Quantity }[]
   channels: DocumentChannel[]
   /** The pressure each inlet needs and the flow it supplies (gauge, Pa and m³/s), whatever its mode. */
-  inlets: { port: string; node: string; mode: 'pressure' | 'flow'; phase: 'continuous' | 'dispersed'; pressure: Quantity; flow: Quantity }[]
+  inlets: {
+    port: string
+    node: string
+    mode: 'pressure' | 'flow'
+    phase: 'continuous' | 'dispersed'
+    pressure: Quantity
+    flow: Quantity
+  }[]
   outlets: { port: string; node: string; flow: Quantity }[]
   uniformity: DocumentUniformity[]
   margins?: { bondPressure?: Margin; pumpPressure?: Margin }

@@ -22,7 +22,6 @@ export const OPERATING_WINDOW: Method = {
 /** Highest pressure searched, Pa (10 bar), unless a bond or pump limit is lower. Common practice, no source. */
 const SEARCH_LIMIT = 1e6
 
-
 /** A junction's jetting verdict as a function of its two flows (the groups of breakupGroups, checked equal in tests). */
 function jettingTest(j: CompiledJunction, op: ResolvedOperatingPoint): (qc: number, qd: number) => boolean {
   const probe: ResolvedJunction = resolvedAt(j, op, 1, 1)
@@ -32,18 +31,31 @@ function jettingTest(j: CompiledJunction, op: ResolvedOperatingPoint): (qc: numb
   return (qc, qd) => isJetting(probe.kind, unit.ca * (step ? qd : qc), unit.we * qd * qd)
 }
 
-export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, solved: TwoPhaseSolution, op: ResolvedOperatingPoint, options: DocumentForecastOptions): OperatingWindow[] {
+export function operatingWindows(
+  doc: ChipDocument,
+  compiled: CompiledDocument,
+  solved: TwoPhaseSolution,
+  op: ResolvedOperatingPoint,
+  options: DocumentForecastOptions,
+): OperatingWindow[] {
   if (!op.interfacialTension || !solved.coupling.converged) return []
   const windows: OperatingWindow[] = []
   let baseAtSetPoint: Float64Array | undefined
   for (const source of compiled.sources) {
-    if (source.kind !== 'inlet' || source.mode !== 'pressure' || solved.phases.inletPhase.get(source.port) !== 'dispersed') continue
-    const fed = compiled.junctions.map((j, k) => ({ j, k })).filter(({ j, k }) => j.dispersed >= 0 && solved.arms[k]!.source === source.node)
+    if (
+      source.kind !== 'inlet' ||
+      source.mode !== 'pressure' ||
+      solved.phases.inletPhase.get(source.port) !== 'dispersed'
+    )
+      continue
+    const fed = compiled.junctions
+      .map((j, k) => ({ j, k }))
+      .filter(({ j, k }) => j.dispersed >= 0 && solved.arms[k]!.source === source.node)
     if (!fed.length) continue
     const offset = Float64Array.from(solved.offset)
     const zeros = new Float64Array(offset.length)
     const closed = new Set<number>()
-    const fedIndex = new Set(fed.map((f) => f.k))
+    const fedIndex = new Set(fed.map(f => f.k))
     compiled.junctions.forEach((j, k) => {
       const arm = solved.arms[k]!
       const mine = fedIndex.has(k)
@@ -52,7 +64,9 @@ export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, 
     })
     // Flows are affine in this inlet's pressure: q(P) = q(p0) + (P − p0) u, u the response to 1 Pa at this
     // inlet with every other source and every barrier at zero (superposition).
-    const unitSources = compiled.sources.map((s) => (s === source ? { ...s, pressure: 1 } : s.mode === 'pressure' ? { ...s, pressure: 0 } : { ...s, flow: 0 }))
+    const unitSources = compiled.sources.map(s =>
+      s === source ? { ...s, pressure: 1 } : s.mode === 'pressure' ? { ...s, pressure: 0 } : { ...s, flow: 0 },
+    )
     const response = (resistance: Float64Array) => solved.solver.solve(resistance, zeros, closed, unitSources).flow
     const p0 = source.pressure
     // Lower edge, where the first drop forms, so no drops yet: the liquids' resistances alone.
@@ -67,7 +81,9 @@ export function operatingWindows(doc: ChipDocument, compiled: CompiledDocument, 
     const q0 = asSolved ? solved.solution.flow : solved.solver.solve(solved.resistance, offset, closed).flow
     const u = response(solved.resistance)
     const flowAt = (pressure: number) => (k: number) => (k >= 0 ? q0[k]! + u[k]! * (pressure - p0) : 0)
-    const limits = [SEARCH_LIMIT, options.limits?.bondPressure, options.limits?.pumpPressure].filter((x): x is number => x !== undefined)
+    const limits = [SEARCH_LIMIT, options.limits?.bondPressure, options.limits?.pumpPressure].filter(
+      (x): x is number => x !== undefined,
+    )
     const top = Math.max(Math.min(...limits), from)
     const jetting = fed.map(({ j }) => jettingTest(j, op))
     const stops = (pressure: number): 'jetting' | 'continuous-backflow' | undefined => {

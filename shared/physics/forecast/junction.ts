@@ -1,11 +1,30 @@
 // One junction's forecast from resolved SI inputs: dimensionless groups, pressures, regime and droplet train.
 import * as D from '../junction/dimensionless'
 import { ENTRY_BARRIER, entryBarrier, LAPLACE_PLUG, laplacePlug } from '../junction/laplace'
-import { DISPERSED_FRACTION, dispersedFraction, GENERATION_RATE, generationRate, PLUG_VOLUME, SPHERE_EQUIVALENT, sphereEquivalentDiameter, TRAIN_SPACING, trainSpacing } from '../junction/plugVolume'
+import {
+  DISPERSED_FRACTION,
+  dispersedFraction,
+  GENERATION_RATE,
+  generationRate,
+  PLUG_VOLUME,
+  SPHERE_EQUIVALENT,
+  sphereEquivalentDiameter,
+  TRAIN_SPACING,
+  trainSpacing,
+} from '../junction/plugVolume'
 import { classifyRegime, type Regime } from '../junction/regime'
 import { STEP_DIAMETER_FACTOR, STEP_WETTING } from '../junction/step'
 import { INPUT, quantity, type Method, type Warning } from '../quantity'
-import { UNIT, type CubicMetres, type CubicMetresPerSecond, type KilogramsPerCubicMetre, type Metres, type NewtonsPerMetre, type PascalSeconds, type Radians } from '../units'
+import {
+  UNIT,
+  type CubicMetres,
+  type CubicMetresPerSecond,
+  type KilogramsPerCubicMetre,
+  type Metres,
+  type NewtonsPerMetre,
+  type PascalSeconds,
+  type Radians,
+} from '../units'
 import { estimateSize } from './size'
 import type { JunctionForecast, ResolvedJunction } from './types'
 
@@ -15,7 +34,13 @@ const REYNOLDS_LIMIT = 10
 const BOND_LIMIT = 0.1
 
 /** The groups that pick the breakup regime (conventions in junction/dimensionless.ts), and the regime. */
-export function breakupGroups(j: ResolvedJunction): { dh: Metres; ca: number; re: number; we: number; readonly regime: Regime } {
+export function breakupGroups(j: ResolvedJunction): {
+  dh: Metres
+  ca: number
+  re: number
+  we: number
+  readonly regime: Regime
+} {
   const w = j.mainWidth as Metres
   const h = j.depth as Metres
   const step = j.kind === 'step'
@@ -27,20 +52,38 @@ export function breakupGroups(j: ResolvedJunction): { dh: Metres; ca: number; re
   const uc = D.meanSpeed(j.flowContinuous, w, h)
   const ud = D.meanSpeed(j.flowDispersed, (step ? w : j.inletWidth) as Metres, h)
   const ca = step ? D.capillaryNumber(muD, ud, gamma) : D.capillaryNumber(muC, uc, gamma)
-  const re = step ? D.reynoldsNumber(rhoD, ud, dh, muD) : D.reynoldsNumber(j.continuous.density.value as KilogramsPerCubicMetre, uc, dh, muC)
+  const re = step
+    ? D.reynoldsNumber(rhoD, ud, dh, muD)
+    : D.reynoldsNumber(j.continuous.density.value as KilogramsPerCubicMetre, uc, dh, muC)
   const we = D.weberNumber(rhoD, ud, (step ? h : j.inletWidth) as Metres, gamma)
   // The regime object is built only when read (the operating window asks for Ca and We thousands of times).
-  return { dh, ca, re, we, get regime() { return classifyRegime(j.kind, ca, we, muD / muC) } }
+  return {
+    dh,
+    ca,
+    re,
+    we,
+    get regime() {
+      return classifyRegime(j.kind, ca, we, muD / muC)
+    },
+  }
 }
 
 /** Drop volume (m³) and frequency (Hz) only, for the network's coupled iteration. */
 export function dropTrain(j: ResolvedJunction): { volume: number; frequency: number } {
   // A step nozzle's size does not depend on the regime (d ≈ 4h); skip classifying it.
-  const volume = j.kind === 'step' ? (Math.PI / 6) * (STEP_DIAMETER_FACTOR * j.depth) ** 3 : estimateSize(j, breakupGroups(j).regime, true).volume
+  const volume =
+    j.kind === 'step'
+      ? (Math.PI / 6) * (STEP_DIAMETER_FACTOR * j.depth) ** 3
+      : estimateSize(j, breakupGroups(j).regime, true).volume
   return { volume, frequency: j.flowDispersed / volume }
 }
 
-interface TrainMethods { volume: Method; diameter: Method; frequency: Method; spacing: Method }
+interface TrainMethods {
+  volume: Method
+  diameter: Method
+  frequency: Method
+  spacing: Method
+}
 const trainMethodsOf = new WeakMap<Method, TrainMethods>()
 
 /** The methods of the quantities derived from a size law, built once per law (not per junction per forecast). */
@@ -72,40 +115,73 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
   const qd = j.flowDispersed as CubicMetresPerSecond
   const step = j.kind === 'step'
   const warnings: Warning[] = [...liquidWarnings]
-  const propertiesValid = [j.continuous.viscosity, j.continuous.density, j.dispersed.viscosity, j.dispersed.density, j.interfacialTension].every((q) => q.valid)
+  const propertiesValid = [
+    j.continuous.viscosity,
+    j.continuous.density,
+    j.dispersed.viscosity,
+    j.dispersed.density,
+    j.interfacialTension,
+  ].every(q => q.valid)
 
   const { dh, ca, re, we, regime } = breakupGroups(j)
   const bo = D.bondNumber(rhoD - rhoC, dh, gamma)
   const oh = D.ohnesorgeNumber(muD, rhoD, gamma, Math.min(w, h) as Metres)
 
-  if (re > REYNOLDS_LIMIT) warnings.push({ code: 'inertia', message: `Re = ${re.toPrecision(3)} > ${REYNOLDS_LIMIT}: the creeping-flow size laws lose accuracy; lower the flow rates or use a smaller channel` })
-  if (bo > BOND_LIMIT) warnings.push({ code: 'gravity', message: `Bo = ${bo.toPrecision(3)} > ${BOND_LIMIT}: gravity is not negligible against interfacial tension at this size` })
+  if (re > REYNOLDS_LIMIT)
+    warnings.push({
+      code: 'inertia',
+      message: `Re = ${re.toPrecision(3)} > ${REYNOLDS_LIMIT}: the creeping-flow size laws lose accuracy; lower the flow rates or use a smaller channel`,
+    })
+  if (bo > BOND_LIMIT)
+    warnings.push({
+      code: 'gravity',
+      message: `Bo = ${bo.toPrecision(3)} > ${BOND_LIMIT}: gravity is not negligible against interfacial tension at this size`,
+    })
 
   let wets = false
   let entryPressure
   if (j.contactAngle !== undefined) {
     const constriction = (j.kind === 't-junction' ? Math.min(win, w) : w) as Metres
-    entryPressure = quantity(entryBarrier(gamma, j.contactAngle as Radians, constriction, h), UNIT.pressure, ENTRY_BARRIER)
+    entryPressure = quantity(
+      entryBarrier(gamma, j.contactAngle as Radians, constriction, h),
+      UNIT.pressure,
+      ENTRY_BARRIER,
+    )
     wets = j.contactAngle < Math.PI / 2
     if (wets) {
-      warnings.push({ code: 'dispersed-wets-walls', message: `Contact angle ${((j.contactAngle * 180) / Math.PI).toFixed(0)}° < 90°: the dispersed phase wets the walls, so drops will not pinch off reliably; treat the walls (e.g. make them ${step ? 'wetted by the oil' : 'hydrophobic for water-in-oil'}) — ${STEP_WETTING.source}` })
+      warnings.push({
+        code: 'dispersed-wets-walls',
+        message: `Contact angle ${((j.contactAngle * 180) / Math.PI).toFixed(0)}° < 90°: the dispersed phase wets the walls, so drops will not pinch off reliably; treat the walls (e.g. make them ${step ? 'wetted by the oil' : 'hydrophobic for water-in-oil'}) — ${STEP_WETTING.source}`,
+      })
     }
   }
 
   const size = estimateSize(j, regime)
   warnings.push(...size.warnings)
   if (!regime.valid && !warnings.length) {
-    warnings.push({ code: 'regime-indicative', message: `The ${regime.value} regime's thresholds (${regime.criterion.name} band ${regime.criterion.band.join('–')}) are indicative for this junction kind: ${regime.source}` })
+    warnings.push({
+      code: 'regime-indicative',
+      message: `The ${regime.value} regime's thresholds (${regime.criterion.name} band ${regime.criterion.band.join('–')}) are indicative for this junction kind: ${regime.source}`,
+    })
   }
   const sizeValid = size.valid && !wets && propertiesValid
-  if (!propertiesValid) warnings.push({ code: 'properties-out-of-range', message: 'A liquid property is outside its correlation\'s range (see inputs); every size is marked invalid' })
+  if (!propertiesValid)
+    warnings.push({
+      code: 'properties-out-of-range',
+      message: "A liquid property is outside its correlation's range (see inputs); every size is marked invalid",
+    })
   const volume = size.volume as CubicMetres
   const frequency = generationRate(qd, volume)
   const methods = trainMethods(size.method)
 
   const forecast: JunctionForecast = {
     inputs: {
-      junction: { kind: j.kind, mainWidth: quantity(w, UNIT.length, INPUT), inletWidth: quantity(win, UNIT.length, INPUT), depth: quantity(h, UNIT.length, INPUT) },
+      junction: {
+        kind: j.kind,
+        mainWidth: quantity(w, UNIT.length, INPUT),
+        inletWidth: quantity(win, UNIT.length, INPUT),
+        depth: quantity(h, UNIT.length, INPUT),
+      },
       continuous: j.continuous,
       dispersed: j.dispersed,
       interfacialTension: j.interfacialTension,
@@ -130,7 +206,8 @@ export function forecastJunction(j: ResolvedJunction, liquidWarnings: Warning[] 
   }
   if (j.contactAngle !== undefined) forecast.inputs.contactAngle = quantity(j.contactAngle, UNIT.angle, INPUT)
   if (entryPressure) forecast.entryPressure = entryPressure
-  if (rhoD !== rhoC) forecast.capillaryLength = quantity(D.capillaryLength(rhoD - rhoC, gamma), UNIT.length, D.CAPILLARY_LENGTH)
+  if (rhoD !== rhoC)
+    forecast.capillaryLength = quantity(D.capillaryLength(rhoD - rhoC, gamma), UNIT.length, D.CAPILLARY_LENGTH)
   if (size.length !== undefined) {
     forecast.dropletLength = quantity(size.length, UNIT.length, size.method, sizeValid)
     forecast.spacing = quantity(trainSpacing(qc, qd, w, h, frequency), UNIT.length, methods.spacing, sizeValid)

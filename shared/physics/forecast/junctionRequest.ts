@@ -10,11 +10,20 @@ import type { JunctionForecast, ResolvedJunction } from './types'
 
 export const DEFAULT_TEMPERATURE = 293.15 as Kelvin
 
-export function resolveJunctionRequest(request: JunctionRequest, library: LiquidLibrary = BUILT_IN_LIBRARY): { junction: ResolvedJunction; warnings: Warning[] } {
+export function resolveJunctionRequest(
+  request: JunctionRequest,
+  library: LiquidLibrary = BUILT_IN_LIBRARY,
+): { junction: ResolvedJunction; warnings: Warning[] } {
   const temperature = (request.temperature ?? DEFAULT_TEMPERATURE) as Kelvin
   const continuous = resolveLiquid(request.continuous, temperature, 'continuous', library)
   const dispersed = resolveLiquid(request.dispersed, temperature, 'dispersed', library)
-  const tension = resolveTension(request.interfacialTension, continuous.liquid, dispersed.liquid, request.surfactant ?? 'none', library)
+  const tension = resolveTension(
+    request.interfacialTension,
+    continuous.liquid,
+    dispersed.liquid,
+    request.surfactant ?? 'none',
+    library,
+  )
   const junction: ResolvedJunction = {
     kind: request.junction.kind,
     mainWidth: request.junction.mainWidth,

@@ -8,19 +8,36 @@ export type LiquidSpec =
   | { liquid: string; massFraction?: number }
   | { name?: string; viscosity: number; density: number; surfaceTension?: number }
 
-export function resolveLiquid(spec: LiquidSpec, temperature: Kelvin, path: string, library: LiquidLibrary = BUILT_IN_LIBRARY): { liquid: LiquidProperties; warnings: Warning[] } {
+export function resolveLiquid(
+  spec: LiquidSpec,
+  temperature: Kelvin,
+  path: string,
+  library: LiquidLibrary = BUILT_IN_LIBRARY,
+): { liquid: LiquidProperties; warnings: Warning[] } {
   if ('liquid' in spec) {
     const entry = findLiquid(spec.liquid, library.liquids)
     if (!entry) {
-      const known = library.liquids.map((liquid) => `"${liquid.id}"`).join(', ')
-      throw new ForecastInputError([{ path: `${path}.liquid`, message: `unknown liquid "${spec.liquid}"; use one of ${known} or give viscosity and density explicitly` }])
+      const known = library.liquids.map(liquid => `"${liquid.id}"`).join(', ')
+      throw new ForecastInputError([
+        {
+          path: `${path}.liquid`,
+          message: `unknown liquid "${spec.liquid}"; use one of ${known} or give viscosity and density explicitly`,
+        },
+      ])
     }
     const needsFraction = entry.parameters.includes('massFraction')
     if (needsFraction && spec.massFraction === undefined) {
-      throw new ForecastInputError([{ path: `${path}.massFraction`, message: `"${entry.id}" needs "massFraction", the glycerol mass fraction between 0 and 1 (e.g. 0.5)` }])
+      throw new ForecastInputError([
+        {
+          path: `${path}.massFraction`,
+          message: `"${entry.id}" needs "massFraction", the glycerol mass fraction between 0 and 1 (e.g. 0.5)`,
+        },
+      ])
     }
     if (!needsFraction && spec.massFraction !== undefined) {
-      throw new ForecastInputError([{ path: `${path}.massFraction`, message: `"${entry.id}" takes no massFraction; remove it` }])
+      throw new ForecastInputError([
+        { path: `${path}.massFraction`, message: `"${entry.id}" takes no massFraction; remove it` },
+      ])
     }
     return entry.properties(temperature, spec.massFraction)
   }
@@ -34,11 +51,22 @@ export function resolveLiquid(spec: LiquidSpec, temperature: Kelvin, path: strin
 }
 
 /** The given tension, else the library pair's, else an error saying how to provide it. */
-export function resolveTension(given: number | undefined, continuous: LiquidProperties, dispersed: LiquidProperties, surfactant: string, library: LiquidLibrary = BUILT_IN_LIBRARY): Quantity {
+export function resolveTension(
+  given: number | undefined,
+  continuous: LiquidProperties,
+  dispersed: LiquidProperties,
+  surfactant: string,
+  library: LiquidLibrary = BUILT_IN_LIBRARY,
+): Quantity {
   if (given !== undefined) return quantity(given, UNIT.tension, INPUT)
-  const pair = continuous.id && dispersed.id ? findPair(continuous.id, dispersed.id, surfactant, library.pairs) : undefined
-  if (pair) return quantity(pair.interfacialTension, UNIT.tension, { id: pair.origin === 'lab' ? 'lab-library-pair' : 'library-pair', source: pair.source })
-  const known = library.pairs.map((p) => `${p.liquids[0]}/${p.liquids[1]} (${p.surfactant})`).join(', ')
+  const pair =
+    continuous.id && dispersed.id ? findPair(continuous.id, dispersed.id, surfactant, library.pairs) : undefined
+  if (pair)
+    return quantity(pair.interfacialTension, UNIT.tension, {
+      id: pair.origin === 'lab' ? 'lab-library-pair' : 'library-pair',
+      source: pair.source,
+    })
+  const known = library.pairs.map(p => `${p.liquids[0]}/${p.liquids[1]} (${p.surfactant})`).join(', ')
   throw new ForecastInputError([
     {
       path: 'interfacialTension',

@@ -44,14 +44,24 @@ function computeSeriesFactor(aspect: number): number {
 }
 
 /** Exact rectangular-channel resistance (Bruus 2008 eq. 4.37/4.38); symmetric in width and depth. */
-export function rectangularResistance(viscosity: PascalSeconds, length: Metres, width: Metres, depth: Metres): HydraulicResistance {
+export function rectangularResistance(
+  viscosity: PascalSeconds,
+  length: Metres,
+  width: Metres,
+  depth: Metres,
+): HydraulicResistance {
   const w = Math.max(width, depth)
   const h = Math.min(width, depth)
   return (((12 * viscosity * length) / (w * h ** 3)) * seriesFactor(h / w)) as HydraulicResistance
 }
 
 /** Bruus's approximation R ≈ 12ηL/((1 − 0.63 h/w) h³ w), with h the smaller side. */
-export function rectangularResistanceApprox(viscosity: PascalSeconds, length: Metres, width: Metres, depth: Metres): HydraulicResistance {
+export function rectangularResistanceApprox(
+  viscosity: PascalSeconds,
+  length: Metres,
+  width: Metres,
+  depth: Metres,
+): HydraulicResistance {
   const w = Math.max(width, depth)
   const h = Math.min(width, depth)
   return ((12 * viscosity * length) / ((1 - 0.63 * (h / w)) * h ** 3 * w)) as HydraulicResistance
@@ -69,5 +79,5 @@ export function circularResistance(viscosity: PascalSeconds, length: Metres, dia
 export function poiseuilleNumber(width: Metres, depth: Metres): number {
   const area = width * depth
   const dh = (2 * width * depth) / (width + depth)
-  return (2 * rectangularResistance(1 as PascalSeconds, 1 as Metres, width, depth) * area * dh ** 2)
+  return 2 * rectangularResistance(1 as PascalSeconds, 1 as Metres, width, depth) * area * dh ** 2
 }

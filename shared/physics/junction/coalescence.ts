@@ -4,7 +4,8 @@ import type { Joules, KilogramsPerCubicMetre, Metres, MetresPerSecond, NewtonsPe
 
 export const COALESCENCE: Method = {
   id: 'equal-drop-coalescence',
-  source: 'volume conservation R = 2^(1/3) r; surface energy 4πγr²(2 − 2^(2/3)); capillary–inertial speed √(γ/(ρ r)) (Eggers, Lister & Stone 1999, J. Fluid Mech. 401, 293)',
+  source:
+    'volume conservation R = 2^(1/3) r; surface energy 4πγr²(2 − 2^(2/3)); capillary–inertial speed √(γ/(ρ r)) (Eggers, Lister & Stone 1999, J. Fluid Mech. 401, 293)',
 }
 
 /** Radius of the drop formed by merging two equal drops of radius r: 2^(1/3) r ≈ 1.26 r. */
@@ -15,9 +16,15 @@ export const releasedSurfaceEnergy = (tension: NewtonsPerMetre, radius: Metres):
   (4 * Math.PI * tension * radius ** 2 * (2 - 2 ** (2 / 3))) as Joules
 
 /** Capillary–inertial speed scale √(γ/(ρ r)), inviscid drops (Oh ≪ 1). */
-export const capillaryInertialSpeed = (tension: NewtonsPerMetre, density: KilogramsPerCubicMetre, radius: Metres): MetresPerSecond =>
-  Math.sqrt(tension / (density * radius)) as MetresPerSecond
+export const capillaryInertialSpeed = (
+  tension: NewtonsPerMetre,
+  density: KilogramsPerCubicMetre,
+  radius: Metres,
+): MetresPerSecond => Math.sqrt(tension / (density * radius)) as MetresPerSecond
 
 /** Capillary–inertial time √(ρ r³/γ). */
-export const capillaryInertialTime = (tension: NewtonsPerMetre, density: KilogramsPerCubicMetre, radius: Metres): Seconds =>
-  Math.sqrt((density * radius ** 3) / tension) as Seconds
+export const capillaryInertialTime = (
+  tension: NewtonsPerMetre,
+  density: KilogramsPerCubicMetre,
+  radius: Metres,
+): Seconds => Math.sqrt((density * radius ** 3) / tension) as Seconds

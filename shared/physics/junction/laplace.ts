@@ -2,8 +2,14 @@
 import type { Method } from '../quantity'
 import type { Metres, NewtonsPerMetre, Pascals, Radians } from '../units'
 
-export const LAPLACE_SPHERE: Method = { id: 'young-laplace-sphere', source: 'Δp = 2γ/r (Young 1805; Laplace 1806; de Gennes et al. 2004, Capillarity and Wetting Phenomena, eq. 1.4)' }
-export const LAPLACE_THREAD: Method = { id: 'young-laplace-cylinder', source: 'Δp = γ/r for a cylindrical thread (Young–Laplace, one principal radius infinite)' }
+export const LAPLACE_SPHERE: Method = {
+  id: 'young-laplace-sphere',
+  source: 'Δp = 2γ/r (Young 1805; Laplace 1806; de Gennes et al. 2004, Capillarity and Wetting Phenomena, eq. 1.4)',
+}
+export const LAPLACE_THREAD: Method = {
+  id: 'young-laplace-cylinder',
+  source: 'Δp = γ/r for a cylindrical thread (Young–Laplace, one principal radius infinite)',
+}
 export const LAPLACE_PLUG: Method = {
   id: 'mayer-stowe-princen-confined-plug',
   source:
@@ -40,7 +46,7 @@ export function mspRadius(width: Metres, depth: Metres, wettingAngle = 0): Metre
   if (Math.abs(a) < 1e-9) return (-c / b) as Metres
   // a < 0 for θw < π/4; the physical root is the smaller positive one.
   const disc = Math.sqrt(b * b - 4 * a * c)
-  const roots = [(-b + disc) / (2 * a), (-b - disc) / (2 * a)].filter((r) => r > 0)
+  const roots = [(-b + disc) / (2 * a), (-b - disc) / (2 * a)].filter(r => r > 0)
   return Math.min(...roots) as Metres
 }
 

@@ -7,17 +7,27 @@ export const PLUG_VOLUME: Method = {
   id: 'musterd-2015-plug-volume',
   source:
     'V = [hw − (4 − π) r²](L − w) + (π/4)h(w − h)² + (π²/8)h²(w − h) + (π/6)h³, plug of length L in a w × h channel (h ≤ w the smaller side), ' +
-    'caps as a pancake with a rim of radius h/2 (Musterd, van Steijn, Kleijn & Kreutzer 2015, RSC Adv. 5, 16042; re-derived here by Pappus\'s theorem), ' +
+    "caps as a pancake with a rim of radius h/2 (Musterd, van Steijn, Kleijn & Kreutzer 2015, RSC Adv. 5, 16042; re-derived here by Pappus's theorem), " +
     'body gutters of the Mayer–Stowe–Princen corner radius r (Wong, Radke & Morris 1995, J. Fluid Mech. 292, 71; r → h/2 for h ≪ w); ' +
     'a drop shorter than the larger side is a disc of diameter L squeezed to h, shorter than h a sphere',
 }
-export const SPHERE_EQUIVALENT: Method = { id: 'sphere-equivalent-diameter', source: 'd = (6V/π)^(1/3), diameter of the sphere of equal volume' }
-export const GENERATION_RATE: Method = { id: 'generation-rate', source: 'f = Qd / V, continuity (Garstecki et al. 2006, Lab Chip 6, 437)' }
+export const SPHERE_EQUIVALENT: Method = {
+  id: 'sphere-equivalent-diameter',
+  source: 'd = (6V/π)^(1/3), diameter of the sphere of equal volume',
+}
+export const GENERATION_RATE: Method = {
+  id: 'generation-rate',
+  source: 'f = Qd / V, continuity (Garstecki et al. 2006, Lab Chip 6, 437)',
+}
 export const TRAIN_SPACING: Method = {
   id: 'train-spacing',
-  source: 'λ = U / f, U = (Qc + Qd)/(w h) mean speed of the train (continuity, neglecting droplet slip and gutter flow)',
+  source:
+    'λ = U / f, U = (Qc + Qd)/(w h) mean speed of the train (continuity, neglecting droplet slip and gutter flow)',
 }
-export const DISPERSED_FRACTION: Method = { id: 'dispersed-fraction', source: 'φ = Qd/(Qc + Qd), volume fraction of the train (continuity)' }
+export const DISPERSED_FRACTION: Method = {
+  id: 'dispersed-fraction',
+  source: 'φ = Qd/(Qc + Qd), volume fraction of the train (continuity)',
+}
 
 function sides(width: Metres, depth: Metres): { w: number; h: number } {
   return width >= depth ? { w: width, h: depth } : { w: depth, h: width }
@@ -25,7 +35,7 @@ function sides(width: Metres, depth: Metres): { w: number; h: number } {
 
 /** Volume of the two caps together: a "pancake" of diameter w and thickness h with a rim of radius h/2. */
 function capsVolume(w: number, h: number): number {
-  return (Math.PI / 4) * h * (w - h) ** 2 + ((Math.PI ** 2) / 8) * h ** 2 * (w - h) + (Math.PI / 6) * h ** 3
+  return (Math.PI / 4) * h * (w - h) ** 2 + (Math.PI ** 2 / 8) * h ** 2 * (w - h) + (Math.PI / 6) * h ** 3
 }
 
 /**
@@ -72,10 +82,18 @@ export function minimumPlugVolume(width: Metres, depth: Metres): CubicMetres {
 
 export const sphereEquivalentDiameter = (volume: CubicMetres): Metres => Math.cbrt((6 * volume) / Math.PI) as Metres
 export const sphereVolume = (diameter: Metres): CubicMetres => ((Math.PI / 6) * diameter ** 3) as CubicMetres
-export const generationRate = (dispersedFlow: CubicMetresPerSecond, volume: CubicMetres): Hertz => (dispersedFlow / volume) as Hertz
+export const generationRate = (dispersedFlow: CubicMetresPerSecond, volume: CubicMetres): Hertz =>
+  (dispersedFlow / volume) as Hertz
 
-export function trainSpacing(continuousFlow: CubicMetresPerSecond, dispersedFlow: CubicMetresPerSecond, width: Metres, depth: Metres, frequency: Hertz): Metres {
+export function trainSpacing(
+  continuousFlow: CubicMetresPerSecond,
+  dispersedFlow: CubicMetresPerSecond,
+  width: Metres,
+  depth: Metres,
+  frequency: Hertz,
+): Metres {
   return ((continuousFlow + dispersedFlow) / (width * depth) / frequency) as Metres
 }
 
-export const dispersedFraction = (continuousFlow: number, dispersedFlow: number): number => dispersedFlow / (continuousFlow + dispersedFlow)
+export const dispersedFraction = (continuousFlow: number, dispersedFlow: number): number =>
+  dispersedFlow / (continuousFlow + dispersedFlow)

@@ -47,7 +47,15 @@ export const STEP_BAND: [number, number] = [0.01, 0.03]
  */
 export const BAND_EDGE_SLACK = 1e-9
 
-function regime(method: Method, valid: boolean, name: string, value: number, band: [number, number], below: RegimeName, above: RegimeName): Regime {
+function regime(
+  method: Method,
+  valid: boolean,
+  name: string,
+  value: number,
+  band: [number, number],
+  below: RegimeName,
+  above: RegimeName,
+): Regime {
   const base = { unit: '' as const, method: method.id, source: method.source, valid, criterion: { name, value, band } }
   if (value < band[0] * (1 - BAND_EDGE_SLACK)) return { ...base, value: below }
   if (value > band[1] * (1 + BAND_EDGE_SLACK)) return { ...base, value: above }
@@ -73,14 +81,22 @@ export const NO_SQUEEZING_RATIO = 1 / 50
 export function classifyRegime(kind: JunctionKind, ca: number, we: number, viscosityRatio?: number): Regime {
   const jetting = ca + we
   if (kind === 'step') {
-    if (jetting >= JETTING_BAND[0]) return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'step-emulsification', 'jetting')
+    if (jetting >= JETTING_BAND[0])
+      return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'step-emulsification', 'jetting')
     return regime(STEP_CRITICAL, false, 'Ca (dispersed, nozzle)', ca, STEP_BAND, 'step-emulsification', 'jetting')
   }
   const published = kind === 't-junction'
-  if (jetting >= JETTING_BAND[0]) return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'dripping', 'jetting')
+  if (jetting >= JETTING_BAND[0])
+    return regime(UTADA_JETTING, false, 'Ca + We', jetting, JETTING_BAND, 'dripping', 'jetting')
   const found = regime(DE_MENECH_BAND, published, 'Ca', ca, SQUEEZING_BAND, 'squeezing', 'dripping')
   if (published && found.value === 'squeezing' && viscosityRatio !== undefined && viscosityRatio < NO_SQUEEZING_RATIO) {
-    return { ...found, value: 'transition', between: ['squeezing', 'dripping'], method: `${found.method}+${CHRISTOPHER_LOW_VISCOSITY.id}`, source: `${found.source}; ${CHRISTOPHER_LOW_VISCOSITY.source}` }
+    return {
+      ...found,
+      value: 'transition',
+      between: ['squeezing', 'dripping'],
+      method: `${found.method}+${CHRISTOPHER_LOW_VISCOSITY.id}`,
+      source: `${found.source}; ${CHRISTOPHER_LOW_VISCOSITY.source}`,
+    }
   }
   return found
 }

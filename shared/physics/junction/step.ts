@@ -18,7 +18,7 @@ export const STEP_ASPECT: Method = {
 export const STEP_WETTING: Method = {
   id: 'step-wetting',
   source:
-    'the continuous phase must wet the nozzle and step walls: drops pinch off only when the dispersed phase\'s contact angle ' +
+    "the continuous phase must wet the nozzle and step walls: drops pinch off only when the dispersed phase's contact angle " +
     'exceeds about 120° (Eggersdorfer, Seybold, Ofner, Weitz & Studart 2018, PNAS 115, 9479); below 90° it wets the walls outright (Dangla et al. 2013, PNAS 110, 853)',
 }
 
@@ -32,4 +32,5 @@ export const STEP_MIN_ASPECT = 2.6
 export const stepDiameter = (nozzleDepth: Metres): Metres => (STEP_DIAMETER_FACTOR * nozzleDepth) as Metres
 
 /** True when the nozzle is wide enough for its depth (w/h ≥ 2.6, Montessori et al. 2019). */
-export const stepAspectOk = (nozzleWidth: Metres, nozzleDepth: Metres): boolean => nozzleWidth / nozzleDepth >= STEP_MIN_ASPECT
+export const stepAspectOk = (nozzleWidth: Metres, nozzleDepth: Metres): boolean =>
+  nozzleWidth / nozzleDepth >= STEP_MIN_ASPECT

@@ -4,7 +4,8 @@ import type { CubicMetres, Metres } from '../units'
 
 export const GARSTECKI_SQUEEZING: Method = {
   id: 'garstecki-2006-squeezing',
-  source: 'L/w = 1 + α Qd/Qc (Garstecki, Fuerstman, Stone & Whitesides 2006, Lab Chip 6, 437, eq. 1); α given by the user or fitted',
+  source:
+    'L/w = 1 + α Qd/Qc (Garstecki, Fuerstman, Stone & Whitesides 2006, Lab Chip 6, 437, eq. 1); α given by the user or fitted',
 }
 export const VAN_STEIJN_SQUEEZING: Method = {
   id: 'van-steijn-2010-squeezing',
@@ -45,7 +46,13 @@ export function vanSteijnFillVolume(width: Metres, inletWidth: Metres, depth: Me
  * α = (1 − π/4)(1 − Qgutter/Qc)⁻¹ [ (Rpinch/w)² − (Rfill/w)² + (π/4)(h/w)(Rpinch/w − Rfill/w) ],
  * Rfill = max(w, win), Rpinch = w + win − p + √(2 (win − p)(w − p)), p = hw/(h + w) − ε (ε corner roundness).
  */
-export function vanSteijnAlpha(width: Metres, inletWidth: Metres, depth: Metres, gutterFraction = 0.1, cornerRoundness = 0): number {
+export function vanSteijnAlpha(
+  width: Metres,
+  inletWidth: Metres,
+  depth: Metres,
+  gutterFraction = 0.1,
+  cornerRoundness = 0,
+): number {
   const w = width
   const p = (depth * w) / (depth + w) - cornerRoundness
   const rPinch = (w + inletWidth - p + Math.sqrt(2 * (inletWidth - p) * (w - p))) / w
@@ -57,7 +64,9 @@ export function vanSteijnAlpha(width: Metres, inletWidth: Metres, depth: Metres,
 /** Droplet volume V = h w² [Vfill/(hw²) + α Qd/Qc] (van Steijn et al. 2010, eq. 3). */
 export function vanSteijnVolume(width: Metres, inletWidth: Metres, depth: Metres, flowRatio: number): CubicMetres {
   const scale = depth * width ** 2
-  return (scale * (vanSteijnFillVolume(width, inletWidth, depth) + vanSteijnAlpha(width, inletWidth, depth) * flowRatio)) as CubicMetres
+  return (scale *
+    (vanSteijnFillVolume(width, inletWidth, depth) +
+      vanSteijnAlpha(width, inletWidth, depth) * flowRatio)) as CubicMetres
 }
 
 /**

@@ -3,7 +3,18 @@ import { BUILT_IN_LIBRARY, type LiquidLibrary } from './lab'
 
 export { LIQUIDS, findLiquid, type LibraryLiquid, type LiquidProperties } from './library'
 export { PAIRS, SURFACTANTS, findPair, type LiquidPair, type Surfactant } from './pairs'
-export { BUILT_IN_LIBRARY, mergeLibrary, labLiquid, labPair, labLiquidRange, type LabLiquidData, type LabLiquidRow, type LabPairData, type LabLiquidsData, type LiquidLibrary } from './lab'
+export {
+  BUILT_IN_LIBRARY,
+  mergeLibrary,
+  labLiquid,
+  labPair,
+  labLiquidRange,
+  type LabLiquidData,
+  type LabLiquidRow,
+  type LabPairData,
+  type LabLiquidsData,
+  type LiquidLibrary,
+} from './lab'
 
 export interface LiquidListing {
   id: string
@@ -14,7 +25,12 @@ export interface LiquidListing {
   temperatureRange: { min: number; max: number; unit: 'K' }
   sources: string[]
   /** Properties at 20 °C (massFraction 0.5 where needed), as a preview. */
-  at20C: { viscosity: number; density: number; surfaceTension: number | null; unit: { viscosity: 'Pa*s'; density: 'kg/m^3'; surfaceTension: 'N/m' } }
+  at20C: {
+    viscosity: number
+    density: number
+    surfaceTension: number | null
+    unit: { viscosity: 'Pa*s'; density: 'kg/m^3'; surfaceTension: 'N/m' }
+  }
 }
 
 export interface PairListing {
@@ -25,8 +41,12 @@ export interface PairListing {
 }
 
 /** The whole library (built-in, plus the lab's when given) as plain JSON: liquids, pairs and surfactant names. */
-export function listLiquids(library: LiquidLibrary = BUILT_IN_LIBRARY): { liquids: LiquidListing[]; pairs: PairListing[]; surfactants: string[] } {
-  const liquids = library.liquids.map((liquid) => {
+export function listLiquids(library: LiquidLibrary = BUILT_IN_LIBRARY): {
+  liquids: LiquidListing[]
+  pairs: PairListing[]
+  surfactants: string[]
+} {
+  const liquids = library.liquids.map(liquid => {
     const { liquid: at20 } = liquid.properties(293.15 as never, liquid.parameters.length ? 0.5 : undefined)
     return {
       id: liquid.id,
@@ -43,7 +63,7 @@ export function listLiquids(library: LiquidLibrary = BUILT_IN_LIBRARY): { liquid
       },
     }
   })
-  const pairs = library.pairs.map((pair) => ({
+  const pairs = library.pairs.map(pair => ({
     liquids: [pair.liquids[0], pair.liquids[1]] as [string, string],
     surfactant: pair.surfactant,
     origin: pair.origin ?? ('built-in' as const),

@@ -51,7 +51,7 @@ const ZERO_C = 273.15
 // Nature 125, 309, from memory); density and tension linearly in T (common practice, no source).
 function between(rows: readonly LabLiquidRow[], kelvin: number): { row: LabLiquidRow; hasTension: boolean } {
   const t = kelvin - ZERO_C
-  const hasTension = rows.every((r) => r.surfaceTensionMNPerM !== undefined)
+  const hasTension = rows.every(r => r.surfaceTensionMNPerM !== undefined)
   if (rows.length === 1 || t <= rows[0]!.temperatureC) return { row: rows[0]!, hasTension }
   const last = rows[rows.length - 1]!
   if (t >= last.temperatureC) return { row: last, hasTension }
@@ -75,10 +75,12 @@ function between(rows: readonly LabLiquidRow[], kelvin: number): { row: LabLiqui
 
 /** The valid range of a lab liquid: its table's span, or ±10 K around a single row (as the built-in oils). */
 export function labLiquidRange(data: LabLiquidData): { min: number; max: number } {
-  const temps = data.table.map((r) => r.temperatureC + ZERO_C)
+  const temps = data.table.map(r => r.temperatureC + ZERO_C)
   const lo = Math.min(...temps)
   const hi = Math.max(...temps)
-  return temps.length === 1 ? { min: lo - OIL_TEMPERATURE_WINDOW, max: hi + OIL_TEMPERATURE_WINDOW } : { min: lo, max: hi }
+  return temps.length === 1
+    ? { min: lo - OIL_TEMPERATURE_WINDOW, max: hi + OIL_TEMPERATURE_WINDOW }
+    : { min: lo, max: hi }
 }
 
 /** A lab liquid as a library entry (marked as the lab's). */
@@ -96,17 +98,23 @@ export function labLiquid(data: LabLiquidData): LibraryLiquid {
     properties(temperature: Kelvin) {
       const ok = temperature >= range.min && temperature <= range.max
       const { row, hasTension } = between(rows, temperature)
-      const warnings: Warning[] = ok ? [] : [{
-        code: 'liquid-temperature-out-of-range',
-        message: `${data.id}: ${(temperature - ZERO_C).toFixed(1)} °C is outside the lab's table ${(range.min - ZERO_C).toFixed(1)}–${(range.max - ZERO_C).toFixed(1)} °C; the nearest row stands in, marked invalid`,
-      }]
+      const warnings: Warning[] = ok
+        ? []
+        : [
+            {
+              code: 'liquid-temperature-out-of-range',
+              message: `${data.id}: ${(temperature - ZERO_C).toFixed(1)} °C is outside the lab's table ${(range.min - ZERO_C).toFixed(1)}–${(range.max - ZERO_C).toFixed(1)} °C; the nearest row stands in, marked invalid`,
+            },
+          ]
       return {
         liquid: {
           id: data.id,
           name: data.name,
           viscosity: quantity(row.viscosityMPaS * 1e-3, UNIT.viscosity, method, ok),
           density: quantity(row.densityKgPerM3, UNIT.density, method, ok),
-          ...(hasTension ? { surfaceTension: quantity(row.surfaceTensionMNPerM! * 1e-3, UNIT.tension, method, ok) } : {}),
+          ...(hasTension
+            ? { surfaceTension: quantity(row.surfaceTensionMNPerM! * 1e-3, UNIT.tension, method, ok) }
+            : {}),
         },
         warnings,
       }
@@ -128,6 +136,6 @@ export function labPair(data: LabPairData): LiquidPair {
 export function mergeLibrary(lab?: LabLiquidsData | null): LiquidLibrary {
   if (!lab || (lab.liquids.length === 0 && lab.pairs.length === 0)) return BUILT_IN_LIBRARY
   const pairs = [...lab.pairs.map(labPair), ...PAIRS]
-  const surfactants = [...new Set([...SURFACTANTS, ...lab.pairs.map((p) => p.surfactant)])]
+  const surfactants = [...new Set([...SURFACTANTS, ...lab.pairs.map(p => p.surfactant)])]
   return { liquids: [...LIQUIDS, ...lab.liquids.map(labLiquid)], pairs, surfactants }
 }

@@ -1,7 +1,13 @@
 // The built-in liquids library: each liquid by id, with a function of temperature (and mass fraction).
 import { quantity, type Method, type Quantity, type Warning } from '../quantity'
 import { UNIT, type Kelvin } from '../units'
-import { CHENG_DENSITY, CHENG_VISCOSITY, chengRange, glycerolWaterDensity, glycerolWaterViscosity } from './glycerolWater'
+import {
+  CHENG_DENSITY,
+  CHENG_VISCOSITY,
+  chengRange,
+  glycerolWaterDensity,
+  glycerolWaterViscosity,
+} from './glycerolWater'
 import { OIL_TEMPERATURE_WINDOW, OILS, type TabulatedLiquid } from './oils'
 import {
   IAPWS_SURFACE_TENSION,
@@ -34,10 +40,17 @@ export interface LibraryLiquid {
   properties(temperature: Kelvin, massFraction?: number): { liquid: LiquidProperties; warnings: Warning[] }
 }
 
-function rangeWarning(id: string, temperature: number, range: { min: number; max: number }, clamped = false): Warning[] {
+function rangeWarning(
+  id: string,
+  temperature: number,
+  range: { min: number; max: number },
+  clamped = false,
+): Warning[] {
   if (temperature >= range.min && temperature <= range.max) return []
   const c = (k: number) => (k - 273.15).toFixed(1)
-  const edge = clamped ? `; evaluated at ${c(Math.min(Math.max(temperature, range.min), range.max))} °C, the nearest edge, rather than extrapolated` : ''
+  const edge = clamped
+    ? `; evaluated at ${c(Math.min(Math.max(temperature, range.min), range.max))} °C, the nearest edge, rather than extrapolated`
+    : ''
   return [
     {
       code: 'liquid-temperature-out-of-range',
@@ -50,7 +63,8 @@ function rangeWarning(id: string, temperature: number, range: { min: number; max
  * Correlations are evaluated inside their range only: outside it they extrapolate to nonsense (IAPWS water
  * viscosity at −60 °C rounds to zero), so the nearest edge stands in, marked invalid with a warning.
  */
-const clampTo = (temperature: Kelvin, range: { min: number; max: number }) => Math.min(Math.max(temperature, range.min), range.max) as Kelvin
+const clampTo = (temperature: Kelvin, range: { min: number; max: number }) =>
+  Math.min(Math.max(temperature, range.min), range.max) as Kelvin
 
 const water: LibraryLiquid = {
   id: 'water',
@@ -97,7 +111,10 @@ const glycerolWater: LibraryLiquid = {
 }
 
 function tabulated(oil: TabulatedLiquid): LibraryLiquid {
-  const range = { min: oil.referenceTemperature - OIL_TEMPERATURE_WINDOW, max: oil.referenceTemperature + OIL_TEMPERATURE_WINDOW }
+  const range = {
+    min: oil.referenceTemperature - OIL_TEMPERATURE_WINDOW,
+    max: oil.referenceTemperature + OIL_TEMPERATURE_WINDOW,
+  }
   const method: Method = { id: `library-${oil.id}`, source: oil.source }
   return {
     id: oil.id,
@@ -124,5 +141,5 @@ function tabulated(oil: TabulatedLiquid): LibraryLiquid {
 export const LIQUIDS: readonly LibraryLiquid[] = [water, glycerolWater, ...OILS.map(tabulated)]
 
 export function findLiquid(id: string, liquids: readonly LibraryLiquid[] = LIQUIDS): LibraryLiquid | undefined {
-  return liquids.find((liquid) => liquid.id === id)
+  return liquids.find(liquid => liquid.id === id)
 }

@@ -35,7 +35,12 @@ export const KELL_DENSITY: Method = {
 export function waterDensity(temperature: Kelvin): KilogramsPerCubicMetre {
   const t = temperature - 273.15
   const numerator =
-    999.83952 + 16.945176 * t - 7.9870401e-3 * t ** 2 - 46.170461e-6 * t ** 3 + 105.56302e-9 * t ** 4 - 280.54253e-12 * t ** 5
+    999.83952 +
+    16.945176 * t -
+    7.9870401e-3 * t ** 2 -
+    46.170461e-6 * t ** 3 +
+    105.56302e-9 * t ** 4 -
+    280.54253e-12 * t ** 5
   return (numerator / (1 + 16.87985e-3 * t)) as KilogramsPerCubicMetre
 }
 

@@ -7,7 +7,8 @@ export function denseSolve(matrix: CsrMatrix, rhs: Float64Array): Float64Array {
   const a = new Float64Array(n * n)
   for (let i = 0; i < n; i++) {
     a[i * n + i] = matrix.diagonal[i]!
-    for (let e = matrix.rowStart[i]!; e < matrix.rowStart[i + 1]!; e++) a[i * n + matrix.column[e]!]! += matrix.value[e]!
+    for (let e = matrix.rowStart[i]!; e < matrix.rowStart[i + 1]!; e++)
+      a[i * n + matrix.column[e]!]! += matrix.value[e]!
   }
   const b = Float64Array.from(rhs)
   for (let k = 0; k < n; k++) {

@@ -13,7 +13,10 @@ export interface EnvelopeFactor {
 }
 
 /** Envelope width per row after reordering, and the factor's cost Σ width². */
-export function envelopeShape(matrix: CsrMatrix, order: Int32Array): { first: Int32Array; entries: number; cost: number } {
+export function envelopeShape(
+  matrix: CsrMatrix,
+  order: Int32Array,
+): { first: Int32Array; entries: number; cost: number } {
   const size = matrix.size
   const position = new Int32Array(size)
   for (let k = 0; k < size; k++) position[order[k]!] = k
@@ -23,7 +26,8 @@ export function envelopeShape(matrix: CsrMatrix, order: Int32Array): { first: In
   for (let k = 0; k < size; k++) {
     const old = order[k]!
     let low = k
-    for (let e = matrix.rowStart[old]!; e < matrix.rowStart[old + 1]!; e++) low = Math.min(low, position[matrix.column[e]!]!)
+    for (let e = matrix.rowStart[old]!; e < matrix.rowStart[old + 1]!; e++)
+      low = Math.min(low, position[matrix.column[e]!]!)
     first[k] = low
     entries += k - low + 1
     cost += (k - low + 1) ** 2
@@ -32,7 +36,12 @@ export function envelopeShape(matrix: CsrMatrix, order: Int32Array): { first: In
 }
 
 /** Factorises; returns null if a pivot is not positive (cannot happen for a grounded network, kept as a guard). */
-export function envelopeCholesky(matrix: CsrMatrix, order: Int32Array, first: Int32Array, entries: number): EnvelopeFactor | null {
+export function envelopeCholesky(
+  matrix: CsrMatrix,
+  order: Int32Array,
+  first: Int32Array,
+  entries: number,
+): EnvelopeFactor | null {
   const size = matrix.size
   const offset = new Int32Array(size + 1)
   for (let k = 0; k < size; k++) offset[k + 1] = offset[k]! + (k - first[k]! + 1)

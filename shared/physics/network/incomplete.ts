@@ -19,7 +19,10 @@ export interface IncompleteFactor {
 }
 
 /** L's pattern = A's strictly lower pattern in the new order; parallel channels' duplicate entries merged. */
-function lowerPattern(matrix: CsrMatrix, order: Int32Array): { colStart: Int32Array; row: Int32Array; value: Float64Array } {
+function lowerPattern(
+  matrix: CsrMatrix,
+  order: Int32Array,
+): { colStart: Int32Array; row: Int32Array; value: Float64Array } {
   const n = matrix.size
   const position = new Int32Array(n)
   for (let k = 0; k < n; k++) position[order[k]!] = k
@@ -69,7 +72,12 @@ function lowerPattern(matrix: CsrMatrix, order: Int32Array): { colStart: Int32Ar
  * Factorises with relaxation ω (0 = IC(0), 1 = MIC(0)). Returns null if a pivot falls to ≤ `minPivot` × its
  * original diagonal, so the caller can retry with a smaller ω.
  */
-export function incompleteCholesky(matrix: CsrMatrix, order: Int32Array, omega: number, minPivot = 1e-8): IncompleteFactor | null {
+export function incompleteCholesky(
+  matrix: CsrMatrix,
+  order: Int32Array,
+  omega: number,
+  minPivot = 1e-8,
+): IncompleteFactor | null {
   const n = matrix.size
   const { colStart, row, value } = lowerPattern(matrix, order)
   const pivot = new Float64Array(n)

@@ -27,10 +27,18 @@ function nodeIndex(problem: NetworkProblem, from: Int32Array, to: Int32Array): M
   for (let k = 0; k < channels.length; k++) {
     const channel = channels[k]!
     if (!(channel.resistance > 0) || !Number.isFinite(channel.resistance)) {
-      throw new NetworkError('bad-resistance', `Channel "${channel.id}" has resistance ${channel.resistance}; it must be finite and > 0 — check its width, depth and length`, { channelIndex: k })
+      throw new NetworkError(
+        'bad-resistance',
+        `Channel "${channel.id}" has resistance ${channel.resistance}; it must be finite and > 0 — check its width, depth and length`,
+        { channelIndex: k },
+      )
     }
     if (channel.from === channel.to) {
-      throw new NetworkError('self-loop', `Channel "${channel.id}" starts and ends at node "${channel.from}"; connect it to two different nodes`, { channelIndex: k })
+      throw new NetworkError(
+        'self-loop',
+        `Channel "${channel.id}" starts and ends at node "${channel.from}"; connect it to two different nodes`,
+        { channelIndex: k },
+      )
     }
     let a = index.get(channel.from)
     if (a === undefined) index.set(channel.from, (a = index.size))
@@ -54,16 +62,28 @@ export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
   problem.sources.forEach((source, k) => {
     const i = index.get(source.node)
     if (i === undefined) {
-      throw new NetworkError('unknown-node', `Source ${k} refers to node "${source.node}", which no channel touches; use a node id from the channels`, { sourceIndex: k, nodes: [source.node] })
+      throw new NetworkError(
+        'unknown-node',
+        `Source ${k} refers to node "${source.node}", which no channel touches; use a node id from the channels`,
+        { sourceIndex: k, nodes: [source.node] },
+      )
     }
     if ('pressure' in source) {
       if (!Number.isNaN(fixedPressure[i]!) || hasFlow[i]) {
-        throw new NetworkError('over-constrained', `Node "${source.node}" already has a source; give each node at most one pressure source and no flow source next to it`, { sourceIndex: k, nodes: [source.node] })
+        throw new NetworkError(
+          'over-constrained',
+          `Node "${source.node}" already has a source; give each node at most one pressure source and no flow source next to it`,
+          { sourceIndex: k, nodes: [source.node] },
+        )
       }
       fixedPressure[i] = source.pressure
     } else {
       if (!Number.isNaN(fixedPressure[i]!)) {
-        throw new NetworkError('over-constrained', `Node "${source.node}" has a fixed pressure and a flow source; remove one of them`, { sourceIndex: k, nodes: [source.node] })
+        throw new NetworkError(
+          'over-constrained',
+          `Node "${source.node}" has a fixed pressure and a flow source; remove one of them`,
+          { sourceIndex: k, nodes: [source.node] },
+        )
       }
       hasFlow[i] = 1
       injected[i] = injected[i]! + source.flow
@@ -74,7 +94,12 @@ export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
   problem.channels.forEach((channel, k) => {
     conductance[k] = 1 / channel.resistance
     if (channel.offset !== undefined) {
-      if (!Number.isFinite(channel.offset)) throw new NetworkError('bad-resistance', `Channel "${channel.id}" has pressure offset ${channel.offset}; it must be finite`, { channelIndex: k })
+      if (!Number.isFinite(channel.offset))
+        throw new NetworkError(
+          'bad-resistance',
+          `Channel "${channel.id}" has pressure offset ${channel.offset}; it must be finite`,
+          { channelIndex: k },
+        )
       offset[k] = channel.offset
     }
   })
@@ -83,7 +108,18 @@ export function indexNetwork(problem: NetworkProblem): IndexedNetwork {
   const unknownIndex = new Int32Array(n)
   let unknownCount = 0
   for (let i = 0; i < n; i++) unknownIndex[i] = Number.isNaN(fixedPressure[i]!) ? unknownCount++ : -1
-  return { nodeIds, nodeIndex: index, from, to, conductance, offset, fixedPressure, injected, unknownIndex, unknownCount }
+  return {
+    nodeIds,
+    nodeIndex: index,
+    from,
+    to,
+    conductance,
+    offset,
+    fixedPressure,
+    injected,
+    unknownIndex,
+    unknownCount,
+  }
 }
 
 /** Every node must reach a fixed-pressure node through channels, or its pressure is undetermined. */
@@ -115,7 +151,10 @@ function assertGrounded(nodeIds: string[], from: Int32Array, to: Int32Array, fix
   }
   if (tail === n) return
   const floating = nodeIds.filter((_, i) => !seen[i])
-  const shown = floating.slice(0, 10).map((id) => `"${id}"`).join(', ')
+  const shown = floating
+    .slice(0, 10)
+    .map(id => `"${id}"`)
+    .join(', ')
   const more = floating.length > 10 ? ` and ${floating.length - 10} more` : ''
   throw new NetworkError(
     'floating',

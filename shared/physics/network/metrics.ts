@@ -16,7 +16,12 @@ export function flowUniformity(flows: readonly number[]): Uniformity {
   const variance = values.reduce((a, b) => a + (b - mean) ** 2, 0) / count
   const min = Math.min(...values)
   const max = Math.max(...values)
-  return { cv: mean > 0 ? Math.sqrt(variance) / mean : 0, maxOverMin: min > 0 ? max / min : Number.POSITIVE_INFINITY, mean, count }
+  return {
+    cv: mean > 0 ? Math.sqrt(variance) / mean : 0,
+    maxOverMin: min > 0 ? max / min : Number.POSITIVE_INFINITY,
+    mean,
+    count,
+  }
 }
 
 export interface Margin {
@@ -46,8 +51,13 @@ export function pumpMargin(limit: number, inletPressures: readonly number[]): Ma
 export const VACUUM_GAUGE = -101_325
 
 /** A source that would need more suction than a vacuum gives cannot be run; say so. */
-export function suctionWarnings(inlets: readonly { pressure: { value: number }; node: string; port?: string }[]): { code: string; message: string }[] {
+export function suctionWarnings(
+  inlets: readonly { pressure: { value: number }; node: string; port?: string }[],
+): { code: string; message: string }[] {
   return inlets
-    .filter((inlet) => inlet.pressure.value < VACUUM_GAUGE)
-    .map((inlet) => ({ code: 'suction-beyond-vacuum', message: `Inlet "${inlet.port ?? inlet.node}" would need ${(inlet.pressure.value / 100).toPrecision(4)} mbar gauge, more suction than a perfect vacuum (−1013 mbar): this operating point cannot be run — lower its flow` }))
+    .filter(inlet => inlet.pressure.value < VACUUM_GAUGE)
+    .map(inlet => ({
+      code: 'suction-beyond-vacuum',
+      message: `Inlet "${inlet.port ?? inlet.node}" would need ${(inlet.pressure.value / 100).toPrecision(4)} mbar gauge, more suction than a perfect vacuum (−1013 mbar): this operating point cannot be run — lower its flow`,
+    }))
 }

@@ -12,7 +12,7 @@ export interface PcgResult {
 }
 
 export function jacobi(matrix: CsrMatrix): Preconditioner {
-  const inverse = matrix.diagonal.map((d) => 1 / d)
+  const inverse = matrix.diagonal.map(d => 1 / d)
   return (r, z) => {
     for (let i = 0; i < r.length; i++) z[i] = r[i]! * inverse[i]!
   }
@@ -25,7 +25,13 @@ const dot = (a: Float64Array, b: Float64Array): number => {
 }
 
 /** Solves A x = b to ‖b − Ax‖ ≤ tolerance·‖b‖. */
-export function pcg(matrix: CsrMatrix, b: Float64Array, precondition: Preconditioner, tolerance = 1e-13, maxIterations = 10 * b.length + 100): PcgResult {
+export function pcg(
+  matrix: CsrMatrix,
+  b: Float64Array,
+  precondition: Preconditioner,
+  tolerance = 1e-13,
+  maxIterations = 10 * b.length + 100,
+): PcgResult {
   const n = b.length
   const x = new Float64Array(n)
   const r = Float64Array.from(b)

@@ -20,7 +20,10 @@ const MIC_RELAXATION = 0.99
 /** Factors a NetworkResolver keeps, newest first, for solves at conductances it has seen. */
 const FACTORS_KEPT = 4
 
-interface Ordering { order: Int32Array; shape: ReturnType<typeof envelopeShape> }
+interface Ordering {
+  order: Int32Array
+  shape: ReturnType<typeof envelopeShape>
+}
 
 function ordering(system: ReducedSystem): Ordering {
   const order = reverseCuthillMcKee(system.matrix)
@@ -42,7 +45,10 @@ function preconditioner(system: ReducedSystem, known?: Ordering): { apply: Preco
     const factor = incompleteCholesky(matrix, order, omega)
     if (factor) {
       const work = new Float64Array(matrix.size)
-      return { apply: (r, z) => incompleteSolve(factor, r, z, work), name: omega === 0 ? 'pcg-incomplete-cholesky' : 'pcg-modified-incomplete-cholesky' }
+      return {
+        apply: (r, z) => incompleteSolve(factor, r, z, work),
+        name: omega === 0 ? 'pcg-incomplete-cholesky' : 'pcg-modified-incomplete-cholesky',
+      }
     }
   }
   return { apply: jacobi(matrix), name: 'pcg-jacobi' }
@@ -63,13 +69,22 @@ function residualOf(system: ReducedSystem, x: Float64Array): number {
   return b === 0 ? 0 : Math.sqrt(r / b)
 }
 
-function finish(problem: NetworkProblem, net: IndexedNetwork, x: Float64Array, solver: SolverName, iterations: number, residual: number, sourceIndex?: readonly number[]): NetworkSolution {
+function finish(
+  problem: NetworkProblem,
+  net: IndexedNetwork,
+  x: Float64Array,
+  solver: SolverName,
+  iterations: number,
+  residual: number,
+  sourceIndex?: readonly number[],
+): NetworkSolution {
   const n = net.nodeIds.length
   const pressure = new Float64Array(n)
   const reference = pressureReference(net)
   // Flows from pressures relative to the reference, so a large common offset costs no digits.
   const relative = new Float64Array(n)
-  for (let i = 0; i < n; i++) relative[i] = net.unknownIndex[i]! >= 0 ? x[net.unknownIndex[i]!]! : net.fixedPressure[i]! - reference
+  for (let i = 0; i < n; i++)
+    relative[i] = net.unknownIndex[i]! >= 0 ? x[net.unknownIndex[i]!]! : net.fixedPressure[i]! - reference
   for (let i = 0; i < n; i++) pressure[i] = net.unknownIndex[i]! >= 0 ? relative[i]! + reference : net.fixedPressure[i]!
   const flow = new Float64Array(net.from.length)
   const outflow = new Float64Array(n)
@@ -94,11 +109,18 @@ export function solveNetwork(problem: NetworkProblem): NetworkSolution {
 }
 
 /** The matrix part of a solve (ordering, factor, PCG) on an assembled system; the benchmark times it against SciPy. */
-export function solveSystem(system: ReducedSystem, known?: Ordering, ready?: ReturnType<typeof preconditioner>): { x: Float64Array; solver: SolverName; iterations: number; residual: number } {
+export function solveSystem(
+  system: ReducedSystem,
+  known?: Ordering,
+  ready?: ReturnType<typeof preconditioner>,
+): { x: Float64Array; solver: SolverName; iterations: number; residual: number } {
   const { apply, name } = ready ?? preconditioner(system, known)
   const result = pcg(system.matrix, system.rhs, apply)
   if (!result.converged) {
-    throw new NetworkError('not-converged', `The network solve stopped at relative residual ${result.residual.toExponential(2)} after ${result.iterations} iterations; check for channels whose resistances differ by more than ~10¹² and merge or drop them`)
+    throw new NetworkError(
+      'not-converged',
+      `The network solve stopped at relative residual ${result.residual.toExponential(2)} after ${result.iterations} iterations; check for channels whose resistances differ by more than ~10¹² and merge or drop them`,
+    )
   }
   return { x: result.x, solver: name, iterations: result.iterations, residual: result.residual }
 }
@@ -124,14 +146,23 @@ export class NetworkResolver {
 
   constructor(private readonly problem: NetworkProblem) {
     this.net = indexNetwork(problem)
-    this.sourceIndex = problem.sources.map((source) => this.net.nodeIndex.get(source.node)!)
+    this.sourceIndex = problem.sources.map(source => this.net.nodeIndex.get(source.node)!)
   }
 
-  solve(resistance: ArrayLike<number>, offset?: ArrayLike<number>, sources: NetworkProblem['sources'] = this.problem.sources): NetworkSolution {
+  solve(
+    resistance: ArrayLike<number>,
+    offset?: ArrayLike<number>,
+    sources: NetworkProblem['sources'] = this.problem.sources,
+  ): NetworkSolution {
     const net = this.net
     for (let k = 0; k < net.conductance.length; k++) {
       const r = resistance[k]!
-      if (!(r > 0) || !Number.isFinite(r)) throw new NetworkError('bad-resistance', `Channel "${this.problem.channels[k]!.id}" has resistance ${r}; it must be finite and > 0 — check its width, depth and length`, { channelIndex: k })
+      if (!(r > 0) || !Number.isFinite(r))
+        throw new NetworkError(
+          'bad-resistance',
+          `Channel "${this.problem.channels[k]!.id}" has resistance ${r}; it must be finite and > 0 — check its width, depth and length`,
+          { channelIndex: k },
+        )
       net.conductance[k] = 1 / r
     }
     if (offset) for (let k = 0; k < net.offset.length; k++) net.offset[k] = offset[k]!
@@ -145,7 +176,7 @@ export class NetworkResolver {
     this.known ??= ordering(system)
     // The matrix depends on the conductances only (sources and offsets move the right-hand side): at the same
     // conductances as a recent solve (the operating window alternates two sets per inlet), its factor is reused.
-    let factored = this.factored.find((f) => sameValues(f.conductance, net.conductance))
+    let factored = this.factored.find(f => sameValues(f.conductance, net.conductance))
     if (!factored) {
       factored = { conductance: Float64Array.from(net.conductance), preconditioner: preconditioner(system, this.known) }
       this.factored.unshift(factored)

@@ -20,7 +20,12 @@ export interface NetworkProblem {
   sources: readonly NetworkSource[]
 }
 
-export type SolverName = 'pcg-envelope-cholesky' | 'pcg-modified-incomplete-cholesky' | 'pcg-incomplete-cholesky' | 'pcg-jacobi' | 'dense-gauss'
+export type SolverName =
+  | 'pcg-envelope-cholesky'
+  | 'pcg-modified-incomplete-cholesky'
+  | 'pcg-incomplete-cholesky'
+  | 'pcg-jacobi'
+  | 'dense-gauss'
 
 export interface NetworkSolution {
   nodeIds: string[]

@@ -7,7 +7,19 @@ const cell = (v: number | string | boolean | undefined): string => {
   return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s
 }
 
-const HEADER = ['continuous_flow_uL_min', 'dispersed_flow_uL_min', 'continuous_pressure_mbar', 'dispersed_pressure_mbar', 'droplet_diameter_um', 'frequency_Hz', 'regime', 'valid', 'within_limits', 'hits_target', 'size_method']
+const HEADER = [
+  'continuous_flow_uL_min',
+  'dispersed_flow_uL_min',
+  'continuous_pressure_mbar',
+  'dispersed_pressure_mbar',
+  'droplet_diameter_um',
+  'frequency_Hz',
+  'regime',
+  'valid',
+  'within_limits',
+  'hits_target',
+  'size_method',
+]
 
 export function pointRow(p: WindowPoint): string {
   return [
@@ -22,7 +34,9 @@ export function pointRow(p: WindowPoint): string {
     p.withinLimits,
     p.hit,
     p.dropletDiameter?.method,
-  ].map(cell).join(',')
+  ]
+    .map(cell)
+    .join(',')
 }
 
 /** The window as CSV (RFC 4180 quoting), header first. */

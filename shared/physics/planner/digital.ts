@@ -12,7 +12,8 @@ export const DUBE_ESTIMATE: Method = {
 }
 export const DYNAMIC_RANGE: Method = {
   id: 'digital-dynamic-range',
-  source: 'from one positive, λ = −ln(1 − 1/n), to one negative, λ = ln n, of n partitions (Dube et al. 2008, PLoS ONE 3, e2876; Majumdar, Wessel & Marks 2015, PLoS ONE 10, e0118833)',
+  source:
+    'from one positive, λ = −ln(1 − 1/n), to one negative, λ = ln n, of n partitions (Dube et al. 2008, PLoS ONE 3, e2876; Majumdar, Wessel & Marks 2015, PLoS ONE 10, e0118833)',
 }
 export const PRECISION: Method = {
   id: 'digital-relative-precision',
@@ -23,19 +24,30 @@ export const PRECISION: Method = {
 
 /** Two-sided standard normal quantile (Acklam's rational approximation, relative error < 1.15e-9; from memory). */
 export function normalQuantile(p: number): number {
-  const a = [-39.69683028665376, 220.9460984245205, -275.9285104469687, 138.357751867269, -30.66479806614716, 2.506628277459239]
+  const a = [
+    -39.69683028665376, 220.9460984245205, -275.9285104469687, 138.357751867269, -30.66479806614716, 2.506628277459239,
+  ]
   const b = [-54.47609879822406, 161.5858368580409, -155.6989798598866, 66.80131188771972, -13.28068155288572]
-  const c = [-0.007784894002430293, -0.3223964580411365, -2.400758277161838, -2.549732539343734, 4.374664141464968, 2.938163982698783]
+  const c = [
+    -0.007784894002430293, -0.3223964580411365, -2.400758277161838, -2.549732539343734, 4.374664141464968,
+    2.938163982698783,
+  ]
   const d = [0.007784695709041462, 0.3224671290700398, 2.445134137142996, 3.754408661907416]
   const low = 0.02425
   if (p < low) {
     const q = Math.sqrt(-2 * Math.log(p))
-    return (((((c[0]! * q + c[1]!) * q + c[2]!) * q + c[3]!) * q + c[4]!) * q + c[5]!) / ((((d[0]! * q + d[1]!) * q + d[2]!) * q + d[3]!) * q + 1)
+    return (
+      (((((c[0]! * q + c[1]!) * q + c[2]!) * q + c[3]!) * q + c[4]!) * q + c[5]!) /
+      ((((d[0]! * q + d[1]!) * q + d[2]!) * q + d[3]!) * q + 1)
+    )
   }
   if (p > 1 - low) return -normalQuantile(1 - p)
   const q = p - 0.5
   const r = q * q
-  return ((((((a[0]! * r + a[1]!) * r + a[2]!) * r + a[3]!) * r + a[4]!) * r + a[5]!) * q) / (((((b[0]! * r + b[1]!) * r + b[2]!) * r + b[3]!) * r + b[4]!) * r + 1)
+  return (
+    ((((((a[0]! * r + a[1]!) * r + a[2]!) * r + a[3]!) * r + a[4]!) * r + a[5]!) * q) /
+    (((((b[0]! * r + b[1]!) * r + b[2]!) * r + b[3]!) * r + b[4]!) * r + 1)
+  )
 }
 
 export interface DubeEstimate {
@@ -58,7 +70,15 @@ export function dubeEstimate(k: number, n: number, confidence = 0.95): DubeEstim
   const lambda = lam(p)
   const lambdaLow = lam(p - half)
   const lambdaHigh = lam(p + half)
-  return { p, lambda, lambdaLow, lambdaHigh, molecules: n * lambda, moleculesLow: n * lambdaLow, moleculesHigh: n * lambdaHigh }
+  return {
+    p,
+    lambda,
+    lambdaLow,
+    lambdaHigh,
+    molecules: n * lambda,
+    moleculesLow: n * lambdaLow,
+    moleculesHigh: n * lambdaHigh,
+  }
 }
 
 /** Relative half-width of the interval at mean occupancy λ with n partitions. */
@@ -75,7 +95,14 @@ export interface DigitalAssay {
   /** Relative half-width of the interval against concentration, for the plot. */
   precision: { concentration: Quantity; lambda: number; relativeHalfWidth: Quantity }[]
   /** When positives are given: the estimate and its interval. */
-  estimate?: { positives: number; lambda: Quantity; concentration: Quantity; low: Quantity; high: Quantity; molecules: Quantity }
+  estimate?: {
+    positives: number
+    lambda: Quantity
+    concentration: Quantity
+    low: Quantity
+    high: Quantity
+    molecules: Quantity
+  }
 }
 
 /** The digital assay of `n` partitions of `volume` m³ (and k positives when given). */
@@ -87,11 +114,18 @@ export function digitalAssay(n: number, volume: number, k?: number, confidence =
   const steps = 40
   for (let s = 0; s <= steps; s++) {
     const lambda = Math.exp(Math.log(lambdaLowest) + ((Math.log(lambdaHighest) - Math.log(lambdaLowest)) * s) / steps)
-    precision.push({ concentration: quantity(lambda / volume, perM3, PRECISION), lambda, relativeHalfWidth: quantity(relativePrecision(lambda, n, confidence), UNIT.none, PRECISION) })
+    precision.push({
+      concentration: quantity(lambda / volume, perM3, PRECISION),
+      lambda,
+      relativeHalfWidth: quantity(relativePrecision(lambda, n, confidence), UNIT.none, PRECISION),
+    })
   }
   const answer: DigitalAssay = {
     partitions: n,
-    partitionVolume: quantity(volume, UNIT.volume, { id: 'planned-droplet-volume', source: 'the droplet volume of the recommended point (or the target when none)' }),
+    partitionVolume: quantity(volume, UNIT.volume, {
+      id: 'planned-droplet-volume',
+      source: 'the droplet volume of the recommended point (or the target when none)',
+    }),
     confidence,
     dynamicRange: {
       lowest: quantity(lambdaLowest / volume, perM3, DYNAMIC_RANGE),

@@ -17,21 +17,26 @@ const sixFigures = (v: number) => Number(v.toPrecision(6))
 
 /** The inlets of each phase at the operating point, and how that phase is driven (its first inlet's mode). */
 export function phaseInlets(doc: ChipDocument, op: OperatingPoint): Record<Phase, { ports: string[]; mode: AxisMode }> {
-  const phaseOf = new Map(doc.ports.map((p) => [p.id, p.feed?.phase]))
+  const phaseOf = new Map(doc.ports.map(p => [p.id, p.feed?.phase]))
   const of = (phase: Phase) => {
-    const settings = op.inlets.filter((s) => phaseOf.get(s.portId) === phase)
-    return { ports: settings.map((s) => s.portId), mode: (settings[0]?.mode ?? 'flow') as AxisMode }
+    const settings = op.inlets.filter(s => phaseOf.get(s.portId) === phase)
+    return { ports: settings.map(s => s.portId), mode: (settings[0]?.mode ?? 'flow') as AxisMode }
   }
   return { continuous: of('continuous'), dispersed: of('dispersed') }
 }
 
 /** The operating point with each phase's inlets set to `values` (SI: m³/s total per phase, or Pa each). */
-export function withInlets(op: OperatingPoint, inlets: ReturnType<typeof phaseInlets>, values: Record<Phase, number>): OperatingPoint {
+export function withInlets(
+  op: OperatingPoint,
+  inlets: ReturnType<typeof phaseInlets>,
+  values: Record<Phase, number>,
+): OperatingPoint {
   const phaseOfPort = new Map<string, Phase>()
-  for (const phase of ['continuous', 'dispersed'] as const) for (const port of inlets[phase].ports) phaseOfPort.set(port, phase)
+  for (const phase of ['continuous', 'dispersed'] as const)
+    for (const port of inlets[phase].ports) phaseOfPort.set(port, phase)
   return {
     ...op,
-    inlets: op.inlets.map((s) => {
+    inlets: op.inlets.map(s => {
       const phase = phaseOfPort.get(s.portId)
       if (!phase) return s
       const { mode, ports } = inlets[phase]
@@ -43,7 +48,11 @@ export function withInlets(op: OperatingPoint, inlets: ReturnType<typeof phaseIn
 }
 
 export function withOperatingPoint(doc: ChipDocument, op: OperatingPoint): ChipDocument {
-  return { ...doc, operatingPoints: doc.operatingPoints.map((o) => (o.id === op.id ? op : o)), activeOperatingPoint: op.id }
+  return {
+    ...doc,
+    operatingPoints: doc.operatingPoints.map(o => (o.id === op.id ? op : o)),
+    activeOperatingPoint: op.id,
+  }
 }
 
 export interface DocumentScanInput {
@@ -67,31 +76,65 @@ export function documentEvaluator(input: DocumentScanInput) {
   const inlets = phaseInlets(doc, op)
   for (const phase of ['continuous', 'dispersed'] as const) {
     if (!inlets[phase].ports.length) {
-      throw new ForecastInputError([{ path: 'document.operatingPoints', message: `Operating point "${op.id}" sets no ${phase} inlet: mark an inlet's feed as ${phase} and give it a setting` }])
+      throw new ForecastInputError([
+        {
+          path: 'document.operatingPoints',
+          message: `Operating point "${op.id}" sets no ${phase} inlet: mark an inlet's feed as ${phase} and give it a setting`,
+        },
+      ])
     }
   }
   const limit = Math.min(options.limits?.bondPressure ?? Infinity, options.limits?.pumpPressure ?? Infinity)
   const axis = (phase: Phase): WindowAxis => {
     const mode = inlets[phase].mode
-    const box = (mode === 'flow' ? input.box[phase] : input.box[`${phase}Pressure`]) ?? defaultBox(mode, Number.isFinite(limit) ? limit : undefined)
-    return { phase, mode, unit: mode === 'flow' ? UNIT.flow : UNIT.pressure, values: mode === 'flow' ? logSpace(box[0], box[1], n) : linSpace(box[0], box[1], n) }
+    const box =
+      (mode === 'flow' ? input.box[phase] : input.box[`${phase}Pressure`]) ??
+      defaultBox(mode, Number.isFinite(limit) ? limit : undefined)
+    return {
+      phase,
+      mode,
+      unit: mode === 'flow' ? UNIT.flow : UNIT.pressure,
+      values: mode === 'flow' ? logSpace(box[0], box[1], n) : linSpace(box[0], box[1], n),
+    }
   }
   const continuous = axis('continuous')
   const dispersed = axis('dispersed')
   const settingsAt = (xc: number, xd: number) => withInlets(op, inlets, { continuous: xc, dispersed: xd })
   const at = (xc: number, xd: number, i = 0, k = 0): ScanPoint => {
     const answer = forecastDocument(withOperatingPoint(doc, settingsAt(xc, xd)), op.id, options)
-    const junction = answer.junctions.find((j) => j.id === junctionId)
+    const junction = answer.junctions.find(j => j.id === junctionId)
     const margins = answer.network.margins
-    const withinLimits = !margins || Object.values(margins).every((m) => m === undefined || m.ok)
-    const inletPressure = Math.max(0, ...answer.network.inlets.map((s) => s.pressure.value))
-    const where: Pick<ScanPoint, 'i' | 'j' | 'xc' | 'xd' | 'qc' | 'qd' | 'pc' | 'pd'> = { i, j: k, xc, xd, qc: 0, qd: 0 }
+    const withinLimits = !margins || Object.values(margins).every(m => m === undefined || m.ok)
+    const inletPressure = Math.max(0, ...answer.network.inlets.map(s => s.pressure.value))
+    const where: Pick<ScanPoint, 'i' | 'j' | 'xc' | 'xd' | 'qc' | 'qd' | 'pc' | 'pd'> = {
+      i,
+      j: k,
+      xc,
+      xd,
+      qc: 0,
+      qd: 0,
+    }
     if (continuous.mode === 'pressure') where.pc = xc
     if (dispersed.mode === 'pressure') where.pd = xd
     const f = junction?.forecast
     if (!f) {
-      const flowOf = (phase: Phase) => answer.network.inlets.filter((s) => inlets[phase].ports.includes(s.port)).reduce((sum, s) => sum + s.flow.value, 0)
-      return { ...where, qc: flowOf('continuous'), qd: flowOf('dispersed'), diameter: null, frequency: null, regime: 'none', valid: false, withinLimits, inletPressure, hit: false, why: answer.warnings.find((w) => w.element === junction?.element)?.code ?? 'no-droplets' }
+      const flowOf = (phase: Phase) =>
+        answer.network.inlets
+          .filter(s => inlets[phase].ports.includes(s.port))
+          .reduce((sum, s) => sum + s.flow.value, 0)
+      return {
+        ...where,
+        qc: flowOf('continuous'),
+        qd: flowOf('dispersed'),
+        diameter: null,
+        frequency: null,
+        regime: 'none',
+        valid: false,
+        withinLimits,
+        inletPressure,
+        hit: false,
+        why: answer.warnings.find(w => w.element === junction?.element)?.code ?? 'no-droplets',
+      }
     }
     where.qc = f.inputs.flow.continuous.value
     where.qd = f.inputs.flow.dispersed.value
@@ -103,6 +146,7 @@ export function documentEvaluator(input: DocumentScanInput) {
 export function scanDocument(input: DocumentScanInput): Scan {
   const { continuous, dispersed, at } = documentEvaluator(input)
   const points: ScanPoint[] = []
-  for (let i = 0; i < input.n; i++) for (let k = 0; k < input.n; k++) points.push(at(continuous.values[i]!, dispersed.values[k]!, i, k))
+  for (let i = 0; i < input.n; i++)
+    for (let k = 0; k < input.n; k++) points.push(at(continuous.values[i]!, dispersed.values[k]!, i, k))
   return { continuous, dispersed, points, junctionId: input.junctionId }
 }

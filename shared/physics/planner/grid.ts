@@ -14,7 +14,13 @@ export function linSpace(lo: number, hi: number, n: number): number[] {
 }
 
 /** Where `f` crosses `level` between a and b, by bisection in log space (f continuous and monotone there). */
-export function bisectLog(f: (x: number) => number | null, a: number, b: number, level: number, steps = 40): number | null {
+export function bisectLog(
+  f: (x: number) => number | null,
+  a: number,
+  b: number,
+  level: number,
+  steps = 40,
+): number | null {
   let fa = f(a)
   const fb = f(b)
   if (fa === null || fb === null || (fa - level) * (fb - level) > 0) return null
@@ -25,7 +31,10 @@ export function bisectLog(f: (x: number) => number | null, a: number, b: number,
     const fm = f(Math.exp(mid))
     if (fm === null) return null
     if ((fm - level) * (fa - level) <= 0) hi = mid
-    else { lo = mid; fa = fm }
+    else {
+      lo = mid
+      fa = fm
+    }
   }
   return Math.exp((lo + hi) / 2)
 }

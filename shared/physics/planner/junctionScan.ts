@@ -8,7 +8,10 @@ import type { PlanTarget, Scan, ScanPoint } from './types'
 
 /** Is a forecast's size inside the target (and its rate at least the minimum)? */
 export function hitsTarget(diameter: number, frequency: number, target: PlanTarget): boolean {
-  return Math.abs(diameter - target.diameter) <= target.tolerance * target.diameter && (target.minFrequency === undefined || frequency >= target.minFrequency)
+  return (
+    Math.abs(diameter - target.diameter) <= target.tolerance * target.diameter &&
+    (target.minFrequency === undefined || frequency >= target.minFrequency)
+  )
 }
 
 /** The first warning that says why a size is not valid there (for the map's tooltip). */
@@ -16,13 +19,23 @@ export function whyInvalid(f: JunctionForecast): string | undefined {
   if (f.dropletDiameter.valid) return undefined
   // Inertia and jetting say most about a point, then the rest in the forecast's order.
   for (const w of f.warnings) if (w.code === 'inertia' || w.code === 'jetting') return w.code
-  return f.warnings.find((w) => w.code !== 'wetting-unchecked')?.code
+  return f.warnings.find(w => w.code !== 'wetting-unchecked')?.code
 }
 
-export function pointFromForecast(f: JunctionForecast, target: PlanTarget, at: Pick<ScanPoint, 'i' | 'j' | 'xc' | 'xd' | 'qc' | 'qd' | 'pc' | 'pd'>, withinLimits = true): ScanPoint {
+export function pointFromForecast(
+  f: JunctionForecast,
+  target: PlanTarget,
+  at: Pick<ScanPoint, 'i' | 'j' | 'xc' | 'xd' | 'qc' | 'qd' | 'pc' | 'pd'>,
+  withinLimits = true,
+): ScanPoint {
   const valid = f.dropletDiameter.valid && f.frequency.valid
   const point: ScanPoint = {
-    i: at.i, j: at.j, xc: at.xc, xd: at.xd, qc: at.qc, qd: at.qd,
+    i: at.i,
+    j: at.j,
+    xc: at.xc,
+    xd: at.xd,
+    qc: at.qc,
+    qd: at.qd,
     diameter: f.dropletDiameter,
     frequency: f.frequency,
     regime: f.regime.value,
@@ -43,7 +56,12 @@ export function forecastAt(j: ResolvedJunction, qc: number, qd: number, warnings
 }
 
 /** Scans an n × n grid of flows (log-spaced) over [qcLo, qcHi] × [qdLo, qdHi]. */
-export function scanJunction(j: ResolvedJunction, box: { continuous: [number, number]; dispersed: [number, number] }, n: number, target: PlanTarget): Scan {
+export function scanJunction(
+  j: ResolvedJunction,
+  box: { continuous: [number, number]; dispersed: [number, number] },
+  n: number,
+  target: PlanTarget,
+): Scan {
   const qcs = logSpace(box.continuous[0], box.continuous[1], n)
   const qds = logSpace(box.dispersed[0], box.dispersed[1], n)
   const points: ScanPoint[] = []

@@ -11,9 +11,13 @@ export const POISSON_LOADING: Method = {
 }
 export const POISSON_RATE: Method = {
   id: 'poisson-loading-rate',
-  source: 'cells per hour = λ f · 3600 s/h = c Qd · 3600 s/h, continuity of the loaded liquid (Collins et al. 2015, Lab Chip 15, 3439)',
+  source:
+    'cells per hour = λ f · 3600 s/h = c Qd · 3600 s/h, continuity of the loaded liquid (Collins et al. 2015, Lab Chip 15, 3439)',
 }
-export const POISSON_INVERSE: Method = { id: 'poisson-concentration-for-lambda', source: 'c = λ / V, the loading law solved for c (Collins et al. 2015, Lab Chip 15, 3439)' }
+export const POISSON_INVERSE: Method = {
+  id: 'poisson-concentration-for-lambda',
+  source: 'c = λ / V, the loading law solved for c (Collins et al. 2015, Lab Chip 15, 3439)',
+}
 
 /** Common practice, no source: λ ≈ 0.1 keeps doubly loaded drops below ~0.5 % at the price of ~90 % empty ones. */
 export const DEFAULT_TARGET_LAMBDA = 0.1
@@ -62,13 +66,23 @@ export interface Encapsulation {
 }
 
 /** Loading of drops of `volume` (m³) at `frequency` (Hz, optional) from `concentration` (per m³). */
-export function encapsulation(concentration: number, volume: number, frequency?: number, targetLambda = DEFAULT_TARGET_LAMBDA, valid = true): Encapsulation {
+export function encapsulation(
+  concentration: number,
+  volume: number,
+  frequency?: number,
+  targetLambda = DEFAULT_TARGET_LAMBDA,
+  valid = true,
+): Encapsulation {
   const lambda = concentration * volume
   const o = occupancy(lambda)
-  const q = (value: number, unit: string = UNIT.none, method: Method = POISSON_LOADING) => quantity(value, unit, method, valid)
+  const q = (value: number, unit: string = UNIT.none, method: Method = POISSON_LOADING) =>
+    quantity(value, unit, method, valid)
   const answer: Encapsulation = {
     concentration: quantity(concentration, 'm^-3', { id: 'input', source: 'given in the request' }),
-    dropletVolume: q(volume, UNIT.volume, { id: 'planned-droplet-volume', source: 'the droplet volume of the recommended point (or the target when none)' }),
+    dropletVolume: q(volume, UNIT.volume, {
+      id: 'planned-droplet-volume',
+      source: 'the droplet volume of the recommended point (or the target when none)',
+    }),
     lambda: q(lambda),
     empty: q(o.empty),
     single: q(o.single),

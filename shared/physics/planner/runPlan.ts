@@ -4,7 +4,8 @@ import { UNIT } from '../units'
 
 export const RUN_CONTINUITY: Method = {
   id: 'run-continuity',
-  source: 'continuity at steady generation: t = N / f, V_liquid = Q t, emulsion = (Qc + Qd) t (Garstecki et al. 2006, Lab Chip 6, 437: f = Qd / V)',
+  source:
+    'continuity at steady generation: t = N / f, V_liquid = Q t, emulsion = (Qc + Qd) t (Garstecki et al. 2006, Lab Chip 6, 437: f = Qd / V)',
 }
 
 export interface RunPlan {
@@ -18,7 +19,10 @@ export interface RunPlan {
 }
 
 /** A run of `droplets` drops or `minutes` minutes at flows qc, qd (m³/s) and rate f (Hz); valid follows the point's forecast. */
-export function runPlan(at: { qc: number; qd: number; frequency: number; valid: boolean }, run: { droplets?: number; minutes?: number }): RunPlan {
+export function runPlan(
+  at: { qc: number; qd: number; frequency: number; valid: boolean },
+  run: { droplets?: number; minutes?: number },
+): RunPlan {
   const seconds = run.minutes !== undefined ? run.minutes * 60 : run.droplets! / at.frequency
   const droplets = run.droplets ?? at.frequency * seconds
   const q = (v: number, unit: string) => quantity(v, unit, RUN_CONTINUITY, at.valid)

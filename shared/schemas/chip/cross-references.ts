@@ -19,19 +19,26 @@ export function checkCrossReferences(doc: ChipDocumentShape, ctx: Ctx): void {
     layerIds.add(l.id)
   })
   const hasLayer = (id: string, path: Path, what: string) => {
-    if (!layerIds.has(id)) issue(ctx, path, `Unknown layer "${id}" on ${what}: use one of ${[...layerIds].map((x) => `"${x}"`).join(', ') || '(no layers defined)'}`)
+    if (!layerIds.has(id))
+      issue(
+        ctx,
+        path,
+        `Unknown layer "${id}" on ${what}: use one of ${[...layerIds].map(x => `"${x}"`).join(', ') || '(no layers defined)'}`,
+      )
   }
 
   // Ports, channels, components and marks share one id space: channels refer to them by id.
   const elements = new Map<string, Port | Component | null>()
   const claim = (id: string, path: Path, what: string, el: Port | Component | null) => {
-    if (elements.has(id)) issue(ctx, path, `Duplicate id "${id}" on ${what}: every port, channel, component and mark needs its own id`)
+    if (elements.has(id))
+      issue(ctx, path, `Duplicate id "${id}" on ${what}: every port, channel, component and mark needs its own id`)
     else elements.set(id, el)
   }
   doc.ports.forEach((p, i) => {
     claim(p.id, ['ports', i, 'id'], `port "${p.id}"`, p)
     hasLayer(p.layerId, ['ports', i, 'layerId'], `port "${p.id}"`)
-    if (p.kind === 'outlet' && p.feed) issue(ctx, ['ports', i, 'feed'], `Outlet port "${p.id}" cannot have a feed: remove "feed" or make it an inlet`)
+    if (p.kind === 'outlet' && p.feed)
+      issue(ctx, ['ports', i, 'feed'], `Outlet port "${p.id}" cannot have a feed: remove "feed" or make it an inlet`)
   })
   doc.components.forEach((c, i) => {
     claim(c.id, ['components', i, 'id'], `${c.kind} "${c.id}"`, c)
@@ -54,13 +61,25 @@ export function checkCrossReferences(doc: ChipDocumentShape, ctx: Ctx): void {
     if (!ref) return
     const target = elements.get(ref.element)
     if (target === undefined) {
-      issue(ctx, [...path, 'element'], `Channel "${channelId}" refers to unknown element "${ref.element}": use the id of a port or component`)
+      issue(
+        ctx,
+        [...path, 'element'],
+        `Channel "${channelId}" refers to unknown element "${ref.element}": use the id of a port or component`,
+      )
     } else if (target === null) {
-      issue(ctx, [...path, 'element'], `Channel "${channelId}" refers to "${ref.element}", which has no terminals: attach it to a port or component`)
+      issue(
+        ctx,
+        [...path, 'element'],
+        `Channel "${channelId}" refers to "${ref.element}", which has no terminals: attach it to a port or component`,
+      )
     } else {
       const names = terminalNames(target)
       if (!names.includes(ref.terminal)) {
-        issue(ctx, [...path, 'terminal'], `Channel "${channelId}" refers to terminal "${ref.terminal}" on "${ref.element}", which has none by that name: use one of ${names.map((n) => `"${n}"`).join(', ')}`)
+        issue(
+          ctx,
+          [...path, 'terminal'],
+          `Channel "${channelId}" refers to terminal "${ref.terminal}" on "${ref.element}", which has none by that name: use one of ${names.map(n => `"${n}"`).join(', ')}`,
+        )
       }
     }
   }
@@ -71,19 +90,27 @@ export function checkCrossReferences(doc: ChipDocumentShape, ctx: Ctx): void {
 
   const opIds = new Set<string>()
   doc.operatingPoints.forEach((op, i) => {
-    if (opIds.has(op.id)) issue(ctx, ['operatingPoints', i, 'id'], `Duplicate operating point id "${op.id}": give each its own id`)
+    if (opIds.has(op.id))
+      issue(ctx, ['operatingPoints', i, 'id'], `Duplicate operating point id "${op.id}": give each its own id`)
     opIds.add(op.id)
     const seen = new Set<string>()
     op.inlets.forEach((s, j) => {
       const path = ['operatingPoints', i, 'inlets', j, 'portId']
       const p = elements.get(s.portId)
-      if (!p || !('punchDiameter' in p)) issue(ctx, path, `Operating point "${op.id}" sets unknown port "${s.portId}": use the id of an inlet port`)
-      else if (p.kind !== 'inlet') issue(ctx, path, `Operating point "${op.id}" drives outlet port "${s.portId}": only inlets can be driven`)
-      if (seen.has(s.portId)) issue(ctx, path, `Operating point "${op.id}" sets port "${s.portId}" twice: keep one setting`)
+      if (!p || !('punchDiameter' in p))
+        issue(ctx, path, `Operating point "${op.id}" sets unknown port "${s.portId}": use the id of an inlet port`)
+      else if (p.kind !== 'inlet')
+        issue(ctx, path, `Operating point "${op.id}" drives outlet port "${s.portId}": only inlets can be driven`)
+      if (seen.has(s.portId))
+        issue(ctx, path, `Operating point "${op.id}" sets port "${s.portId}" twice: keep one setting`)
       seen.add(s.portId)
     })
   })
   if (doc.activeOperatingPoint !== undefined && !opIds.has(doc.activeOperatingPoint)) {
-    issue(ctx, ['activeOperatingPoint'], `Active operating point "${doc.activeOperatingPoint}" does not exist: use one of ${[...opIds].map((x) => `"${x}"`).join(', ') || '(none defined)'}`)
+    issue(
+      ctx,
+      ['activeOperatingPoint'],
+      `Active operating point "${doc.activeOperatingPoint}" does not exist: use one of ${[...opIds].map(x => `"${x}"`).join(', ') || '(none defined)'}`,
+    )
   }
 }

@@ -17,8 +17,11 @@ export const LAYERS_REQUIRED = 'A chip needs at least one layer (one per channel
 
 /** The document's single-valued fields. */
 export const documentFields = z.object({
-  version: z.literal(CHIP_DOCUMENT_VERSION, { error: `Document version must be ${CHIP_DOCUMENT_VERSION} after upgrade` }),
-  name: safeText({ error: 'Design name must be a string' }, 'Design name').min(1, { error: 'Design name must not be empty' })
+  version: z.literal(CHIP_DOCUMENT_VERSION, {
+    error: `Document version must be ${CHIP_DOCUMENT_VERSION} after upgrade`,
+  }),
+  name: safeText({ error: 'Design name must be a string' }, 'Design name')
+    .min(1, { error: 'Design name must not be empty' })
     .max(L.nameChars, { error: `Design name must be at most ${L.nameChars} characters` }),
   units: z.literal('um', { error: 'Document units must be "um" (all lengths in micrometres)' }),
   outline: outline.optional(),
@@ -26,7 +29,14 @@ export const documentFields = z.object({
 })
 
 /** The schema of one element of each list of the document. */
-export const ELEMENT_SCHEMAS = { layers: layer, ports: port, channels: channel, components: component, marks: mark, operatingPoints: operatingPoint } as const
+export const ELEMENT_SCHEMAS = {
+  layers: layer,
+  ports: port,
+  channels: channel,
+  components: component,
+  marks: mark,
+  operatingPoints: operatingPoint,
+} as const
 
 /** The document's fields, before the cross-reference checks. */
 export const chipDocumentShape = z.object({

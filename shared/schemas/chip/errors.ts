@@ -10,7 +10,12 @@ export interface ChipDocumentError {
 }
 
 const COLLECTION_NOUN: Record<string, string> = {
-  layers: 'layer', ports: 'port', channels: 'channel', components: 'component', marks: 'mark', operatingPoints: 'operating point',
+  layers: 'layer',
+  ports: 'port',
+  channels: 'channel',
+  components: 'component',
+  marks: 'mark',
+  operatingPoints: 'operating point',
 }
 
 function at(input: unknown, path: readonly PropertyKey[]): unknown {
@@ -50,7 +55,7 @@ function shown(v: unknown): string {
  * element (params.final) and are passed through.
  */
 export function formatIssues(issues: readonly z.core.$ZodIssue[], input: unknown): ChipDocumentError[] {
-  return issues.map((issue) => {
+  return issues.map(issue => {
     const path = issue.path
     const element = elementOf(input, path)
     const dotted = path.map(String).join('.')

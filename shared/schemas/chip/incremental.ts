@@ -27,8 +27,26 @@ export function parseEditedDocument(input: ChipDocument): ParseChipDocumentResul
   const lists: Record<string, unknown[]> = {}
   for (const list of LISTS) {
     const items = (input as Record<string, unknown>)[list] ?? []
-    if (!Array.isArray(items)) { issues.push({ code: 'invalid_type', expected: 'array', path: [list], message: `Expected a list for "${list}"`, input: items } as z.core.$ZodIssue); continue }
-    if (list === 'layers' && items.length < 1) issues.push({ code: 'too_small', origin: 'array', minimum: 1, inclusive: true, path: [list], message: LAYERS_REQUIRED, input: items } as z.core.$ZodIssue)
+    if (!Array.isArray(items)) {
+      issues.push({
+        code: 'invalid_type',
+        expected: 'array',
+        path: [list],
+        message: `Expected a list for "${list}"`,
+        input: items,
+      } as z.core.$ZodIssue)
+      continue
+    }
+    if (list === 'layers' && items.length < 1)
+      issues.push({
+        code: 'too_small',
+        origin: 'array',
+        minimum: 1,
+        inclusive: true,
+        path: [list],
+        message: LAYERS_REQUIRED,
+        input: items,
+      } as z.core.$ZodIssue)
     lists[list] = items.map((item, i) => {
       if (item && typeof item === 'object' && parsed.has(item)) return item
       const r = ELEMENT_SCHEMAS[list].safeParse(item)
@@ -45,7 +63,11 @@ export function parseEditedDocument(input: ChipDocument): ParseChipDocumentResul
     const value = key in lists ? lists[key] : (fields.data as Record<string, unknown>)[key]
     if (value !== undefined || key in (fields.data as object)) doc[key] = value
   }
-  const ctx = { value: doc, issues: [] as z.core.$ZodIssue[], addIssue: (i: unknown) => issues.push(i as z.core.$ZodIssue) }
+  const ctx = {
+    value: doc,
+    issues: [] as z.core.$ZodIssue[],
+    addIssue: (i: unknown) => issues.push(i as z.core.$ZodIssue),
+  }
   checkDocumentTotals(doc as unknown as ChipDocument, ctx as unknown as z.core.$RefinementCtx)
   checkCrossReferences(doc as unknown as ChipDocument, ctx as unknown as z.core.$RefinementCtx)
   if (issues.length) return parseChipDocument(input)

@@ -11,7 +11,16 @@ export { componentTerminals, portTerminals, terminalNames } from './terminals'
 export type { Terminal, TerminalRole } from './terminals'
 export { toWorld, rotateDirection } from './transform'
 export { component, componentLayerIds, serpentineRunLength, stepArrayLength } from './components'
-export type { Component, ComponentKind, TJunction, FlowFocusing, StepNozzle, StepArray, YJunction, Serpentine } from './components'
+export type {
+  Component,
+  ComponentKind,
+  TJunction,
+  FlowFocusing,
+  StepNozzle,
+  StepArray,
+  YJunction,
+  Serpentine,
+} from './components'
 export { layer } from './layers'
 export type { Layer } from './layers'
 export { port, phase } from './ports'

@@ -7,7 +7,8 @@ import { positiveUm } from './units'
 /** One layer per channel depth: every feature drawn on it is etched or moulded to `depth` µm. */
 export const layer = z.object({
   id: elementId,
-  name: safeText({ error: 'Layer name must be a string' }, 'Layer name').min(1, { error: 'Layer name must not be empty' })
+  name: safeText({ error: 'Layer name must be a string' }, 'Layer name')
+    .min(1, { error: 'Layer name must not be empty' })
     .max(L.nameChars, { error: `Layer name must be at most ${L.nameChars} characters` }),
   depth: positiveUm('Layer depth', L.depthUm),
 })

@@ -12,17 +12,24 @@ const cross = z.object({
   position: point,
   size: positiveUm('Alignment mark size'),
   lineWidth: positiveUm('Alignment mark line width'),
-  layerIds: z.array(elementId).max(L.layersPerMark, { error: `A mark can be on at most ${L.layersPerMark} layers` }).default([]),
+  layerIds: z
+    .array(elementId)
+    .max(L.layersPerMark, { error: `A mark can be on at most ${L.layersPerMark} layers` })
+    .default([]),
 })
 
 const text = z.object({
   id: elementId,
   kind: z.literal('text'),
   position: point,
-  text: safeText({ error: 'Text mark must be a string' }, 'Text mark').min(1, { error: 'Text mark must not be empty' })
+  text: safeText({ error: 'Text mark must be a string' }, 'Text mark')
+    .min(1, { error: 'Text mark must not be empty' })
     .max(L.textChars, { error: `Text mark must be at most ${L.textChars} characters` }),
   height: positiveUm('Text height', L.textHeightUm),
-  layerIds: z.array(elementId).max(L.layersPerMark, { error: `A mark can be on at most ${L.layersPerMark} layers` }).default([]),
+  layerIds: z
+    .array(elementId)
+    .max(L.layersPerMark, { error: `A mark can be on at most ${L.layersPerMark} layers` })
+    .default([]),
 })
 
 export const mark = z.discriminatedUnion('kind', [cross, text])

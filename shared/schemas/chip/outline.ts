@@ -13,7 +13,9 @@ export const outline = z.discriminatedUnion('kind', [
   }),
   z.object({
     kind: z.literal('polygon'),
-    points: z.array(point).min(3, { error: 'Chip outline polygon needs at least 3 points' })
+    points: z
+      .array(point)
+      .min(3, { error: 'Chip outline polygon needs at least 3 points' })
       .max(L.pointsPerLine, { error: `Chip outline polygon must have at most ${shownLimit(L.pointsPerLine)} points` }),
   }),
 ])

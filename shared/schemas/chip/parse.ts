@@ -6,8 +6,7 @@ import { formatIssues } from './errors'
 import { upgradeChipDocument } from './upgrades'
 
 export type ParseChipDocumentResult =
-  | { ok: true; document: ChipDocument; upgradedFrom: number }
-  | { ok: false; errors: ChipDocumentError[] }
+  { ok: true; document: ChipDocument; upgradedFrom: number } | { ok: false; errors: ChipDocumentError[] }
 
 /** Upgrades any older document to the current version, then validates it. Never throws on bad input. */
 export function parseChipDocument(input: unknown): ParseChipDocumentResult {
@@ -21,7 +20,7 @@ export function parseChipDocument(input: unknown): ParseChipDocumentResult {
 /** Thrown by `requireChipDocument`; `errors` lists every problem. */
 export class ChipDocumentInvalid extends Error {
   constructor(readonly errors: ChipDocumentError[]) {
-    super(errors.map((e) => e.message).join('\n'))
+    super(errors.map(e => e.message).join('\n'))
     this.name = 'ChipDocumentInvalid'
   }
 }

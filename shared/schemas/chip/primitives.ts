@@ -18,6 +18,7 @@ export const elementId = safeText({ error: 'Id must be a string' }, 'Id')
 export const terminalRef = z.object({
   element: elementId,
   terminal: safeText({ error: 'Terminal name must be a string' }, 'Terminal name')
-    .min(1, { error: 'Terminal name must not be empty' }).max(64, { error: 'Terminal name must be at most 64 characters' }),
+    .min(1, { error: 'Terminal name must not be empty' })
+    .max(64, { error: 'Terminal name must be at most 64 characters' }),
 })
 export type TerminalRef = z.infer<typeof terminalRef>

@@ -32,34 +32,125 @@ function localTerminals(c: Component): Local[] {
   switch (c.kind) {
     case 't-junction':
       return [
-        { name: 'continuous', role: 'continuous', at: { x: -c.armLength, y: 0 }, dir: { x: -1, y: 0 }, width: c.mainWidth, layerId: c.layerId },
-        { name: 'dispersed', role: 'dispersed', at: { x: 0, y: c.armLength }, dir: { x: 0, y: 1 }, width: c.inletWidth, layerId: c.layerId },
-        { name: 'outlet', role: 'outlet', at: { x: c.armLength, y: 0 }, dir: { x: 1, y: 0 }, width: c.mainWidth, layerId: c.layerId },
+        {
+          name: 'continuous',
+          role: 'continuous',
+          at: { x: -c.armLength, y: 0 },
+          dir: { x: -1, y: 0 },
+          width: c.mainWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'dispersed',
+          role: 'dispersed',
+          at: { x: 0, y: c.armLength },
+          dir: { x: 0, y: 1 },
+          width: c.inletWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'outlet',
+          role: 'outlet',
+          at: { x: c.armLength, y: 0 },
+          dir: { x: 1, y: 0 },
+          width: c.mainWidth,
+          layerId: c.layerId,
+        },
       ]
     case 'flow-focusing': {
       const outletEnd = c.continuousWidth / 2 + c.orificeLength + c.armLength
       return [
-        { name: 'dispersed', role: 'dispersed', at: { x: -c.armLength, y: 0 }, dir: { x: -1, y: 0 }, width: c.dispersedWidth, layerId: c.layerId },
-        { name: 'continuous-a', role: 'continuous', at: { x: 0, y: c.armLength }, dir: { x: 0, y: 1 }, width: c.continuousWidth, layerId: c.layerId },
-        { name: 'continuous-b', role: 'continuous', at: { x: 0, y: -c.armLength }, dir: { x: 0, y: -1 }, width: c.continuousWidth, layerId: c.layerId },
-        { name: 'outlet', role: 'outlet', at: { x: outletEnd, y: 0 }, dir: { x: 1, y: 0 }, width: c.outletWidth, layerId: c.layerId },
+        {
+          name: 'dispersed',
+          role: 'dispersed',
+          at: { x: -c.armLength, y: 0 },
+          dir: { x: -1, y: 0 },
+          width: c.dispersedWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'continuous-a',
+          role: 'continuous',
+          at: { x: 0, y: c.armLength },
+          dir: { x: 0, y: 1 },
+          width: c.continuousWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'continuous-b',
+          role: 'continuous',
+          at: { x: 0, y: -c.armLength },
+          dir: { x: 0, y: -1 },
+          width: c.continuousWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'outlet',
+          role: 'outlet',
+          at: { x: outletEnd, y: 0 },
+          dir: { x: 1, y: 0 },
+          width: c.outletWidth,
+          layerId: c.layerId,
+        },
       ]
     }
     case 'y-junction': {
       const up = 180 - c.angle / 2
       const down = 180 + c.angle / 2
       return [
-        { name: 'continuous', role: 'continuous', at: polar(c.armLength, up), dir: polar(1, up), width: c.continuousWidth, layerId: c.layerId },
-        { name: 'dispersed', role: 'dispersed', at: polar(c.armLength, down), dir: polar(1, down), width: c.dispersedWidth, layerId: c.layerId },
-        { name: 'outlet', role: 'outlet', at: { x: c.armLength, y: 0 }, dir: { x: 1, y: 0 }, width: c.outletWidth, layerId: c.layerId },
+        {
+          name: 'continuous',
+          role: 'continuous',
+          at: polar(c.armLength, up),
+          dir: polar(1, up),
+          width: c.continuousWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'dispersed',
+          role: 'dispersed',
+          at: polar(c.armLength, down),
+          dir: polar(1, down),
+          width: c.dispersedWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'outlet',
+          role: 'outlet',
+          at: { x: c.armLength, y: 0 },
+          dir: { x: 1, y: 0 },
+          width: c.outletWidth,
+          layerId: c.layerId,
+        },
       ]
     }
     case 'step-nozzle': {
       const x = c.nozzleLength + c.reservoirWidth / 2
       return [
-        { name: 'dispersed', role: 'dispersed', at: { x: 0, y: 0 }, dir: { x: -1, y: 0 }, width: c.nozzleWidth, layerId: c.layerId },
-        { name: 'continuous', role: 'continuous', at: { x, y: -c.reservoirLength / 2 }, dir: { x: 0, y: -1 }, width: c.reservoirWidth, layerId: c.reservoirLayerId },
-        { name: 'outlet', role: 'outlet', at: { x, y: c.reservoirLength / 2 }, dir: { x: 0, y: 1 }, width: c.reservoirWidth, layerId: c.reservoirLayerId },
+        {
+          name: 'dispersed',
+          role: 'dispersed',
+          at: { x: 0, y: 0 },
+          dir: { x: -1, y: 0 },
+          width: c.nozzleWidth,
+          layerId: c.layerId,
+        },
+        {
+          name: 'continuous',
+          role: 'continuous',
+          at: { x, y: -c.reservoirLength / 2 },
+          dir: { x: 0, y: -1 },
+          width: c.reservoirWidth,
+          layerId: c.reservoirLayerId,
+        },
+        {
+          name: 'outlet',
+          role: 'outlet',
+          at: { x, y: c.reservoirLength / 2 },
+          dir: { x: 0, y: 1 },
+          width: c.reservoirWidth,
+          layerId: c.reservoirLayerId,
+        },
       ]
     }
     case 'step-array': {
@@ -67,10 +158,38 @@ function localTerminals(c: Component): Local[] {
       const xs = -c.supplyWidth / 2
       const xr = c.nozzleLength + c.reservoirWidth / 2
       return [
-        { name: 'dispersed', role: 'dispersed', at: { x: xs, y: -half }, dir: { x: 0, y: -1 }, width: c.supplyWidth, layerId: c.supplyLayerId },
-        { name: 'dispersed-b', role: 'dispersed', at: { x: xs, y: half }, dir: { x: 0, y: 1 }, width: c.supplyWidth, layerId: c.supplyLayerId },
-        { name: 'continuous', role: 'continuous', at: { x: xr, y: -half }, dir: { x: 0, y: -1 }, width: c.reservoirWidth, layerId: c.reservoirLayerId },
-        { name: 'outlet', role: 'outlet', at: { x: xr, y: half }, dir: { x: 0, y: 1 }, width: c.reservoirWidth, layerId: c.reservoirLayerId },
+        {
+          name: 'dispersed',
+          role: 'dispersed',
+          at: { x: xs, y: -half },
+          dir: { x: 0, y: -1 },
+          width: c.supplyWidth,
+          layerId: c.supplyLayerId,
+        },
+        {
+          name: 'dispersed-b',
+          role: 'dispersed',
+          at: { x: xs, y: half },
+          dir: { x: 0, y: 1 },
+          width: c.supplyWidth,
+          layerId: c.supplyLayerId,
+        },
+        {
+          name: 'continuous',
+          role: 'continuous',
+          at: { x: xr, y: -half },
+          dir: { x: 0, y: -1 },
+          width: c.reservoirWidth,
+          layerId: c.reservoirLayerId,
+        },
+        {
+          name: 'outlet',
+          role: 'outlet',
+          at: { x: xr, y: half },
+          dir: { x: 0, y: 1 },
+          width: c.reservoirWidth,
+          layerId: c.reservoirLayerId,
+        },
       ]
     }
     case 'serpentine': {
@@ -78,7 +197,14 @@ function localTerminals(c: Component): Local[] {
       const even = c.turns % 2 === 0
       return [
         { name: 'inlet', role: 'inlet', at: { x: 0, y: 0 }, dir: { x: -1, y: 0 }, width: c.width, layerId: c.layerId },
-        { name: 'outlet', role: 'outlet', at: { x: even ? run : 0, y: c.turns * c.pitch }, dir: { x: even ? 1 : -1, y: 0 }, width: c.width, layerId: c.layerId },
+        {
+          name: 'outlet',
+          role: 'outlet',
+          at: { x: even ? run : 0, y: c.turns * c.pitch },
+          dir: { x: even ? 1 : -1, y: 0 },
+          width: c.width,
+          layerId: c.layerId,
+        },
       ]
     }
   }
@@ -95,10 +221,19 @@ export function componentTerminals(c: Component): Terminal[] {
 
 /** A port has a single terminal, `port`, at its centre. */
 export function portTerminals(p: Port): Terminal[] {
-  return [{ name: 'port', role: 'port', position: { ...p.position }, direction: { x: 0, y: 0 }, width: p.punchDiameter, layerId: p.layerId }]
+  return [
+    {
+      name: 'port',
+      role: 'port',
+      position: { ...p.position },
+      direction: { x: 0, y: 0 },
+      width: p.punchDiameter,
+      layerId: p.layerId,
+    },
+  ]
 }
 
 /** Terminal names per element id, for reference checks. */
 export function terminalNames(c: Component | Port): string[] {
-  return 'punchDiameter' in c ? ['port'] : localTerminals(c).map((t) => t.name)
+  return 'punchDiameter' in c ? ['port'] : localTerminals(c).map(t => t.name)
 }

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest'
 import DesignsPager from '../../../components/designs/DesignsPager.vue'
 
 describe('DesignsPager', () => {
-  it('counts a large lab\'s designs without a comma', () => {
+  it("counts a large lab's designs without a comma", () => {
     const w = mount(DesignsPager, { props: { page: 201, pageSize: 50, total: 12470 } })
     expect(w.get('[data-test="designs-range"]').text()).toBe('Designs 10\u202F001–10\u202F050 of 12\u202F470')
     expect(w.text()).toContain('Page 201 of 250')

@@ -12,16 +12,22 @@ import { summarizeForecast } from '../../../shared/physics/document/summary'
 import { formatLengthUm, formatNumber } from '../../../shared/format/quantity'
 import { GLOSSARY } from '../../../shared/format/glossary'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(structuredClone(fixture)); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(structuredClone(fixture))
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 
 describe('EditorJunctionTable', () => {
-  it('shows each quantity in the trade\'s unit with its method and source on hover', () => {
+  it("shows each quantity in the trade's unit with its method and source on hover", () => {
     const forecast = forecastDocument(doc())
     const f = forecast.junctions[0]!.forecast!
     const w = mount(EditorJunctionTable, { props: { forecast, junctionId: 'tj-1' } })
     const row = w.get('[data-test="forecast-dropletDiameter"]')
     const um = f.dropletDiameter.value * 1e6
-    expect(row.text()).toContain(formatLengthUm(um, f.dropletDiameter.valid && f.frequency.valid && f.regime.valid ? 'estimate' : 'indicative'))
+    expect(row.text()).toContain(
+      formatLengthUm(um, f.dropletDiameter.valid && f.frequency.valid && f.regime.valid ? 'estimate' : 'indicative'),
+    )
     expect(row.attributes('title')).toContain(f.dropletDiameter.method)
     expect(row.attributes('title')).toContain(f.dropletDiameter.source)
     expect(w.get('[data-test="forecast-laplacePressure"]').text()).toMatch(/mbar$/)
@@ -39,16 +45,19 @@ describe('EditorJunctionTable', () => {
     expect(w.get('[data-test="forecast-dropletDiameter"]').attributes('title')).toContain(f.warnings[0]!.message)
   })
 
-  it('says why a part has no forecast: the forecast\'s own warning for it', () => {
+  it("says why a part has no forecast: the forecast's own warning for it", () => {
     const d = doc()
-    const loose = { ...d, components: [...d.components, { ...d.components[0]!, id: 'tj-9', position: { x: 9000, y: 6000 } }] }
+    const loose = {
+      ...d,
+      components: [...d.components, { ...d.components[0]!, id: 'tj-9', position: { x: 9000, y: 6000 } }],
+    }
     const w = mount(EditorJunctionTable, { props: { forecast: forecastDocument(loose), junctionId: 'tj-9' } })
     expect(w.text()).toContain('Component "tj-9" is not connected to any channel')
   })
 })
 
 describe('one chip, one text (issue 16: 135 Hz in the editor, 140 Hz on the revision page)', () => {
-  it('the editor\'s junction table and the revision page show the same diameter and rate', () => {
+  it("the editor's junction table and the revision page show the same diameter and rate", () => {
     // Flows that give three-figure numbers (the fixture's round flows give round sizes that hide the difference).
     const d = doc()
     d.operatingPoints[0]!.inlets = d.operatingPoints[0]!.inlets.map(i => ({ ...i, value: i.value * 1.37 }))
@@ -58,7 +67,13 @@ describe('one chip, one text (issue 16: 135 Hz in the editor, 140 Hz on the revi
     for (const q of [jf.regime, jf.dropletDiameter, jf.frequency]) q.valid = true
     const s = summarizeForecast(forecast)
     const editor = mount(EditorJunctionTable, { props: { forecast, junctionId: 'tj-1' } })
-    const summary = { ...s, inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar, flowUlPerMin: i.flowUlPerMin })), findings: { errors: 0, warnings: 1 }, processId: null, forecastError: null }
+    const summary = {
+      ...s,
+      inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar, flowUlPerMin: i.flowUlPerMin })),
+      findings: { errors: 0, warnings: 1 },
+      processId: null,
+      forecastError: null,
+    }
     const revision = mount(RevisionForecast, { props: { summary: summary as never } })
     const row = revision.get('[data-test="forecast-tj-1"]').findAll('td')
     const cell = (k: string) => editor.get(`[data-test="forecast-${k}"] td:last-child`).text().replace('⚠ ', '')
@@ -70,7 +85,9 @@ describe('one chip, one text (issue 16: 135 Hz in the editor, 140 Hz on the revi
   it('φ is the dispersed fraction Qd/(Qc + Qd) and defined on hover; the flow-rate ratio is Qd/Qc', () => {
     const w = mount(EditorJunctionTable, { props: { forecast: forecastDocument(doc()), junctionId: 'tj-1' } })
     expect(w.get('[data-test="forecast-dispersedFraction"] abbr').attributes('title')).toContain('φ = Qd / (Qc + Qd)')
-    expect(w.get('[data-test="forecast-flowRateRatio"] abbr').attributes('title')).toContain(GLOSSARY.flowRateRatio.definition)
+    expect(w.get('[data-test="forecast-flowRateRatio"] abbr').attributes('title')).toContain(
+      GLOSSARY.flowRateRatio.definition,
+    )
     expect(JSON.stringify(GLOSSARY).match(/φ =/g)).toHaveLength(1)
   })
 })

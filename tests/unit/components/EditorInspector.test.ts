@@ -5,7 +5,11 @@ import EditorInspector from '../../../components/editor/EditorInspector.vue'
 import EditorOperatingPoint from '../../../components/editor/EditorOperatingPoint.vue'
 import fixture from '../../fixtures/documents/t-junction-basic.json'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(structuredClone(fixture)); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(structuredClone(fixture))
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 
 describe('EditorInspector', () => {
   it('shows the selected junction with exact numbers and units', () => {
@@ -37,14 +41,19 @@ describe('EditorInspector', () => {
   })
 
   it('says what a multiple selection can do, and shows a refusal from the store', () => {
-    const w = mount(EditorInspector, { props: { document: doc(), selection: ['tj-1', 'oil-in'], refusal: 'Channel needs at least 2 points' } })
+    const w = mount(EditorInspector, {
+      props: { document: doc(), selection: ['tj-1', 'oil-in'], refusal: 'Channel needs at least 2 points' },
+    })
     expect(w.text()).toContain('2 elements selected')
     expect(w.get('[data-test="edit-refused"]').text()).toContain('Channel needs at least 2 points')
   })
 })
 
 describe('EditorOperatingPoint', () => {
-  const solution = { 'oil-in': { pressureMbar: 123.456, flowUlPerMin: 10 }, 'water-in': { pressureMbar: 88.71, flowUlPerMin: 4.9996 } }
+  const solution = {
+    'oil-in': { pressureMbar: 123.456, flowUlPerMin: 10 },
+    'water-in': { pressureMbar: 88.71, flowUlPerMin: 4.9996 },
+  }
   it('lists the inlets with their settings and the pressure and flow of each, and emits a new flow', async () => {
     const w = mount(EditorOperatingPoint, { props: { document: doc(), solution } })
     expect(w.get('[data-test="inlet-pressure-oil-in"]').text()).toBe('123 mbar')
@@ -56,9 +65,16 @@ describe('EditorOperatingPoint', () => {
   it('switching an inlet to pressure starts from the pressure it needs now, and back to flow from its flow', async () => {
     const w = mount(EditorOperatingPoint, { props: { document: doc(), solution } })
     await w.get('[data-test="inlet-mode-water-in"]').setValue('pressure')
-    expect(w.emitted('inlet')![0]).toEqual(['op-1', { portId: 'water-in', mode: 'pressure', value: 88.7, unit: 'mbar' }])
+    expect(w.emitted('inlet')![0]).toEqual([
+      'op-1',
+      { portId: 'water-in', mode: 'pressure', value: 88.7, unit: 'mbar' },
+    ])
     const pressured = doc()
-    pressured.operatingPoints[0]!.inlets = pressured.operatingPoints[0]!.inlets.map(i => (i.portId === 'water-in' ? { portId: 'water-in', mode: 'pressure' as const, value: 88.7, unit: 'mbar' as const } : i))
+    pressured.operatingPoints[0]!.inlets = pressured.operatingPoints[0]!.inlets.map(i =>
+      i.portId === 'water-in'
+        ? { portId: 'water-in', mode: 'pressure' as const, value: 88.7, unit: 'mbar' as const }
+        : i,
+    )
     await w.setProps({ document: pressured })
     await w.get('[data-test="inlet-mode-water-in"]').setValue('flow')
     expect(w.emitted('inlet')![1]).toEqual(['op-1', { portId: 'water-in', mode: 'flow', value: 5, unit: 'uL/min' }])
@@ -80,7 +96,13 @@ describe('EditorOperatingPoint', () => {
     expect(w.emitted('field')).toBeUndefined()
   })
   it('marks a pressure above the bond limit', () => {
-    const w = mount(EditorOperatingPoint, { props: { document: doc(), solution: { ...solution, 'oil-in': { pressureMbar: 2500, flowUlPerMin: 10 } }, bondLimitMbar: 2000 } })
+    const w = mount(EditorOperatingPoint, {
+      props: {
+        document: doc(),
+        solution: { ...solution, 'oil-in': { pressureMbar: 2500, flowUlPerMin: 10 } },
+        bondLimitMbar: 2000,
+      },
+    })
     expect(w.get('[data-test="inlet-pressure-oil-in"]').classes()).toContain('text-fault-500')
     expect(w.get('[data-test="inlet-pressure-water-in"]').classes()).not.toContain('text-fault-500')
   })

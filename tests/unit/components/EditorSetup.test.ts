@@ -9,8 +9,15 @@ import EditorOperatingPoint from '../../../components/editor/EditorOperatingPoin
 import { provideCanvasFocus } from '../../../components/editor/lib/focusCanvas'
 import fixture from '../../fixtures/documents/t-junction-basic.json'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(structuredClone(fixture)); if (!r.ok) throw new Error('fixture'); return r.document }
-const withLayer = (): ChipDocument => ({ ...doc(), layers: [...doc().layers, { id: 'deep', name: 'Reservoirs', depth: 150 }] })
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(structuredClone(fixture))
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
+const withLayer = (): ChipDocument => ({
+  ...doc(),
+  layers: [...doc().layers, { id: 'deep', name: 'Reservoirs', depth: 150 }],
+})
 
 describe('EditorLayers', () => {
   it('lists each layer with its depth and what it holds; a layer in use cannot be removed, an empty one can', async () => {
@@ -31,7 +38,10 @@ describe('EditorLayers', () => {
     // setValue fires input and change, as typing then leaving the box does.
     await w.get('[data-test="field-layer-depth-deep"]').setValue('120')
     await w.get('[data-test="layer-name-deep"]').setValue('Drop reservoir')
-    expect(w.emitted('set')).toEqual([['deep', 'depth', 120], ['deep', 'name', 'Drop reservoir']])
+    expect(w.emitted('set')).toEqual([
+      ['deep', 'depth', 120],
+      ['deep', 'name', 'Drop reservoir'],
+    ])
     await w.get('[data-test="layer-active-deep"]').setValue(true)
     expect(w.emitted('active')![0]).toEqual(['deep'])
     await w.get('[data-test="field-layer-new-depth"]').setValue('25')
@@ -77,7 +87,11 @@ describe('EditorOperatingPoint: several named points', () => {
 
   it('with two points, shows the active one, switches and removes', async () => {
     const d = doc()
-    const two = { ...d, operatingPoints: [...d.operatingPoints, { ...d.operatingPoints[0]!, id: 'op-2', name: 'Fast' }], activeOperatingPoint: 'op-2' }
+    const two = {
+      ...d,
+      operatingPoints: [...d.operatingPoints, { ...d.operatingPoints[0]!, id: 'op-2', name: 'Fast' }],
+      activeOperatingPoint: 'op-2',
+    }
     const w = mount(EditorOperatingPoint, { props: { document: two } })
     expect((w.get('[data-test="op-name"]').element as HTMLInputElement).value).toBe('Fast')
     await w.get('[data-test="op-active"]').setValue('op-1')
@@ -88,7 +102,7 @@ describe('EditorOperatingPoint: several named points', () => {
 })
 
 describe('EditorInspector: channels and the outline', () => {
-  it('shows a channel\'s points: ends on terminals named, bends as exact numbers; emits a moved bend and a removal', async () => {
+  it("shows a channel's points: ends on terminals named, bends as exact numbers; emits a moved bend and a removal", async () => {
     const w = mount(EditorInspector, { props: { document: doc(), selection: ['water-feed'] } })
     expect(w.get('[data-test="point-0-on"]').text()).toContain('on water-in · port')
     expect(w.get('[data-test="point-2-on"]').text()).toContain('on tj-1 · dispersed')
@@ -112,7 +126,11 @@ describe('EditorInspector: channels and the outline', () => {
     expect(w.emitted('clearOutline')).toHaveLength(1)
     const none = { ...doc() }
     delete (none as Partial<ChipDocument>).outline
-    expect(mount(EditorInspector, { props: { document: none, selection: [] } }).find('[data-test="outline-clear"]').exists()).toBe(false)
+    expect(
+      mount(EditorInspector, { props: { document: none, selection: [] } })
+        .find('[data-test="outline-clear"]')
+        .exists(),
+    ).toBe(false)
   })
 
   it('checks an outline size with the outline schema: a zero height is refused with its message, a new width is sent', async () => {
@@ -125,11 +143,22 @@ describe('EditorInspector: channels and the outline', () => {
   })
 })
 
-describe('EditorOperatingPoint: the editor\'s one number box', () => {
+describe("EditorOperatingPoint: the editor's one number box", () => {
   // A parent that gives the panel the workspace's "focus the drawing" hook, as EditorWorkspace does.
-  const withCanvas = (focused: string[], document = doc()) => mount(defineComponent({
-    setup() { provideCanvasFocus(() => focused.push('canvas')); return () => h(EditorOperatingPoint, { document, onInlet: (...a: unknown[]) => focused.push(`inlet ${JSON.stringify(a)}`), onField: (...a: unknown[]) => focused.push(`field ${JSON.stringify(a)}`) }) },
-  }))
+  const withCanvas = (focused: string[], document = doc()) =>
+    mount(
+      defineComponent({
+        setup() {
+          provideCanvasFocus(() => focused.push('canvas'))
+          return () =>
+            h(EditorOperatingPoint, {
+              document,
+              onInlet: (...a: unknown[]) => focused.push(`inlet ${JSON.stringify(a)}`),
+              onField: (...a: unknown[]) => focused.push(`field ${JSON.stringify(a)}`),
+            })
+        },
+      }),
+    )
 
   it('Enter in an inlet box commits once and hands the keyboard to the drawing; a refused Enter keeps it', async () => {
     const focused: string[] = []
@@ -144,7 +173,10 @@ describe('EditorOperatingPoint: the editor\'s one number box', () => {
     await box.trigger('keydown', { key: 'Enter' })
     await box.trigger('change')
     await flushPromises()
-    expect(focused).toEqual([`inlet ${JSON.stringify(['op-1', { portId: 'water-in', mode: 'flow', value: 3, unit: 'uL/min' }])}`, 'canvas'])
+    expect(focused).toEqual([
+      `inlet ${JSON.stringify(['op-1', { portId: 'water-in', mode: 'flow', value: 3, unit: 'uL/min' }])}`,
+      'canvas',
+    ])
     expect(w.find('[data-test="inlet-error-water-in"]').exists()).toBe(false)
   })
 

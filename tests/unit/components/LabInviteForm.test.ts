@@ -15,8 +15,10 @@ describe('LabInviteForm', () => {
     expect(w.emitted('invite')).toEqual([[{ email: 'ines@lab.example', role: 'reviewer' }]])
   })
 
-  it('shows the server\'s field message and clears the address once sent', async () => {
-    const w = mount(LabInviteForm, { props: { busy: false, fields: { email: 'Already a member of this lab' }, sentTo: null } })
+  it("shows the server's field message and clears the address once sent", async () => {
+    const w = mount(LabInviteForm, {
+      props: { busy: false, fields: { email: 'Already a member of this lab' }, sentTo: null },
+    })
     expect(w.text()).toContain('Already a member of this lab')
     await w.get('#invite-email').setValue('a@lab.example')
     await w.setProps({ fields: {}, sentTo: 'a@lab.example' })

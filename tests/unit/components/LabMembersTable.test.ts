@@ -10,7 +10,12 @@ const members: LabMember[] = [
 ]
 
 // The page's date composable (auto-imported in the app): the viewer's locale and zone, here en-GB in UTC.
-vi.stubGlobal('useWhen', () => (iso: string, context: DateContext = 'moment') => formatDate(iso, context, { locale: 'en-GB', timeZone: 'UTC' }))
+vi.stubGlobal(
+  'useWhen',
+  () =>
+    (iso: string, context: DateContext = 'moment') =>
+      formatDate(iso, context, { locale: 'en-GB', timeZone: 'UTC' }),
+)
 
 describe('LabMembersTable', () => {
   it('writes "member since" as a day in the viewer\'s locale, not "2026-01-02"', () => {

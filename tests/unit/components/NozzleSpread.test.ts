@@ -12,11 +12,26 @@ import fixture from '../../fixtures/documents/t-junction-basic.json'
 import { flowFromDrops, nozzleCsv, nozzleGroups, spreadOf } from '../../../utils/nozzleSpread'
 
 // An invented 256-nozzle ladder whose drops grow slowly along the manifold (the far end gets less pressure).
-const nozzles = Array.from({ length: 256 }, (_, k) => ({ id: `ladder-1[${k}]`, kind: 'step-array', regime: 'step-emulsification', dropletDiameterUm: 40 + k * 0.01, frequencyHz: 900 - k, valid: true }))
+const nozzles = Array.from({ length: 256 }, (_, k) => ({
+  id: `ladder-1[${k}]`,
+  kind: 'step-array',
+  regime: 'step-emulsification',
+  dropletDiameterUm: 40 + k * 0.01,
+  frequencyHz: 900 - k,
+  valid: true,
+}))
 const summary = {
-  junctionKinds: ['step-array'], counts: { channels: 1, components: 1, ports: 2, layers: 1 }, operatingPoint: 'op-1',
-  junctions: [{ id: 'tj-1', kind: 't-junction', regime: 'squeezing', dropletDiameterUm: 52, frequencyHz: 135.4, valid: true }, ...nozzles],
-  inlets: [{ portId: 'oil-in', pressureMbar: 120, flowUlPerMin: 5 }], forecastError: null, findings: { errors: 0, warnings: 1, infos: 0 }, processId: 'pdms-soft-litho',
+  junctionKinds: ['step-array'],
+  counts: { channels: 1, components: 1, ports: 2, layers: 1 },
+  operatingPoint: 'op-1',
+  junctions: [
+    { id: 'tj-1', kind: 't-junction', regime: 'squeezing', dropletDiameterUm: 52, frequencyHz: 135.4, valid: true },
+    ...nozzles,
+  ],
+  inlets: [{ portId: 'oil-in', pressureMbar: 120, flowUlPerMin: 5 }],
+  forecastError: null,
+  findings: { errors: 0, warnings: 1, infos: 0 },
+  processId: 'pdms-soft-litho',
 }
 
 describe('spread across nozzles', () => {
@@ -36,14 +51,30 @@ describe('spread across nozzles', () => {
     const [g] = nozzleGroups(summary.junctions)
     expect(g!.rows).toHaveLength(256)
     const csv = Papa.parse<string[]>(nozzleCsv(g!), { skipEmptyLines: true }).data
-    expect(csv[0]).toEqual(['array', 'nozzle', 'droplet_diameter_um', 'generation_rate_hz', 'dispersed_flow_ul_per_min', 'inside_validity'])
+    expect(csv[0]).toEqual([
+      'array',
+      'nozzle',
+      'droplet_diameter_um',
+      'generation_rate_hz',
+      'dispersed_flow_ul_per_min',
+      'inside_validity',
+    ])
     expect(csv).toHaveLength(257)
     expect(csv[256]!.slice(0, 4)).toEqual(['ladder-1', '256', String(40 + 255 * 0.01), String(900 - 255)])
   })
 
   it('separate junctions of one kind placed as a bank (the array tool) are read as one bank', () => {
-    const bank = Array.from({ length: 16 }, (_, k) => ({ id: `sn-${k + 1}`, kind: 'step-nozzle', dropletDiameterUm: 30 + k, frequencyHz: 500, valid: k < 15 }))
-    const groups = nozzleGroups([...bank, { id: 'tj-1', kind: 't-junction', dropletDiameterUm: 50, frequencyHz: 100, valid: true }])
+    const bank = Array.from({ length: 16 }, (_, k) => ({
+      id: `sn-${k + 1}`,
+      kind: 'step-nozzle',
+      dropletDiameterUm: 30 + k,
+      frequencyHz: 500,
+      valid: k < 15,
+    }))
+    const groups = nozzleGroups([
+      ...bank,
+      { id: 'tj-1', kind: 't-junction', dropletDiameterUm: 50, frequencyHz: 100, valid: true },
+    ])
     expect(groups).toHaveLength(1)
     expect(groups[0]).toMatchObject({ array: 'bank:step-nozzle', bank: true })
     expect(groups[0]!.rows.map(r => r.id)).toEqual(bank.map(b => b.id))
@@ -51,7 +82,14 @@ describe('spread across nozzles', () => {
   })
 
   it('a bank reads "Bank of step nozzles" and nozzles that agree read one value, not "32 µm – 32 µm"', () => {
-    const bank = Array.from({ length: 64 }, (_, k) => ({ id: `sn-${k + 1}`, kind: 'step-nozzle', regime: 'step-emulsification', dropletDiameterUm: 32.0004 + k * 1e-5, frequencyHz: 340 + k * 0.1, valid: true }))
+    const bank = Array.from({ length: 64 }, (_, k) => ({
+      id: `sn-${k + 1}`,
+      kind: 'step-nozzle',
+      regime: 'step-emulsification',
+      dropletDiameterUm: 32.0004 + k * 1e-5,
+      frequencyHz: 340 + k * 0.1,
+      valid: true,
+    }))
     const w = mount(RevisionForecast, { props: { summary: { ...summary, junctions: bank } as never } })
     const spread = w.get('[data-test="nozzle-spread-bank-step-nozzle"]')
     expect(spread.get('h3').text()).toBe('Bank of step nozzles: spread across 64 nozzles')
@@ -80,7 +118,12 @@ describe('spread across nozzles', () => {
   it('the editor shows the same spread for a bank placed with the array tool (16 step nozzles, real forecast)', async () => {
     const parsed = parseChipDocument(structuredClone(fixture))
     if (!parsed.ok) throw new Error('fixture')
-    const r = runAction(parsed.document, actions.placeArray, { kind: 'step-nozzle', count: 16, pitch: 80, mode: 'replace' })
+    const r = runAction(parsed.document, actions.placeArray, {
+      kind: 'step-nozzle',
+      count: 16,
+      pitch: 80,
+      mode: 'replace',
+    })
     if (!r.ok) throw new Error(r.refusal.message)
     const forecast = forecastDocument(r.doc)
     const firstNozzle = r.doc.components.find(c => c.kind === 'step-nozzle')!.id

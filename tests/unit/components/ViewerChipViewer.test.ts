@@ -11,10 +11,15 @@ const loadDocumentFixture = (_name: string): Record<string, any> => structuredCl
 // nodes so the component's own logic — view, hit testing, events, panels — runs in happy-dom.
 vi.mock('vue-konva', () => {
   const node = { batchDraw() {}, cache() {}, clearCache() {}, position() {} }
-  const make = (name: string) => defineComponent({
-    name, props: { config: { type: Object, default: () => ({}) } },
-    setup(_, { slots, expose }) { expose({ getNode: () => node }); return () => h('div', { 'data-konva': name }, slots.default?.()) },
-  })
+  const make = (name: string) =>
+    defineComponent({
+      name,
+      props: { config: { type: Object, default: () => ({}) } },
+      setup(_, { slots, expose }) {
+        expose({ getNode: () => node })
+        return () => h('div', { 'data-konva': name }, slots.default?.())
+      },
+    })
   return { Stage: make('Stage'), Layer: make('Layer'), Shape: make('Shape') }
 })
 

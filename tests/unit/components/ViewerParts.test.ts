@@ -18,7 +18,7 @@ describe('ViewerLayerToggles', () => {
     expect(w.get('[data-test="layer-nozzle"]').text()).toContain('8 µm deep')
     expect(w.get('[data-test="layer-deep"]').text()).toContain('150 µm deep')
     const boxes = w.findAll('input[type="checkbox"]')
-    expect(boxes.map((b) => (b.element as HTMLInputElement).checked)).toEqual([true, false, true])
+    expect(boxes.map(b => (b.element as HTMLInputElement).checked)).toEqual([true, false, true])
     await boxes[1]!.trigger('change')
     await boxes[2]!.trigger('change')
     expect(w.emitted('toggle')).toEqual([['deep']])
@@ -27,7 +27,16 @@ describe('ViewerLayerToggles', () => {
   })
 
   it('writes a depth through shared/format: a 1500 µm reservoir is 1.5 mm deep, a 0.5 µm film 500 nm', () => {
-    const w = mount(ViewerLayerToggles, { props: { layers: [{ ...layers[0]!, depth: 0.5 }, { ...layers[1]!, depth: 1500 }], hidden: [], showMarks: true } })
+    const w = mount(ViewerLayerToggles, {
+      props: {
+        layers: [
+          { ...layers[0]!, depth: 0.5 },
+          { ...layers[1]!, depth: 1500 },
+        ],
+        hidden: [],
+        showMarks: true,
+      },
+    })
     expect(w.get('[data-test="layer-nozzle"]').text()).toContain('500 nm deep')
     expect(w.get('[data-test="layer-deep"]').text()).toContain('1.5 mm deep')
   })

@@ -1,30 +1,53 @@
 import { describe, expect, it } from 'vitest'
 import { parseChipDocument, componentTerminals, type ChipDocument } from '../../../shared/schemas/chip'
-import { actionLabel, actions, runAction, startHistory, commit, undo, redo, canUndo, undoLabel, redoLabel, type ActionArgs, type ActionName, snapToGrid, snapDelta, snapPoint, copy, importDocument, exportDocument } from '../../../shared/editor'
+import {
+  actionLabel,
+  actions,
+  runAction,
+  startHistory,
+  commit,
+  undo,
+  redo,
+  canUndo,
+  undoLabel,
+  redoLabel,
+  type ActionArgs,
+  type ActionName,
+  snapToGrid,
+  snapDelta,
+  snapPoint,
+  copy,
+  importDocument,
+  exportDocument,
+} from '../../../shared/editor'
 import { fixtureDocument } from '../../support/factory'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(fixtureDocument())
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 
 describe('editor actions', () => {
   it('move carries the attached channel ends with the junction', () => {
     const r = runAction(doc(), actions.move, { ids: ['tj-1'], dx: 100, dy: -50 })
     expect(r.ok).toBe(true)
     if (!r.ok) return
-    const tj = r.doc.components.find((c) => c.id === 'tj-1')!
+    const tj = r.doc.components.find(c => c.id === 'tj-1')!
     expect(tj.position).toEqual({ x: 5100, y: 2950 })
-    const t = Object.fromEntries(componentTerminals(tj).map((x) => [x.name, x.position]))
-    expect(r.doc.channels.find((c) => c.id === 'oil-feed')!.points.at(-1)).toEqual(t.continuous)
-    expect(r.doc.channels.find((c) => c.id === 'drops-out')!.points[0]).toEqual(t.outlet)
+    const t = Object.fromEntries(componentTerminals(tj).map(x => [x.name, x.position]))
+    expect(r.doc.channels.find(c => c.id === 'oil-feed')!.points.at(-1)).toEqual(t.continuous)
+    expect(r.doc.channels.find(c => c.id === 'drops-out')!.points[0]).toEqual(t.outlet)
     expect(r.history).toBe('record')
   })
 
   it('rotate turns a junction 90° about its centre and its arms follow', () => {
     const r = runAction(doc(), actions.rotate, { ids: ['tj-1'], deg: 90 })
     if (!r.ok) throw new Error(r.refusal.message)
-    const tj = r.doc.components.find((c) => c.id === 'tj-1')!
+    const tj = r.doc.components.find(c => c.id === 'tj-1')!
     expect(tj.rotation).toBe(90)
     expect(tj.position).toEqual({ x: 5000, y: 3000 })
-    const outlet = componentTerminals(tj).find((t) => t.name === 'outlet')!.position
+    const outlet = componentTerminals(tj).find(t => t.name === 'outlet')!.position
     expect(outlet.x).toBeCloseTo(5000, 6)
     expect(outlet.y).toBeCloseTo(3200, 6)
   })
@@ -34,7 +57,7 @@ describe('editor actions', () => {
     const r = runAction(doc(), actions.duplicate, { ids: ['tj-1', 'drops-out'], offset: { x: 0, y: -1000 }, inserted })
     if (!r.ok) throw new Error(r.refusal.message)
     expect(inserted).toEqual(['tj-2', 'drops-out-1'])
-    const ch = r.doc.channels.find((c) => c.id === 'drops-out-1')!
+    const ch = r.doc.channels.find(c => c.id === 'drops-out-1')!
     expect(ch.start).toEqual({ element: 'tj-2', terminal: 'outlet' })
     expect(ch.end).toBeUndefined()
   })
@@ -42,9 +65,9 @@ describe('editor actions', () => {
   it('delete loosens channel ends and drops the inlet settings of removed ports', () => {
     const r = runAction(doc(), actions.delete, { ids: ['tj-1', 'oil-in'] })
     if (!r.ok) throw new Error(r.refusal.message)
-    expect(r.doc.channels.find((c) => c.id === 'oil-feed')!.start).toBeUndefined()
-    expect(r.doc.channels.find((c) => c.id === 'oil-feed')!.end).toBeUndefined()
-    expect(r.doc.operatingPoints[0]!.inlets.map((i) => i.portId)).toEqual(['water-in'])
+    expect(r.doc.channels.find(c => c.id === 'oil-feed')!.start).toBeUndefined()
+    expect(r.doc.channels.find(c => c.id === 'oil-feed')!.end).toBeUndefined()
+    expect(r.doc.operatingPoints[0]!.inlets.map(i => i.portId)).toEqual(['water-in'])
   })
 
   it('an invalid edit is refused with the schema message and the document is untouched', () => {
@@ -59,18 +82,35 @@ describe('editor actions', () => {
 
   it('set field, inlet, channel point, place component and port all validate', () => {
     let d = doc()
-    const step = <A>(a: (doc: ChipDocument, args: A) => any, args: A) => { const r = runAction(d, a, args); if (!r.ok) throw new Error(r.refusal.message); d = r.doc }
+    const step = <A>(a: (doc: ChipDocument, args: A) => any, args: A) => {
+      const r = runAction(d, a, args)
+      if (!r.ok) throw new Error(r.refusal.message)
+      d = r.doc
+    }
     step(actions.setField, { id: 'tj-1', path: 'inletWidth', value: 60 })
     step(actions.setInlet, { opId: 'op-1', setting: { portId: 'water-in', mode: 'flow', value: 3, unit: 'uL/min' } })
     step(actions.insertChannelPoint, { id: 'oil-feed', index: 1, point: { x: 3000, y: 3000 } })
     const created: string[] = []
     step(actions.placeComponent, { kind: 'step-nozzle', position: { x: 2000, y: 1000 }, layerId: 'ch50', created })
-    step(actions.placePort, { kind: 'inlet', phase: 'dispersed', position: { x: 500, y: 5000 }, layerId: 'ch50', created })
-    step(actions.addChannel, { points: [{ x: 0, y: 0 }, { x: 100, y: 0 }], width: 50, layerId: 'ch50' })
+    step(actions.placePort, {
+      kind: 'inlet',
+      phase: 'dispersed',
+      position: { x: 500, y: 5000 },
+      layerId: 'ch50',
+      created,
+    })
+    step(actions.addChannel, {
+      points: [
+        { x: 0, y: 0 },
+        { x: 100, y: 0 },
+      ],
+      width: 50,
+      layerId: 'ch50',
+    })
     expect(created).toEqual(['step-1', 'dispersed-in-1'])
     expect(d.layers.length).toBe(2)
-    expect(d.operatingPoints[0]!.inlets.find((i) => i.portId === 'water-in')!.value).toBe(3)
-    expect(d.channels.find((c) => c.id === 'oil-feed')!.points.length).toBe(3)
+    expect(d.operatingPoints[0]!.inlets.find(i => i.portId === 'water-in')!.value).toBe(3)
+    expect(d.channels.find(c => c.id === 'oil-feed')!.points.length).toBe(3)
     expect(d.channels.at(-1)!.id).toBe('channel-1')
   })
 })
@@ -115,7 +155,11 @@ describe('history', () => {
       ['placeComponent', { kind: 'y-junction', position: { x: 500, y: 500 }, layerId: 'ch50' }],
     ]
     for (const [name, args] of steps) {
-      const r = runAction(h.present, actions[name] as (d: ChipDocument, a: unknown) => ReturnType<typeof actions.move>, args)
+      const r = runAction(
+        h.present,
+        actions[name] as (d: ChipDocument, a: unknown) => ReturnType<typeof actions.move>,
+        args,
+      )
       if (!r.ok) throw new Error(r.refusal.message)
       h = commit(h, r.doc, r.history, actionLabel(name, args))
     }
@@ -162,7 +206,7 @@ describe('snapping and exchange', () => {
 describe('sweeps for the plots', async () => {
   const { forecastDocument } = await import('../../../shared/physics/document')
   const { sweepFlowRatio, sweepCapillary, regimeMap } = await import('../../../shared/editor/sweep')
-  const f = forecastDocument(doc()).junctions.find((j) => j.element === 'tj-1')!.forecast!
+  const f = forecastDocument(doc()).junctions.find(j => j.element === 'tj-1')!.forecast!
 
   it('droplet size grows with the flow-rate ratio (squeezing: L/w = 1 + α·φ, Garstecki et al. 2006)', () => {
     const s = sweepFlowRatio(f, 12)

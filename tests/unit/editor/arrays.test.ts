@@ -3,7 +3,11 @@ import { parseChipDocument, componentTerminals, type ChipDocument } from '../../
 import { actions, commit, runAction, startHistory, undo } from '../../../shared/editor'
 import { fixtureDocument } from '../../support/factory'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(fixtureDocument())
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 
 describe('array tool', () => {
   it('replace: the chip becomes 16 step nozzles at the asked pitch, keeping the design name, one undo step', () => {
@@ -25,7 +29,9 @@ describe('array tool', () => {
     const r = runAction(before, actions.placeArray, { kind: 't-junction', count: 4, pitch: 2500, mode: 'add', created })
     if (!r.ok) throw new Error(r.refusal.message)
     expect(created).toHaveLength(4)
-    expect(r.doc.components.filter(c => c.kind === 't-junction')).toHaveLength(before.components.filter(c => c.kind === 't-junction').length + 4)
+    expect(r.doc.components.filter(c => c.kind === 't-junction')).toHaveLength(
+      before.components.filter(c => c.kind === 't-junction').length + 4,
+    )
     for (const c of before.components) expect(r.doc.components.find(x => x.id === c.id)).toEqual(c)
     const right = Math.max(...before.components.map(c => c.position.x), ...before.ports.map(p => p.position.x))
     for (const id of created) expect(r.doc.components.find(c => c.id === id)!.position.x).toBeGreaterThan(right)
@@ -39,7 +45,9 @@ describe('array tool', () => {
       expect(terms.some(t => Math.hypot(t.x - p.x, t.y - p.y) < 1e-6)).toBe(true)
     }
     const op = r.doc.operatingPoints.find(o => o.id === r.doc.activeOperatingPoint)!
-    expect(op.inlets.length).toBeGreaterThan(before.operatingPoints.find(o => o.id === before.activeOperatingPoint)!.inlets.length)
+    expect(op.inlets.length).toBeGreaterThan(
+      before.operatingPoints.find(o => o.id === before.activeOperatingPoint)!.inlets.length,
+    )
     expect(r.doc.outline?.kind).toBe('rectangle')
   })
 

@@ -3,7 +3,11 @@ import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/ch
 import { actions, runAction } from '../../../shared/editor'
 import { fixtureDocument } from '../../support/factory'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(fixtureDocument())
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 
 describe('chip frame', () => {
   it('sets the outline size, keeping its corner; a chip without one gets one around its parts', () => {
@@ -33,6 +37,12 @@ describe('chip frame', () => {
     const r = runAction(d, actions.placeMark, { position: { x: 500, y: 500 }, created })
     if (!r.ok) throw new Error(r.refusal.message)
     const m = r.doc.marks.find(x => x.id === created[0])!
-    expect(m).toMatchObject({ kind: 'cross', position: { x: 500, y: 500 }, size: 500, lineWidth: 50, layerIds: d.layers.map(l => l.id) })
+    expect(m).toMatchObject({
+      kind: 'cross',
+      position: { x: 500, y: 500 },
+      size: 500,
+      lineWidth: 50,
+      layerIds: d.layers.map(l => l.id),
+    })
   })
 })

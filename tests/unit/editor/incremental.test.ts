@@ -4,22 +4,45 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { parseChipDocument, rememberParsed, type ChipDocument } from '../../../shared/schemas/chip'
 import { actions, runAction } from '../../../shared/editor'
 import { generateParallelChip } from '../../../geometry/arrays'
-import { applyPatch, diffDocument, focusOn, forecastUnchanged, runLiveForecast, runLiveRules, type FocusAnswer, type LiveAnswer, type RulesAnswer } from '../../../components/editor/lib/liveRun'
+import {
+  applyPatch,
+  diffDocument,
+  focusOn,
+  forecastUnchanged,
+  runLiveForecast,
+  runLiveRules,
+  type FocusAnswer,
+  type LiveAnswer,
+  type RulesAnswer,
+} from '../../../components/editor/lib/liveRun'
 import { fixtureDocument } from '../../support/factory'
 
-const parsed = (raw: unknown): ChipDocument => { const r = parseChipDocument(raw); if (!r.ok) throw new Error(r.errors[0]!.message); rememberParsed(r.document); return r.document }
-const edit = <N extends keyof typeof actions>(doc: ChipDocument, name: N, args: Parameters<(typeof actions)[N]>[1]): ChipDocument => {
+const parsed = (raw: unknown): ChipDocument => {
+  const r = parseChipDocument(raw)
+  if (!r.ok) throw new Error(r.errors[0]!.message)
+  rememberParsed(r.document)
+  return r.document
+}
+const edit = <N extends keyof typeof actions>(
+  doc: ChipDocument,
+  name: N,
+  args: Parameters<(typeof actions)[N]>[1],
+): ChipDocument => {
   const r = runAction(doc, actions[name] as never, args as never)
   if (!r.ok) throw new Error(r.refusal.message)
   return r.doc
 }
-const entries = (p: ReturnType<typeof diffDocument>) => Object.values(p.lists).reduce((n, l) => n + ('all' in l ? Infinity : l.set.length), 0)
+const entries = (p: ReturnType<typeof diffDocument>) =>
+  Object.values(p.lists).reduce((n, l) => n + ('all' in l ? Infinity : l.set.length), 0)
 
 describe('document patches', () => {
   const base = parsed(fixtureDocument())
   const edits: Array<[string, (d: ChipDocument) => ChipDocument]> = [
     ['move a junction', d => edit(d, 'move', { ids: [d.components[0]!.id], dx: 100, dy: -50 })],
-    ['widen a channel', d => edit(d, 'setField', { id: d.channels[0]!.id, path: 'width', value: d.channels[0]!.width + 20 })],
+    [
+      'widen a channel',
+      d => edit(d, 'setField', { id: d.channels[0]!.id, path: 'width', value: d.channels[0]!.width + 20 }),
+    ],
     ['delete a channel', d => edit(d, 'delete', { ids: [d.channels[d.channels.length - 1]!.id] })],
     ['rename the design', d => edit(d, 'setDocumentField', { path: 'name', value: 'Renamed chip' })],
     ['place a mark', d => edit(d, 'placeMark', { position: { x: 100, y: 100 } })],
@@ -70,17 +93,36 @@ describe('the forecast worker', () => {
     await import('../../../components/editor/lib/forecast.worker')
     onmessage = (g.self as { onmessage: typeof onmessage }).onmessage
   })
-  afterAll(() => { if (had) g.self = old; else delete g.self })
-  const until = async (n: number) => { for (let i = 0; i < 200 && posted.length < n; i++) await new Promise(r => setTimeout(r, 10)) }
+  afterAll(() => {
+    if (had) g.self = old
+    else delete g.self
+  })
+  const until = async (n: number) => {
+    for (let i = 0; i < 200 && posted.length < n; i++) await new Promise(r => setTimeout(r, 10))
+  }
 
   it('keeps the previous document, applies each patch and answers what a full forecast and rule check of the new document give', async () => {
     const docs = [parsed(generateParallelChip({ nozzles: 16 }))]
     docs.push(edit(docs[0]!, 'move', { ids: [docs[0]!.components[5]!.id], dx: 30, dy: 0 }))
-    docs.push(edit(docs[1]!, 'setField', { id: docs[1]!.channels[3]!.id, path: 'width', value: docs[1]!.channels[3]!.width * 2 }))
+    docs.push(
+      edit(docs[1]!, 'setField', {
+        id: docs[1]!.channels[3]!.id,
+        path: 'width',
+        value: docs[1]!.channels[3]!.width * 2,
+      }),
+    )
     docs.push(edit(docs[2]!, 'placeMark', { position: { x: 100, y: 100 } }))
     const focus = docs[0]!.components[5]!.id
     onmessage({ data: { seq: 1, doc: structuredClone(docs[0]), processId: 'film-mask-soft-litho', focus } })
-    for (let k = 1; k < docs.length; k++) onmessage({ data: structuredClone({ seq: k + 1, patch: diffDocument(docs[k - 1]!, docs[k]!), processId: 'film-mask-soft-litho', focus }) })
+    for (let k = 1; k < docs.length; k++)
+      onmessage({
+        data: structuredClone({
+          seq: k + 1,
+          patch: diffDocument(docs[k - 1]!, docs[k]!),
+          processId: 'film-mask-soft-litho',
+          focus,
+        }),
+      })
     await until(docs.length + 1)
     const answers = posted.filter((m): m is LiveAnswer => 'summary' in m)
     expect(answers.map(a => a.seq)).toEqual([1, 2, 3, 4])

@@ -2,8 +2,14 @@
 import { describe, expect, it } from 'vitest'
 import { keyAction, nudgeOf } from '../../../components/editor/lib/tools'
 
-const key = (k: string, mods: Partial<Record<'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey', boolean>> = {}) =>
-  ({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods })
+const key = (k: string, mods: Partial<Record<'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey', boolean>> = {}) => ({
+  key: k,
+  ctrlKey: false,
+  metaKey: false,
+  shiftKey: false,
+  altKey: false,
+  ...mods,
+})
 
 describe('editor keys', () => {
   it('letters pick tools, Ctrl/⌘ letters run commands, Delete and Esc do what they say', () => {

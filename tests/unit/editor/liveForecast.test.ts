@@ -6,9 +6,16 @@ import { resolveProcess } from '../../../geometry/rules'
 import type { LiveRequest } from '../../../components/editor/lib/liveRun'
 import { fixtureDocument } from '../../support/factory'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(fixtureDocument())
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 /** The fixture with the outlet channel 10 µm wide: under the film-mask minimum feature (20 µm), over the chrome-mask one (3 µm). */
-const narrow = (): ChipDocument => { const d = doc(); return { ...d, channels: d.channels.map(c => (c.id === 'drops-out' ? { ...c, width: 10 } : c)) } }
+const narrow = (): ChipDocument => {
+  const d = doc()
+  return { ...d, channels: d.channels.map(c => (c.id === 'drops-out' ? { ...c, width: 10 } : c)) }
+}
 const wait = (ms: number) => new Promise(r => setTimeout(r, ms))
 
 describe('live design-rule findings', () => {
@@ -24,7 +31,10 @@ describe('live design-rule findings', () => {
     const scope = effectScope()
     const { findings } = scope.run(() => useLiveForecast(ref(narrow()), { processId }))!
     await wait(200)
-    const about = () => findings.value.filter(f => f.elements.includes('drops-out') && /minimum|feature|narrow/i.test(`${f.rule} ${f.message}`))
+    const about = () =>
+      findings.value.filter(
+        f => f.elements.includes('drops-out') && /minimum|feature|narrow/i.test(`${f.rule} ${f.message}`),
+      )
     expect(about().length).toBeGreaterThan(0)
     processId.value = 'chrome-mask-soft-litho'
     await nextTick()
@@ -35,7 +45,7 @@ describe('live design-rule findings', () => {
 })
 
 describe('live forecast runs', () => {
-  it('the editor\'s lean answer keeps what the editor shows: same summary, inlets and junctions as the full forecast', async () => {
+  it("the editor's lean answer keeps what the editor shows: same summary, inlets and junctions as the full forecast", async () => {
     const { forecastDocument, summarizeForecast } = await import('../../../shared/physics/document')
     const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
     const full = forecastDocument(doc())
@@ -49,12 +59,21 @@ describe('live forecast runs', () => {
   it('edits made while a run is under way are folded into one run of the newest document, which the panel ends on', async () => {
     const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
     // The first run answers late, as a worker busy with a big chip would.
-    const runner = (d: ChipDocument, seq: number) => new Promise<ReturnType<typeof runLiveForecast>>(r => setTimeout(() => r(runLiveForecast(d, seq)), seq === 1 ? 80 : 5))
+    const runner = (d: ChipDocument, seq: number) =>
+      new Promise<ReturnType<typeof runLiveForecast>>(r =>
+        setTimeout(() => r(runLiveForecast(d, seq)), seq === 1 ? 80 : 5),
+      )
     const d = ref(doc())
     const scope = effectScope()
     const { live } = scope.run(() => useLiveForecast(d, { runner }))!
     await wait(10)
-    const faster = { ...d.value, operatingPoints: d.value.operatingPoints.map(o => ({ ...o, inlets: o.inlets.map(i => (i.portId === 'oil-in' ? { ...i, value: i.value * 3 } : i)) })) }
+    const faster = {
+      ...d.value,
+      operatingPoints: d.value.operatingPoints.map(o => ({
+        ...o,
+        inlets: o.inlets.map(i => (i.portId === 'oil-in' ? { ...i, value: i.value * 3 } : i)),
+      })),
+    }
     d.value = faster
     await wait(150)
     const expected = runLiveForecast(faster, 0).summary!.junctions[0]!.dropletDiameterUm
@@ -67,7 +86,8 @@ describe('live forecast runs', () => {
 describe('progress of a slow run', () => {
   it('says "updating" only while a run takes longer than 150 ms', async () => {
     const { runLiveForecast } = await import('../../../components/editor/lib/liveRun')
-    const runner = (d: ChipDocument, seq: number) => new Promise<ReturnType<typeof runLiveForecast>>(r => setTimeout(() => r(runLiveForecast(d, seq)), 300))
+    const runner = (d: ChipDocument, seq: number) =>
+      new Promise<ReturnType<typeof runLiveForecast>>(r => setTimeout(() => r(runLiveForecast(d, seq)), 300))
     const scope = effectScope()
     const { slow, live } = scope.run(() => useLiveForecast(ref(doc()), { runner }))!
     await wait(50)

@@ -9,7 +9,11 @@ import { actions, runAction } from '../../../shared/editor'
 import { regimeMapOption, sizePlotOption } from '../../../components/editor/lib/plotOptions'
 import { fixtureDocument } from '../../support/factory'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(fixtureDocument())
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 const junction = (d: ChipDocument) => forecastDocument(d).junctions.find(j => j.element === 'tj-1')!.forecast!
 
 function render(option: echarts.EChartsOption) {
@@ -19,7 +23,12 @@ function render(option: echarts.EChartsOption) {
 }
 function ratioPlot(d: ChipDocument) {
   const f = junction(d)
-  return sizePlotOption({ points: sweepFlowRatio(f), current: { x: f.flowRateRatio.value, diameterUm: f.dropletDiameter.value * 1e6 }, xName: 'φ', xSymbol: 'φ' })
+  return sizePlotOption({
+    points: sweepFlowRatio(f),
+    current: { x: f.flowRateRatio.value, diameterUm: f.dropletDiameter.value * 1e6 },
+    xName: 'φ',
+    xSymbol: 'φ',
+  })
 }
 
 describe('forecast plots (ECharts)', () => {
@@ -28,7 +37,10 @@ describe('forecast plots (ECharts)', () => {
     const svg = chart.renderToSVGString()
     expect(svg).toMatch(/<svg[^>]+width="300"/)
     expect(svg).toContain('<path')
-    const [x, y] = chart.convertToPixel({ seriesIndex: 2 }, (ratioPlot(doc()).series as { data: number[][] }[])[2]!.data[0]!) as number[]
+    const [x, y] = chart.convertToPixel(
+      { seriesIndex: 2 },
+      (ratioPlot(doc()).series as { data: number[][] }[])[2]!.data[0]!,
+    ) as number[]
     expect(x).toBeGreaterThan(48)
     expect(x).toBeLessThan(300 - 12)
     expect(y).toBeGreaterThan(14)
@@ -46,7 +58,10 @@ describe('forecast plots (ECharts)', () => {
       const f = junction(d)
       // One fixed frame (the first document's axes) so both points are read on the same scale.
       const chart = render(ratioPlot(before))
-      const p = chart.convertToPixel({ seriesIndex: 0 }, [f.flowRateRatio.value, f.dropletDiameter.value * 1e6]) as number[]
+      const p = chart.convertToPixel({ seriesIndex: 0 }, [
+        f.flowRateRatio.value,
+        f.dropletDiameter.value * 1e6,
+      ]) as number[]
       chart.dispose()
       return p
     }

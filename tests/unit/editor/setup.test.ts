@@ -5,7 +5,11 @@ import { actions, runAction, type ActionArgs, type ActionName } from '../../../s
 import { forecastDocument } from '../../../shared/physics/document'
 import { fixtureDocument } from '../../support/factory'
 
-const doc = (): ChipDocument => { const r = parseChipDocument(fixtureDocument()); if (!r.ok) throw new Error('fixture'); return r.document }
+const doc = (): ChipDocument => {
+  const r = parseChipDocument(fixtureDocument())
+  if (!r.ok) throw new Error('fixture')
+  return r.document
+}
 function run<N extends ActionName>(d: ChipDocument, name: N, args: ActionArgs<N>): ChipDocument {
   const r = runAction(d, actions[name] as (d: ChipDocument, a: ActionArgs<N>) => ReturnType<typeof actions.move>, args)
   if (!r.ok) throw new Error(r.refusal.message)
@@ -30,11 +34,15 @@ describe('layers', () => {
   })
 
   it('a zero depth is refused with the schema message', () => {
-    expect(refusal(doc(), 'setLayerField', { id: 'ch50', path: 'depth', value: 0 })).toMatch(/Layer depth must be > 0 µm/)
+    expect(refusal(doc(), 'setLayerField', { id: 'ch50', path: 'depth', value: 0 })).toMatch(
+      /Layer depth must be > 0 µm/,
+    )
   })
 
   it('a layer in use is not removed, and the refusal names what is on it; an empty one goes and marks let go of it', () => {
-    expect(refusal(doc(), 'removeLayer', { id: 'ch50' })).toMatch(/Layer "Channels" still holds .*tj-1.*move or delete them first/)
+    expect(refusal(doc(), 'removeLayer', { id: 'ch50' })).toMatch(
+      /Layer "Channels" still holds .*tj-1.*move or delete them first/,
+    )
     const created: string[] = []
     let d = run(doc(), 'addLayer', { depth: 20, created })
     d = run(d, 'setField', { id: 'align-1', path: 'layerIds', value: ['ch50', created[0]] })
@@ -80,7 +88,9 @@ describe('operating points', () => {
     let d = run(doc(), 'addOperatingPoint', {})
     d = run(d, 'removeOperatingPoint', { id: 'op-2' })
     expect(d.activeOperatingPoint).toBe('op-1')
-    expect(refusal(d, 'removeOperatingPoint', { id: 'op-1' })).toMatch(/only operating point: add another before removing it/)
+    expect(refusal(d, 'removeOperatingPoint', { id: 'op-1' })).toMatch(
+      /only operating point: add another before removing it/,
+    )
   })
 })
 
@@ -89,7 +99,12 @@ describe('channel bends', () => {
     const inserted: number[] = []
     const d = run(doc(), 'insertChannelPoint', { id: 'water-feed', point: { x: 5000, y: 4000 }, inserted })
     expect(inserted).toEqual([2])
-    expect(d.channels.find(c => c.id === 'water-feed')!.points).toEqual([{ x: 6500, y: 5500 }, { x: 5000, y: 5500 }, { x: 5000, y: 4000 }, { x: 5000, y: 3200 }])
+    expect(d.channels.find(c => c.id === 'water-feed')!.points).toEqual([
+      { x: 6500, y: 5500 },
+      { x: 5000, y: 5500 },
+      { x: 5000, y: 4000 },
+      { x: 5000, y: 3200 },
+    ])
   })
 
   it('dragging a bend moves only it; dragging an end lets go of its terminal, dropping it on one attaches it', () => {
@@ -99,13 +114,20 @@ describe('channel bends', () => {
     expect(ch().start).toEqual({ element: 'water-in', terminal: 'port' })
     d = run(d, 'moveChannelPoint', { id: 'water-feed', index: 0, point: { x: 7000, y: 6000 } })
     expect(ch().start).toBeUndefined()
-    d = run(d, 'moveChannelPoint', { id: 'water-feed', index: 0, point: { x: 6500, y: 5500 }, attach: { element: 'water-in', terminal: 'port' } })
+    d = run(d, 'moveChannelPoint', {
+      id: 'water-feed',
+      index: 0,
+      point: { x: 6500, y: 5500 },
+      attach: { element: 'water-in', terminal: 'port' },
+    })
     expect(ch().start).toEqual({ element: 'water-in', terminal: 'port' })
   })
 
   it('removes a bend; a two-point channel keeps its points and says to delete the channel instead', () => {
     const d = run(doc(), 'removeChannelPoint', { id: 'water-feed', index: 1 })
     expect(d.channels.find(c => c.id === 'water-feed')!.points).toHaveLength(2)
-    expect(refusal(d, 'removeChannelPoint', { id: 'water-feed', index: 0 })).toMatch(/needs at least two points: delete the channel instead/)
+    expect(refusal(d, 'removeChannelPoint', { id: 'water-feed', index: 0 })).toMatch(
+      /needs at least two points: delete the channel instead/,
+    )
   })
 })

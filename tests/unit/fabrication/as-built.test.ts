@@ -25,7 +25,16 @@ function stepChip(): ChipDocument {
 }
 const summary = (doc: ChipDocument): RevisionSummary => {
   const s = summarizeForecast(forecastDocument(doc))
-  return { junctionKinds: [], counts: { channels: 0, components: 0, ports: 0, layers: 0 }, operatingPoint: s.operatingPoint, junctions: s.junctions, inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar })), forecastError: null, findings: { errors: 0, warnings: 0, infos: 0 }, processId: 'p' }
+  return {
+    junctionKinds: [],
+    counts: { channels: 0, components: 0, ports: 0, layers: 0 },
+    operatingPoint: s.operatingPoint,
+    junctions: s.junctions,
+    inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar })),
+    forecastError: null,
+    findings: { errors: 0, warnings: 0, infos: 0 },
+    processId: 'p',
+  }
 }
 
 describe('applyAsBuilt', () => {
@@ -50,18 +59,47 @@ describe('applyAsBuilt', () => {
 
   it('replaces measured widths at named features and leaves the rest as drawn', () => {
     const doc = fixture()
-    expect(measurableWidths(doc).map(w => `${w.elementId}.${w.field}`)).toEqual(['oil-feed.width', 'water-feed.width', 'drops-out.width', 'tj-1.mainWidth', 'tj-1.inletWidth'])
-    const built = applyAsBuilt(doc, { depths: [{ layerId: 'ch50', depthUm: 47 }], widths: [{ elementId: 'tj-1', field: 'mainWidth', widthUm: 96 }, { elementId: 'oil-feed', field: 'width', widthUm: 103 }] })
+    expect(measurableWidths(doc).map(w => `${w.elementId}.${w.field}`)).toEqual([
+      'oil-feed.width',
+      'water-feed.width',
+      'drops-out.width',
+      'tj-1.mainWidth',
+      'tj-1.inletWidth',
+    ])
+    const built = applyAsBuilt(doc, {
+      depths: [{ layerId: 'ch50', depthUm: 47 }],
+      widths: [
+        { elementId: 'tj-1', field: 'mainWidth', widthUm: 96 },
+        { elementId: 'oil-feed', field: 'width', widthUm: 103 },
+      ],
+    })
     expect(built.layers[0]!.depth).toBe(47)
-    expect((built.components[0] as { mainWidth: number, inletWidth: number })).toMatchObject({ mainWidth: 96, inletWidth: 50 })
+    expect(built.components[0] as { mainWidth: number; inletWidth: number }).toMatchObject({
+      mainWidth: 96,
+      inletWidth: 50,
+    })
     expect(built.channels.map(c => c.width)).toEqual([103, 50, 100])
   })
 
   it('names an unknown layer, element or width field', () => {
     const doc = fixture()
-    const fails = (m: Parameters<typeof applyAsBuilt>[1]) => { try { applyAsBuilt(doc, m); return null } catch (e) { return e as AsBuiltError } }
-    expect(fails({ depths: [{ layerId: 'deep', depthUm: 5 }], widths: [] })).toMatchObject({ field: 'depths.0.layerId', message: 'No layer "deep" on this chip (its layers: ch50)' })
-    expect(fails({ depths: [], widths: [{ elementId: 'nope', field: 'width', widthUm: 5 }] })).toMatchObject({ field: 'widths.0.elementId' })
-    expect(fails({ depths: [], widths: [{ elementId: 'tj-1', field: 'armLength', widthUm: 5 }] })?.message).toBe('"tj-1" has no width "armLength" (measurable: mainWidth, inletWidth)')
+    const fails = (m: Parameters<typeof applyAsBuilt>[1]) => {
+      try {
+        applyAsBuilt(doc, m)
+        return null
+      } catch (e) {
+        return e as AsBuiltError
+      }
+    }
+    expect(fails({ depths: [{ layerId: 'deep', depthUm: 5 }], widths: [] })).toMatchObject({
+      field: 'depths.0.layerId',
+      message: 'No layer "deep" on this chip (its layers: ch50)',
+    })
+    expect(fails({ depths: [], widths: [{ elementId: 'nope', field: 'width', widthUm: 5 }] })).toMatchObject({
+      field: 'widths.0.elementId',
+    })
+    expect(fails({ depths: [], widths: [{ elementId: 'tj-1', field: 'armLength', widthUm: 5 }] })?.message).toBe(
+      '"tj-1" has no width "armLength" (measurable: mainWidth, inletWidth)',
+    )
   })
 })

@@ -10,7 +10,7 @@ import { loadDocumentFixture } from '../schemas/load-fixture'
 const fixture = (): ChipDocument => chipDocument.parse(loadDocumentFixture('t-junction-basic.json'))
 
 describe('applyBenchSizes', () => {
-  it('sets a T-junction\'s main and inlet widths and its layer depth, and the forecast reads them', () => {
+  it("sets a T-junction's main and inlet widths and its layer depth, and the forecast reads them", () => {
     const doc = fixture()
     const tj = doc.components.find(c => c.kind === 't-junction')!
     const out = applyBenchSizes(doc, undefined, { mainWidthUm: 95, inletWidthUm: 48, depthUm: 45 })
@@ -26,11 +26,15 @@ describe('applyBenchSizes', () => {
     expect(inputs.depth.value * 1e6).toBeCloseTo(45, 9)
   })
 
-  it('applies a nozzle\'s sizes to its array component and refuses an inlet width a step nozzle does not have', () => {
+  it("applies a nozzle's sizes to its array component and refuses an inlet width a step nozzle does not have", () => {
     const doc = planParallelChip({ nozzles: 4, nozzlesPerBank: 4 }).document
     const nozzle = doc.components.find(c => c.kind in JUNCTION_WIDTH_FIELDS)!
     const out = applyBenchSizes(doc, `${nozzle.id}[2]`, { mainWidthUm: 11, depthUm: 6 })
-    expect((out.components.find(c => c.id === nozzle.id) as Record<string, unknown>)[JUNCTION_WIDTH_FIELDS[nozzle.kind]!.main]).toBe(11)
+    expect(
+      (out.components.find(c => c.id === nozzle.id) as Record<string, unknown>)[
+        JUNCTION_WIDTH_FIELDS[nozzle.kind]!.main
+      ],
+    ).toBe(11)
     expect(out.layers.find(l => l.id === nozzle.layerId)!.depth).toBe(6)
     const refuse = () => applyBenchSizes(doc, nozzle.id, { inletWidthUm: 11 })
     expect(refuse).toThrow(AsBuiltError)
@@ -41,7 +45,23 @@ describe('applyBenchSizes', () => {
     const doc = fixture()
     expect(() => applyBenchSizes(doc, 'nope', { depthUm: 40 })).toThrow('No junction "nope" on this chip')
     const layerId = doc.layers[0]!.id
-    const withResistor = { ...doc, components: [...doc.components, { id: 'sp-1', kind: 'serpentine', layerId, at: { x: 0, y: 0 }, rotation: 0, turns: 2, pitch: 200, width: 50, totalLength: 5000 }] } as unknown as ChipDocument
+    const withResistor = {
+      ...doc,
+      components: [
+        ...doc.components,
+        {
+          id: 'sp-1',
+          kind: 'serpentine',
+          layerId,
+          at: { x: 0, y: 0 },
+          rotation: 0,
+          turns: 2,
+          pitch: 200,
+          width: 50,
+          totalLength: 5000,
+        },
+      ],
+    } as unknown as ChipDocument
     expect(() => applyBenchSizes(withResistor, 'sp-1', { depthUm: 40 })).toThrow('"sp-1" is not a junction')
   })
 })

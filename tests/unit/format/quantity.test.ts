@@ -1,5 +1,15 @@
 import { describe, expect, it } from 'vitest'
-import { formatDocumentValue, formatFlowUlMin, formatLengthUm, formatNumber, formatPercent, formatPressureMbar, formatRateHz, formatSi, formatVolumePl } from '#shared/format/quantity'
+import {
+  formatDocumentValue,
+  formatFlowUlMin,
+  formatLengthUm,
+  formatNumber,
+  formatPercent,
+  formatPressureMbar,
+  formatRateHz,
+  formatSi,
+  formatVolumePl,
+} from '#shared/format/quantity'
 import { formatDate, localeFromHeader } from '#shared/format/date'
 
 const NN = '\u202F'
@@ -9,9 +19,17 @@ const NN = '\u202F'
 describe('quantities as the trade writes them', () => {
   const table: Array<[string, () => string, string]> = [
     ['SI §5.4.3 space between number and unit', () => formatLengthUm(110), '110 µm'],
-    ['SI Table 7 prefix: 40 500 µm is 40.5 mm (the "Spacing 40500 µm" of issue 16)', () => formatLengthUm(40500), '40.5 mm'],
+    [
+      'SI Table 7 prefix: 40 500 µm is 40.5 mm (the "Spacing 40500 µm" of issue 16)',
+      () => formatLengthUm(40500),
+      '40.5 mm',
+    ],
     ['no "1.1e+2 µm": 3 figures, no exponent inside 10⁻³…10⁶', () => formatLengthUm(110.4), '110 µm'],
-    ['2 figures for an estimate outside validity (common practice, no source)', () => formatLengthUm(104.6, 'indicative'), '100 µm'],
+    [
+      '2 figures for an estimate outside validity (common practice, no source)',
+      () => formatLengthUm(104.6, 'indicative'),
+      '100 µm',
+    ],
     ['rounding before the prefix: 999.7 µm at 3 figures', () => formatLengthUm(999.7), '1 mm'],
     ['sub-micrometre lengths in nm', () => formatLengthUm(0.25), '250 nm'],
     ['zero keeps the base unit', () => formatLengthUm(0), '0 µm'],
@@ -41,13 +59,13 @@ describe('quantities as the trade writes them', () => {
   })
 })
 
-describe('dates in the viewer\'s locale, one style per context (ECMA-402 Intl.DateTimeFormat)', () => {
+describe("dates in the viewer's locale, one style per context (ECMA-402 Intl.DateTimeFormat)", () => {
   const at = '2026-12-02T17:45:00Z'
   it('a moment has date and time, in the given zone', () => {
     expect(formatDate(at, 'moment', { locale: 'en-GB', timeZone: 'Europe/London' })).toBe('2 Dec 2026, 17:45')
     expect(formatDate(at, 'moment', { locale: 'en-US', timeZone: 'America/New_York' })).toBe('Dec 2, 2026, 12:45 PM')
   })
-  it('before the browser\'s zone is known, UTC says so', () => {
+  it("before the browser's zone is known, UTC says so", () => {
     expect(formatDate(at, 'moment', { locale: 'en-GB', timeZone: 'UTC' })).toBe('2 Dec 2026, 17:45 UTC')
   })
   it('a day has no time', () => {

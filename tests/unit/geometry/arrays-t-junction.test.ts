@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest'
 import { parseChipDocument } from '#shared/schemas/chip'
-import { ladderNonUniformity, planParallelChip, planTJunctionChip, rectResistancePerViscosity, waferFor } from '~~/geometry/arrays'
+import {
+  ladderNonUniformity,
+  planParallelChip,
+  planTJunctionChip,
+  rectResistancePerViscosity,
+  waferFor,
+} from '~~/geometry/arrays'
 import { buildOutlines } from '~~/geometry/outlines'
 import { BUILT_IN_PROCESSES, checkDesignRules } from '~~/geometry/rules'
 
@@ -12,32 +18,39 @@ describe('parallel T-junction chip generator', () => {
 
   it('builds a document the schema accepts, with N T-junction components', () => {
     expect(parseChipDocument(JSON.parse(JSON.stringify(doc))).ok).toBe(true)
-    expect(doc.components.filter((c) => c.kind === 't-junction')).toHaveLength(12)
+    expect(doc.components.filter(c => c.kind === 't-junction')).toHaveLength(12)
     expect(plan.banks).toBe(2)
     expect(plan.warnings).toEqual([])
   })
   it('has no error or warning findings under either built-in process (default parameters)', () => {
     for (const process of BUILT_IN_PROCESSES) {
       for (const d of [doc, planTJunctionChip({ junctions: 8 }).document]) {
-        expect(checkDesignRules(d, process).filter((f) => f.severity !== 'info')).toEqual([])
+        expect(checkDesignRules(d, process).filter(f => f.severity !== 'info')).toEqual([])
       }
     }
   })
   it('every junction is its own connected part on the junction layer, each manifold one part on the deep layer', () => {
     const o = buildOutlines(doc)
-    expect(o.layers.find((l) => l.layerId === 'junction')!.polygons).toHaveLength(12 + 2) // + 2 alignment crosses
-    expect(o.layers.find((l) => l.layerId === 'deep')!.polygons).toHaveLength(2 * 2 + 2) // 2 manifolds per bank
+    expect(o.layers.find(l => l.layerId === 'junction')!.polygons).toHaveLength(12 + 2) // + 2 alignment crosses
+    expect(o.layers.find(l => l.layerId === 'deep')!.polygons).toHaveLength(2 * 2 + 2) // 2 manifolds per bank
   })
   it('sizes both manifolds to the non-uniformity target from the drawn channel widths and lengths', () => {
-    const junctionLayer = doc.layers.find((l) => l.id === 'junction')!.depth
-    const deep = doc.layers.find((l) => l.id === 'deep')!.depth
-    const channel = (id: string) => doc.channels.find((c) => c.id === id)!
-    const length = (id: string) => channel(id).points.slice(1).reduce((s, p, i) => s + Math.hypot(p.x - channel(id).points[i]!.x, p.y - channel(id).points[i]!.y), 0)
-    const tj = doc.components.find((c) => c.id === 'b0-tj0')!
+    const junctionLayer = doc.layers.find(l => l.id === 'junction')!.depth
+    const deep = doc.layers.find(l => l.id === 'deep')!.depth
+    const channel = (id: string) => doc.channels.find(c => c.id === id)!
+    const length = (id: string) =>
+      channel(id)
+        .points.slice(1)
+        .reduce((s, p, i) => s + Math.hypot(p.x - channel(id).points[i]!.x, p.y - channel(id).points[i]!.y), 0)
+    const tj = doc.components.find(c => c.id === 'b0-tj0')!
     if (tj.kind !== 't-junction') throw new Error('expected a T-junction')
     const pitch = length('b0-cm0')
     // Continuous path: branch + main arms + outlet channel; dispersed path: branch + side arm.
-    const rc = rectResistancePerViscosity(tj.mainWidth, junctionLayer, length('b0-cb0') + 2 * tj.armLength + length('b0-ob0'))
+    const rc = rectResistancePerViscosity(
+      tj.mainWidth,
+      junctionLayer,
+      length('b0-cb0') + 2 * tj.armLength + length('b0-ob0'),
+    )
     const rd = rectResistancePerViscosity(tj.inletWidth, junctionLayer, length('b0-db0') + tj.armLength)
     const dc = ladderNonUniformity(rectResistancePerViscosity(channel('b0-cm0').width, deep, pitch), rc, 6)
     const dd = ladderNonUniformity(rectResistancePerViscosity(channel('b0-dm0').width, deep, pitch), rd, 6)
@@ -45,13 +58,15 @@ describe('parallel T-junction chip generator', () => {
     expect(dd).toBeLessThanOrEqual(0.01)
     expect(dc).toBeCloseTo(plan.continuous.nonUniformity, 9)
     // Narrowest that meets it: 2 µm narrower misses the target.
-    expect(ladderNonUniformity(rectResistancePerViscosity(channel('b0-cm0').width - 2, deep, pitch), rc, 6)).toBeGreaterThan(0.01)
+    expect(
+      ladderNonUniformity(rectResistancePerViscosity(channel('b0-cm0').width - 2, deep, pitch), rc, 6),
+    ).toBeGreaterThan(0.01)
   })
   it('lengthens the branches when the widest allowed manifold cannot meet the target', () => {
     const wide = planTJunctionChip({ junctions: 16, junctionsPerBank: 16, maxManifoldWidth: 1000 })
     expect(wide.continuous.branchLength).toBeGreaterThan(2000)
     expect(wide.continuous.nonUniformity).toBeLessThanOrEqual(0.01)
-    expect(checkDesignRules(wide.document, BUILT_IN_PROCESSES[0]!).filter((f) => f.severity !== 'info')).toEqual([])
+    expect(checkDesignRules(wide.document, BUILT_IN_PROCESSES[0]!).filter(f => f.severity !== 'info')).toEqual([])
   })
 })
 
@@ -83,6 +98,8 @@ describe('unbounded plans (benchmarks only)', () => {
     const unchecked = planParallelChip({ nozzles: 256, unbounded: true }).document
     expect(unchecked).toEqual(checked)
     expect(() => planParallelChip({ nozzles: 16384 })).toThrow(/at most 40 000 pieces/)
-    expect(planParallelChip({ nozzles: 16384, unbounded: true }).document.components.length).toBeGreaterThanOrEqual(16384)
+    expect(planParallelChip({ nozzles: 16384, unbounded: true }).document.components.length).toBeGreaterThanOrEqual(
+      16384,
+    )
   })
 })

@@ -7,9 +7,9 @@ describe('parallel step-nozzle chip generator', () => {
   it('builds a valid document with N nozzles whose channels all meet their terminals', () => {
     const plan = planParallelChip({ nozzles: 40, nozzlesPerBank: 16 })
     expect(plan.banks).toBe(3)
-    expect(plan.document.components.filter((c) => c.kind === 'step-nozzle')).toHaveLength(40)
+    expect(plan.document.components.filter(c => c.kind === 'step-nozzle')).toHaveLength(40)
     const findings = checkDesignRules(plan.document, BUILT_IN_PROCESSES[0]!)
-    expect(findings.filter((f) => f.severity !== 'info')).toEqual([])
+    expect(findings.filter(f => f.severity !== 'info')).toEqual([])
   })
   it('sizes the manifold to the non-uniformity target', () => {
     const plan = planParallelChip({ nozzles: 128, nozzlesPerBank: 128, targetNonUniformity: 0.02 })

@@ -1,7 +1,13 @@
 // Tessellation is bounded by design: the segment count comes from the chord tolerance and is capped, so a
 // stored document with an absurd radius costs a bounded amount of work (it once looped without end).
 import { describe, expect, it } from 'vitest'
-import { MAX_CIRCLE_SEGMENTS, MIN_CIRCLE_SEGMENTS, buildOutlines, circlePolygon, circleSegments } from '~~/geometry/outlines'
+import {
+  MAX_CIRCLE_SEGMENTS,
+  MIN_CIRCLE_SEGMENTS,
+  buildOutlines,
+  circlePolygon,
+  circleSegments,
+} from '~~/geometry/outlines'
 import { exportDxf } from '~~/geometry/dxf'
 import type { ChipDocument } from '#shared/schemas/chip'
 import { loadDocumentFixture } from '../schemas/load-fixture'
@@ -12,7 +18,15 @@ describe('circle tessellation', () => {
     expect(circlePolygon([0, 0], 5e28, 0.1)[0]).toHaveLength(MAX_CIRCLE_SEGMENTS)
   })
   it('tiny and invalid radii or tolerances give the minimum', () => {
-    for (const [r, tol] of [[0.01, 0.1], [0, 0.1], [-5, 0.1], [Number.NaN, 0.1], [Infinity, 0.1], [100, 0], [100, Number.NaN]] as const) {
+    for (const [r, tol] of [
+      [0.01, 0.1],
+      [0, 0.1],
+      [-5, 0.1],
+      [Number.NaN, 0.1],
+      [Infinity, 0.1],
+      [100, 0],
+      [100, Number.NaN],
+    ] as const) {
       expect(circleSegments(r, tol)).toBe(MIN_CIRCLE_SEGMENTS)
     }
   })

@@ -6,17 +6,73 @@ import { renderMicrograph, scatterDrops } from '../../../shared/imaging/syntheti
 import { describeSample } from '../../../shared/physics/calibration/stats'
 
 const cases = [
-  { name: 'clean, 30 px drops', size: 768, count: 60, d: 30, cv: 0.03, noise: 2, blur: 0.5, unevenness: 0, touching: 0 },
-  { name: 'noisy, blurred, uneven light', size: 1024, count: 120, d: 36, cv: 0.05, noise: 8, blur: 1.2, unevenness: 0.4, touching: 0 },
-  { name: 'touching pairs among separated drops', size: 1024, count: 100, d: 40, cv: 0.04, noise: 5, blur: 1, unevenness: 0.3, touching: 6 },
-  { name: 'smaller drops, 24 px', size: 640, count: 80, d: 24, cv: 0.06, noise: 4, blur: 0.7, unevenness: 0.2, touching: 0 },
+  {
+    name: 'clean, 30 px drops',
+    size: 768,
+    count: 60,
+    d: 30,
+    cv: 0.03,
+    noise: 2,
+    blur: 0.5,
+    unevenness: 0,
+    touching: 0,
+  },
+  {
+    name: 'noisy, blurred, uneven light',
+    size: 1024,
+    count: 120,
+    d: 36,
+    cv: 0.05,
+    noise: 8,
+    blur: 1.2,
+    unevenness: 0.4,
+    touching: 0,
+  },
+  {
+    name: 'touching pairs among separated drops',
+    size: 1024,
+    count: 100,
+    d: 40,
+    cv: 0.04,
+    noise: 5,
+    blur: 1,
+    unevenness: 0.3,
+    touching: 6,
+  },
+  {
+    name: 'smaller drops, 24 px',
+    size: 640,
+    count: 80,
+    d: 24,
+    cv: 0.06,
+    noise: 4,
+    blur: 0.7,
+    unevenness: 0.2,
+    touching: 0,
+  },
 ]
 
 describe('measureDrops on synthetic micrographs', () => {
   for (const c of cases) {
     it(c.name, () => {
-      const { separated, touching } = scatterDrops({ width: c.size, height: c.size, count: c.count, meanDiameter: c.d, cv: c.cv, touching: c.touching, seed: c.count })
-      const image = renderMicrograph({ width: c.size, height: c.size, drops: [...separated, ...touching], noise: c.noise, blur: c.blur, unevenness: c.unevenness, seed: c.count })
+      const { separated, touching } = scatterDrops({
+        width: c.size,
+        height: c.size,
+        count: c.count,
+        meanDiameter: c.d,
+        cv: c.cv,
+        touching: c.touching,
+        seed: c.count,
+      })
+      const image = renderMicrograph({
+        width: c.size,
+        height: c.size,
+        drops: [...separated, ...touching],
+        noise: c.noise,
+        blur: c.blur,
+        unevenness: c.unevenness,
+        seed: c.count,
+      })
       const umPerPx = 0.8
       const result = measureDrops(image, { umPerPx })
       const truth = describeSample(separated.map(s => s.diameter * umPerPx))
@@ -30,12 +86,20 @@ describe('measureDrops on synthetic micrographs', () => {
   }
 
   it('rejects drops cut by the image edge', () => {
-    const image = renderMicrograph({ width: 200, height: 200, drops: [{ x: 100, y: 100, diameter: 40 }, { x: 5, y: 60, diameter: 40 }], noise: 2 })
+    const image = renderMicrograph({
+      width: 200,
+      height: 200,
+      drops: [
+        { x: 100, y: 100, diameter: 40 },
+        { x: 5, y: 60, diameter: 40 },
+      ],
+      noise: 2,
+    })
     const result = measureDrops(image, { umPerPx: 1 })
     expect(result.drops.map(d => d.reason ?? 'ok').sort()).toEqual(['edge', 'ok'])
   })
 
-  it('takes the user\'s exclusions out of the distribution and can put them back', () => {
+  it("takes the user's exclusions out of the distribution and can put them back", () => {
     const { separated } = scatterDrops({ width: 400, height: 400, count: 10, meanDiameter: 30, cv: 0.05 })
     const result = measureDrops(renderMicrograph({ width: 400, height: 400, drops: separated }), { umPerPx: 1 })
     const out = excludeDrops(result, [result.drops[0]!.id])
@@ -45,6 +109,8 @@ describe('measureDrops on synthetic micrographs', () => {
   })
 
   it('refuses a scale that is not > 0', () => {
-    expect(() => measureDrops({ width: 2, height: 2, data: new Uint8Array(4) }, { umPerPx: 0 })).toThrow(/Scale must be > 0 µm per pixel/)
+    expect(() => measureDrops({ width: 2, height: 2, data: new Uint8Array(4) }, { umPerPx: 0 })).toThrow(
+      /Scale must be > 0 µm per pixel/,
+    )
   })
 })

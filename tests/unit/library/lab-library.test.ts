@@ -8,8 +8,13 @@ const K = (c: number) => (c + 273.15) as never
 
 // Invented lab values.
 const table: LabLiquidData = {
-  id: 'lab-oil', name: 'Lab oil', source: 'measured in our lab',
-  table: [{ temperatureC: 40, viscosityMPaS: 2, densityKgPerM3: 790 }, { temperatureC: 20, viscosityMPaS: 4, densityKgPerM3: 810 }],
+  id: 'lab-oil',
+  name: 'Lab oil',
+  source: 'measured in our lab',
+  table: [
+    { temperatureC: 40, viscosityMPaS: 2, densityKgPerM3: 790 },
+    { temperatureC: 20, viscosityMPaS: 4, densityKgPerM3: 810 },
+  ],
 }
 
 describe('lab liquids', () => {
@@ -33,7 +38,10 @@ describe('lab liquids', () => {
   })
 
   it('a single row is valid ±10 K around it, like the built-in oils', () => {
-    const one = labLiquid({ ...table, table: [{ temperatureC: 25, viscosityMPaS: 3, densityKgPerM3: 800, surfaceTensionMNPerM: 27 }] })
+    const one = labLiquid({
+      ...table,
+      table: [{ temperatureC: 25, viscosityMPaS: 3, densityKgPerM3: 800, surfaceTensionMNPerM: 27 }],
+    })
     expect(one.properties(K(34)).liquid.viscosity.valid).toBe(true)
     expect(one.properties(K(36)).liquid.viscosity.valid).toBe(false)
     expect(one.properties(K(30)).liquid.surfaceTension!.value).toBeCloseTo(27e-3, 15)
@@ -48,20 +56,50 @@ describe('merged library', () => {
   })
 
   it('a lab pair wins over the built-in pair of the same liquids and surfactant; a new surfactant is listed', () => {
-    const lib = mergeLibrary({ liquids: [table], pairs: [
-      { liquids: ['n-hexadecane', 'water'], surfactant: 'sorbitan-monooleate', interfacialTensionMNPerM: 3.1, source: 'measured in our lab' },
-      { liquids: ['water', 'lab-oil'], surfactant: 'our-mix', interfacialTensionMNPerM: 2, source: 'measured in our lab' },
-    ] })
-    expect(findPair('water', 'n-hexadecane', 'sorbitan-monooleate', lib.pairs)!.interfacialTension).toBeCloseTo(3.1e-3, 15)
+    const lib = mergeLibrary({
+      liquids: [table],
+      pairs: [
+        {
+          liquids: ['n-hexadecane', 'water'],
+          surfactant: 'sorbitan-monooleate',
+          interfacialTensionMNPerM: 3.1,
+          source: 'measured in our lab',
+        },
+        {
+          liquids: ['water', 'lab-oil'],
+          surfactant: 'our-mix',
+          interfacialTensionMNPerM: 2,
+          source: 'measured in our lab',
+        },
+      ],
+    })
+    expect(findPair('water', 'n-hexadecane', 'sorbitan-monooleate', lib.pairs)!.interfacialTension).toBeCloseTo(
+      3.1e-3,
+      15,
+    )
     expect(findPair('water', 'n-hexadecane', 'sorbitan-monooleate')!.interfacialTension).toBeCloseTo(4e-3, 15) // built-in untouched
     expect(lib.surfactants).toContain('our-mix')
-    expect(lib.liquids.some((l) => l.id === 'lab-oil')).toBe(true)
+    expect(lib.liquids.some(l => l.id === 'lab-oil')).toBe(true)
   })
 })
 
 describe('lab processes', () => {
   it('carry the lab source on every rule value and are found beside the built-in ones', () => {
-    const data = { id: 'lab-fine', name: 'Fine', material: 'PDMS' as const, minFeature: 5, minGap: 5, minDepth: 2, maxDepth: 100, maxWidthToDepth: 15, maxWallDepthToWidth: 4, portEdgeDistance: 800, portSpacing: 800, bondPressureLimitMbar: 1500, source: 'measured in our lab' }
+    const data = {
+      id: 'lab-fine',
+      name: 'Fine',
+      material: 'PDMS' as const,
+      minFeature: 5,
+      minGap: 5,
+      minDepth: 2,
+      maxDepth: 100,
+      maxWidthToDepth: 15,
+      maxWallDepthToWidth: 4,
+      portEdgeDistance: 800,
+      portSpacing: 800,
+      bondPressureLimitMbar: 1500,
+      source: 'measured in our lab',
+    }
     expect(labProcess(data).sources.bondPressureLimitMbar).toContain('measured in our lab')
     expect(findProcessIn('lab-fine', [data])!.minFeature).toBe(5)
     expect(findProcessIn('lab-fine')).toBeUndefined()

@@ -24,14 +24,18 @@ describe('starter chips', () => {
         const f = j.forecast
         expect(f, `${kind} ${j.id}: ${JSON.stringify(answer.warnings)}`).not.toBeNull()
         expect(f!.regime.value).toBe(expected.regime)
-        expect((f!.warnings ?? []).map((w) => w.code).filter((c) => !(expected.standing as readonly string[]).includes(c))).toEqual([])
+        expect(
+          (f!.warnings ?? []).map(w => w.code).filter(c => !(expected.standing as readonly string[]).includes(c)),
+        ).toEqual([])
         expect(f!.frequency.value).toBeGreaterThan(0)
       }
-      expect(answer.warnings.map((w) => w.code).filter((c) => !(expected.standing as readonly string[]).includes(c))).toEqual([])
+      expect(
+        answer.warnings.map(w => w.code).filter(c => !(expected.standing as readonly string[]).includes(c)),
+      ).toEqual([])
       // The T-junction's squeezing law is a published one, so its stored summary is marked valid.
-      expect(summarizeForecast(answer).junctions.every((j) => j.valid)).toBe(expected.valid)
+      expect(summarizeForecast(answer).junctions.every(j => j.valid)).toBe(expected.valid)
       for (const process of BUILT_IN_PROCESSES) {
-        const errors = checkDesignRules(doc, process).filter((f) => f.severity === 'error')
+        const errors = checkDesignRules(doc, process).filter(f => f.severity === 'error')
         expect(errors, `${kind} under ${process.id}`).toEqual([])
       }
     })
@@ -47,10 +51,16 @@ describe('starter chips', () => {
 describe('names in the starter and demo chips read as the trade writes them', () => {
   // "40 um" on screen is the ASCII stand-in for µm that a person would never type in a name (issue 16, seen on the
   // revision page and in the compare table).
-  const names = (doc: { name?: string, operatingPoints: Array<{ name: string }>, layers: Array<{ name: string }> }) =>
-    [doc.name ?? '', ...doc.operatingPoints.map(o => o.name), ...doc.layers.map(l => l.name)]
+  const names = (doc: { name?: string; operatingPoints: Array<{ name: string }>; layers: Array<{ name: string }> }) => [
+    doc.name ?? '',
+    ...doc.operatingPoints.map(o => o.name),
+    ...doc.layers.map(l => l.name),
+  ]
   it('no "um" for micrometres in a starter or demo chip\'s names', () => {
-    const all = [...STARTERS.map(k => starterDocument(`Starter ${k}`, k)), ...demoDesigns().flatMap(d => d.revisions.map(r => r.document))]
+    const all = [
+      ...STARTERS.map(k => starterDocument(`Starter ${k}`, k)),
+      ...demoDesigns().flatMap(d => d.revisions.map(r => r.document)),
+    ]
     const asciiMicro = all.flatMap(d => names(d as never)).filter(n => /\d\s?um\b/.test(n))
     expect(asciiMicro).toEqual([])
     expect(all.length).toBeGreaterThan(STARTERS.length)

@@ -8,13 +8,17 @@ import { chipDocument, type ChipDocument } from '#shared/schemas/chip'
 import { loadDocumentFixture } from '../schemas/load-fixture'
 
 const fixture = (): ChipDocument => chipDocument.parse(loadDocumentFixture('t-junction-basic.json'))
-const phasesOf = (doc: ChipDocument) => new Map(forecastDocument(doc).network.inlets.map(i => [i.port, i.phase] as const))
+const phasesOf = (doc: ChipDocument) =>
+  new Map(forecastDocument(doc).network.inlets.map(i => [i.port, i.phase] as const))
 const M3S_PER_UL_MIN = 1e-9 / 60
 
 describe('benchPoint', () => {
   it('drives each phase by the flow typed at the bench, and the forecast runs at it', () => {
     const doc = fixture()
-    const c = benchConditions.parse({ continuousFlow: { value: 12, unit: 'uL/min' }, dispersedFlow: { value: 90, unit: 'uL/h' } })
+    const c = benchConditions.parse({
+      continuousFlow: { value: 12, unit: 'uL/min' },
+      dispersedFlow: { value: 90, unit: 'uL/h' },
+    })
     const p = benchPoint(doc, 'op-1', c, phasesOf(doc))!
     expect(p.applied).toEqual(['continuous flow 12 µL/min', 'dispersed flow 90 µL/h'])
     const inlets = forecastDocument(p.document, p.operatingPointId).network.inlets
@@ -29,7 +33,12 @@ describe('benchPoint', () => {
     const c = benchConditions.parse({ dispersedPressureMbar: 60, temperatureC: 30 })
     const p = benchPoint(doc, undefined, c, phasesOf(doc))!
     const op = p.document.operatingPoints[0]!
-    expect(op.inlets.find(s => s.portId === 'water-in')).toEqual({ portId: 'water-in', mode: 'pressure', value: 60, unit: 'mbar' })
+    expect(op.inlets.find(s => s.portId === 'water-in')).toEqual({
+      portId: 'water-in',
+      mode: 'pressure',
+      value: 60,
+      unit: 'mbar',
+    })
     expect(op.inlets.find(s => s.portId === 'oil-in')!.mode).toBe('flow')
     expect(op.temperatureC).toBe(30)
     const water = forecastDocument(p.document).network.inlets.find(i => i.port === 'water-in')!

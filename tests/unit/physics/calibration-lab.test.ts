@@ -1,7 +1,12 @@
 // The lab calibration's statistics against independent values.
 import { describe, expect, it } from 'vitest'
 import { describeSample } from '../../../shared/physics/calibration/stats'
-import { calibratedDiameterUm, fitLabCalibrations, plugDiameterUm, type CalibrationRun } from '../../../shared/physics/calibration/lab'
+import {
+  calibratedDiameterUm,
+  fitLabCalibrations,
+  plugDiameterUm,
+  type CalibrationRun,
+} from '../../../shared/physics/calibration/lab'
 import { fitThroughOrigin } from '../../../shared/physics/calibration/fit'
 
 describe('describeSample', () => {
@@ -10,10 +15,36 @@ describe('describeSample', () => {
     // 100 values, km/s − 299000). Certified: mean 299.852400000000, sd 0.0790105478190518. The 100 values are
     // reproduced here by their counts per value (the published table): a check of the one-pass algorithm.
     const table: [number, number][] = [
-      [299.62, 1], [299.65, 1], [299.72, 2], [299.74, 2], [299.76, 3], [299.78, 3], [299.79, 2], [299.8, 6], [299.81, 7],
-      [299.82, 5], [299.83, 2], [299.84, 6], [299.85, 7], [299.86, 6], [299.87, 6], [299.88, 7], [299.89, 3], [299.9, 3],
-      [299.91, 3], [299.92, 3], [299.93, 3], [299.94, 3], [299.95, 3], [299.96, 3], [299.97, 2], [299.98, 3], [300, 2],
-      [300.07, 1], [299.75, 1], [299.77, 0],
+      [299.62, 1],
+      [299.65, 1],
+      [299.72, 2],
+      [299.74, 2],
+      [299.76, 3],
+      [299.78, 3],
+      [299.79, 2],
+      [299.8, 6],
+      [299.81, 7],
+      [299.82, 5],
+      [299.83, 2],
+      [299.84, 6],
+      [299.85, 7],
+      [299.86, 6],
+      [299.87, 6],
+      [299.88, 7],
+      [299.89, 3],
+      [299.9, 3],
+      [299.91, 3],
+      [299.92, 3],
+      [299.93, 3],
+      [299.94, 3],
+      [299.95, 3],
+      [299.96, 3],
+      [299.97, 2],
+      [299.98, 3],
+      [300, 2],
+      [300.07, 1],
+      [299.75, 1],
+      [299.77, 0],
     ]
     const values = table.flatMap(([v, n]) => Array.from({ length: n }, () => v))
     const s = describeSample(values)
@@ -58,8 +89,15 @@ describe('fitLabCalibrations', () => {
   const alpha = 1.4
   // Runs drawn from L/w = 1 + α Qd/Qc exactly, turned into sphere-equivalent diameters through the plug volume.
   const runs: CalibrationRun[] = [0.2, 0.4, 0.6, 0.8].map((q, i) => ({
-    id: `r${i}`, kind: 't-junction', ranAt: `2026-11-0${i + 1}T10:00:00Z`, quantity: 'diameter' as const,
-    measuredUm: plugDiameterUm(w * (1 + alpha * q), w, h), predictedDiameterUm: 80, flowRatio: q, mainWidthUm: w, depthUm: h,
+    id: `r${i}`,
+    kind: 't-junction',
+    ranAt: `2026-11-0${i + 1}T10:00:00Z`,
+    quantity: 'diameter' as const,
+    measuredUm: plugDiameterUm(w * (1 + alpha * q), w, h),
+    predictedDiameterUm: 80,
+    flowRatio: q,
+    mainWidthUm: w,
+    depthUm: h,
   }))
 
   it('recovers α of Garstecki et al. 2006 from diameters made with it, with a zero-width interval', () => {
@@ -75,9 +113,39 @@ describe('fitLabCalibrations', () => {
 
   it('leaves out a kind with fewer than two runs, and fits others by a multiplicative correction', () => {
     const other: CalibrationRun[] = [
-      { id: 'f1', kind: 'flow-focusing', ranAt: '2026-11-01T00:00:00Z', quantity: 'diameter', measuredUm: 33, predictedDiameterUm: 30, flowRatio: 0.1, mainWidthUm: 50, depthUm: 40 },
-      { id: 'f2', kind: 'flow-focusing', ranAt: '2026-11-02T00:00:00Z', quantity: 'diameter', measuredUm: 44, predictedDiameterUm: 40, flowRatio: 0.2, mainWidthUm: 50, depthUm: 40 },
-      { id: 's1', kind: 'step-nozzle', ranAt: '2026-11-02T00:00:00Z', quantity: 'diameter', measuredUm: 80, predictedDiameterUm: 90, flowRatio: 0.2, mainWidthUm: 50, depthUm: 20 },
+      {
+        id: 'f1',
+        kind: 'flow-focusing',
+        ranAt: '2026-11-01T00:00:00Z',
+        quantity: 'diameter',
+        measuredUm: 33,
+        predictedDiameterUm: 30,
+        flowRatio: 0.1,
+        mainWidthUm: 50,
+        depthUm: 40,
+      },
+      {
+        id: 'f2',
+        kind: 'flow-focusing',
+        ranAt: '2026-11-02T00:00:00Z',
+        quantity: 'diameter',
+        measuredUm: 44,
+        predictedDiameterUm: 40,
+        flowRatio: 0.2,
+        mainWidthUm: 50,
+        depthUm: 40,
+      },
+      {
+        id: 's1',
+        kind: 'step-nozzle',
+        ranAt: '2026-11-02T00:00:00Z',
+        quantity: 'diameter',
+        measuredUm: 80,
+        predictedDiameterUm: 90,
+        flowRatio: 0.2,
+        mainWidthUm: 50,
+        depthUm: 20,
+      },
     ]
     const fits = fitLabCalibrations(other)
     expect(fits.map(f => f.kind)).toEqual(['flow-focusing'])
@@ -87,9 +155,28 @@ describe('fitLabCalibrations', () => {
 
 describe('calibrationKey', () => {
   it('keeps T-junction runs outside squeezing out of α', () => {
-    const run = (id: string, regime: string, q: number, measured: number): CalibrationRun => ({ id, kind: 't-junction', regime, ranAt: '2026-11-01T00:00:00Z', quantity: 'diameter', measuredUm: measured, predictedDiameterUm: 100, flowRatio: q, mainWidthUm: 100, depthUm: 50 })
-    const fits = fitLabCalibrations([run('a', 'squeezing', 0.2, plugDiameterUm(130, 100, 50)), run('b', 'squeezing', 0.4, plugDiameterUm(160, 100, 50)), run('c', 'dripping', 0.1, 90), run('d', 'dripping', 0.1, 80)])
-    expect(fits.map(f => [f.kind, f.model])).toEqual([['t-junction', 'squeezing-alpha'], ['t-junction/dripping', 'correction-factor']])
+    const run = (id: string, regime: string, q: number, measured: number): CalibrationRun => ({
+      id,
+      kind: 't-junction',
+      regime,
+      ranAt: '2026-11-01T00:00:00Z',
+      quantity: 'diameter',
+      measuredUm: measured,
+      predictedDiameterUm: 100,
+      flowRatio: q,
+      mainWidthUm: 100,
+      depthUm: 50,
+    })
+    const fits = fitLabCalibrations([
+      run('a', 'squeezing', 0.2, plugDiameterUm(130, 100, 50)),
+      run('b', 'squeezing', 0.4, plugDiameterUm(160, 100, 50)),
+      run('c', 'dripping', 0.1, 90),
+      run('d', 'dripping', 0.1, 80),
+    ])
+    expect(fits.map(f => [f.kind, f.model])).toEqual([
+      ['t-junction', 'squeezing-alpha'],
+      ['t-junction/dripping', 'correction-factor'],
+    ])
     expect(fits[0]!.fit.value).toBeCloseTo(1.5, 9)
     expect(fits[1]!.fit.value).toBeCloseTo(0.85, 12)
   })

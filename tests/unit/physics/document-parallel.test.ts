@@ -8,20 +8,23 @@ import { forecastDocument } from '#shared/physics/document'
  * library, so give one (3 mN/m, a fluorinated-surfactant value, typical value from memory) and a contact angle.
  */
 function withTension(doc: ChipDocument): ChipDocument {
-  return { ...doc, operatingPoints: doc.operatingPoints.map((op) => ({ ...op, interfacialTensionMNPerM: 3, contactAngleDeg: 150 })) }
+  return {
+    ...doc,
+    operatingPoints: doc.operatingPoints.map(op => ({ ...op, interfacialTensionMNPerM: 3, contactAngleDeg: 150 })),
+  }
 }
 
 describe('document forecast of a generated parallel step-nozzle chip (geometry/arrays)', () => {
   const plan = planParallelChip({ nozzles: 96, nozzlesPerBank: 32 })
   const doc = withTension(plan.document)
   const answer = forecastDocument(doc)
-  const nozzles = answer.junctions.filter((j) => j.kind === 'step-nozzle')
+  const nozzles = answer.junctions.filter(j => j.kind === 'step-nozzle')
 
   it('forecasts every nozzle from its own flow', () => {
     expect(nozzles).toHaveLength(96)
     for (const j of nozzles) {
       expect(j.forecast).not.toBeNull()
-      const channel = answer.network.channels.find((c) => c.id === `${j.id}/dispersed`)!
+      const channel = answer.network.channels.find(c => c.id === `${j.id}/dispersed`)!
       expect(j.forecast!.inputs.flow.dispersed.value).toBe(channel.flow.value)
       expect(j.forecast!.inputs.junction.depth.value).toBeCloseTo(8e-6, 15) // the nozzle layer
     }
@@ -31,12 +34,14 @@ describe('document forecast of a generated parallel step-nozzle chip (geometry/a
     expect(answer.network.uniformity).toHaveLength(1)
     const set = answer.network.uniformity[0]!
     expect(set.count).toBe(96)
-    expect(set.junctions).toEqual(nozzles.map((j) => j.id))
+    expect(set.junctions).toEqual(nozzles.map(j => j.id))
     // The manifold was sized for a first-order spread ≤ 1 % (geometry/arrays/resistance.ts); the full network
     // (collector side included, nozzle drawn under half the manifold) lands within a few times that.
     expect(set.maxOverMin).toBeGreaterThan(1)
     expect(set.maxOverMin - 1).toBeLessThan(5 * plan.manifold.target)
-    const supplied = answer.network.inlets.filter((i) => i.port.endsWith('disp-in')).reduce((sum, i) => sum + i.flow.value, 0)
+    const supplied = answer.network.inlets
+      .filter(i => i.port.endsWith('disp-in'))
+      .reduce((sum, i) => sum + i.flow.value, 0)
     expect(Math.abs(set.mean * set.count - supplied) / supplied).toBeLessThan(1e-9)
     expect(answer.network.solver.name).toBe('pcg-envelope-cholesky')
   })

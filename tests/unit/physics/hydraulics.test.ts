@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { circularResistance, poiseuilleNumber, rectangularResistance, rectangularResistanceApprox } from '#shared/physics/hydraulics/resistance'
+import {
+  circularResistance,
+  poiseuilleNumber,
+  rectangularResistance,
+  rectangularResistanceApprox,
+} from '#shared/physics/hydraulics/resistance'
 import type { Metres, PascalSeconds } from '#shared/physics/units'
 
 const m = (x: number) => x as Metres
@@ -22,19 +27,22 @@ describe('rectangular channel resistance, exact series (Bruus 2008 eqs. 4.37–4
     expect(rectangularResistance(eta, m(1), m(1), m(1)) / 1e-3).toBeCloseTo(28.45, 2)
   })
   it('is symmetric in width and depth', () => {
-    expect(rectangularResistance(eta, m(0.01), m(100e-6), m(30e-6))).toBe(rectangularResistance(eta, m(0.01), m(30e-6), m(100e-6)))
+    expect(rectangularResistance(eta, m(0.01), m(100e-6), m(30e-6))).toBe(
+      rectangularResistance(eta, m(0.01), m(30e-6), m(100e-6)),
+    )
   })
   it('scales as 1/k³ when every length is scaled by k (invariant)', () => {
     const base = rectangularResistance(eta, m(0.01), m(100e-6), m(40e-6))
     for (const k of [0.5, 2, 10]) {
-      expect(rectangularResistance(eta, m(0.01 * k), m(100e-6 * k), m(40e-6 * k)) * k ** 3 / base).toBeCloseTo(1, 12)
+      expect((rectangularResistance(eta, m(0.01 * k), m(100e-6 * k), m(40e-6 * k)) * k ** 3) / base).toBeCloseTo(1, 12)
     }
   })
 })
 
 describe("Bruus's approximation", () => {
   it('overestimates by about 13–14 % at h = w (Bruus 2008 states 13 %), and < 0.2 % for h/w ≤ 0.5', () => {
-    const error = (aspect: number) => rectangularResistanceApprox(eta, m(1), m(1), m(aspect)) / rectangularResistance(eta, m(1), m(1), m(aspect)) - 1
+    const error = (aspect: number) =>
+      rectangularResistanceApprox(eta, m(1), m(1), m(aspect)) / rectangularResistance(eta, m(1), m(1), m(aspect)) - 1
     expect(error(1)).toBeGreaterThan(0.12)
     expect(error(1)).toBeLessThan(0.141)
     for (const aspect of [0.5, 0.25, 0.1, 0.01]) expect(Math.abs(error(aspect))).toBeLessThan(2e-3)

@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest'
 import { capillaryInertialSpeed, mergedRadius, releasedSurfaceEnergy } from '#shared/physics/junction/coalescence'
 import { entryBarrier, laplacePlug, laplaceSphere } from '#shared/physics/junction/laplace'
-import { minimumPlugVolume, plugLength, plugVolume, sphereEquivalentDiameter } from '#shared/physics/junction/plugVolume'
+import {
+  minimumPlugVolume,
+  plugLength,
+  plugVolume,
+  sphereEquivalentDiameter,
+} from '#shared/physics/junction/plugVolume'
 import { classifyRegime } from '#shared/physics/junction/regime'
 import { garsteckiLength, vanSteijnAlpha, vanSteijnFillVolume } from '#shared/physics/junction/tJunction'
 import type { Metres, NewtonsPerMetre, Radians } from '#shared/physics/units'
@@ -58,15 +63,20 @@ describe('confined plug volume (Musterd et al. 2015)', () => {
   })
   it('body of a square channel keeps gutters of the Mayer–Stowe–Princen radius a/(2 + √π), not a/2 (Wong, Radke & Morris 1995)', () => {
     const r = 1 / (2 + Math.sqrt(Math.PI))
-    expect((plugVolume(m(3), m(1), m(1)) - plugVolume(m(1), m(1), m(1))) / 2).toBeCloseTo(1 - (4 - Math.PI) * r ** 2, 12)
+    expect((plugVolume(m(3), m(1), m(1)) - plugVolume(m(1), m(1), m(1))) / 2).toBeCloseTo(
+      1 - (4 - Math.PI) * r ** 2,
+      12,
+    )
   })
-  it('flat channels (h ≪ w) keep Musterd\'s gutters of radius h/2: body area within 0.2 % of hw − (1 − π/4)h² at h/w = 0.05', () => {
-    const w = 1, h = 0.05
-    const body = (plugVolume(m(3), m(w), m(h)) - plugVolume(m(2), m(w), m(h)))
+  it("flat channels (h ≪ w) keep Musterd's gutters of radius h/2: body area within 0.2 % of hw − (1 − π/4)h² at h/w = 0.05", () => {
+    const w = 1,
+      h = 0.05
+    const body = plugVolume(m(3), m(w), m(h)) - plugVolume(m(2), m(w), m(h))
     expect(Math.abs(body / (w * h - (1 - Math.PI / 4) * h ** 2) - 1)).toBeLessThan(2e-3)
   })
   it('a deep narrow channel (depth 200 µm > width 50 µm) never gives a negative volume: short drops are discs, then spheres, continuous at the joins', () => {
-    const w = m(50e-6), h = m(200e-6)
+    const w = m(50e-6),
+      h = m(200e-6)
     for (const length of [10e-6, 49e-6, 50e-6, 51e-6, 60e-6, 120e-6, 199e-6, 200e-6, 201e-6, 400e-6]) {
       const v = plugVolume(m(length), w, h)
       expect(v).toBeGreaterThan(0)
@@ -92,11 +102,14 @@ describe('T-junction squeezing (Garstecki 2006; van Steijn 2010)', () => {
     expect(garsteckiLength(m(100e-6), 1, 0.5) / 100e-6).toBeCloseTo(1.5, 12)
   })
   it('van Steijn fill volume for win ≤ w is 3π/8 − (π/2)(1 − π/4)h/w (their eq. 4); continuous at win = w', () => {
-    expect(vanSteijnFillVolume(m(1), m(0.5), m(1 / 3))).toBeCloseTo((3 * Math.PI) / 8 - (Math.PI / 2) * (1 - Math.PI / 4) / 3, 12)
+    expect(vanSteijnFillVolume(m(1), m(0.5), m(1 / 3))).toBeCloseTo(
+      (3 * Math.PI) / 8 - ((Math.PI / 2) * (1 - Math.PI / 4)) / 3,
+      12,
+    )
     expect(vanSteijnFillVolume(m(1), m(1.000001), m(0.3))).toBeCloseTo(vanSteijnFillVolume(m(1), m(1), m(0.3)), 4)
   })
   it('α grows with the inlet width and lies between 0.2 and 8 in the range of their Fig. 3 (h/w ≤ 0.5, 1/3 ≤ win/w ≤ 3)', () => {
-    const alphas = [1 / 3, 2 / 3, 1, 4 / 3, 2, 3].map((r) => vanSteijnAlpha(m(1), m(r), m(1 / 3)))
+    const alphas = [1 / 3, 2 / 3, 1, 4 / 3, 2, 3].map(r => vanSteijnAlpha(m(1), m(r), m(1 / 3)))
     for (let i = 1; i < alphas.length; i++) expect(alphas[i]!).toBeGreaterThan(alphas[i - 1]!)
     for (const a of alphas) {
       expect(a).toBeGreaterThan(0.2)

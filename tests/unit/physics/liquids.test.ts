@@ -65,9 +65,10 @@ describe('glycerol–water viscosity, Cheng 2008', () => {
 describe('liquids library', () => {
   it('has water, glycerol-water (with massFraction) and n-hexadecane, each with sources', () => {
     const { liquids, pairs } = listLiquids()
-    for (const id of ['water', 'glycerol-water', 'n-hexadecane']) expect(liquids.find((l) => l.id === id)?.sources.length).toBeGreaterThan(0)
-    expect(liquids.find((l) => l.id === 'glycerol-water')!.parameters).toEqual(['massFraction'])
-    expect(pairs.every((p) => p.interfacialTension.source.length > 0)).toBe(true)
+    for (const id of ['water', 'glycerol-water', 'n-hexadecane'])
+      expect(liquids.find(l => l.id === id)?.sources.length).toBeGreaterThan(0)
+    expect(liquids.find(l => l.id === 'glycerol-water')!.parameters).toEqual(['massFraction'])
+    expect(pairs.every(p => p.interfacialTension.source.length > 0)).toBe(true)
   })
   it('light oils ≈ 20 mN/m and water ≈ 70 mN/m near room temperature (common practice, no source; ±30 %)', () => {
     const silicone = findLiquid('silicone-oil-5cst')!.properties(K(25)).liquid.surfaceTension!.value

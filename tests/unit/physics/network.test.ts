@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest'
 import { NetworkError } from '#shared/physics/errors'
-import { flowUniformity, pressureMargin, solveNetwork, solveNetworkDense, type NetworkProblem } from '#shared/physics/network'
+import {
+  flowUniformity,
+  pressureMargin,
+  solveNetwork,
+  solveNetworkDense,
+  type NetworkProblem,
+} from '#shared/physics/network'
 import { assemble } from '#shared/physics/network/assemble'
 import { denseSolve } from '#shared/physics/network/dense'
 import { incompleteCholesky, incompleteSolve } from '#shared/physics/network/incomplete'
@@ -15,26 +21,58 @@ function ladder(rungs: number): NetworkProblem {
     channels.push({ id: `drain${i}`, from: `B${i}`, to: `B${i + 1}`, resistance: 2e10 })
     channels.push({ id: `nozzle${i}`, from: `A${i + 1}`, to: `B${i + 1}`, resistance: 1e13 * (1 + (i % 5) / 10) })
   }
-  return { channels, sources: [{ node: 'A0', flow: 1e-10 }, { node: `B${rungs}`, pressure: 0 }, { node: 'B0', pressure: 50 }] }
+  return {
+    channels,
+    sources: [
+      { node: 'A0', flow: 1e-10 },
+      { node: `B${rungs}`, pressure: 0 },
+      { node: 'B0', pressure: 50 },
+    ],
+  }
 }
 
 function grid(n: number): NetworkProblem {
   const channels = []
   for (let i = 0; i < n; i++)
     for (let j = 0; j < n; j++) {
-      if (i + 1 < n) channels.push({ id: `h${i}.${j}`, from: `${i}.${j}`, to: `${i + 1}.${j}`, resistance: 1e9 * (1 + ((7 * i + 3 * j) % 5)) })
-      if (j + 1 < n) channels.push({ id: `v${i}.${j}`, from: `${i}.${j}`, to: `${i}.${j + 1}`, resistance: 1e9 * (1 + ((3 * i + 5 * j) % 7)) })
+      if (i + 1 < n)
+        channels.push({
+          id: `h${i}.${j}`,
+          from: `${i}.${j}`,
+          to: `${i + 1}.${j}`,
+          resistance: 1e9 * (1 + ((7 * i + 3 * j) % 5)),
+        })
+      if (j + 1 < n)
+        channels.push({
+          id: `v${i}.${j}`,
+          from: `${i}.${j}`,
+          to: `${i}.${j + 1}`,
+          resistance: 1e9 * (1 + ((3 * i + 5 * j) % 7)),
+        })
     }
-  return { channels, sources: [{ node: '0.0', pressure: 1000 }, { node: `${n - 1}.${n - 1}`, pressure: 0 }] }
+  return {
+    channels,
+    sources: [
+      { node: '0.0', pressure: 1000 },
+      { node: `${n - 1}.${n - 1}`, pressure: 0 },
+    ],
+  }
 }
 
 /** A grid whose every horizontal channel is doubled (parallel duplicates), with flow sources and two outlets. */
 function gridWithFlows(n: number): NetworkProblem {
   const base = grid(n)
-  const doubled = base.channels.filter((c) => c.id.startsWith('h')).map((c) => ({ ...c, id: `${c.id}'`, resistance: 3 * c.resistance }))
+  const doubled = base.channels
+    .filter(c => c.id.startsWith('h'))
+    .map(c => ({ ...c, id: `${c.id}'`, resistance: 3 * c.resistance }))
   return {
     channels: [...base.channels, ...doubled],
-    sources: [{ node: '0.0', flow: 1e-9 }, { node: `${n >> 1}.${n >> 1}`, flow: 2e-9 }, { node: `${n - 1}.${n - 1}`, pressure: 0 }, { node: `0.${n - 1}`, pressure: 0 }],
+    sources: [
+      { node: '0.0', flow: 1e-9 },
+      { node: `${n >> 1}.${n >> 1}`, flow: 2e-9 },
+      { node: `${n - 1}.${n - 1}`, pressure: 0 },
+      { node: `0.${n - 1}`, pressure: 0 },
+    ],
   }
 }
 
@@ -54,7 +92,10 @@ describe('network solver', () => {
         { id: 'b', from: 'mid', to: 'out', resistance: 2 * R },
         { id: 'c', from: 'mid', to: 'out', resistance: 2 * R },
       ],
-      sources: [{ node: 'in', pressure: 1000 }, { node: 'out', pressure: 0 }],
+      sources: [
+        { node: 'in', pressure: 1000 },
+        { node: 'out', pressure: 0 },
+      ],
     })
     expect(s.flow[0]! / (1000 / (2 * R))).toBeCloseTo(1, 12)
     expect(s.flow[1]! / s.flow[0]!).toBeCloseTo(0.5, 12)
@@ -62,7 +103,13 @@ describe('network solver', () => {
     expect(s.sources[0]!.flow).toBeCloseTo(1000 / (2 * R), 20)
   })
   it('a flow source needs pressure Q·R', () => {
-    const s = solveNetwork({ channels: [{ id: 'a', from: 'in', to: 'out', resistance: 3e12 }], sources: [{ node: 'in', flow: 2e-10 }, { node: 'out', pressure: 0 }] })
+    const s = solveNetwork({
+      channels: [{ id: 'a', from: 'in', to: 'out', resistance: 3e12 }],
+      sources: [
+        { node: 'in', flow: 2e-10 },
+        { node: 'out', pressure: 0 },
+      ],
+    })
     expect(s.sources[0]!.pressure).toBeCloseTo(600, 9)
   })
   it.each([
@@ -81,7 +128,7 @@ describe('network solver', () => {
     const { matrix, rhs } = assemble(indexNetwork(gridWithFlows(45)))
     const order = reverseCuthillMcKee(matrix)
     const exact = denseSolve(matrix, rhs)
-    const iterations = [0, 0.99].map((omega) => {
+    const iterations = [0, 0.99].map(omega => {
       const factor = incompleteCholesky(matrix, order, omega)!
       const work = new Float64Array(matrix.size)
       const result = pcg(matrix, rhs, (r, z) => incompleteSolve(factor, r, z, work))
@@ -92,8 +139,21 @@ describe('network solver', () => {
     expect(iterations[1]!).toBeLessThan(iterations[0]!)
   })
   it('a zero-fill factor of a tree is its exact Cholesky factor: PCG converges in one step', () => {
-    const channels = Array.from({ length: 300 }, (_, k) => ({ id: `t${k}`, from: `n${Math.floor(k / 2)}`, to: `n${k + 1}`, resistance: 1e10 * (1 + (k % 4)) }))
-    const { matrix, rhs } = assemble(indexNetwork({ channels, sources: [{ node: 'n0', pressure: 100 }, ...Array.from({ length: 10 }, (_, k) => ({ node: `n${290 + k}`, flow: -1e-12 }))] }))
+    const channels = Array.from({ length: 300 }, (_, k) => ({
+      id: `t${k}`,
+      from: `n${Math.floor(k / 2)}`,
+      to: `n${k + 1}`,
+      resistance: 1e10 * (1 + (k % 4)),
+    }))
+    const { matrix, rhs } = assemble(
+      indexNetwork({
+        channels,
+        sources: [
+          { node: 'n0', pressure: 100 },
+          ...Array.from({ length: 10 }, (_, k) => ({ node: `n${290 + k}`, flow: -1e-12 })),
+        ],
+      }),
+    )
     const factor = incompleteCholesky(matrix, reverseCuthillMcKee(matrix), 0)!
     const work = new Float64Array(matrix.size)
     const result = pcg(matrix, rhs, (r, z) => incompleteSolve(factor, r, z, work))
@@ -114,9 +174,17 @@ describe('network solver', () => {
     const base = solveNetwork(ladder(20))
     const scaled = ladder(20)
     const k = 8
-    const problem = { channels: scaled.channels.map((c) => ({ ...c, resistance: c.resistance * k })), sources: [{ node: 'A0', flow: 1e-10 }, { node: 'B20', pressure: 0 }, { node: 'B0', pressure: 50 * k }] }
+    const problem = {
+      channels: scaled.channels.map(c => ({ ...c, resistance: c.resistance * k })),
+      sources: [
+        { node: 'A0', flow: 1e-10 },
+        { node: 'B20', pressure: 0 },
+        { node: 'B0', pressure: 50 * k },
+      ],
+    }
     const s = solveNetwork(problem)
-    for (let i = 0; i < s.pressure.length; i++) expect(s.pressure[i]! / (base.pressure[i]! * k || 1)).toBeCloseTo(base.pressure[i] === 0 ? 0 : 1, 9)
+    for (let i = 0; i < s.pressure.length; i++)
+      expect(s.pressure[i]! / (base.pressure[i]! * k || 1)).toBeCloseTo(base.pressure[i] === 0 ? 0 : 1, 9)
   })
 })
 
@@ -133,19 +201,68 @@ describe('network errors name the fix', () => {
     }
   }
   it('floating sub-network lists its nodes', () => {
-    expectError({ channels: [channel('a', 'in', 'out'), channel('b', 'x', 'y')], sources: [{ node: 'in', flow: 1e-10 }, { node: 'out', pressure: 0 }] }, 'floating', /"x", "y"/)
+    expectError(
+      {
+        channels: [channel('a', 'in', 'out'), channel('b', 'x', 'y')],
+        sources: [
+          { node: 'in', flow: 1e-10 },
+          { node: 'out', pressure: 0 },
+        ],
+      },
+      'floating',
+      /"x", "y"/,
+    )
   })
   it('flow-only network is floating', () => {
-    expectError({ channels: [channel('a', 'in', 'out')], sources: [{ node: 'in', flow: 1e-10 }] }, 'floating', /pressure source/)
+    expectError(
+      { channels: [channel('a', 'in', 'out')], sources: [{ node: 'in', flow: 1e-10 }] },
+      'floating',
+      /pressure source/,
+    )
   })
   it('two pressure sources on one node, or a flow source on a pressure node, are over-constrained', () => {
-    expectError({ channels: [channel('a', 'in', 'out')], sources: [{ node: 'in', pressure: 1 }, { node: 'in', pressure: 2 }] }, 'over-constrained', /"in"/)
-    expectError({ channels: [channel('a', 'in', 'out')], sources: [{ node: 'out', pressure: 0 }, { node: 'out', flow: 1e-9 }] }, 'over-constrained', /"out"/)
+    expectError(
+      {
+        channels: [channel('a', 'in', 'out')],
+        sources: [
+          { node: 'in', pressure: 1 },
+          { node: 'in', pressure: 2 },
+        ],
+      },
+      'over-constrained',
+      /"in"/,
+    )
+    expectError(
+      {
+        channels: [channel('a', 'in', 'out')],
+        sources: [
+          { node: 'out', pressure: 0 },
+          { node: 'out', flow: 1e-9 },
+        ],
+      },
+      'over-constrained',
+      /"out"/,
+    )
   })
   it('unknown node ids and bad resistances', () => {
-    expectError({ channels: [channel('a', 'in', 'out')], sources: [{ node: 'nowhere', pressure: 0 }] }, 'unknown-node', /"nowhere"/)
-    expectError({ channels: [{ id: 'a', from: 'in', to: 'out', resistance: 0 }], sources: [{ node: 'out', pressure: 0 }] }, 'bad-resistance', /"a"/)
-    expectError({ channels: [{ id: 'a', from: 'in', to: 'out', resistance: Number.NaN }], sources: [{ node: 'out', pressure: 0 }] }, 'bad-resistance', /"a"/)
+    expectError(
+      { channels: [channel('a', 'in', 'out')], sources: [{ node: 'nowhere', pressure: 0 }] },
+      'unknown-node',
+      /"nowhere"/,
+    )
+    expectError(
+      { channels: [{ id: 'a', from: 'in', to: 'out', resistance: 0 }], sources: [{ node: 'out', pressure: 0 }] },
+      'bad-resistance',
+      /"a"/,
+    )
+    expectError(
+      {
+        channels: [{ id: 'a', from: 'in', to: 'out', resistance: Number.NaN }],
+        sources: [{ node: 'out', pressure: 0 }],
+      },
+      'bad-resistance',
+      /"a"/,
+    )
   })
 })
 

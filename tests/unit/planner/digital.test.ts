@@ -48,7 +48,7 @@ describe('digital assay statistics (Dube, Qin & Ramakrishnan 2008, PLoS ONE 3, e
 })
 
 describe('Dube interval against an independent computation', () => {
-  it('matches the recipe computed in Python with SciPy\'s normal quantile (tests/fixtures/plan/poisson-scipy.json)', async () => {
+  it("matches the recipe computed in Python with SciPy's normal quantile (tests/fixtures/plan/poisson-scipy.json)", async () => {
     const { dube } = (await import('../../fixtures/plan/poisson-scipy.json')).default
     for (const c of dube.cases) {
       const e = dubeEstimate(c.k, c.n)

@@ -4,8 +4,12 @@ import { axisInLabUnits, occupancyOption, pointAxes, windowMapOption } from '../
 
 const plan = runPlan({
   junction: { kind: 't-junction', mainWidth: '35 um', inletWidth: '25 um', depth: '25 um' },
-  continuous: { liquid: 'n-hexadecane' }, dispersed: { liquid: 'water' }, surfactant: 'sorbitan-monooleate',
-  target: { dropletDiameter: '40 um', minFrequency: '500 Hz' }, search: { points: 9 }, encapsulation: { concentration: '2e6 /mL' },
+  continuous: { liquid: 'n-hexadecane' },
+  dispersed: { liquid: 'water' },
+  surfactant: 'sorbitan-monooleate',
+  target: { dropletDiameter: '40 um', minFrequency: '500 Hz' },
+  search: { points: 9 },
+  encapsulation: { concentration: '2e6 /mL' },
 })
 
 describe('planner plots', () => {

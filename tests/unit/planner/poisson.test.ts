@@ -29,7 +29,7 @@ describe('Poisson loading (Collins et al. 2015, Lab Chip 15, 3439)', () => {
   })
 
   it('loads 40 µm drops from 2 million cells/mL: λ = c V, cells per hour, concentration for λ = 0.1', () => {
-    const volume = (Math.PI / 6) * (40e-6) ** 3 // 33.5 pL
+    const volume = (Math.PI / 6) * 40e-6 ** 3 // 33.5 pL
     const e = encapsulation(2e12, volume, 500) // 2e6 /mL = 2e12 /m³, 500 Hz
     expect(e.lambda.value).toBeCloseTo(2e12 * 3.3510321638e-14, 6) // 0.0670
     expect(e.cellsPerHour!.value).toBeCloseTo(e.lambda.value * 500 * 3600, 6)
@@ -42,7 +42,7 @@ describe('Poisson loading (Collins et al. 2015, Lab Chip 15, 3439)', () => {
 })
 
 describe('Poisson loading against an independent library', () => {
-  it('matches SciPy\'s Poisson distribution to 1e-12 (recorded in tests/fixtures/plan/poisson-scipy.json)', async () => {
+  it("matches SciPy's Poisson distribution to 1e-12 (recorded in tests/fixtures/plan/poisson-scipy.json)", async () => {
     const { rows } = (await import('../../fixtures/plan/poisson-scipy.json')).default
     for (const r of rows) {
       const o = occupancy(r.lambda)

@@ -13,7 +13,7 @@ const ROOT = join(__dirname, '../../..')
 const SOURCES = ['shared', 'server', 'components', 'pages', 'stores', 'composables', 'geometry', 'utils']
 
 function files(dir: string): string[] {
-  return readdirSync(dir).flatMap((name) => {
+  return readdirSync(dir).flatMap(name => {
     const path = join(dir, name)
     if (name === 'migrations' || name === 'node_modules') return []
     return statSync(path).isDirectory() ? files(path) : /\.(ts|vue)$/.test(name) ? [path] : []
@@ -30,7 +30,11 @@ function copiesOf(values: readonly string[], declaredIn: string): string[] {
   return SOURCES.flatMap(d => files(join(ROOT, d)))
     .map(f => relative(ROOT, f))
     .filter(f => f !== declaredIn && !/^server\/db\/seed/.test(f))
-    .filter(f => readFileSync(join(ROOT, f), 'utf8').split('\n').some(line => listed.filter(q => q.test(line)).length >= 4))
+    .filter(f =>
+      readFileSync(join(ROOT, f), 'utf8')
+        .split('\n')
+        .some(line => listed.filter(q => q.test(line)).length >= 4),
+    )
 }
 
 describe('one declaration per fact', () => {

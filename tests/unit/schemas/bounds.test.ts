@@ -1,7 +1,14 @@
 // Upper bounds of the chip document (shared/schemas/chip/limits.ts): each refusal says the limit; the largest
 // accepted document parses, one piece more does not; the full and the incremental parse agree at the limits.
 import { describe, expect, it } from 'vitest'
-import { CHIP_LIMITS, documentPieceCount, parseChipDocument, parseEditedDocument, rememberParsed, type ChipDocument } from '#shared/schemas/chip'
+import {
+  CHIP_LIMITS,
+  documentPieceCount,
+  parseChipDocument,
+  parseEditedDocument,
+  rememberParsed,
+  type ChipDocument,
+} from '#shared/schemas/chip'
 import { loadDocumentFixture } from './load-fixture'
 import { largestAcceptedDocument } from './largest'
 
@@ -15,7 +22,9 @@ describe('chip document limits', () => {
   it('a 1e29 µm punch (the 2.4 KB document that took the server down) is refused with the limit', () => {
     const doc = base()
     doc.ports[0].punchDiameter = 1e29
-    expect(messages(doc)).toContain(`Port punch diameter must be at most 10 000 µm (got 1e+29) on port "${doc.ports[0].id}"`)
+    expect(messages(doc)).toContain(
+      `Port punch diameter must be at most 10 000 µm (got 1e+29) on port "${doc.ports[0].id}"`,
+    )
     doc.ports[0].punchDiameter = 1e11
     expect(messages(doc)[0]).toMatch(/at most 10 000 µm \(got 100000000000\)/)
   })
@@ -34,8 +43,21 @@ describe('chip document limits', () => {
   it('counts: nozzles per array, points per channel, elements of a kind', () => {
     const doc = base()
     const layer = doc.layers[0].id
-    doc.components.push({ kind: 'step-array', id: 'arr', layerId: layer, supplyLayerId: layer, reservoirLayerId: 'x', position: { x: 0, y: 0 },
-      nozzleCount: 100_000, pitch: 10, nozzleWidth: 5, nozzleLength: 20, supplyWidth: 50, reservoirWidth: 50, margin: 10 })
+    doc.components.push({
+      kind: 'step-array',
+      id: 'arr',
+      layerId: layer,
+      supplyLayerId: layer,
+      reservoirLayerId: 'x',
+      position: { x: 0, y: 0 },
+      nozzleCount: 100_000,
+      pitch: 10,
+      nozzleWidth: 5,
+      nozzleLength: 20,
+      supplyWidth: 50,
+      reservoirWidth: 50,
+      margin: 10,
+    })
     doc.channels[0].points = Array.from({ length: 2001 }, (_, i) => ({ x: i, y: i % 2 }))
     const m = messages(doc).join('\n')
     expect(m).toContain('Step array nozzle count must be at most 10 000 (got 100000)')
@@ -62,13 +84,18 @@ describe('chip document limits', () => {
     expect(documentPieceCount(r.document)).toBe(CHIP_LIMITS.pieces)
     const last = doc.components[doc.components.length - 1]
     last.nozzleCount += 1
-    expect(messages(doc)).toEqual(['A chip can be drawn with at most 40 000 pieces (channel segments, nozzles, serpentine turns, ports, marks; got 40 001): split it into several designs'])
+    expect(messages(doc)).toEqual([
+      'A chip can be drawn with at most 40 000 pieces (channel segments, nozzles, serpentine turns, ports, marks; got 40 001): split it into several designs',
+    ])
   })
   it('the incremental parse refuses what the full parse refuses at the limits', () => {
     const r = parseChipDocument(largestAcceptedDocument())
     if (!r.ok) throw new Error('largest document refused')
     rememberParsed(r.document)
-    const edited: ChipDocument = { ...r.document, ports: [...r.document.ports, { ...r.document.ports[0]!, id: 'one-more' }] }
+    const edited: ChipDocument = {
+      ...r.document,
+      ports: [...r.document.ports, { ...r.document.ports[0]!, id: 'one-more' }],
+    }
     const inc = parseEditedDocument(edited)
     expect(inc.ok).toBe(false)
     expect(inc).toEqual(parseChipDocument(edited))

@@ -1,11 +1,16 @@
 import { describe, expect, it } from 'vitest'
-import { CHIP_DOCUMENT_VERSION, parseChipDocument, requireChipDocument, ChipDocumentInvalid } from '#shared/schemas/chip'
+import {
+  CHIP_DOCUMENT_VERSION,
+  parseChipDocument,
+  requireChipDocument,
+  ChipDocumentInvalid,
+} from '#shared/schemas/chip'
 import { loadDocumentFixture } from './load-fixture'
 
 // Source for every expectation here: the chip document contract in shared/schemas/chip/README.md.
 const messages = (input: unknown): string[] => {
   const r = parseChipDocument(input)
-  return r.ok ? [] : r.errors.map((e) => e.message)
+  return r.ok ? [] : r.errors.map(e => e.message)
 }
 
 describe('chip document: valid fixture', () => {
@@ -77,7 +82,8 @@ describe('chip document: errors name the element and the fix', () => {
     const doc = loadDocumentFixture('t-junction-basic.json')
     doc.components[0].armLength = 60
     expect(messages(doc)[0]).toBe(
-      'T-junction arm length must be ≥ the widest channel (100 µm) so each arm leaves the junction (got 60) on t-junction "tj-1"')
+      'T-junction arm length must be ≥ the widest channel (100 µm) so each arm leaves the junction (got 60) on t-junction "tj-1"',
+    )
   })
   it('unknown active operating point', () => {
     const doc = loadDocumentFixture('t-junction-basic.json')

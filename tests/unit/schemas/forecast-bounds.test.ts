@@ -5,19 +5,34 @@ import { ForecastInputError, runForecast } from '#shared/physics/forecast'
 import { DIMENSIONS, type Dimension } from '#shared/schemas/quantity'
 
 const FIELDS: Array<[string[], Dimension]> = [
-  [['junction', 'mainWidth'], 'length'], [['junction', 'inletWidth'], 'length'], [['junction', 'depth'], 'length'],
-  [['continuous', 'viscosity'], 'viscosity'], [['continuous', 'density'], 'density'],
-  [['interfacialTension'], 'surfaceTension'], [['temperature'], 'temperature'],
-  [['flow', 'continuous'], 'volumeFlow'], [['flow', 'dispersed'], 'volumeFlow'],
+  [['junction', 'mainWidth'], 'length'],
+  [['junction', 'inletWidth'], 'length'],
+  [['junction', 'depth'], 'length'],
+  [['continuous', 'viscosity'], 'viscosity'],
+  [['continuous', 'density'], 'density'],
+  [['interfacialTension'], 'surfaceTension'],
+  [['temperature'], 'temperature'],
+  [['flow', 'continuous'], 'volumeFlow'],
+  [['flow', 'dispersed'], 'volumeFlow'],
 ]
-const set = (o: any, path: string[], v: unknown) => { let x = o; for (const k of path.slice(0, -1)) x = x[k]; x[path[path.length - 1]!] = v }
+const set = (o: any, path: string[], v: unknown) => {
+  let x = o
+  for (const k of path.slice(0, -1)) x = x[k]
+  x[path[path.length - 1]!] = v
+}
 const request = (kind: string) => ({
   junction: { kind, mainWidth: 1e-4, inletWidth: 5e-5, depth: 5e-5 },
-  continuous: { viscosity: 3e-3, density: 800 }, dispersed: { liquid: 'water' },
-  interfacialTension: 5e-3, temperature: 293.15, flow: { continuous: 1.7e-10, dispersed: 0.8e-10 },
+  continuous: { viscosity: 3e-3, density: 800 },
+  dispersed: { liquid: 'water' },
+  interfacialTension: 5e-3,
+  temperature: 293.15,
+  flow: { continuous: 1.7e-10, dispersed: 0.8e-10 },
 })
 function outcome(req: unknown): 'answer' | 'refused' {
-  try { runForecast(req); return 'answer' } catch (error) {
+  try {
+    runForecast(req)
+    return 'answer'
+  } catch (error) {
     if (error instanceof ForecastInputError) return 'refused'
     throw new Error(`internal error for ${JSON.stringify(req)}: ${(error as Error).message}`)
   }
@@ -36,14 +51,35 @@ describe('forecast bounds', () => {
     })
   }
   it('a network at the corners of its ranges answers or refuses', () => {
-    for (const width of [DIMENSIONS.length.min, DIMENSIONS.length.max]) for (const length of [DIMENSIONS.length.min, DIMENSIONS.length.max]) {
-      for (const p of [DIMENSIONS.pressure.max, -DIMENSIONS.pressure.max, 0]) for (const viscosity of [DIMENSIONS.viscosity.min, DIMENSIONS.viscosity.max]) {
-        outcome({ network: { channels: [{ id: 'a', from: 'in', to: 'mid', width, depth: width, length }, { id: 't', from: 'mid', to: 'out', diameter: width, length }],
-          sources: [{ node: 'in', pressure: p }, { node: 'out', pressure: 0 }], liquid: { viscosity, density: 1000 } } })
-        outcome({ network: { channels: [{ id: 'a', from: 'in', to: 'out', width, depth: width, length }],
-          sources: [{ node: 'in', flow: DIMENSIONS.volumeFlow.max }, { node: 'out', pressure: 0 }], liquid: { viscosity, density: 1000 } } })
+    for (const width of [DIMENSIONS.length.min, DIMENSIONS.length.max])
+      for (const length of [DIMENSIONS.length.min, DIMENSIONS.length.max]) {
+        for (const p of [DIMENSIONS.pressure.max, -DIMENSIONS.pressure.max, 0])
+          for (const viscosity of [DIMENSIONS.viscosity.min, DIMENSIONS.viscosity.max]) {
+            outcome({
+              network: {
+                channels: [
+                  { id: 'a', from: 'in', to: 'mid', width, depth: width, length },
+                  { id: 't', from: 'mid', to: 'out', diameter: width, length },
+                ],
+                sources: [
+                  { node: 'in', pressure: p },
+                  { node: 'out', pressure: 0 },
+                ],
+                liquid: { viscosity, density: 1000 },
+              },
+            })
+            outcome({
+              network: {
+                channels: [{ id: 'a', from: 'in', to: 'out', width, depth: width, length }],
+                sources: [
+                  { node: 'in', flow: DIMENSIONS.volumeFlow.max },
+                  { node: 'out', pressure: 0 },
+                ],
+                liquid: { viscosity, density: 1000 },
+              },
+            })
+          }
       }
-    }
   })
   it('beyond a bound the field is refused with the bound', () => {
     const cases: Array<[string[], unknown, RegExp]> = [

@@ -10,16 +10,46 @@ export function largestAcceptedDocument(): ChipDocumentInput {
   const room = CHIP_LIMITS.pieces - 3 // the three punches
   const arrays = Math.ceil(room / (perArray + 2))
   const components = Array.from({ length: arrays }, (_, i) => ({
-    kind: 'step-array' as const, id: `array-${i + 1}`, layerId: 'nozzle', supplyLayerId: 'nozzle', reservoirLayerId: 'deep',
-    position: { x: -180_000 + i * 60_000, y: -50_000 }, rotation: 0,
-    nozzleCount: Math.min(perArray, room - i * (perArray + 2) - 2), pitch, nozzleWidth: 5, nozzleLength: 40, supplyWidth: 200, reservoirWidth: 400, margin: 50,
+    kind: 'step-array' as const,
+    id: `array-${i + 1}`,
+    layerId: 'nozzle',
+    supplyLayerId: 'nozzle',
+    reservoirLayerId: 'deep',
+    position: { x: -180_000 + i * 60_000, y: -50_000 },
+    rotation: 0,
+    nozzleCount: Math.min(perArray, room - i * (perArray + 2) - 2),
+    pitch,
+    nozzleWidth: 5,
+    nozzleLength: 40,
+    supplyWidth: 200,
+    reservoirWidth: 400,
+    margin: 50,
   }))
   const doc: ChipDocumentInput = {
-    version: 1, name: 'Largest accepted chip', units: 'um',
-    layers: [{ id: 'nozzle', name: 'Nozzles', depth: 10 }, { id: 'deep', name: 'Reservoir', depth: 100 }],
+    version: 1,
+    name: 'Largest accepted chip',
+    units: 'um',
+    layers: [
+      { id: 'nozzle', name: 'Nozzles', depth: 10 },
+      { id: 'deep', name: 'Reservoir', depth: 100 },
+    ],
     ports: [
-      { id: 'oil', kind: 'inlet', position: { x: -190_000, y: 150_000 }, punchDiameter: 10_000, layerId: 'deep', feed: { phase: 'continuous' } },
-      { id: 'water', kind: 'inlet', position: { x: -190_000, y: -150_000 }, punchDiameter: 10_000, layerId: 'nozzle', feed: { phase: 'dispersed' } },
+      {
+        id: 'oil',
+        kind: 'inlet',
+        position: { x: -190_000, y: 150_000 },
+        punchDiameter: 10_000,
+        layerId: 'deep',
+        feed: { phase: 'continuous' },
+      },
+      {
+        id: 'water',
+        kind: 'inlet',
+        position: { x: -190_000, y: -150_000 },
+        punchDiameter: 10_000,
+        layerId: 'nozzle',
+        feed: { phase: 'dispersed' },
+      },
       { id: 'out', kind: 'outlet', position: { x: 190_000, y: 150_000 }, punchDiameter: 10_000, layerId: 'deep' },
     ],
     channels: [],

@@ -6,18 +6,62 @@ import type { Component } from '#shared/schemas/chip'
 const base = { position: { x: 1000, y: 2000 }, layerId: 'L' }
 const kinds: Component[] = [
   component.parse({ ...base, id: 't', kind: 't-junction', mainWidth: 100, inletWidth: 50, armLength: 200 }),
-  component.parse({ ...base, id: 'f', kind: 'flow-focusing', orificeWidth: 30, orificeLength: 60, continuousWidth: 80, dispersedWidth: 60, outletWidth: 120, armLength: 300 }),
-  component.parse({ ...base, id: 'y', kind: 'y-junction', angle: 60, continuousWidth: 80, dispersedWidth: 60, outletWidth: 100, armLength: 300 }),
-  component.parse({ ...base, id: 's', kind: 'step-nozzle', reservoirLayerId: 'D', nozzleWidth: 20, nozzleLength: 100, reservoirWidth: 300, reservoirLength: 400 }),
-  component.parse({ ...base, id: 'a', kind: 'step-array', supplyLayerId: 'D', reservoirLayerId: 'D', nozzleCount: 8, pitch: 60, nozzleWidth: 20, nozzleLength: 100, supplyWidth: 200, reservoirWidth: 300, margin: 100 }),
+  component.parse({
+    ...base,
+    id: 'f',
+    kind: 'flow-focusing',
+    orificeWidth: 30,
+    orificeLength: 60,
+    continuousWidth: 80,
+    dispersedWidth: 60,
+    outletWidth: 120,
+    armLength: 300,
+  }),
+  component.parse({
+    ...base,
+    id: 'y',
+    kind: 'y-junction',
+    angle: 60,
+    continuousWidth: 80,
+    dispersedWidth: 60,
+    outletWidth: 100,
+    armLength: 300,
+  }),
+  component.parse({
+    ...base,
+    id: 's',
+    kind: 'step-nozzle',
+    reservoirLayerId: 'D',
+    nozzleWidth: 20,
+    nozzleLength: 100,
+    reservoirWidth: 300,
+    reservoirLength: 400,
+  }),
+  component.parse({
+    ...base,
+    id: 'a',
+    kind: 'step-array',
+    supplyLayerId: 'D',
+    reservoirLayerId: 'D',
+    nozzleCount: 8,
+    pitch: 60,
+    nozzleWidth: 20,
+    nozzleLength: 100,
+    supplyWidth: 200,
+    reservoirWidth: 300,
+    margin: 100,
+  }),
   component.parse({ ...base, id: 'r', kind: 'serpentine', turns: 3, pitch: 200, width: 50, totalLength: 5000 }),
 ]
 
 describe('component terminals', () => {
   it('T-junction terminals sit at the arm ends', () => {
     const t = componentTerminals(kinds[0]!)
-    expect(t.map((x) => [x.name, x.position.x, x.position.y])).toEqual([
-      ['continuous', 800, 2000], ['dispersed', 1000, 2200], ['outlet', 1200, 2000]])
+    expect(t.map(x => [x.name, x.position.x, x.position.y])).toEqual([
+      ['continuous', 800, 2000],
+      ['dispersed', 1000, 2200],
+      ['outlet', 1200, 2000],
+    ])
   })
   it('rotating a component by 90° rotates every terminal about its position', () => {
     for (const c of kinds) {

@@ -3,7 +3,14 @@ import { describe, expect, it } from 'vitest'
 import type { z } from 'zod'
 import { signInBody } from '#shared/schemas/auth'
 import { parseChipDocument } from '#shared/schemas/chip'
-import { designCreate, designListQuery, designUpdate, duplicateBody, dxfQuery, revisionCreate } from '#shared/schemas/designs'
+import {
+  designCreate,
+  designListQuery,
+  designUpdate,
+  duplicateBody,
+  dxfQuery,
+  revisionCreate,
+} from '#shared/schemas/designs'
 import { junctionRequest, networkRequest, documentRequest } from '#shared/schemas/forecast'
 import { invitationAccept, invitationCreate, invitationTokenParams, newAccount } from '#shared/schemas/invitations'
 import { commentCreate, threadCreate, verdictBody } from '#shared/schemas/review'
@@ -31,19 +38,49 @@ const SAMPLES: Array<[string, z.ZodType, unknown]> = [
   ['releaseBody', releaseBody, { note: 'go', order: { poNumber: 'PO-7', notes: 'two wafers', dueDate: '2027-01-31' } }],
   ['orderMove', orderMove, { status: 'shipped', note: 'sent', trackingNumber: 'TRK-1' }],
   ['orderMessage', orderMessage, { body: 'When will it ship?' }],
-  ['junctionRequest', junctionRequest, {
-    junction: { kind: 't-junction', mainWidth: '100 um', depth: '50 um' },
-    continuous: { name: 'oil', viscosity: '3 mPa*s', density: '800 kg/m^3' }, dispersed: { liquid: 'water' },
-    interfacialTension: '5 mN/m', flow: { continuous: '10 uL/min', dispersed: '5 uL/min' },
-  }],
-  ['networkRequest', networkRequest, { network: {
-    channels: [{ id: 'a', from: 'in', to: 'out', width: '100 um', depth: '50 um', length: '1 cm' }],
-    sources: [{ node: 'in', pressure: '100 mbar' }, { node: 'out', pressure: 0 }], liquid: { liquid: 'water' }, parallelSets: [['a', 'a']],
-  } }],
+  [
+    'junctionRequest',
+    junctionRequest,
+    {
+      junction: { kind: 't-junction', mainWidth: '100 um', depth: '50 um' },
+      continuous: { name: 'oil', viscosity: '3 mPa*s', density: '800 kg/m^3' },
+      dispersed: { liquid: 'water' },
+      interfacialTension: '5 mN/m',
+      flow: { continuous: '10 uL/min', dispersed: '5 uL/min' },
+    },
+  ],
+  [
+    'networkRequest',
+    networkRequest,
+    {
+      network: {
+        channels: [{ id: 'a', from: 'in', to: 'out', width: '100 um', depth: '50 um', length: '1 cm' }],
+        sources: [
+          { node: 'in', pressure: '100 mbar' },
+          { node: 'out', pressure: 0 },
+        ],
+        liquid: { liquid: 'water' },
+        parallelSets: [['a', 'a']],
+      },
+    },
+  ],
   ['documentRequest', documentRequest, { document: {}, operatingPoint: 'op-1' }],
 ]
 /** Fixed choices and formats (enums, literals, UUIDs): refused too, by their own message. */
-const CHOICES = new Set(['parentId', 'targetLabId', 'role', 'verdict', 'status', 'kind', 'units', 'mode', 'unit', 'phase', 'resistanceMethod', 'surfactant'])
+const CHOICES = new Set([
+  'parentId',
+  'targetLabId',
+  'role',
+  'verdict',
+  'status',
+  'kind',
+  'units',
+  'mode',
+  'unit',
+  'phase',
+  'resistanceMethod',
+  'surfactant',
+])
 
 function stringLeaves(v: unknown, path: (string | number)[] = []): (string | number)[][] {
   if (typeof v === 'string') return [path]
@@ -57,7 +94,10 @@ function withLeaf(v: unknown, path: (string | number)[], f: (s: string) => strin
   copy[path[0]!] = withLeaf(copy[path[0]!], path.slice(1), f)
   return copy
 }
-const BROKEN = { NUL: (s: string) => `${s.slice(0, 1)}\u0000${s.slice(1)}`, 'lone surrogate': (s: string) => `${s}\ud800` }
+const BROKEN = {
+  NUL: (s: string) => `${s.slice(0, 1)}\u0000${s.slice(1)}`,
+  'lone surrogate': (s: string) => `${s}\ud800`,
+}
 
 describe('textProblem and safeText', () => {
   it('names NUL and lone surrogates with their position; keeps real astral characters and plain text', () => {
@@ -67,10 +107,12 @@ describe('textProblem and safeText', () => {
     expect(textProblem('drops 💧 µm ±')).toBeNull()
     expect(textProblem('')).toBeNull()
   })
-  it('stops at the first problem: the field\'s own checks add nothing', () => {
+  it("stops at the first problem: the field's own checks add nothing", () => {
     const r = safeText(undefined, 'Name').min(1).max(3).regex(/^a+$/).safeParse('\u0000bbbbbb')
     expect(r.success).toBe(false)
-    expect(r.error!.issues.map(i => i.message)).toEqual(['Name must not contain a NUL character (U+0000, at character 1): remove it'])
+    expect(r.error!.issues.map(i => i.message)).toEqual([
+      'Name must not contain a NUL character (U+0000, at character 1): remove it',
+    ])
   })
 })
 
@@ -87,7 +129,8 @@ describe('every string field of every payload refuses NUL and lone surrogates, n
           expect(r.success, where).toBe(false)
           const issue = r.error!.issues.find(i => i.path.join('.') === path.join('.'))
           expect(issue, `${where}: ${JSON.stringify(r.error!.issues)}`).toBeDefined()
-          if (!CHOICES.has(String(path[path.length - 1]))) expect(issue!.message, where).toMatch(problem === 'NUL' ? /NUL character/ : /lone UTF-16 surrogate/)
+          if (!CHOICES.has(String(path[path.length - 1])))
+            expect(issue!.message, where).toMatch(problem === 'NUL' ? /NUL character/ : /lone UTF-16 surrogate/)
         }
       }
     })
@@ -101,11 +144,20 @@ describe('every string field of every payload refuses NUL and lone surrogates, n
       expect(r.ok, path.join('.')).toBe(false)
       if (r.ok) continue
       // A liquid is one of two shapes: the refusal sits on the liquid and names the broken text.
-      const hit = r.errors.find(e => e.path === path.join('.') || (path.some(k => k === 'continuousLiquid' || k === 'dispersedLiquid') && e.path === path.slice(0, -1).join('.') && /NUL character/.test(e.message)))
+      const hit = r.errors.find(
+        e =>
+          e.path === path.join('.') ||
+          (path.some(k => k === 'continuousLiquid' || k === 'dispersedLiquid') &&
+            e.path === path.slice(0, -1).join('.') &&
+            /NUL character/.test(e.message)),
+      )
       expect(hit, `${path.join('.')}: ${JSON.stringify(r.errors)}`).toBeDefined()
     }
     const named = parseChipDocument({ ...doc, name: 'chip\ud83d' })
     expect(named.ok).toBe(false)
-    if (!named.ok) expect(named.errors[0]!.message).toMatch(/^Design name contains a broken character \(a lone UTF-16 surrogate U\+D83D/)
+    if (!named.ok)
+      expect(named.errors[0]!.message).toMatch(
+        /^Design name contains a broken character \(a lone UTF-16 surrogate U\+D83D/,
+      )
   })
 })

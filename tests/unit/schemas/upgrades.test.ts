@@ -6,7 +6,10 @@ import { loadDocumentFixture } from './load-fixture'
 function asV0(): Record<string, any> {
   const v1 = loadDocumentFixture('t-junction-basic.json')
   const { version: _v, units: _u, operatingPoints, activeOperatingPoint: _a, ...rest } = v1
-  const ports = rest.ports.map(({ punchDiameter, ...p }: Record<string, unknown>) => ({ ...p, diameter: punchDiameter }))
+  const ports = rest.ports.map(({ punchDiameter, ...p }: Record<string, unknown>) => ({
+    ...p,
+    diameter: punchDiameter,
+  }))
   const { id: _id, name: _n, ...liquids } = operatingPoints[0]
   return { ...rest, ports, liquids }
 }
@@ -21,7 +24,7 @@ describe('chip document upgrades', () => {
     if (!r.ok) return
     expect(r.upgradedFrom).toBe(0)
     expect(r.document.units).toBe('um')
-    expect(r.document.ports.map((p) => p.punchDiameter)).toEqual([750, 750, 1000])
+    expect(r.document.ports.map(p => p.punchDiameter)).toEqual([750, 750, 1000])
     expect(r.document.operatingPoints[0]?.inlets).toHaveLength(2)
     expect(r.document.activeOperatingPoint).toBe('op-1')
   })

@@ -25,16 +25,16 @@ describe('diffDocuments', () => {
     expect(d.added).toEqual(['align-2'])
     expect(d.removed).toEqual(['drops-out'])
     expect(d.changed).toEqual(['tj-1'])
-    const tj = d.entries.find((e) => e.id === 'tj-1')!
+    const tj = d.entries.find(e => e.id === 'tj-1')!
     expect(tj).toMatchObject({ collection: 'components', status: 'changed', kind: 't-junction' })
     expect(tj.fields).toEqual([
       { path: 'position.x', before: 5000, after: 5100 },
       { path: 'mainWidth', before: 100, after: 80 },
     ])
-    expect(d.entries.find((e) => e.id === 'ch50')!.fields).toEqual([{ path: 'depth', before: 50, after: 40 }])
-    const op = d.entries.find((e) => e.collection === 'operatingPoints')!
-    expect(op.fields.map((f) => f.path)).toEqual(['inlets'])
-    expect(d.entries.find((e) => e.id === 'align-2')).toMatchObject({ status: 'added', kind: 'cross', fields: [] })
+    expect(d.entries.find(e => e.id === 'ch50')!.fields).toEqual([{ path: 'depth', before: 50, after: 40 }])
+    const op = d.entries.find(e => e.collection === 'operatingPoints')!
+    expect(op.fields.map(f => f.path)).toEqual(['inlets'])
+    expect(d.entries.find(e => e.id === 'align-2')).toMatchObject({ status: 'added', kind: 'cross', fields: [] })
   })
 
   it('compares the outline and document-level fields', () => {
@@ -54,7 +54,7 @@ describe('diffDocuments', () => {
     raw.marks.push({ id: 'align-1', kind: 'text', position: { x: 600, y: 600 }, text: 'A', height: 200 })
     const d = diffDocuments(base(), requireChipDocument(raw))
     expect(d.changed).toEqual(['align-1'])
-    expect(d.entries.find((e) => e.id === 'align-1')!.fields.map((f) => f.path)).toContain('kind')
+    expect(d.entries.find(e => e.id === 'align-1')!.fields.map(f => f.path)).toContain('kind')
   })
 
   it('ignores float noise but not real changes', () => {

@@ -1,11 +1,23 @@
 import { describe, expect, it } from 'vitest'
 import { requireChipDocument } from '#shared/schemas/chip'
 import { generateParallelChip } from '../../../geometry/arrays'
-import { buildElementIndex, distanceToPolygon, hitTest, pointInPolygon, polygonArea } from '../../../components/viewer/lib/hitTest'
+import {
+  buildElementIndex,
+  distanceToPolygon,
+  hitTest,
+  pointInPolygon,
+  polygonArea,
+} from '../../../components/viewer/lib/hitTest'
 import { sceneFor } from '../../../components/viewer/lib/scene'
 import { loadDocumentFixture } from '../schemas/load-fixture'
 
-const square = (x0: number, y0: number, s: number) => [[x0, y0], [x0 + s, y0], [x0 + s, y0 + s], [x0, y0 + s]] as [number, number][]
+const square = (x0: number, y0: number, s: number) =>
+  [
+    [x0, y0],
+    [x0 + s, y0],
+    [x0 + s, y0 + s],
+    [x0, y0 + s],
+  ] as [number, number][]
 
 describe('point in polygon', () => {
   it('respects holes', () => {
@@ -47,7 +59,7 @@ describe('hitTest on the 512-nozzle chip', () => {
   const doc = generateParallelChip({ nozzles: 512 })
   const scene = sceneFor(doc)
   it('picks the right nozzle among 512 quickly', () => {
-    const n = doc.components.find((c) => c.id === 'b2-n77')!
+    const n = doc.components.find(c => c.id === 'b2-n77')!
     const t0 = performance.now()
     let id: string | null = null
     for (let i = 0; i < 1000; i++) id = hitTest(scene.index, n.position.x + 100, n.position.y)

@@ -8,11 +8,16 @@ import { buildScene, sceneFor, type ChipScene } from '../../../components/viewer
 import { visibleBounds } from '../../../components/viewer/lib/viewport'
 
 const flat = (s: ChipScene) => ({
-  layers: s.layers.map((l) => ({ id: l.layerId, rings: l.rings.map((r) => Array.from(r)), chunked: l.chunks.flatMap((c) => c.rings.map((r) => Array.from(r))) })),
-  marks: s.marks.map((r) => Array.from(r)),
-  elements: s.elements.map((e) => [e.elementId, e.layerId, e.pieces]),
-  index: s.index.pieces.map((p) => [p.elementId, p.layerId, p.area]),
-  bounds: s.bounds, problems: s.problems,
+  layers: s.layers.map(l => ({
+    id: l.layerId,
+    rings: l.rings.map(r => Array.from(r)),
+    chunked: l.chunks.flatMap(c => c.rings.map(r => Array.from(r))),
+  })),
+  marks: s.marks.map(r => Array.from(r)),
+  elements: s.elements.map(e => [e.elementId, e.layerId, e.pieces]),
+  index: s.index.pieces.map(p => [p.elementId, p.layerId, p.area]),
+  bounds: s.bounds,
+  problems: s.problems,
 })
 
 describe('incremental scene', () => {
@@ -31,23 +36,27 @@ describe('incremental scene', () => {
     const s = sceneFor(after)
     for (const [i, l] of s.layers.entries()) {
       const old = new Set(before.layers[i]!.chunks)
-      const reused = l.chunks.filter((c) => old.has(c)).length
+      const reused = l.chunks.filter(c => old.has(c)).length
       // the moved nozzle and the channels attached to it change at most a few chunks per layer
       expect(l.chunks.length - reused).toBeLessThanOrEqual(3)
       expect(reused).toBeGreaterThan(0)
       const oldRings = new Set(before.layers[i]!.rings)
-      expect(l.rings.filter((r) => !oldRings.has(r)).length).toBeLessThanOrEqual(12)
+      expect(l.rings.filter(r => !oldRings.has(r)).length).toBeLessThanOrEqual(12)
     }
   })
 
   it('keeps chunks to a few hundred rings and their boxes around their rings', () => {
-    for (const l of before.layers) for (const c of l.chunks) {
-      expect(c.rings.length).toBeLessThanOrEqual(256 + 8)
-      for (const r of c.rings) for (let k = 0; k < r.length; k += 2) {
-        expect(r[k]!).toBeGreaterThanOrEqual(c.box.minX); expect(r[k]!).toBeLessThanOrEqual(c.box.maxX)
-        expect(r[k + 1]!).toBeGreaterThanOrEqual(c.box.minY); expect(r[k + 1]!).toBeLessThanOrEqual(c.box.maxY)
+    for (const l of before.layers)
+      for (const c of l.chunks) {
+        expect(c.rings.length).toBeLessThanOrEqual(256 + 8)
+        for (const r of c.rings)
+          for (let k = 0; k < r.length; k += 2) {
+            expect(r[k]!).toBeGreaterThanOrEqual(c.box.minX)
+            expect(r[k]!).toBeLessThanOrEqual(c.box.maxX)
+            expect(r[k + 1]!).toBeGreaterThanOrEqual(c.box.minY)
+            expect(r[k + 1]!).toBeLessThanOrEqual(c.box.maxY)
+          }
       }
-    }
   })
 })
 

@@ -24,7 +24,7 @@ describe('niceScaleBar', () => {
     for (let s = 1e-4; s < 200; s *= 1.37) {
       const bar = niceScaleBar(s, 160)
       const mantissa = bar.lengthUm / 10 ** Math.floor(Math.log10(bar.lengthUm) + 1e-9)
-      expect([1, 2, 5].some((m) => Math.abs(mantissa - m) < 1e-6)).toBe(true)
+      expect([1, 2, 5].some(m => Math.abs(mantissa - m) < 1e-6)).toBe(true)
       expect(bar.px).toBeGreaterThanOrEqual(0.4 * 160)
       expect(bar.px).toBeLessThanOrEqual(160 + 1e-9)
     }

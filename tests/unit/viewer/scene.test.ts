@@ -21,10 +21,14 @@ describe('scene', () => {
     const doc = fixture()
     const s = buildScene(doc)
     const o = buildOutlines(doc)
-    expect(s.elements.map((e) => e.elementId)).toEqual(o.elements.map((e) => e.elementId))
-    expect(s.layers.map((l) => [l.layerId, l.depth])).toEqual([['ch50', 50]])
+    expect(s.elements.map(e => e.elementId)).toEqual(o.elements.map(e => e.elementId))
+    expect(s.layers.map(l => [l.layerId, l.depth])).toEqual([['ch50', 50]])
     expect(s.bounds).toEqual({ minX: 0, minY: 0, maxX: 10000, maxY: 7000 })
-    expect(s.ports.map((p) => [p.id, p.radius, p.phase])).toEqual([['oil-in', 375, 'continuous'], ['water-in', 375, 'dispersed'], ['out', 500, undefined]])
+    expect(s.ports.map(p => [p.id, p.radius, p.phase])).toEqual([
+      ['oil-in', 375, 'continuous'],
+      ['water-in', 375, 'dispersed'],
+      ['out', 500, undefined],
+    ])
     expect(s.texts).toEqual([{ id: 'label', text: 'DW TJ 01', x: 6500, y: 500, height: 300 }])
     expect(s.marks.length).toBe(2) // the two arms of the alignment cross
   })
@@ -32,9 +36,29 @@ describe('scene', () => {
   it('winds every exterior counter-clockwise so one non-zero fill draws the union without gaps', () => {
     const s = buildScene(fixture())
     for (const r of s.layers[0]!.rings) expect(signed(r)).toBeGreaterThan(0)
-    const cw = flatRing([[0, 0], [0, 10], [10, 10], [10, 0], [0, 0]], true)
+    const cw = flatRing(
+      [
+        [0, 0],
+        [0, 10],
+        [10, 10],
+        [10, 0],
+        [0, 0],
+      ],
+      true,
+    )
     expect(Array.from(cw)).toEqual([10, 0, 10, 10, 0, 10, 0, 0]) // reversed, closing point dropped
-    expect(signed(flatRing([[0, 0], [10, 0], [10, 10]], false))).toBeLessThan(0) // a hole runs clockwise
+    expect(
+      signed(
+        flatRing(
+          [
+            [0, 0],
+            [10, 0],
+            [10, 10],
+          ],
+          false,
+        ),
+      ),
+    ).toBeLessThan(0) // a hole runs clockwise
   })
 
   it('is built once per document object', () => {
@@ -44,9 +68,17 @@ describe('scene', () => {
 
   it('orders layers deepest first and shades deeper layers darker', () => {
     const s = sceneFor(generateParallelChip({ nozzles: 8 }))
-    expect(s.layers.map((l) => l.layerId)).toEqual(['deep', 'nozzle'])
-    const styles = layerStyles([{ id: 'a', depth: 20 }, { id: 'b', depth: 150 }, { id: 'c', depth: 60 }])
-    expect([...styles.entries()].map(([id, st]) => [id, st.family, st.shade])).toEqual([['a', 'aqueous', 300], ['c', 'oil', 500], ['b', 'graphite', 600]])
+    expect(s.layers.map(l => l.layerId)).toEqual(['deep', 'nozzle'])
+    const styles = layerStyles([
+      { id: 'a', depth: 20 },
+      { id: 'b', depth: 150 },
+      { id: 'c', depth: 60 },
+    ])
+    expect([...styles.entries()].map(([id, st]) => [id, st.family, st.shade])).toEqual([
+      ['a', 'aqueous', 300],
+      ['c', 'oil', 500],
+      ['b', 'graphite', 600],
+    ])
   })
 
   it('builds the 512-nozzle scene well under the time to draw', () => {
@@ -64,7 +96,15 @@ describe('compare overlay', () => {
     const raw = loadDocumentFixture('t-junction-basic.json')
     raw.components[0].inletWidth = 40
     raw.channels = raw.channels.filter((c: { id: string }) => c.id !== 'drops-out')
-    raw.channels.push({ id: 'drops-out-2', layerId: 'ch50', width: 80, points: [{ x: 5200, y: 3000 }, { x: 8500, y: 3000 }] })
+    raw.channels.push({
+      id: 'drops-out-2',
+      layerId: 'ch50',
+      width: 80,
+      points: [
+        { x: 5200, y: 3000 },
+        { x: 8500, y: 3000 },
+      ],
+    })
     raw.ports[0].feed = { phase: 'dispersed' } // not geometry: not "changed" on the overlay
     const before = fixture()
     const now = requireChipDocument(raw)

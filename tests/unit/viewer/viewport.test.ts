@@ -1,6 +1,18 @@
 import { describe, expect, it } from 'vitest'
 import {
-  MAX_SCALE, MIN_SCALE, centreOn, fitClearOf, fitToBounds, screenBoxOf, panBy, screenPoint, screenToWorld, visibleBounds, worldPoint, worldToScreen, zoomAround,
+  MAX_SCALE,
+  MIN_SCALE,
+  centreOn,
+  fitClearOf,
+  fitToBounds,
+  screenBoxOf,
+  panBy,
+  screenPoint,
+  screenToWorld,
+  visibleBounds,
+  worldPoint,
+  worldToScreen,
+  zoomAround,
 } from '../../../components/viewer/lib/viewport'
 
 const size = { width: 800, height: 600 }
@@ -14,7 +26,11 @@ describe('viewport maths', () => {
 
   it('screenToWorld inverts worldToScreen', () => {
     const v = { scale: 0.037, tx: -12.5, ty: 713 }
-    for (const [x, y] of [[0, 0], [1234.5, -77], [-3e4, 9e3]] as const) {
+    for (const [x, y] of [
+      [0, 0],
+      [1234.5, -77],
+      [-3e4, 9e3],
+    ] as const) {
       const back = screenToWorld(v, worldToScreen(v, worldPoint(x, y)))
       expect(back.x).toBeCloseTo(x, 6)
       expect(back.y).toBeCloseTo(y, 6)
@@ -68,8 +84,13 @@ describe('viewport maths', () => {
 describe('fitClearOf: the chip never under the layer panel in the corner', () => {
   const vp = { width: 560, height: 390 }
   const panel = { width: 245, height: 95 }
-  const inside = (box: { x: number, y: number, width: number, height: number }) => [box.x >= 0, box.y >= 0, box.x + box.width <= vp.width, box.y + box.height <= vp.height]
-  const clear = (box: { x: number, y: number }) => box.x >= panel.width || box.y >= panel.height
+  const inside = (box: { x: number; y: number; width: number; height: number }) => [
+    box.x >= 0,
+    box.y >= 0,
+    box.x + box.width <= vp.width,
+    box.y + box.height <= vp.height,
+  ]
+  const clear = (box: { x: number; y: number }) => box.x >= panel.width || box.y >= panel.height
 
   it('a tall chip (the 64-nozzle array, 7.55 × 11.78 mm) moves beside the panel at nearly the plain scale', () => {
     const b = { minX: -2000, minY: -2000, maxX: 5550, maxY: 9780 }

@@ -3,7 +3,7 @@ import { revokeToken } from '../../../services/apiTokens'
 import { requireSession } from '../../../utils/access'
 import { validParams } from '../../../utils/validate'
 
-export default defineEventHandler((event) => {
+export default defineEventHandler(event => {
   const session = requireSession(event)
   const { tokenId } = validParams(event, tokenParams)
   return revokeToken(session, tokenId)

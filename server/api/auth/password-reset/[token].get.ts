@@ -3,7 +3,7 @@ import { passwordResetParams } from '#shared/schemas/auth'
 import { describePasswordReset } from '../../../services/passwords'
 import { validParams } from '../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { token } = validParams(event, passwordResetParams)
   return describePasswordReset(token)
 })

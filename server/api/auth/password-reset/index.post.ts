@@ -4,7 +4,7 @@ import { requestPasswordReset } from '../../../services/passwords'
 import { appOrigin } from '../../../utils/origin'
 import { validBody } from '../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const body = await validBody(event, passwordResetRequest)
   return requestPasswordReset(body, appOrigin(event))
 })

@@ -3,7 +3,7 @@ import { reviewInbox } from '../../../services/reviewInbox'
 import { requireLabPermission } from '../../../utils/access'
 import { validParams } from '../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId } = validParams(event, labParams)
   const caller = requireLabPermission(event, labId, 'lab:view')
   return reviewInbox(caller)

@@ -7,7 +7,9 @@ import { degrees } from '../units'
 /** Fields every parametric component has: where it sits and how it is turned (degrees, counter-clockwise). */
 export const componentBase = {
   id: elementId,
-  name: safeText(undefined, 'Component name').max(L.nameChars, { error: `Component name must be at most ${L.nameChars} characters` }).optional(),
+  name: safeText(undefined, 'Component name')
+    .max(L.nameChars, { error: `Component name must be at most ${L.nameChars} characters` })
+    .optional(),
   position: point,
   rotation: degrees('Component rotation').default(0),
   layerId: elementId,

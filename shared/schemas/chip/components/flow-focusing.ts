@@ -19,7 +19,11 @@ export const flowFocusing = z
   })
   .superRefine((c, ctx) => {
     const widest = Math.max(c.continuousWidth, c.dispersedWidth, c.outletWidth)
-    requireThat(ctx, c.armLength >= widest, 'armLength',
-      `Flow-focusing arm length must be ≥ the widest channel (${widest} µm)`)
+    requireThat(
+      ctx,
+      c.armLength >= widest,
+      'armLength',
+      `Flow-focusing arm length must be ≥ the widest channel (${widest} µm)`,
+    )
   })
 export type FlowFocusing = z.infer<typeof flowFocusing>

@@ -6,9 +6,13 @@ import { stepNozzle } from './step-nozzle'
 import { tJunction } from './t-junction'
 import { yJunction } from './y-junction'
 
-export const component = z.discriminatedUnion('kind', [tJunction, flowFocusing, stepNozzle, stepArray, yJunction, serpentine], {
-  error: 'Component kind must be one of t-junction, flow-focusing, step-nozzle, step-array, y-junction, serpentine',
-})
+export const component = z.discriminatedUnion(
+  'kind',
+  [tJunction, flowFocusing, stepNozzle, stepArray, yJunction, serpentine],
+  {
+    error: 'Component kind must be one of t-junction, flow-focusing, step-nozzle, step-array, y-junction, serpentine',
+  },
+)
 export type Component = z.infer<typeof component>
 export type ComponentKind = Component['kind']
 

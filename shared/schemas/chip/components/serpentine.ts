@@ -18,9 +18,18 @@ export const serpentine = z
     totalLength: positiveUm('Serpentine total length'),
   })
   .superRefine((c, ctx) => {
-    requireThat(ctx, c.pitch > c.width, 'pitch', `Serpentine pitch must be > its width (${c.width} µm) or the runs touch`)
-    requireThat(ctx, serpentineRunLength(c) > 0, 'totalLength',
-      `Serpentine total length must be > ${(c.turns * Math.PI * c.pitch / 2).toFixed(1)} µm (the turns alone)`)
+    requireThat(
+      ctx,
+      c.pitch > c.width,
+      'pitch',
+      `Serpentine pitch must be > its width (${c.width} µm) or the runs touch`,
+    )
+    requireThat(
+      ctx,
+      serpentineRunLength(c) > 0,
+      'totalLength',
+      `Serpentine total length must be > ${((c.turns * Math.PI * c.pitch) / 2).toFixed(1)} µm (the turns alone)`,
+    )
   })
 export type Serpentine = z.infer<typeof serpentine>
 

@@ -23,10 +23,24 @@ export const stepArray = z
     margin: positiveUm('Step array end margin'),
   })
   .superRefine((c, ctx) => {
-    requireThat(ctx, c.pitch > c.nozzleWidth, 'pitch', `Step array pitch must be > the nozzle width (${c.nozzleWidth} µm)`)
-    requireThat(ctx, c.margin >= c.nozzleWidth, 'margin', `Step array end margin must be ≥ the nozzle width (${c.nozzleWidth} µm)`)
-    requireThat(ctx, c.reservoirLayerId !== c.layerId, 'reservoirLayerId',
-      'Step array reservoir must be on a different (deeper) layer than the nozzles')
+    requireThat(
+      ctx,
+      c.pitch > c.nozzleWidth,
+      'pitch',
+      `Step array pitch must be > the nozzle width (${c.nozzleWidth} µm)`,
+    )
+    requireThat(
+      ctx,
+      c.margin >= c.nozzleWidth,
+      'margin',
+      `Step array end margin must be ≥ the nozzle width (${c.nozzleWidth} µm)`,
+    )
+    requireThat(
+      ctx,
+      c.reservoirLayerId !== c.layerId,
+      'reservoirLayerId',
+      'Step array reservoir must be on a different (deeper) layer than the nozzles',
+    )
   })
 export type StepArray = z.infer<typeof stepArray>
 

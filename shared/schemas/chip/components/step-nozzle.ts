@@ -19,9 +19,17 @@ export const stepNozzle = z
     reservoirLength: positiveUm('Step reservoir length'),
   })
   .superRefine((c, ctx) => {
-    requireThat(ctx, c.reservoirLayerId !== c.layerId, 'reservoirLayerId',
-      'Step nozzle reservoir must be on a different (deeper) layer than the nozzle')
-    requireThat(ctx, c.reservoirLength >= c.nozzleWidth, 'reservoirLength',
-      `Step reservoir length must be ≥ the nozzle width (${c.nozzleWidth} µm)`)
+    requireThat(
+      ctx,
+      c.reservoirLayerId !== c.layerId,
+      'reservoirLayerId',
+      'Step nozzle reservoir must be on a different (deeper) layer than the nozzle',
+    )
+    requireThat(
+      ctx,
+      c.reservoirLength >= c.nozzleWidth,
+      'reservoirLength',
+      `Step reservoir length must be ≥ the nozzle width (${c.nozzleWidth} µm)`,
+    )
   })
 export type StepNozzle = z.infer<typeof stepNozzle>

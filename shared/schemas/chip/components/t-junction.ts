@@ -16,7 +16,11 @@ export const tJunction = z
   })
   .superRefine((c, ctx) => {
     const widest = Math.max(c.mainWidth, c.inletWidth)
-    requireThat(ctx, c.armLength >= widest, 'armLength',
-      `T-junction arm length must be ≥ the widest channel (${widest} µm) so each arm leaves the junction`)
+    requireThat(
+      ctx,
+      c.armLength >= widest,
+      'armLength',
+      `T-junction arm length must be ≥ the widest channel (${widest} µm) so each arm leaves the junction`,
+    )
   })
 export type TJunction = z.infer<typeof tJunction>

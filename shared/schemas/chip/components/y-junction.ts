@@ -10,8 +10,10 @@ export const yJunction = z
   .object({
     ...componentBase,
     kind: z.literal('y-junction'),
-    angle: z.number({ error: 'Y-junction angle must be a number in degrees' })
-      .min(10, { error: 'Y-junction angle must be between 10° and 170°' }).max(170, { error: 'Y-junction angle must be between 10° and 170°' }),
+    angle: z
+      .number({ error: 'Y-junction angle must be a number in degrees' })
+      .min(10, { error: 'Y-junction angle must be between 10° and 170°' })
+      .max(170, { error: 'Y-junction angle must be between 10° and 170°' }),
     continuousWidth: positiveUm('Y-junction continuous width'),
     dispersedWidth: positiveUm('Y-junction dispersed width'),
     outletWidth: positiveUm('Y-junction outlet width'),
@@ -19,6 +21,11 @@ export const yJunction = z
   })
   .superRefine((c, ctx) => {
     const widest = Math.max(c.continuousWidth, c.dispersedWidth, c.outletWidth)
-    requireThat(ctx, c.armLength >= widest, 'armLength', `Y-junction arm length must be ≥ the widest channel (${widest} µm)`)
+    requireThat(
+      ctx,
+      c.armLength >= widest,
+      'armLength',
+      `Y-junction arm length must be ≥ the widest channel (${widest} µm)`,
+    )
   })
 export type YJunction = z.infer<typeof yJunction>

@@ -13,7 +13,10 @@ export type UpgradeResult = { ok: true; document: Json; from: number } | { ok: f
 /** Runs every upgrade step from the document's version to `target`. A missing version means version 0. */
 export function upgradeChipDocument(input: unknown, target: number): UpgradeResult {
   if (input === null || typeof input !== 'object' || Array.isArray(input)) {
-    return { ok: false, message: 'A chip document must be a JSON object (got ' + (Array.isArray(input) ? 'a list' : String(input)) + ')' }
+    return {
+      ok: false,
+      message: 'A chip document must be a JSON object (got ' + (Array.isArray(input) ? 'a list' : String(input)) + ')',
+    }
   }
   let doc = input as Json
   const from = doc.version === undefined ? 0 : doc.version
@@ -21,7 +24,10 @@ export function upgradeChipDocument(input: unknown, target: number): UpgradeResu
     return { ok: false, message: `Document version must be a whole number 0…${target} (got ${JSON.stringify(from)})` }
   }
   if (from > target) {
-    return { ok: false, message: `Document version ${from} is newer than this Dropwright understands (${target}): update Dropwright` }
+    return {
+      ok: false,
+      message: `Document version ${from} is newer than this Dropwright understands (${target}): update Dropwright`,
+    }
   }
   for (let v = from; v < target; v++) {
     const step = upgradeSteps[v]

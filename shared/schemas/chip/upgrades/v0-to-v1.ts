@@ -15,9 +15,10 @@ export function upgradeV0ToV1(doc: Json): Json {
       })
     : doc.ports
   const operatingPoints = Array.isArray(doc.operatingPoints) ? doc.operatingPoints : []
-  const fromLiquids = liquids && typeof liquids === 'object' && operatingPoints.length === 0
-    ? [{ id: 'op-1', name: 'Operating point 1', inlets: [], ...(liquids as Json) }]
-    : []
+  const fromLiquids =
+    liquids && typeof liquids === 'object' && operatingPoints.length === 0
+      ? [{ id: 'op-1', name: 'Operating point 1', inlets: [], ...(liquids as Json) }]
+      : []
   const all = [...operatingPoints, ...fromLiquids]
   return {
     ...rest,

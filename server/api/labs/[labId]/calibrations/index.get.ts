@@ -4,7 +4,7 @@ import { requireBenchCaller } from '../../../../services/bench'
 import { labCalibrations } from '../../../../services/benchCalibration'
 import { validParams, validQuery } from '../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId } = validParams(event, labParams)
   const caller = requireBenchCaller(event, labId)
   const { designId } = validQuery(event, calibrationQuery)

@@ -4,7 +4,7 @@ import { createDesign } from '../../../../services/designs'
 import { requireLabPermission } from '../../../../utils/access'
 import { validBody, validParams } from '../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId } = validParams(event, labParams)
   const caller = requireLabPermission(event, labId, 'designs:edit')
   const body = await validBody(event, designCreate)

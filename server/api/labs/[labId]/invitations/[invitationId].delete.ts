@@ -3,7 +3,7 @@ import { revokeInvitation } from '../../../../services/invitations'
 import { requireLabPermission } from '../../../../utils/access'
 import { validParams } from '../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, invitationId } = validParams(event, invitationParams)
   const caller = requireLabPermission(event, labId, 'members:manage')
   await revokeInvitation(caller, invitationId)

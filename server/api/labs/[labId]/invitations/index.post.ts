@@ -5,7 +5,7 @@ import { requireLabPermission } from '../../../../utils/access'
 import { appOrigin } from '../../../../utils/origin'
 import { validBody, validParams } from '../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId } = validParams(event, labParams)
   const caller = requireLabPermission(event, labId, 'members:manage')
   const body = await validBody(event, invitationCreate)

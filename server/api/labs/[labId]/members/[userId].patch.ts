@@ -3,7 +3,7 @@ import { changeRole } from '../../../../services/members'
 import { requireLabPermission } from '../../../../utils/access'
 import { validBody, validParams } from '../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, userId } = validParams(event, memberParams)
   const caller = requireLabPermission(event, labId, 'members:manage')
   const { role } = await validBody(event, memberRoleUpdate)

@@ -3,7 +3,7 @@ import { listOrders } from '../../../../services/orders'
 import { requireLabPermission } from '../../../../utils/access'
 import { validParams } from '../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId } = validParams(event, labParams)
   const caller = requireLabPermission(event, labId, 'released:view')
   return listOrders(caller)

@@ -3,7 +3,7 @@ import { updateDesign } from '../../../../../services/designs'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, designId } = validParams(event, designParams)
   const caller = requireLabPermission(event, labId, 'designs:edit')
   return updateDesign(caller, designId, await validBody(event, designUpdate))

@@ -4,7 +4,7 @@ import { requireLabPermission } from '../../../../../utils/access'
 import { validParams } from '../../../../../utils/validate'
 
 // The revision forecast again with the lab's current library, beside the stored forecast (which never changes).
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, revisionId } = validParams(event, revisionParams)
   const caller = requireLabPermission(event, labId, 'designs:view')
   return reforecastRevision(caller, revisionId)

@@ -4,7 +4,7 @@ import { requestReview } from '../../../../../services/review'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, revisionId } = validParams(event, revisionParams)
   const caller = requireLabPermission(event, labId, 'designs:edit')
   const { reviewerIds } = await validBody(event, reviewRequestBody)

@@ -4,7 +4,7 @@ import { giveVerdict } from '../../../../../services/review'
 import { requireLabPermission } from '../../../../../utils/access'
 import { validBody, validParams } from '../../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, revisionId } = validParams(event, revisionParams)
   const caller = requireLabPermission(event, labId, 'review:verdict')
   const { verdict, note } = await validBody(event, verdictBody)

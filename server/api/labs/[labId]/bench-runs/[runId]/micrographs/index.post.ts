@@ -5,7 +5,7 @@ import { readMicrographForm } from '../../../../../../utils/multipart'
 import { parseOr400, validParams } from '../../../../../../utils/validate'
 
 // multipart/form-data: "image" (PNG, JPEG or TIFF, checked on its bytes) and the scale ("umPerPx", or "barPx" + "barUm").
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, runId } = validParams(event, benchRunParams)
   const caller = requireBenchCaller(event, labId, 'measurements:record')
   const form = await readMicrographForm(event)

@@ -3,7 +3,7 @@ import { createRevision } from '../../../../../../services/revisions'
 import { requireLabPermission } from '../../../../../../utils/access'
 import { validBody, validParams } from '../../../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, designId } = validParams(event, designParams)
   const caller = requireLabPermission(event, labId, 'designs:edit')
   const body = await validBody(event, revisionCreate)

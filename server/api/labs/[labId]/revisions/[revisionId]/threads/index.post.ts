@@ -4,7 +4,7 @@ import { createThread } from '../../../../../../services/comments'
 import { requireLabPermission } from '../../../../../../utils/access'
 import { validBody, validParams } from '../../../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, revisionId } = validParams(event, revisionParams)
   const caller = requireLabPermission(event, labId, 'review:comment')
   const body = await validBody(event, threadCreate)

@@ -3,7 +3,7 @@ import { requireBenchCaller } from '../../../../../../../services/bench'
 import { excludeDetections } from '../../../../../../../services/benchMicrographs'
 import { validBody, validParams } from '../../../../../../../utils/validate'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async event => {
   const { labId, runId, micrographId } = validParams(event, micrographParams)
   const caller = requireBenchCaller(event, labId, 'measurements:record')
   const { excluded } = await validBody(event, micrographUpdate)
