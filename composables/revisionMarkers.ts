@@ -1,27 +1,41 @@
 // Canvas markers for a revision: forecast labels beside junctions, pins for comment threads, rule findings.
-import { confidenceOf, formatLengthUm } from '#shared/format/quantity'
+import { confidenceOf, formatFlowUlMin, formatLengthUm, formatPressureMbar } from '#shared/format/quantity'
+import type { ViewerLabel } from '~/components/viewer/lib/markers'
 import type { ChipDocument } from '~~/shared/schemas/chip'
 import type { RevisionSummary, ThreadView } from '~~/shared/types/designs'
 
-export function forecastLabels(doc: ChipDocument, summary: RevisionSummary) {
-  const byId = new Map(summary.junctions.map(j => [j.id, j]))
-  return doc.components.flatMap(c => {
-    const j = byId.get(c.id)
-    if (!j) return []
+/**
+ * The canvas callouts of a forecast, in the editor (live) and on the revision page (stored): per junction its regime
+ * and Ø (caution when outside validity), per inlet its pressure and flow (a fault above the process's bond limit).
+ */
+export function forecastLabels(
+  doc: ChipDocument,
+  summary: Pick<RevisionSummary, 'junctions' | 'inlets'> | null,
+  bondLimitMbar = Infinity,
+): ViewerLabel[] {
+  if (!summary) return []
+  const comps = new Map(doc.components.map(c => [c.id, c]))
+  const ports = new Map(doc.ports.map(p => [p.id, p]))
+  const labels: ViewerLabel[] = []
+  for (const j of summary.junctions) {
+    const c = comps.get(j.id)
+    if (!c) continue
     const lines = [
-      j.regime ?? '—',
+      `${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`,
       j.dropletDiameterUm != null ? `Ø ${formatLengthUm(j.dropletDiameterUm, confidenceOf(j.valid))}` : 'Ø —',
     ]
-    return [
-      {
-        elementId: c.id,
-        x: c.position.x,
-        y: c.position.y,
-        lines,
-        tone: (j.valid ? 'ok' : 'caution') as 'ok' | 'caution',
-      },
-    ]
-  })
+    labels.push({ elementId: j.id, x: c.position.x, y: c.position.y, lines, tone: j.valid ? 'ok' : 'caution' })
+  }
+  for (const i of summary.inlets) {
+    const p = ports.get(i.portId)
+    if (!p) continue
+    const over = i.pressureMbar > bondLimitMbar
+    const lines = [`${over ? '⚠ ' : ''}${formatPressureMbar(i.pressureMbar)}`]
+    // Summaries stored before flows were kept have none.
+    if (i.flowUlPerMin != null) lines.push(formatFlowUlMin(i.flowUlPerMin))
+    labels.push({ elementId: p.id, x: p.position.x, y: p.position.y, lines, tone: over ? 'fault' : 'ok' })
+  }
+  return labels
 }
 
 export function threadPins(threads: ThreadView[], activeId: string | null) {

@@ -11,12 +11,7 @@ type ForecastPart = Pick<RevisionSummary, 'operatingPoint' | 'junctions' | 'inle
 export function forecastSummary(doc: ChipDocument, library: LiquidLibrary = BUILT_IN_LIBRARY): ForecastPart {
   try {
     const s = summarizeForecast(forecastDocument(doc, undefined, { library }))
-    return {
-      operatingPoint: s.operatingPoint,
-      junctions: s.junctions,
-      inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar, flowUlPerMin: i.flowUlPerMin })),
-      forecastError: null,
-    }
+    return { ...s, forecastError: null }
   } catch (error) {
     if (!(error instanceof ForecastInputError) && !(error instanceof Error && error.name === 'NetworkError'))
       console.error('[summary] forecast failed:', error)

@@ -1,23 +1,20 @@
 import type { OrderStatus } from '../fabrication/orderStatus'
 import type { Role } from '../utils/roles'
+import type { InletSummary, JunctionSummary } from '../physics/document/summary'
 
-export type { RevisionStatus } from '../utils/revisionStatus'
+import type { RevisionStatus } from '../utils/revisionStatus'
 
-export interface JunctionSummary {
-  id: string
-  kind: string
-  regime: string | null
-  dropletDiameterUm: number | null
-  frequencyHz: number | null
-  valid: boolean
-}
+export type { JunctionSummary } from '../physics/document/summary'
+
+/** An inlet as stored: the core's InletSummary; summaries stored before mode and flow were kept lack them. */
+export type StoredInletSummary = Pick<InletSummary, 'portId' | 'pressureMbar'> &
+  Partial<Pick<InletSummary, 'mode' | 'flowUlPerMin'>>
 export interface RevisionSummary {
   junctionKinds: string[]
   counts: { channels: number; components: number; ports: number; layers: number }
   operatingPoint: string | null
   junctions: JunctionSummary[]
-  /** Summaries stored before flows were kept have no `flowUlPerMin`. */
-  inlets: Array<{ portId: string; pressureMbar: number; flowUlPerMin?: number }>
+  inlets: StoredInletSummary[]
   forecastError: string | null
   findings: { errors: number; warnings: number; infos: number }
   processId: string

@@ -4,10 +4,9 @@
 import { onScopeDispose, shallowRef, toRaw, watch, type Ref } from 'vue'
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { DocumentForecast, ForecastSummary } from '#shared/physics/document'
-import { confidenceOf, formatFlowUlMin, formatLengthUm, formatPressureMbar } from '#shared/format/quantity'
 import type { Finding } from '~~/geometry/rules'
 import type { LabLiquidsData } from '#shared/physics/liquids'
-import type { ViewerFinding, ViewerLabel } from '../../viewer/lib/markers'
+import type { ViewerFinding } from '../../viewer/lib/markers'
 import {
   diffDocument,
   runLiveForecast,
@@ -252,38 +251,6 @@ export function useLiveForecast(
     worker?.stop()
   })
   return { live, findings, slow }
-}
-
-/**
- * Junction callouts (regime, Ø µm, caution when outside validity) and inlet callouts (pressure and flow; a fault
- * when the pressure exceeds the bond limit of the design's process).
- */
-export function canvasLabels(
-  doc: ChipDocument,
-  summary: ForecastSummary | null,
-  bondLimitMbar = Infinity,
-): ViewerLabel[] {
-  if (!summary) return []
-  const comps = new Map(doc.components.map(c => [c.id, c]))
-  const labels: ViewerLabel[] = []
-  for (const j of summary.junctions) {
-    const c = comps.get(j.id)
-    if (!c) continue
-    const lines = [
-      `${j.valid ? '' : '⚠ '}${j.regime ?? 'no drops'}`,
-      j.dropletDiameterUm != null ? `Ø ${formatLengthUm(j.dropletDiameterUm, confidenceOf(j.valid))}` : 'Ø —',
-    ]
-    labels.push({ elementId: j.id, x: c.position.x, y: c.position.y, lines, tone: j.valid ? 'ok' : 'caution' })
-  }
-  const ports = new Map(doc.ports.map(p => [p.id, p]))
-  for (const i of summary.inlets) {
-    const p = ports.get(i.port)
-    if (!p) continue
-    const over = i.pressureMbar > bondLimitMbar
-    const lines = [`${over ? '⚠ ' : ''}${formatPressureMbar(i.pressureMbar)}`, formatFlowUlMin(i.flowUlPerMin)]
-    labels.push({ elementId: p.id, x: p.position.x, y: p.position.y, lines, tone: over ? 'fault' : 'ok' })
-  }
-  return labels
 }
 
 export const viewerFindings = (fs: Finding[]): ViewerFinding[] =>

@@ -1,17 +1,27 @@
 // The short form stored with each revision: per junction its regime, size and rate; per inlet its pressure and flow.
+// One type from the core to the database and back: the editor's live labels, the stored revision summary
+// (shared/types/designs.ts) and the pages read these same fields under these same names.
 import type { DocumentForecast } from './types'
 
+export interface JunctionSummary {
+  id: string
+  kind: string
+  regime: string | null
+  dropletDiameterUm: number | null
+  frequencyHz: number | null
+  valid: boolean
+}
+/** `portId` as in the document's operating points (shared/schemas/chip/operating-points.ts). */
+export interface InletSummary {
+  portId: string
+  mode: 'pressure' | 'flow'
+  pressureMbar: number
+  flowUlPerMin: number
+}
 export interface ForecastSummary {
   operatingPoint: string
-  junctions: {
-    id: string
-    kind: string
-    regime: string | null
-    dropletDiameterUm: number | null
-    frequencyHz: number | null
-    valid: boolean
-  }[]
-  inlets: { port: string; mode: 'pressure' | 'flow'; pressureMbar: number; flowUlPerMin: number }[]
+  junctions: JunctionSummary[]
+  inlets: InletSummary[]
 }
 
 /** Four significant figures: a forecast is an estimate, and stored summaries compare without rounding noise. */
@@ -31,7 +41,7 @@ export function summarizeForecast(answer: DocumentForecast): ForecastSummary {
       valid: forecast !== null && forecast.regime.valid && forecast.dropletDiameter.valid && forecast.frequency.valid,
     })),
     inlets: answer.network.inlets.map(inlet => ({
-      port: inlet.port,
+      portId: inlet.port,
       mode: inlet.mode,
       pressureMbar: figures(inlet.pressure.value / 100),
       flowUlPerMin: figures(inlet.flow.value * UL_PER_MIN_PER_M3_PER_S),

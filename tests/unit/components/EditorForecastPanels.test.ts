@@ -69,7 +69,6 @@ describe('one chip, one text (issue 16: 135 Hz in the editor, 140 Hz on the revi
     const editor = mount(EditorJunctionTable, { props: { forecast, junctionId: 'tj-1' } })
     const summary = {
       ...s,
-      inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar, flowUlPerMin: i.flowUlPerMin })),
       findings: { errors: 0, warnings: 1 },
       processId: null,
       forecastError: null,

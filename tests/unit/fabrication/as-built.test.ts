@@ -30,7 +30,7 @@ const summary = (doc: ChipDocument): RevisionSummary => {
     counts: { channels: 0, components: 0, ports: 0, layers: 0 },
     operatingPoint: s.operatingPoint,
     junctions: s.junctions,
-    inlets: s.inlets.map(i => ({ portId: i.port, pressureMbar: i.pressureMbar })),
+    inlets: s.inlets,
     forecastError: null,
     findings: { errors: 0, warnings: 0, infos: 0 },
     processId: 'p',
