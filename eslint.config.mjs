@@ -60,6 +60,13 @@ export default createConfigForNuxt({
       'vue/no-deprecated-filter': 'off', // misreads `as number | undefined` in templates
       'vue/require-default-prop': 'off', // optional props are undefined on purpose
       'vue/first-attribute-linebreak': 'off',
+      // Prettier owns layout; these Vue layout rules contradict what it prints.
+      'vue/html-self-closing': 'off',
+      'vue/singleline-html-element-content-newline': 'off',
+      'vue/multiline-html-element-content-newline': 'off',
+      'vue/html-indent': 'off',
+      'vue/html-closing-bracket-newline': 'off',
+      'vue/max-attributes-per-line': 'off',
     },
   })
   .append({

@@ -69,29 +69,25 @@ export async function seedDemoDesigns(db: Db, labId: string, people: People) {
             ...(status === 'in-review' ? {} : { resolvedAt: new Date(), resolvedBy: people.designer }),
           })
           .returning()
-        await tx
-          .insert(comments)
-          .values({
-            threadId: thread!.id,
-            authorId: people.reviewer,
-            createdAt: new Date(Date.now() - 60_000),
-            body:
-              status === 'in-review'
-                ? 'Is the manifold wide enough for **even flow** across all nozzles?'
-                : 'This junction: go **narrower** for smaller drops.',
-          })
+        await tx.insert(comments).values({
+          threadId: thread!.id,
+          authorId: people.reviewer,
+          createdAt: new Date(Date.now() - 60_000),
+          body:
+            status === 'in-review'
+              ? 'Is the manifold wide enough for **even flow** across all nozzles?'
+              : 'This junction: go **narrower** for smaller drops.',
+        })
         await log(people.reviewer, 'comment.pinned')
         if (status === 'in-review') continue
         await tx
           .insert(comments)
           .values({ threadId: thread!.id, authorId: people.designer, body: 'Done in the next revision.' })
-        await tx
-          .insert(verdicts)
-          .values({
-            revisionId: row!.id,
-            reviewerId: people.reviewer,
-            verdict: status === 'changes-requested' ? 'request-changes' : 'approve',
-          })
+        await tx.insert(verdicts).values({
+          revisionId: row!.id,
+          reviewerId: people.reviewer,
+          verdict: status === 'changes-requested' ? 'request-changes' : 'approve',
+        })
         await log(people.reviewer, status === 'changes-requested' ? 'review.changes-requested' : 'review.approved')
         if (status === 'released') {
           await tx

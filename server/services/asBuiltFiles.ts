@@ -59,18 +59,16 @@ export async function attachAsBuiltFile(
   const safeName = file.fileName.replace(/[^\w.-]+/g, '_').slice(-120) || 'file'
   const key = objectKey(caller.lab.labId, 'as-built', asBuiltId, `${id}-${safeName}`)
   await putObject(key, file.bytes, contentType)
-  await db
-    .insert(asBuiltFiles)
-    .values({
-      id,
-      labId: caller.lab.labId,
-      asBuiltId,
-      objectKey: key,
-      contentType,
-      bytes: file.bytes.byteLength,
-      fileName: file.fileName.slice(0, 200),
-      createdBy: caller.userId,
-    })
+  await db.insert(asBuiltFiles).values({
+    id,
+    labId: caller.lab.labId,
+    asBuiltId,
+    objectKey: key,
+    contentType,
+    bytes: file.bytes.byteLength,
+    fileName: file.fileName.slice(0, 200),
+    createdBy: caller.userId,
+  })
   return { fileId: id, contentType, bytes: file.bytes.byteLength, fileName: file.fileName }
 }
 

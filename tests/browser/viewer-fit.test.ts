@@ -3,11 +3,10 @@
 // only after it mounts: the canvas once kept its default 800 × 600 px inside a smaller frame and cut the chip off.
 // The layer panel floats over the frame's top-left corner: Fit keeps the chip clear of it (it hid the chip's corner).
 import type { Browser, Page } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import { hydrated, launch, signInAs } from '../support/browser'
 import { designerWithDesign } from '../support/designs'
 import { TEST_PASSWORD } from '../support/factory'
-import { inject } from 'vitest'
 
 let browser: Browser
 let setup: Awaited<ReturnType<typeof designerWithDesign>>

@@ -6,7 +6,7 @@ import {
   flowFocusingLength,
   FLOW_FOCUSING_SQUEEZING,
 } from '../junction/flowFocusing'
-import { plugVolume, sphereVolume } from '../junction/plugVolume'
+import { plugVolume, sphereVolume, plugLength } from '../junction/plugVolume'
 import type { Regime } from '../junction/regime'
 import { STEP_DIAMETER, STEP_MIN_ASPECT, STEP_MIN_CONTACT_ANGLE, stepAspectOk, stepDiameter } from '../junction/step'
 import {
@@ -20,7 +20,6 @@ import {
   vanSteijnVolume,
   XU_TRANSITION_DRIPPING,
 } from '../junction/tJunction'
-import { plugLength } from '../junction/plugVolume'
 import type { Warning } from '../quantity'
 import type { CubicMetres, Metres } from '../units'
 import type { ResolvedJunction, SizeEstimate } from './types'

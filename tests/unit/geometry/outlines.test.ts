@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { multiPolygonArea } from '~~/geometry/area'
-import { buildOutlines, circleSegments, strokePolyline } from '~~/geometry/outlines'
-import { mergePieces } from '~~/geometry/outlines'
+import { buildOutlines, circleSegments, strokePolyline, mergePieces } from '~~/geometry/outlines'
 import type { Pair } from '~~/geometry/types'
 import { channelsDoc, fixture } from './helpers'
 

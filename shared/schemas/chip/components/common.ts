@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import type { z } from 'zod'
 import { safeText } from '../../text'
 import { CHIP_LIMITS as L } from '../limits'
 import { elementId, point } from '../primitives'
