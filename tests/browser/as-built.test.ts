@@ -49,7 +49,10 @@ describe('the as-built report in the browser (real Chromium, server, PostgreSQL,
     await fab.mouse.click(p.x, p.y)
     expect(await fab.textContent('[data-test="width-picked"]')).toContain('T-junction')
     const fields = await fab.locator('[data-test="width-field"] option').allTextContents()
-    expect(fields.sort()).toEqual(['Main channel width (drawn 100 µm)', 'Side inlet width (drawn 50 µm)'])
+    expect(fields.map(f => f.trim()).sort()).toEqual([
+      'Main channel width (drawn 100 µm)',
+      'Side inlet width (drawn 50 µm)',
+    ])
     await fab.selectOption('[data-test="width-field"]', 'inletWidth')
     await fab.fill('[data-test="width-value"]', '47')
     await fab.click('[data-test="width-add"]')

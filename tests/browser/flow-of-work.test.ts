@@ -87,7 +87,7 @@ describe('flow of work', () => {
     expect(await designer.locator('[data-test="saved-as"]').count()).toBe(0)
     await designer.fill('[data-test="save-message"]', 'Main channel 90 µm')
     await designer.click('[data-test="save"]')
-    await expect.poll(() => designer.locator('[data-test="saved-as"]').textContent()).toBe('Saved as r2')
+    await expect.poll(() => designer.locator('[data-test="saved-as"]').innerText()).toBe('Saved as r2')
     expect(await designer.inputValue('[data-test="save-message"]')).toBe('')
   })
 

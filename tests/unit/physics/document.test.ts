@@ -101,7 +101,7 @@ describe('document forecast: the T-junction fixture', () => {
     const oil = answer.network.inlets.find(i => i.port === 'oil-in')!
     // 1 m³/s = 6e10 µL/min: the oil inlet's set 10 µL/min comes back as its solved flow.
     expect(summary.inlets).toContainEqual({
-      port: 'oil-in',
+      portId: 'oil-in',
       mode: 'flow',
       pressureMbar: Number((oil.pressure.value / 100).toPrecision(4)),
       flowUlPerMin: 10,
