@@ -22,6 +22,13 @@ export const useRevisionStore = defineStore('revision', () => {
     })
   }
 
+  /** A large chip's summary, filled in by the background job: only the summary is replaced (not the drawing). */
+  async function refreshSummary() {
+    if (!revision.value) return
+    const fresh = await $fetch<RevisionDetail>(base.value).catch(() => null)
+    if (fresh && revision.value.id === fresh.id) revision.value.summary = fresh.summary
+  }
+
   async function act(path: string, method: 'POST' | 'PATCH', body: Record<string, unknown>) {
     const url: string = `${base.value}${path}`
     const done = await run(() => $fetch<unknown>(url, { method, body }))
@@ -35,6 +42,7 @@ export const useRevisionStore = defineStore('revision', () => {
     busy,
     problem,
     load,
+    refreshSummary,
     requestReview: (reviewerIds: string[]) => act('/review-requests', 'POST', { reviewerIds }),
     pin: (anchor: { x: number; y: number; elementId?: string }, body: string) =>
       act('/threads', 'POST', { anchor, body }),

@@ -13,6 +13,7 @@ import { logActivity } from './activity'
 import { assertNotArchived, findDesign } from './designGuards'
 import { validDocument } from './documents'
 import { summarizeWithLibrary } from './libraries'
+import { queueSummaryIfPending } from './summaryJob'
 import { starterDocument } from './starterDocument'
 
 // The list is the most read query: a named prepared statement per sort order (planned once per connection), every
@@ -119,7 +120,10 @@ export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<
 export async function createDesign(caller: LabCaller, body: z.infer<typeof designCreate>) {
   const document = body.document === undefined ? starterDocument(body.name, body.starter) : validDocument(body.document)
   const processId = body.processId ?? 'film-mask-soft-litho'
-  const summary = await summarizeWithLibrary(document, processId, caller.lab.labId, { requireProcess: true })
+  const summary = await summarizeWithLibrary(document, processId, caller.lab.labId, {
+    requireProcess: true,
+    largeInBackground: true,
+  })
   return useDb().transaction(async tx => {
     const [design] = await tx
       .insert(designs)
@@ -146,6 +150,7 @@ export async function createDesign(caller: LabCaller, body: z.infer<typeof desig
       })
       .returning({ id: revisions.id })
     await tx.update(designs).set({ latestRevisionId: revision!.id }).where(eq(designs.id, design!.id))
+    await queueSummaryIfPending(tx, summary, { labId: caller.lab.labId, revisionId: revision!.id })
     await logActivity(tx, {
       labId: caller.lab.labId,
       designId: design!.id,

@@ -7,8 +7,10 @@ import { useDb } from '../utils/db'
 import type { LabCaller } from '../utils/access'
 import type { SessionData } from '#shared/types/session'
 import { can } from '#shared/utils/roles'
+import type { RevisionSummary } from '#shared/types/designs'
 import { logActivity } from './activity'
 import { findVisibleRevision } from './designGuards'
+import { queueSummaryIfPending } from './summaryJob'
 
 export async function duplicateRevision(
   session: SessionData,
@@ -70,6 +72,8 @@ export async function duplicateRevision(
       })
       .returning({ id: revisions.id })
     await tx.update(designs).set({ latestRevisionId: copy!.id }).where(eq(designs.id, design!.id))
+    // A copy of a revision still being summarized gets its own job (the source's job fills only the source).
+    await queueSummaryIfPending(tx, content!.summary as RevisionSummary, { labId: target.labId, revisionId: copy!.id })
     await logActivity(tx, {
       labId: target.labId,
       designId: design!.id,

@@ -23,8 +23,10 @@ import { BUILT_IN_PROCESSES, processesWith, type LabProcessData } from '../../ge
 import { labLibraryEntries, users } from '../db/schema'
 import type { LabCaller } from '../utils/access'
 import { useDb, type Db } from '../utils/db'
+import { useConfig } from '../utils/config'
 import { summarizeOffThread } from '../utils/summaryWorker'
-import type { ChipDocument } from '#shared/schemas/chip'
+import { documentPieceCount, type ChipDocument } from '#shared/schemas/chip'
+import { pendingSummary } from './revisionSummary'
 import type { RevisionSummary } from '#shared/types/designs'
 
 /** The lab's entries as the core takes them (archived ones left out). */
@@ -237,7 +239,7 @@ export async function summarizeWithLibrary(
   document: ChipDocument,
   processId: string,
   labId: string,
-  options: { requireProcess?: boolean } = {},
+  options: { requireProcess?: boolean; largeInBackground?: boolean } = {},
 ): Promise<RevisionSummary> {
   const lab = await labLibraryData(useDb(), labId)
   if (options.requireProcess && !processesWith(lab.processes).some(p => p.id === processId)) {
@@ -246,6 +248,9 @@ export async function summarizeWithLibrary(
       'processId',
     )
   }
+  // A large chip saves at once with a pending summary; the caller queues the job that fills it (summaryJob.ts).
+  if (options.largeInBackground && documentPieceCount(document) > useConfig().geometry.summaryInlinePieces)
+    return pendingSummary(document, processId, lab)
   return summarizeOffThread(document, processId, lab)
 }
 

@@ -1,5 +1,6 @@
 // Re-forecast a saved revision with the lab's current library: the stored summary is never changed (revisions are
 // immutable); the answer shows both and what differs, so a library edit is visible before anyone saves again.
+import { createError } from 'h3'
 import { junctionName, nameOfId } from '#shared/format/fieldLabels'
 import type { RevisionSummary } from '#shared/types/designs'
 import type { ForecastDifference, ReforecastAnswer } from '#shared/types/libraries'
@@ -65,6 +66,12 @@ export function summaryDifferences(
 
 export async function reforecastRevision(caller: LabCaller, revisionId: string): Promise<ReforecastAnswer> {
   const revision = await getRevision(caller, revisionId)
+  if (revision.summary.pending)
+    throw createError({
+      statusCode: 409,
+      statusMessage: 'Conflict',
+      message: "This revision's forecast and rule check are still being computed: try again when they are ready",
+    })
   const current = await summarizeWithLibrary(revision.document as never, revision.summary.processId, caller.lab.labId)
   return {
     revisionId,

@@ -1,4 +1,4 @@
-// The revision read path, built as a JSON string: a revision's document and summary never change, so their JSON
+// The revision read path, built as a JSON string: a revision's document and (finished) summary never change, so their JSON
 // text is kept in a small in-memory cache and never parsed on the way out. Status and names are read fresh, in one
 // prepared query. A fabricator's answer names no unreleased revision (`seenRevisionId`).
 import { and, eq, sql } from 'drizzle-orm'
@@ -20,7 +20,8 @@ async function contentOf(revisionId: string) {
     .select({ document: sql<string>`${revisions.document}::text`, summary: sql<string>`${revisions.summary}::text` })
     .from(revisions)
     .where(eq(revisions.id, revisionId))
-  content.set(revisionId, row!)
+  // A pending summary (a large chip's, being computed by the summary job) changes once: not kept until it is final.
+  if (!row!.summary.includes('"pending": true')) content.set(revisionId, row!)
   return row!
 }
 

@@ -9,9 +9,28 @@ import type { RevisionSummary } from '#shared/types/designs'
 import { forecastSummary, liquidSnapshotOf } from './forecastSummary'
 import type { LabLibraryData } from './libraries'
 
-export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
+type Cheap = Omit<RevisionSummary, 'operatingPoint' | 'junctions' | 'inlets' | 'forecastError' | 'findings'>
+
+/** What costs nothing to know: the junction kinds, counts, process and the library values the forecast will use. */
+function cheapParts(doc: ChipDocument, processId: string, lab?: LabLibraryData | null) {
   const process = resolveProcess(processId, (lab?.processes ?? []) as LabProcessData[])
   const library = mergeLibrary(lab)
+  const cheap: Cheap = {
+    junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(isJunctionKind))].sort(),
+    counts: {
+      channels: doc.channels.length,
+      components: doc.components.length,
+      ports: doc.ports.length,
+      layers: doc.layers.length,
+    },
+    processId: process.id,
+    library: { ...liquidSnapshotOf(doc, library), process: processSnapshot(process) },
+  }
+  return { process, library, cheap }
+}
+
+export function summarizeRevision(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
+  const { process, library, cheap } = cheapParts(doc, processId, lab)
   let findings = { errors: 0, warnings: 0, infos: 0 }
   try {
     for (const f of checkDesignRules(doc, process)) {
@@ -23,17 +42,22 @@ export function summarizeRevision(doc: ChipDocument, processId: string, lab?: La
     findings = { errors: 1, warnings: 0, infos: 0 }
     console.error('[summary] design rules failed:', error)
   }
+  return { ...cheap, ...forecastSummary(doc, library), findings }
+}
+
+/**
+ * The summary a large chip's revision is saved with while the revision-summary job computes the rest
+ * (server/services/summaryJob.ts): no junction numbers and no findings yet, `pending: true`.
+ */
+export function pendingSummary(doc: ChipDocument, processId: string, lab?: LabLibraryData | null): RevisionSummary {
+  const { cheap } = cheapParts(doc, processId, lab)
   return {
-    junctionKinds: [...new Set(doc.components.map(c => c.kind).filter(isJunctionKind))].sort(),
-    counts: {
-      channels: doc.channels.length,
-      components: doc.components.length,
-      ports: doc.ports.length,
-      layers: doc.layers.length,
-    },
-    ...forecastSummary(doc, library),
-    findings,
-    processId: process.id,
-    library: { ...liquidSnapshotOf(doc, library), process: processSnapshot(process) },
+    ...cheap,
+    operatingPoint: doc.activeOperatingPoint ?? null,
+    junctions: [],
+    inlets: [],
+    forecastError: null,
+    findings: { errors: 0, warnings: 0, infos: 0 },
+    pending: true,
   }
 }

@@ -19,6 +19,7 @@ import {
 } from './designGuards'
 import { validDocument } from './documents'
 import { summarizeWithLibrary } from './libraries'
+import { queueSummaryIfPending } from './summaryJob'
 
 const rowColumns = {
   id: revisions.id,
@@ -100,7 +101,9 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
   // A parent that is already not the latest never becomes it again: such a save ends in 409 below, so it skips the
   // summary (the expensive part) and leaves the geometry workers to saves that can win.
   const stale = !body.branch && design.latestRevisionId !== body.parentId
-  const summary = stale ? null : await summarizeWithLibrary(document, design.processId, caller.lab.labId)
+  const summary = stale
+    ? null
+    : await summarizeWithLibrary(document, design.processId, caller.lab.labId, { largeInBackground: true })
   // One connection from begin to commit (DEVELOPERS.md, "Database work"): the loser of a race reads what came
   // after its parent through `tx`, on the connection that holds the lock, never through a second checkout.
   return useDb().transaction(async tx => {
@@ -184,6 +187,7 @@ export async function createRevision(caller: LabCaller, designId: string, body: 
       .returning({ revisionId: activity.revisionId })
       .prepare('dw_save_insert')
       .execute()
+    await queueSummaryIfPending(tx, summary, { labId: caller.lab.labId, revisionId: saved!.revisionId! })
     return { revisionId: saved!.revisionId!, number }
   })
 }

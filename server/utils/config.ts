@@ -130,6 +130,7 @@ export const envSchema = z.object({
   DW_GEOMETRY_NICE: whole(10, -20, 19),
   DW_SUMMARY_WORKER: flag(true),
   DW_REVISION_CACHE: whole(64, 1),
+  DW_SUMMARY_INLINE_PIECES: whole(5000, 0),
   // Object storage (server/services/storage.ts) and the micrograph worker (bench, issue 13).
   DW_S3_ENDPOINT: url(['http', 'https'], 'https://s3.eu-central-1.amazonaws.com'),
   DW_S3_BUCKET: text('dropwright'),
@@ -187,6 +188,7 @@ function shape(env: Env) {
       nice: env.DW_GEOMETRY_NICE,
       worker: env.DW_SUMMARY_WORKER,
       revisionCache: env.DW_REVISION_CACHE,
+      summaryInlinePieces: env.DW_SUMMARY_INLINE_PIECES,
     },
     storage: {
       endpoint: env.DW_S3_ENDPOINT ?? null,

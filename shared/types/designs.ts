@@ -20,6 +20,11 @@ export interface RevisionSummary {
   processId: string
   /** The library values this revision was forecast and checked with (absent on summaries stored before it was kept). */
   library?: LibrarySnapshot
+  /**
+   * Set while a large chip's forecast and rule check are still being computed by the background job: `junctions`,
+   * `inlets` and `findings` are then empty, not zero results. Absent on every finished summary.
+   */
+  pending?: true
 }
 
 /** A liquid as the forecast used it: SI-free display units and where the values came from. */

@@ -17,4 +17,5 @@ export interface FailedJob {
 export const JOB_LABELS: Record<string, string> = {
   'mail.send': 'Send an e-mail',
   'micrograph.measure': 'Measure the droplets of a micrograph',
+  'revision.summary': "Forecast and check a large chip's revision",
 }
