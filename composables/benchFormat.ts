@@ -1,4 +1,5 @@
-import { formatNumber, formatPercent } from '#shared/format/quantity'
+import { displayUnitName, formatNumber, formatPercent, formatPressureMbar } from '#shared/format/quantity'
+import type { BenchConditions } from '#shared/schemas/bench'
 import type { BenchPrediction } from '#shared/types/bench'
 
 // Display helpers for bench results: numbers with their units, and the labels of sources, regimes and kinds.
@@ -20,6 +21,25 @@ export function chipLabel(chip: BenchPrediction['chip'] | undefined): string {
   if (!chip) return ''
   const base = chip.basis === 'as-built' ? 'Chip as built' : 'Chip as drawn'
   return chip.benchSizes ? `${base}, sizes measured at the bench` : base
+}
+
+/**
+ * What was set at the bench for a run, in a few words with units ("Qc 10 µL/min · Qd 2 µL/min · 24 °C"), or ""
+ * when the run kept the design's operating point. Numbers as typed (input precision).
+ */
+export function conditionsLabel(conditions: Partial<BenchConditions> | Record<string, unknown> | null | undefined) {
+  const c = (conditions ?? {}) as Partial<BenchConditions>
+  const typed = (v: number) => formatNumber(v, 6)
+  const parts: string[] = []
+  if (c.continuousFlow) parts.push(`Qc ${typed(c.continuousFlow.value)} ${displayUnitName(c.continuousFlow.unit)}`)
+  if (c.continuousPressureMbar !== undefined) parts.push(`Pc ${formatPressureMbar(c.continuousPressureMbar, 'input')}`)
+  if (c.dispersedFlow) parts.push(`Qd ${typed(c.dispersedFlow.value)} ${displayUnitName(c.dispersedFlow.unit)}`)
+  if (c.dispersedPressureMbar !== undefined) parts.push(`Pd ${formatPressureMbar(c.dispersedPressureMbar, 'input')}`)
+  if (c.temperatureC !== undefined) parts.push(`${typed(c.temperatureC)} °C`)
+  const liquids = [c.continuousLiquid, c.dispersedLiquid].filter(Boolean).join(' / ')
+  if (liquids) parts.push(liquids)
+  if (c.surfactant) parts.push(c.surfactant)
+  return parts.join(' · ')
 }
 
 /** A number to `digits` significant figures, grouped for reading; a dash when missing. */
