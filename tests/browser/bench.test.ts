@@ -70,7 +70,9 @@ describe('bench results in the browser', () => {
     await page.keyboard.press('Enter')
     expect(await page.textContent('[data-test="micrograph-stats"]')).toContain('n = 11')
     await page.click('[data-test="save-exclusions"]')
-    await expect.poll(() => page.textContent('[data-test="bench-run-2"]')).toMatch(/Micrograph\s*Chip as drawn\s*11/)
+    await expect
+      .poll(() => page.textContent('[data-test="bench-run-2"]'))
+      .toMatch(/Micrograph\s*Chip as drawn\s*the design's operating point\s*11/)
     await shot(page, 'bench-micrograph')
 
     // Measured against forecast, the fitted α with its interval, and the switch.
