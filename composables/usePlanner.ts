@@ -1,8 +1,12 @@
-// Runs planner requests in a Web Worker so a window scan never freezes the page; in the page itself where there
-// is no worker (tests of components, old browsers). Only the latest request's answer is kept.
-import { onBeforeUnmount, ref, shallowRef, toRaw } from 'vue'
+// Runs planner requests in a Web Worker (planner.worker.ts, called through comlink) so a window scan never freezes
+// the page; in the page itself where there is no worker (tests of components, old browsers). Only the latest
+// request's answer is kept: an older one arriving later is dropped.
+import { onScopeDispose, ref, shallowRef, toRaw } from 'vue'
+import { wrap, type Remote } from 'comlink'
 import type { PlanAnswer, PlanContext } from '#shared/physics/planner'
 import { runPlanRequest, type PlanJob, type PlanResult } from '~~/utils/plannerRun'
+
+type PlannerApi = { plan: typeof runPlanRequest }
 
 export function usePlanner() {
   const answer = shallowRef<PlanAnswer | null>(null)
@@ -12,10 +16,11 @@ export function usePlanner() {
   const elapsedMs = ref<number | null>(null)
   let seq = 0
   let worker: Worker | null = null
+  let api: Remote<PlannerApi> | null = null
   let started = 0
 
-  function done(r: PlanResult) {
-    if (r.seq !== seq) return
+  function done(n: number, r: PlanResult) {
+    if (n !== seq) return
     busy.value = false
     elapsedMs.value = performance.now() - started
     answer.value = r.answer
@@ -23,39 +28,39 @@ export function usePlanner() {
     issues.value = r.issues
   }
 
-  function ensureWorker(): Worker | null {
-    if (worker || typeof Worker === 'undefined') return worker
+  function ensureWorker(): Remote<PlannerApi> | null {
+    if (api || typeof Worker === 'undefined') return api
     try {
       worker = new Worker(new URL('../components/editor/lib/planner.worker.ts', import.meta.url), { type: 'module' })
-      worker.onmessage = (e: MessageEvent<PlanResult>) => done(e.data)
-      worker.onerror = () => {
-        worker = null
-      }
+      worker.addEventListener('error', () => {
+        api = null
+      })
+      api = wrap<PlannerApi>(worker)
     } catch {
-      worker = null
+      api = null
     }
-    return worker
+    return api
   }
 
   /** Starts a plan; a newer call supersedes an older one still running. `lab`: the lab's library the request may name. */
   function plan(request: unknown, lab?: PlanContext['lab']) {
-    seq++
+    const n = ++seq
     busy.value = true
     error.value = null
     started = performance.now()
     const job: PlanJob = {
-      seq,
       request: JSON.parse(JSON.stringify(toRaw(request))),
       lab: lab ? JSON.parse(JSON.stringify(toRaw(lab))) : null,
     }
     const w = ensureWorker()
-    if (w) w.postMessage(job)
-    else setTimeout(() => done(runPlanRequest(job)), 0)
+    if (w) void w.plan(job).then(r => done(n, r))
+    else setTimeout(() => done(n, runPlanRequest(job)), 0)
   }
 
-  onBeforeUnmount(() => {
+  onScopeDispose(() => {
     worker?.terminate()
     worker = null
+    api = null
   })
   return { answer, error, issues, busy, elapsedMs, plan }
 }

@@ -5,12 +5,10 @@ import { runPlan, type PlanAnswer, type PlanContext } from '#shared/physics/plan
 
 /** `lab`: the lab's own liquids, pairs and processes (GET /api/v1/liquids?lab= → labData), which the request may name. */
 export interface PlanJob {
-  seq: number
   request: unknown
   lab?: PlanContext['lab']
 }
 export interface PlanResult {
-  seq: number
   answer: PlanAnswer | null
   error: string | null
   issues: { path: string; message: string }[]
@@ -18,16 +16,15 @@ export interface PlanResult {
 
 export function runPlanRequest(job: PlanJob): PlanResult {
   try {
-    return { seq: job.seq, answer: runPlan(job.request, { lab: job.lab ?? null }), error: null, issues: [] }
+    return { answer: runPlan(job.request, { lab: job.lab ?? null }), error: null, issues: [] }
   } catch (error) {
     if (error instanceof ForecastInputError)
       return {
-        seq: job.seq,
         answer: null,
         error: error.issues.map(i => `${i.path || 'request'}: ${i.message}`).join('; '),
         issues: error.issues,
       }
-    return { seq: job.seq, answer: null, error: error instanceof Error ? error.message : String(error), issues: [] }
+    return { answer: null, error: error instanceof Error ? error.message : String(error), issues: [] }
   }
 }
 

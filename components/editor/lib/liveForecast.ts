@@ -7,12 +7,13 @@ import type { DocumentForecast, ForecastSummary } from '#shared/physics/document
 import type { Finding } from '~~/geometry/rules'
 import type { LabLiquidsData } from '#shared/physics/liquids'
 import type { ViewerFinding } from '../../viewer/lib/markers'
+import { proxy, wrap } from 'comlink'
+import type { ForecastApi } from './forecastApi'
 import {
   diffDocument,
   runLiveForecast,
   runLiveRules,
   type FocusAnswer,
-  type FocusRequest,
   type LiveAnswer,
   type LiveLab,
   type LiveRequest,
@@ -32,9 +33,9 @@ export interface LiveForecast {
 export type ForecastRunner = (doc: ChipDocument, seq: number, lab?: LabLiquidsData | null) => Promise<LiveAnswer>
 
 /**
- * The Web Worker (forecast.worker.ts): forecasts, then checks the rules of the same document and answers them
- * through `onRules`; can be asked to warm up on a document. It keeps the document it was last sent, so each later
- * request carries only a patch of what changed (liveRun.ts).
+ * The Web Worker (forecast.worker.ts, called through comlink): forecasts, then checks the rules of the same
+ * document and answers them through `onRules`; can be asked to warm up on a document. It keeps the document it was
+ * last sent, so each later request carries only a patch of what changed (liveRun.ts).
  */
 interface WorkerRunner {
   run: (
@@ -45,10 +46,9 @@ interface WorkerRunner {
     lab: LiveLab | null,
   ) => Promise<LiveAnswer>
   warm: (doc: ChipDocument, seq: number, processId: string | null, lab: LiveLab | null) => void
-  /** The junctions of another element from the worker's last forecast. */
-  refocus: (seq: number, focus: string | null) => void
+  /** The junctions of another element from the worker's last forecast (null: the worker is gone). */
+  refocus: (seq: number, focus: string | null) => Promise<FocusAnswer | null>
   onRules: (f: (a: RulesAnswer) => void) => void
-  onFocus: (f: (a: FocusAnswer) => void) => void
   stop: () => void
 }
 
@@ -60,42 +60,30 @@ function workerRunner(): WorkerRunner | null {
   } catch {
     return null
   }
+  const api = wrap<ForecastApi>(worker)
   const waiting = new Map<number, { doc: ChipDocument; lab: LiveLab | null; done: (a: LiveAnswer) => void }>()
-  let rules: (a: RulesAnswer) => void = () => {}
-  let focused: (a: FocusAnswer) => void = () => {}
   /** The document the worker holds (the last one sent), for the next patch. */
   let sent: ChipDocument | null = null
   /** The lab library the worker holds (undefined: none sent yet). */
   let sentLab: LiveLab | null | undefined
-  worker.onmessage = (e: MessageEvent<LiveAnswer | RulesAnswer | FocusAnswer>) => {
-    if ('findings' in e.data) {
-      rules(e.data)
-      return
-    }
-    if ('junctions' in e.data) {
-      focused(e.data)
-      return
-    }
-    waiting.get(e.data.seq)?.done(e.data)
-    waiting.delete(e.data.seq)
-  }
   // A worker that fails to load or crashes: every waiting run is answered in the page itself, and so are later ones.
   let broken = false
-  worker.onerror = () => {
-    broken = true
-    for (const [seq, w] of waiting) w.done(runLiveForecast(w.doc, seq, w.lab))
-    waiting.clear()
+  const inPage = (seq: number) => {
+    const w = waiting.get(seq)
+    waiting.delete(seq)
+    w?.done(runLiveForecast(w.doc, seq, w.lab))
   }
-  const send = (doc: ChipDocument, lab: LiveLab | null, req: Omit<LiveRequest, 'doc' | 'patch' | 'lab'>) => {
+  worker.addEventListener('error', () => {
+    broken = true
+    for (const seq of [...waiting.keys()]) inPage(seq)
+  })
+  const request = (doc: ChipDocument, lab: LiveLab | null, req: Omit<LiveRequest, 'doc' | 'patch' | 'lab'>) => {
     const raw = toRaw(doc)
     const withLab = lab !== sentLab ? { lab: lab ? toRaw(lab) : null } : {}
-    worker.postMessage({
-      ...req,
-      ...withLab,
-      ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }),
-    } satisfies LiveRequest)
+    const out: LiveRequest = { ...req, ...withLab, ...(sent ? { patch: diffDocument(sent, raw) } : { doc: raw }) }
     sent = raw
     sentLab = lab
+    return out
   }
   return {
     run: (doc, seq, processId, focus, lab) =>
@@ -105,19 +93,20 @@ function workerRunner(): WorkerRunner | null {
           return
         }
         waiting.set(seq, { doc, lab, done })
-        send(doc, lab, { seq, processId, focus })
+        api.run(request(doc, lab, { seq, processId, focus })).then(
+          a => {
+            waiting.get(seq)?.done(a)
+            waiting.delete(seq)
+          },
+          () => inPage(seq),
+        )
       }),
-    refocus: (seq, focus) => {
-      if (!broken) worker.postMessage({ seq, refocus: true, focus } satisfies FocusRequest)
-    },
-    onFocus: f => {
-      focused = f
-    },
+    refocus: async (seq, focus) => (broken ? null : api.refocus(seq, focus)),
     warm: (doc, seq, processId, lab) => {
-      if (!broken) send(doc, lab, { seq, warm: true, processId })
+      if (!broken) void api.warm(request(doc, lab, { seq, processId }))
     },
     onRules: f => {
-      rules = f
+      void api.onRules(proxy(f))
     },
     stop: () => worker.terminate(),
   }
@@ -165,11 +154,13 @@ export function useLiveForecast(
   let fromWorker = false
   let sentFocus: string | null = null
   const focus = () => opts.focus?.value ?? null
-  worker?.onFocus(a => {
+  // Another selection: its junctions from the worker's last forecast, kept if that forecast is still the one shown.
+  const refocus = async (n: number, id: string | null) => {
+    const a = await worker!.refocus(n, id)
     const f = live.value.forecast
-    if (a.seq === shown && f && a.focus === focus())
+    if (a && a.seq === shown && f && a.focus === focus())
       live.value = { ...live.value, forecast: { ...f, junctions: a.junctions } }
-  })
+  }
   // On a small chip the first forecast runs in the page, right after the chip is drawn, while the worker loads,
   // checks the rules and warms up on the same document; every later one runs in the worker. A large chip's first
   // forecast goes to the worker too: on 4,096 nozzles it would hold the page for a second or more.
@@ -177,7 +168,7 @@ export function useLiveForecast(
   let busy = false
   if (worker && opts.focus)
     watch(opts.focus, id => {
-      if (fromWorker && !busy) worker.refocus(shown, id)
+      if (fromWorker && !busy) void refocus(shown, id)
     })
   let pending: ChipDocument | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
@@ -222,7 +213,7 @@ export function useLiveForecast(
       const next = pending
       pending = null
       run(next)
-    } else if (fromWorker && focus() !== sentFocus) worker!.refocus(n, focus()) // the selection changed meanwhile
+    } else if (fromWorker && focus() !== sentFocus) void refocus(n, focus()) // the selection changed meanwhile
   }
   // With a worker the document is sent at once, so the forecast runs while the page redraws the chip; in the
   // page itself it waits for the redraw.

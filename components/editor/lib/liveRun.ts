@@ -14,26 +14,20 @@ import { mergeLibrary, type LabLiquidsData, type LiquidLibrary } from '#shared/p
 export type LiveLab = LabLiquidsData & { processes: LabProcessData[] }
 
 /**
- * `doc`: the whole document (the first request, or after a reset); `patch`: what changed since the previous
- * request's document. `warm`: run the document a few times to let the engine compile the forecast code, answer
- * nothing. `processId`: also check the design rules of that process, answered after the forecast. `lab`: the lab's
- * library, sent when it changes (the worker keeps the last one; undefined = unchanged).
+ * What the page sends the worker's `run` and `warm` (forecastApi.ts). `doc`: the whole document (the first
+ * request, or after a reset); `patch`: what changed since the previous request's document. `processId`: also check
+ * the design rules of that process, answered after the forecast. `lab`: the lab's library, sent when it changes
+ * (the worker keeps the last one; undefined = unchanged).
  */
 export interface LiveRequest {
   seq: number
   doc?: ChipDocument
   patch?: DocPatch
-  warm?: boolean
   processId?: string | null
   focus?: string | null
   lab?: LiveLab | null
 }
-/** Only a change of the focused element: answer its junctions from the last forecast (a FocusAnswer). */
-export interface FocusRequest {
-  seq: number
-  refocus: true
-  focus: string | null
-}
+/** The junctions of the focused element from the worker's last forecast (forecastApi.ts, `refocus`). */
 export interface FocusAnswer {
   seq: number
   focus: string | null

@@ -1,7 +1,7 @@
 // The planner's window scan off the main thread: a scan is hundreds of whole-chip forecasts (a pressure-driven
-// chip solves its network at every point), so in the page it would hold up the editor for seconds.
-import { runPlanRequest, type PlanJob } from '../../../utils/plannerRun'
+// chip solves its network at every point), so in the page it would hold up the editor for seconds. Called from the
+// page through comlink (composables/usePlanner.ts).
+import { expose } from 'comlink'
+import { runPlanRequest } from '../../../utils/plannerRun'
 
-self.onmessage = (e: MessageEvent<PlanJob>) => {
-  self.postMessage(runPlanRequest(e.data))
-}
+expose({ plan: runPlanRequest })

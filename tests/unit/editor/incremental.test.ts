@@ -1,6 +1,6 @@
 // The incremental live forecast: the page sends the worker only what an edit changed, the worker keeps the
 // previous document and answers; every answer must equal the full forecast of the whole new document.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { parseChipDocument, rememberParsed, type ChipDocument } from '../../../shared/schemas/chip'
 import { actions, runAction } from '../../../shared/editor'
 import { generateParallelChip } from '../../../geometry/arrays'
@@ -11,10 +11,10 @@ import {
   forecastUnchanged,
   runLiveForecast,
   runLiveRules,
-  type FocusAnswer,
   type LiveAnswer,
   type RulesAnswer,
 } from '../../../components/editor/lib/liveRun'
+import { createForecastApi } from '../../../components/editor/lib/forecastApi'
 import { fixtureDocument } from '../../support/factory'
 
 const parsed = (raw: unknown): ChipDocument => {
@@ -83,23 +83,9 @@ describe('forecast reuse', () => {
 })
 
 describe('the forecast worker', () => {
-  const posted: Array<LiveAnswer | RulesAnswer | FocusAnswer> = []
-  const g = globalThis as unknown as { self?: unknown }
-  const had = 'self' in g
-  const old = g.self
-  let onmessage: (e: { data: unknown }) => void
-  beforeAll(async () => {
-    g.self = { postMessage: (m: LiveAnswer | RulesAnswer | FocusAnswer) => posted.push(m), onmessage: null }
-    await import('../../../components/editor/lib/forecast.worker')
-    onmessage = (g.self as { onmessage: typeof onmessage }).onmessage
-  })
-  afterAll(() => {
-    if (had) g.self = old
-    else delete g.self
-  })
-  const until = async (n: number) => {
-    for (let i = 0; i < 200 && posted.length < n; i++) await new Promise(r => setTimeout(r, 10))
-  }
+  const rulesAnswered: RulesAnswer[] = []
+  const api = createForecastApi()
+  api.onRules(a => rulesAnswered.push(a))
 
   it('keeps the previous document, applies each patch and answers what a full forecast and rule check of the new document give', async () => {
     const docs = [parsed(generateParallelChip({ nozzles: 16 }))]
@@ -113,18 +99,22 @@ describe('the forecast worker', () => {
     )
     docs.push(edit(docs[2]!, 'placeMark', { position: { x: 100, y: 100 } }))
     const focus = docs[0]!.components[5]!.id
-    onmessage({ data: { seq: 1, doc: structuredClone(docs[0]), processId: 'film-mask-soft-litho', focus } })
+    // Each request crosses a structured clone, as it does to the real worker.
+    const answers: LiveAnswer[] = [
+      api.run(structuredClone({ seq: 1, doc: docs[0], processId: 'film-mask-soft-litho', focus })),
+    ]
     for (let k = 1; k < docs.length; k++)
-      onmessage({
-        data: structuredClone({
-          seq: k + 1,
-          patch: diffDocument(docs[k - 1]!, docs[k]!),
-          processId: 'film-mask-soft-litho',
-          focus,
-        }),
-      })
-    await until(docs.length + 1)
-    const answers = posted.filter((m): m is LiveAnswer => 'summary' in m)
+      answers.push(
+        api.run(
+          structuredClone({
+            seq: k + 1,
+            patch: diffDocument(docs[k - 1]!, docs[k]!),
+            processId: 'film-mask-soft-litho',
+            focus,
+          }),
+        ),
+      )
+    await new Promise(r => setTimeout(r, 20))
     expect(answers.map(a => a.seq)).toEqual([1, 2, 3, 4])
     for (const [k, a] of answers.entries()) {
       const full = runLiveForecast(docs[k]!, k + 1)
@@ -135,12 +125,10 @@ describe('the forecast worker', () => {
     expect(answers[2]!.summary).not.toEqual(answers[1]!.summary)
     // Another selection: its junctions from the last forecast, as the full forecast has them.
     const other = docs[3]!.components[9]!.id
-    onmessage({ data: { seq: 4, refocus: true, focus: other } })
-    const moved = posted.find((m): m is FocusAnswer => 'junctions' in m)!
+    const moved = api.refocus(4, other)
     expect(moved.junctions).toEqual(runLiveForecast(docs[3]!, 4).forecast!.junctions.filter(j => j.element === other))
     // Rules run after the forecast in their own task and only for the newest document.
-    const rules = posted.filter((m): m is RulesAnswer => 'findings' in m)
-    expect(rules.map(r => r.seq)).toEqual([4])
-    expect(rules[0]!.findings).toEqual(runLiveRules(docs[3]!, 'film-mask-soft-litho'))
+    expect(rulesAnswered.map(r => r.seq)).toEqual([4])
+    expect(rulesAnswered[0]!.findings).toEqual(runLiveRules(docs[3]!, 'film-mask-soft-litho'))
   })
 })

@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest'
-import { effectScope, nextTick, ref } from 'vue'
+import { effectScope, nextTick, ref, shallowRef } from 'vue'
+import { expose, type Endpoint } from 'comlink'
 import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/chip'
 import { useLiveForecast } from '../../../components/editor/lib/liveForecast'
-import { resolveProcess } from '../../../geometry/rules'
-import type { LiveRequest } from '../../../components/editor/lib/liveRun'
+import { resolveProcess, type Finding } from '../../../geometry/rules'
+import { runLiveRules, type LiveRequest, type RulesAnswer } from '../../../components/editor/lib/liveRun'
+import { createForecastApi, type ForecastApi } from '../../../components/editor/lib/forecastApi'
 import { fixtureDocument } from '../../support/factory'
 
 const doc = (): ChipDocument => {
@@ -101,29 +103,55 @@ describe('progress of a slow run', () => {
   })
 })
 
+/**
+ * A stand-in for the browser's Worker: the real worker API (forecastApi.ts) exposed through comlink on a
+ * MessageChannel, recording what each `run` and `warm` is sent.
+ */
+const fakeWorker = (sent: Array<{ seq: number; warm: boolean; whole: boolean }>, stale?: Finding) =>
+  class FakeWorker {
+    channel = new MessageChannel()
+    constructor() {
+      const real = createForecastApi()
+      const record = (req: LiveRequest, warm: boolean) => sent.push({ seq: req.seq, warm, whole: !!req.doc })
+      let rules: (a: RulesAnswer) => unknown = () => {}
+      const api: ForecastApi = {
+        ...real,
+        onRules: f => ((rules = f), real.onRules(f)),
+        run: req => {
+          record(req, false)
+          // `stale`: the previous request's findings arrive late, after this one's.
+          if (stale) setTimeout(() => rules({ seq: req.seq - 1, findings: [stale] }), 20)
+          return real.run(req)
+        },
+        warm: req => (record(req, true), real.warm(req)),
+      }
+      expose(api, this.channel.port2 as unknown as Endpoint)
+      this.channel.port1.start()
+    }
+    postMessage(m: unknown, transfer?: Transferable[]) {
+      this.channel.port1.postMessage(m, transfer ?? [])
+    }
+    addEventListener(type: string, f: (e: MessageEvent) => void) {
+      if (type === 'message') this.channel.port1.addEventListener('message', f)
+    }
+    removeEventListener(type: string, f: (e: MessageEvent) => void) {
+      if (type === 'message') this.channel.port1.removeEventListener('message', f)
+    }
+    terminate() {
+      this.channel.port1.close()
+      this.channel.port2.close()
+    }
+  }
+
 describe('with a worker', () => {
   it('the first forecast runs in the page while the worker warms up on the same chip; later edits go to the worker', async () => {
-    const { applyPatch, runLiveForecast } = await import('../../../components/editor/lib/liveRun')
-    const sent: Array<{ seq: number; warm?: boolean; whole: boolean }> = []
-    // A stand-in for the browser's Worker: records what it is sent and answers runs as the real one does
-    // (keeping the document, applying each patch).
-    class FakeWorker {
-      onmessage: ((e: { data: unknown }) => void) | null = null
-      onerror: (() => void) | null = null
-      held: ChipDocument | null = null
-      postMessage(m: LiveRequest) {
-        sent.push({ seq: m.seq, warm: m.warm, whole: !!m.doc })
-        this.held = m.doc ?? applyPatch(this.held!, m.patch!)
-        const d = this.held
-        if (!m.warm) setTimeout(() => this.onmessage?.({ data: runLiveForecast(d, m.seq) }), 5)
-      }
-      terminate() {}
-    }
+    const sent: Array<{ seq: number; warm: boolean; whole: boolean }> = []
     const g = globalThis as { Worker?: unknown }
     const before = g.Worker
-    g.Worker = FakeWorker
+    g.Worker = fakeWorker(sent)
     try {
-      const d = ref(doc())
+      // Held as the editor's store holds it (a shallow ref: the document's objects are sent as they are).
+      const d = shallowRef(doc())
       const scope = effectScope()
       const { live } = scope.run(() => useLiveForecast(d))!
       await wait(30)
@@ -131,8 +159,32 @@ describe('with a worker', () => {
       expect(sent).toEqual([{ seq: 1, warm: true, whole: true }])
       d.value = { ...d.value, name: 'Renamed' }
       await wait(30)
-      expect(sent.at(-1)).toEqual({ seq: 2, warm: undefined, whole: false }) // a patch, not the whole document
+      expect(sent.at(-1)).toEqual({ seq: 2, warm: false, whole: false }) // a patch, not the whole document
       expect(live.value.forecast!.document.name).toBe('Renamed')
+      scope.stop()
+    } finally {
+      g.Worker = before
+    }
+  })
+})
+
+describe('answers of an older request', () => {
+  it('rule findings of an older document arriving after the newer one do not replace them', async () => {
+    const stale = { id: 'stale-finding', severity: 'error', message: 'from an older document' } as unknown as Finding
+    const g = globalThis as { Worker?: unknown }
+    const before = g.Worker
+    g.Worker = fakeWorker([], stale)
+    try {
+      const d = shallowRef(narrow())
+      const scope = effectScope()
+      const { findings } = scope.run(() => useLiveForecast(d, { processId: ref('film-mask-soft-litho') }))!
+      await wait(30)
+      const edited = { ...d.value, name: 'Renamed' }
+      d.value = edited
+      await wait(80)
+      expect(findings.value.map(f => f.id)).not.toContain('stale-finding')
+      expect(findings.value).toEqual(runLiveRules(edited, 'film-mask-soft-litho'))
+      expect(findings.value.length).toBeGreaterThan(0)
       scope.stop()
     } finally {
       g.Worker = before
