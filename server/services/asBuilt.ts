@@ -4,23 +4,28 @@ import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import { createError } from 'h3'
 import { ZodError } from 'zod'
 import { asBuiltFiles, asBuilts, designs, revisions, users } from '../db/schema'
-import { useDb } from '../utils/db'
+import { useConfig } from '../utils/config'
+import { useDb, type Tx } from '../utils/db'
+import { enqueueJob } from '../utils/jobs'
 import type { LabCaller } from '../utils/access'
 import { appOrigin } from '../utils/origin'
 import { summarizeOffThread } from '../utils/summaryWorker'
 import { logActivity } from './activity'
 import { findVisibleRevision } from './designGuards'
-import { labLibraryData } from './libraries'
+import { labLibraryData, type LabLibraryData } from './libraries'
 import { conflict } from './locks'
 import { queueMailTo } from './mail'
 import { asBuiltMail } from './mailTemplates'
 import { applyAsBuilt, AsBuiltError, measurableWidths } from '#shared/fabrication/asBuilt'
-import { asBuiltChanges, describeChange } from '#shared/fabrication/asBuiltDiff'
-import { chipDocument, type ChipDocument } from '#shared/schemas/chip'
+import { asBuiltChanges, describeChange, type AsBuiltChange } from '#shared/fabrication/asBuiltDiff'
+import { chipDocument, documentPieceCount, type ChipDocument } from '#shared/schemas/chip'
 import type { AsBuiltCreate } from '#shared/schemas/asBuilt'
 import type { RevisionSummary } from '#shared/types/designs'
 import { can } from '#shared/utils/roles'
 import { snapshotAsLabData } from '../../geometry/rules'
+import { pendingSummary } from './revisionSummary'
+
+export const AS_BUILT_JOB = 'as-built.summary'
 
 /** The fab reports what it made; the lab may record it on receipt (who records bench measurements). */
 export function assertMayRecord(caller: LabCaller): void {
@@ -59,15 +64,51 @@ async function releasedRevision(caller: LabCaller, revisionId: string) {
  * The as-built chip checked as the drawn one was: with the process values stored with the revision (a lab's own
  * process too, as it was then) and the lab's liquids and pairs.
  */
-async function summarizeAsBuilt(
+async function asBuiltLab(designed: RevisionSummary, labId: string): Promise<LabLibraryData> {
+  const lab = await labLibraryData(useDb(), labId)
+  const stored = designed.library?.process ? snapshotAsLabData(designed.library.process) : null
+  const processes = stored ? [stored, ...lab.processes.filter(p => p.id !== stored.id)] : lab.processes
+  return { ...lab, processes }
+}
+
+export async function summarizeAsBuilt(
   built: ChipDocument,
   designed: RevisionSummary,
   labId: string,
 ): Promise<RevisionSummary> {
-  const lab = await labLibraryData(useDb(), labId)
-  const stored = designed.library?.process ? snapshotAsLabData(designed.library.process) : null
-  const processes = stored ? [stored, ...lab.processes.filter(p => p.id !== stored.id)] : lab.processes
-  return summarizeOffThread(built, designed.processId, { ...lab, processes })
+  return summarizeOffThread(built, designed.processId, await asBuiltLab(designed, labId))
+}
+
+/** Who hears of an as-built (the revision's author and the design's creator, not the one who recorded it). */
+export interface AsBuiltMailContext {
+  labId: string
+  revisionId: string
+  actorId: string
+  authorId: string
+  designCreator: string
+  designName: string
+  revisionNumber: number
+}
+
+/** The e-mail to the designer with what changed, queued in the caller's transaction. */
+export async function queueAsBuiltMail(tx: Tx, m: AsBuiltMailContext, changes: AsBuiltChange[]): Promise<void> {
+  const wanted = [...new Set([m.authorId, m.designCreator])].filter(u => u !== m.actorId)
+  const to = wanted.length
+    ? (await tx.select({ email: users.email }).from(users).where(inArray(users.id, wanted))).map(u => u.email)
+    : []
+  const [me] = await tx.select({ name: users.name }).from(users).where(eq(users.id, m.actorId))
+  await queueMailTo(tx, to, {
+    labId: m.labId,
+    kind: 'as-built',
+    ...asBuiltMail({
+      designName: m.designName,
+      revisionNumber: m.revisionNumber,
+      actorName: me?.name ?? 'Someone',
+      changes: changes.filter(c => c.what !== 'findings' || c.designed !== c.asBuilt).map(describeChange),
+      warnings: changes.filter(c => c.exceeds).length,
+      link: `${appOrigin()}/labs/${m.labId}/revisions/${m.revisionId}/as-built`,
+    }),
+  })
 }
 
 const invalid = (issues: Array<{ path: string; message: string }>) =>
@@ -104,8 +145,22 @@ export async function recordAsBuilt(
       )
     throw error
   }
-  const summary = await summarizeAsBuilt(built, r.summary, caller.lab.labId)
-  const changes = asBuiltChanges(r.summary, summary, r.document)
+  // A large chip (or a drawn one still being summarized) is recorded at once; the as-built summary job fills in
+  // its forecast and sends the e-mail (asBuiltJob.ts).
+  const pending = r.summary.pending === true || documentPieceCount(built) > useConfig().geometry.summaryInlinePieces
+  const summary = pending
+    ? pendingSummary(built, r.summary.processId, await asBuiltLab(r.summary, caller.lab.labId))
+    : await summarizeAsBuilt(built, r.summary, caller.lab.labId)
+  const changes = pending ? [] : asBuiltChanges(r.summary, summary, r.document)
+  const mail: AsBuiltMailContext = {
+    labId: caller.lab.labId,
+    revisionId,
+    actorId: caller.userId,
+    authorId: r.head.authorId,
+    designCreator: r.designCreator,
+    designName: r.designName,
+    revisionNumber: r.head.number,
+  }
   const id = await useDb().transaction(async tx => {
     const [row] = await tx
       .insert(asBuilts)
@@ -128,26 +183,11 @@ export async function recordAsBuilt(
       action: 'as-built.recorded',
       detail: { warnings: changes.filter(c => c.exceeds).length },
     })
-    const wanted = [...new Set([r.head.authorId, r.designCreator])].filter(u => u !== caller.userId)
-    const to = wanted.length
-      ? (await tx.select({ email: users.email }).from(users).where(inArray(users.id, wanted))).map(u => u.email)
-      : []
-    const [me] = await tx.select({ name: users.name }).from(users).where(eq(users.id, caller.userId))
-    await queueMailTo(tx, to, {
-      labId: caller.lab.labId,
-      kind: 'as-built',
-      ...asBuiltMail({
-        designName: r.designName,
-        revisionNumber: r.head.number,
-        actorName: me?.name ?? 'Someone',
-        changes: changes.filter(c => c.what !== 'findings' || c.designed !== c.asBuilt).map(describeChange),
-        warnings: changes.filter(c => c.exceeds).length,
-        link: `${appOrigin()}/labs/${caller.lab.labId}/revisions/${revisionId}/as-built`,
-      }),
-    })
+    if (pending) await enqueueJob(AS_BUILT_JOB, { asBuiltId: row!.id, ...mail }, { tx, singletonKey: row!.id })
+    else await queueAsBuiltMail(tx, mail, changes)
     return row!.id
   })
-  return { asBuiltId: id, changes }
+  return { asBuiltId: id, changes, pending }
 }
 
 const reportColumns = {
@@ -200,7 +240,8 @@ export async function getAsBuilt(caller: LabCaller, revisionId: string) {
             recordedBy: latest.recordedByName,
             createdAt: latest.createdAt.toISOString(),
             summary,
-            changes: asBuiltChanges(r.summary, summary, r.document),
+            pending: summary.pending === true,
+            changes: summary.pending ? [] : asBuiltChanges(r.summary, summary, r.document),
             files,
           }
         : null,

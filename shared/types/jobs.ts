@@ -18,4 +18,5 @@ export const JOB_LABELS: Record<string, string> = {
   'mail.send': 'Send an e-mail',
   'micrograph.measure': 'Measure the droplets of a micrograph',
   'revision.summary': "Forecast and check a large chip's revision",
+  'as-built.summary': 'Forecast and check a large as-built chip',
 }

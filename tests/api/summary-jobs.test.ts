@@ -6,7 +6,10 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { planParallelChip } from '../../geometry/arrays'
 import { documentPieceCount } from '../../shared/schemas/chip'
 import { ApiClient } from '../support/api'
+import { ROLES, type Role } from '../../shared/utils/roles'
 import { makeLab, TEST_PASSWORD } from '../support/factory'
+import { mailTo } from '../support/mail'
+import { releasedOrder } from '../support/orders'
 import { startServer, type ServerInstance } from '../support/instance'
 
 const pool = new pg.Pool({ connectionString: inject('databaseUrl'), max: 2 })
@@ -109,4 +112,42 @@ describe('revision summaries as a background job', () => {
     )
     expect(rows).toEqual([])
   })
+
+  it("records a large chip's as-built at once; the job fills in the comparison and then mails the designer", async () => {
+    const { lab, people } = await makeLab([...ROLES])
+    const as = {} as Record<Role, ApiClient>
+    const ids = {} as Record<Role, string>
+    for (const p of people) {
+      as[p.role] = await new ApiClient(a.baseURL).signIn(p.email, TEST_PASSWORD)
+      ids[p.role] = p.id
+    }
+    const document = chip(320) as { layers: Array<{ id: string; depth: number }> }
+    const { revisionId } = await releasedOrder({ lab, as, ids, designId: '', revisionId: '' }, {}, document)
+    const base = `/api/labs/${lab.id}/revisions/${revisionId}/as-built`
+    const layer = document.layers[0]!
+    const recorded = await as.fabricator.post(base, {
+      depths: [{ layerId: layer.id, depthUm: layer.depth * 0.8 }],
+      note: 'Large chip, one depth',
+    })
+    expect(recorded.status, JSON.stringify(recorded.json)).toBe(201)
+    expect(recorded.json.pending).toBe(true)
+    expect(recorded.json.changes).toEqual([])
+    await expect
+      .poll(async () => (await as.designer.get(base)).json.asBuilt.pending, { timeout: 60_000, interval: 250 })
+      .toBe(false)
+    const seen = (await as.designer.get(base)).json.asBuilt
+    expect(seen.summary.pending).toBeUndefined()
+    expect(seen.summary.junctions.length).toBeGreaterThanOrEqual(320)
+    expect(seen.changes.length).toBeGreaterThan(0) // a 20 % shallower chip changes the forecast
+    const designer = people.find(p => p.role === 'designer')!.email
+    await expect
+      .poll(() => mailTo(designer).some(m => m.subject.startsWith('As-built recorded')), { timeout: 20_000 })
+      .toBe(true)
+    const { rows } = await pool.query(
+      `select state from pgboss.job where name = 'as-built.summary' and data->>'asBuiltId' = $1`,
+      [recorded.json.asBuiltId],
+    )
+    expect(rows.map(r => r.state)).toContain('completed')
+    expect(mailTo(designer).filter(m => m.subject.startsWith('As-built recorded'))).toHaveLength(1) // sent once
+  }, 90_000)
 })

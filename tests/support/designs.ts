@@ -1,9 +1,9 @@
 // Builds a lab with one person per role and a design in it, through the real API.
 import { ApiClient } from './api'
 import { fixtureDocument, makeLab, TEST_PASSWORD } from './factory'
-import type { Role } from '../../shared/utils/roles'
+import { ROLES, type Role } from '../../shared/utils/roles'
 
-export const ALL_ROLES: Role[] = ['admin', 'designer', 'reviewer', 'experimenter', 'fabricator']
+export const ALL_ROLES: Role[] = [...ROLES]
 
 export async function labWithDesign() {
   const { lab, people } = await makeLab(ALL_ROLES)

@@ -1,9 +1,12 @@
 // A large chip's revision while its summary is computed in the background: the forecast panel and the revision list
 // say so, and show no "0 errors" or empty forecast as if it were a result.
 import { mount } from '@vue/test-utils'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import DesignRevisions from '../../../components/design/DesignRevisions.vue'
 import RevisionForecast from '../../../components/revision/RevisionForecast.vue'
+import FabAsBuiltReport from '../../../components/fab/FabAsBuiltReport.vue'
+
+vi.stubGlobal('useWhen', () => (iso: string) => iso)
 
 const pending = {
   junctionKinds: ['step-array'],
@@ -52,5 +55,32 @@ describe('a pending revision summary', () => {
     })
     expect(w.get('[data-test="summary-pending"]').text()).toBe('being checked…')
     expect(w.text()).not.toContain('no errors')
+  })
+
+  it('the as-built report says its comparison is being computed, with no empty table', () => {
+    const report = (pending: boolean) => ({
+      document: { layers: [] },
+      layers: [],
+      measurable: [],
+      asBuilt: { id: 'a', recordedBy: 'Fab', createdAt: '2026-12-01', note: '', pending, changes: [], files: [] },
+    })
+    const mountWith = (pending: boolean) =>
+      mount(FabAsBuiltReport, {
+        props: {
+          report: report(pending) as never,
+          canRecord: false,
+          busy: false,
+          problem: null,
+          serverFields: {},
+          base: '',
+        },
+        global: { stubs: { FabAsBuiltFiles: true, FabAsBuiltForm: true } },
+      })
+    const waiting = mountWith(true)
+    expect(waiting.get('[data-test="as-built-pending"]').text()).toContain('being computed in the background')
+    expect(waiting.find('[data-test="as-built-changes"]').exists()).toBe(false)
+    const done = mountWith(false)
+    expect(done.find('[data-test="as-built-pending"]').exists()).toBe(false)
+    expect(done.find('[data-test="as-built-changes"]').exists()).toBe(true)
   })
 })
