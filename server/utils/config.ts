@@ -130,6 +130,7 @@ export const envSchema = z.object({
   DW_GEOMETRY_NICE: whole(10, -20, 19),
   DW_SUMMARY_WORKER: flag(true),
   DW_REVISION_CACHE: whole(64, 1),
+  // LARGE_CHIP_PIECES (shared/schemas/chip/totals.ts; nuxt.config loads this file, where #shared does not resolve).
   DW_SUMMARY_INLINE_PIECES: whole(5000, 0),
   // Object storage (server/services/storage.ts) and the micrograph worker (bench, issue 13).
   DW_S3_ENDPOINT: url(['http', 'https'], 'https://s3.eu-central-1.amazonaws.com'),

@@ -305,7 +305,7 @@ export const bossJobs = pgboss.table('job', {
 })
 
 /** The error a failed run left (pg-boss keeps the thrown error, serialised, as the job's output). */
-function errorOf(output: unknown): string {
+export function errorOf(output: unknown): string {
   if (output && typeof output === 'object') {
     const o = output as { message?: unknown; value?: unknown }
     if (typeof o.message === 'string') return o.message.split('\n')[0]!.slice(0, 500)

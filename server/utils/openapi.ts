@@ -194,6 +194,28 @@ export const OPERATIONS: Operation[] = [
   },
   {
     method: 'post',
+    path: '/api/labs/{labId}/revisions/{revisionId}/dxf-exports',
+    tag: 'Designs',
+    permission: 'released:view',
+    query: dxfQuery,
+    summary: 'Start making the mask DXF in the background (202 with the export to poll; for large chips)',
+  },
+  {
+    method: 'get',
+    path: '/api/labs/{labId}/revisions/{revisionId}/dxf-exports/{exportId}',
+    tag: 'Designs',
+    permission: 'released:view',
+    summary: 'Where a background mask export is: queued, making, ready (with its file URL) or failed (with why)',
+  },
+  {
+    method: 'get',
+    path: '/api/labs/{labId}/revisions/{revisionId}/dxf-exports/{exportId}/file',
+    tag: 'Designs',
+    permission: 'released:view',
+    summary: 'The DXF file of a finished background mask export',
+  },
+  {
+    method: 'post',
     path: '/api/labs/{labId}/revisions/{revisionId}/duplicate',
     tag: 'Designs',
     permission: 'designs:view',

@@ -16,6 +16,7 @@ export const STARTER_LABELS: Record<(typeof STARTER_KINDS)[number], string> = {
 
 export const designParams = labParams.extend({ designId: z.uuid('Design id must be a UUID') })
 export const revisionParams = labParams.extend({ revisionId: z.uuid('Revision id must be a UUID') })
+export const maskExportParams = revisionParams.extend({ exportId: z.uuid('Export id must be a UUID') })
 export const compareParams = labParams.extend({
   revisionId: z.uuid('Revision id must be a UUID'),
   otherId: z.uuid('Revision id must be a UUID'),

@@ -152,3 +152,9 @@ export interface ReviewState {
     orderStatusAt: string
   } | null
 }
+
+/** A mask DXF made in the background (`POST …/dxf-exports`): where it is, and the file once it is ready. */
+export type MaskExport =
+  | { exportId: string; status: 'queued' | 'making' }
+  | { exportId: string; status: 'ready'; filename: string; bytes: number; fileUrl: string }
+  | { exportId: string; status: 'failed'; error: string }

@@ -19,4 +19,5 @@ export const JOB_LABELS: Record<string, string> = {
   'micrograph.measure': 'Measure the droplets of a micrograph',
   'revision.summary': "Forecast and check a large chip's revision",
   'as-built.summary': 'Forecast and check a large as-built chip',
+  'mask.dxf': 'Make a mask DXF',
 }

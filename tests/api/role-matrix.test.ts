@@ -82,6 +82,12 @@ const ROUTES: Route[] = [
     permission: 'designs:view',
   },
   {
+    name: 'draft revision DXF in the background',
+    method: 'POST',
+    path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/dxf-exports`,
+    permission: 'designs:view',
+  },
+  {
     name: 'review state',
     method: 'GET',
     path: c => `/api/labs/${c.lab.id}/revisions/${c.revisionId}/review`,

@@ -3,6 +3,7 @@
 import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
 import { envSchema, loadConfig } from '../../server/utils/config'
+import { LARGE_CHIP_PIECES } from '../../shared/schemas/chip'
 
 describe('configuration (server/utils/config.ts)', () => {
   it('gives the documented defaults when nothing is set, and treats an empty value as unset', () => {
@@ -18,6 +19,7 @@ describe('configuration (server/utils/config.ts)', () => {
       heapMb: 1024,
       nice: 10,
       worker: true,
+      summaryInlinePieces: LARGE_CHIP_PIECES, // one threshold for "large" in the server and the revision page
     })
     expect(c.publicUrl).toBeNull()
     expect(c.listen).toEqual({ host: '', port: '3000' })

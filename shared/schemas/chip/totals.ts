@@ -33,6 +33,12 @@ function componentPieces(c: Component): number {
 }
 
 /**
+ * A chip with more drawn pieces than this is "large": its summaries and (from the revision page) its mask DXF are
+ * made by background jobs (about 1,200 nozzles; DW_SUMMARY_INLINE_PIECES overrides it for summaries).
+ */
+export const LARGE_CHIP_PIECES = 5000
+
+/**
  * Drawn pieces of the whole document, as geometry/outlines makes them: a channel of n points is n − 1
  * segments and n − 2 joins, each punch one, each alignment cross two per layer it is drawn on.
  */
