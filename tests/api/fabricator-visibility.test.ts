@@ -83,6 +83,7 @@ describe("a fabricator's answers carry nothing about unreleased revisions", () =
           asBuiltId: randomUUID(),
           fileId: randomUUID(),
           entryId: randomUUID(),
+          exportId: randomUUID(),
         })
         const res = await ctx.as.fabricator.request(
           route.method,

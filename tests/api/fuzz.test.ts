@@ -495,6 +495,8 @@ function plan(route: ApiRoute, s: Setup) {
         },
       ],
     },
+    // Options travel in the query (as on GET …/dxf); whatever body comes is ignored, never a 5xx.
+    'POST /api/labs/[labId]/revisions/[revisionId]/dxf-exports': { client: admin, templates: [{}, { mirror: 'true' }] },
     'POST /api/labs/[labId]/revisions/[revisionId]/review-requests': {
       client: admin,
       templates: [{ reviewerIds: [s.people[2]!.id, s.people[0]!.id] }],
