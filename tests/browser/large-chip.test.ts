@@ -1,11 +1,12 @@
 // A large chip (over LARGE_CHIP_PIECES drawn pieces) in Chromium: the revision page says its forecast is being
 // computed and fills in by itself, and "Mask DXF" makes the mask in the background and then downloads it.
 import type { Browser } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { planParallelChip } from '../../geometry/arrays'
 import { documentPieceCount, LARGE_CHIP_PIECES } from '../../shared/schemas/chip'
 import { ApiClient } from '../support/api'
 import { hydrated, launch, shot } from '../support/browser'
+import { pageWithSession } from '../support/editor'
 import { makeLab, TEST_PASSWORD } from '../support/factory'
 
 let browser: Browser
@@ -24,13 +25,7 @@ describe('a large chip in the browser', () => {
     expect(documentPieceCount(document as never)).toBeGreaterThan(LARGE_CHIP_PIECES)
     const created = await api.post(`/api/labs/${lab.id}/designs`, { name: 'Large array 1280', document })
     expect(created.status).toBe(201)
-    const context = await browser.newContext({
-      baseURL: inject('baseURL'),
-      viewport: { width: 1280, height: 900 },
-      acceptDownloads: true,
-    })
-    await context.addCookies([...api.cookies].map(([name, value]) => ({ name, value, url: inject('baseURL') })))
-    const page = await context.newPage()
+    const page = await pageWithSession(browser, api, { width: 1280, height: 900 })
     page.setDefaultTimeout(60_000)
     await page.goto(`/labs/${lab.id}/revisions/${created.json.revisionId}`)
     await hydrated(page)
@@ -44,6 +39,6 @@ describe('a large chip in the browser', () => {
     expect(download.suggestedFilename()).toMatch(/^large-array-1280_r1.*\.dxf$/)
     expect(await page.textContent('[data-test="dxf-export"]')).toContain('Mask DXF') // the button is back
     await shot(page, 'large-chip-ready')
-    await context.close()
+    await page.context().close()
   }, 120_000)
 })

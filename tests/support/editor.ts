@@ -12,15 +12,16 @@ export const at = (page: Page, x: number, y: number) => worldOnPage(page, '[data
 export const editorDoc = (page: Page) =>
   page.evaluate(() => JSON.parse(JSON.stringify((window as any).__dwEditor.store.doc)))
 
+/** A page of its own context, signed in with an API client's cookies (downloads accepted). */
+export async function pageWithSession(browser: Browser, as: ApiClient, viewport = { width: 1280, height: 800 }) {
+  const context = await browser.newContext({ baseURL: inject('baseURL'), viewport, acceptDownloads: true })
+  await context.addCookies([...as.cookies].map(([name, value]) => ({ name, value, url: inject('baseURL') })))
+  return context.newPage()
+}
+
 /** A 1280 × 800 page signed in with an API client's cookies, on the editor of a design. */
 export async function editorPage(browser: Browser, as: ApiClient, labId: string, designId: string) {
-  const context = await browser.newContext({
-    baseURL: inject('baseURL'),
-    viewport: { width: 1280, height: 800 },
-    acceptDownloads: true,
-  })
-  await context.addCookies([...as.cookies].map(([name, value]) => ({ name, value, url: inject('baseURL') })))
-  const page = await context.newPage()
+  const page = await pageWithSession(browser, as)
   page.setDefaultTimeout(15_000)
   await page.goto(`/labs/${labId}/designs/${designId}/edit`)
   await hydrated(page)

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { effectScope, nextTick, ref, shallowRef } from 'vue'
-import { expose, type Endpoint } from 'comlink'
+import { ChannelWorker } from '../../support/channelWorker'
 import { parseChipDocument, type ChipDocument } from '../../../shared/schemas/chip'
 import { useLiveForecast } from '../../../components/editor/lib/liveForecast'
 import { resolveProcess, type Finding } from '../../../geometry/rules'
@@ -108,8 +108,7 @@ describe('progress of a slow run', () => {
  * MessageChannel, recording what each `run` and `warm` is sent.
  */
 const fakeWorker = (sent: Array<{ seq: number; warm: boolean; whole: boolean }>, stale?: Finding) =>
-  class FakeWorker {
-    channel = new MessageChannel()
+  class FakeWorker extends ChannelWorker {
     constructor() {
       const real = createForecastApi()
       const record = (req: LiveRequest, warm: boolean) => sent.push({ seq: req.seq, warm, whole: !!req.doc })
@@ -125,21 +124,7 @@ const fakeWorker = (sent: Array<{ seq: number; warm: boolean; whole: boolean }>,
         },
         warm: req => (record(req, true), real.warm(req)),
       }
-      expose(api, this.channel.port2 as unknown as Endpoint)
-      this.channel.port1.start()
-    }
-    postMessage(m: unknown, transfer?: Transferable[]) {
-      this.channel.port1.postMessage(m, transfer ?? [])
-    }
-    addEventListener(type: string, f: (e: MessageEvent) => void) {
-      if (type === 'message') this.channel.port1.addEventListener('message', f)
-    }
-    removeEventListener(type: string, f: (e: MessageEvent) => void) {
-      if (type === 'message') this.channel.port1.removeEventListener('message', f)
-    }
-    terminate() {
-      this.channel.port1.close()
-      this.channel.port2.close()
+      super(api)
     }
   }
 

@@ -2,36 +2,21 @@
 // arrives.
 import { describe, expect, it } from 'vitest'
 import { effectScope } from 'vue'
-import { expose, type Endpoint } from 'comlink'
+import { ChannelWorker } from '../../support/channelWorker'
 import { usePlanner } from '../../../composables/usePlanner'
 import type { PlanJob, PlanResult } from '../../../utils/plannerRun'
 
 const wait = (ms: number) => new Promise(r => setTimeout(r, ms))
 
 /** A stand-in for the browser's Worker: answers each job after the delay it names, with the tag it names. */
-class FakePlannerWorker {
-  channel = new MessageChannel()
+class FakePlannerWorker extends ChannelWorker {
   constructor() {
     const plan = async (job: PlanJob): Promise<PlanResult> => {
       const r = job.request as { delayMs: number; tag: string }
       await wait(r.delayMs)
       return { answer: { tag: r.tag } as unknown as PlanResult['answer'], error: null, issues: [] }
     }
-    expose({ plan }, this.channel.port2 as unknown as Endpoint)
-    this.channel.port1.start()
-  }
-  postMessage(m: unknown, transfer?: Transferable[]) {
-    this.channel.port1.postMessage(m, transfer ?? [])
-  }
-  addEventListener(type: string, f: (e: MessageEvent) => void) {
-    if (type === 'message') this.channel.port1.addEventListener('message', f)
-  }
-  removeEventListener(type: string, f: (e: MessageEvent) => void) {
-    if (type === 'message') this.channel.port1.removeEventListener('message', f)
-  }
-  terminate() {
-    this.channel.port1.close()
-    this.channel.port2.close()
+    super({ plan })
   }
 }
 
