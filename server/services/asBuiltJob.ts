@@ -13,10 +13,9 @@ import type { ChipDocument } from '#shared/schemas/chip'
 import type { RevisionSummary } from '#shared/types/designs'
 import { asBuiltChanges } from '#shared/fabrication/asBuiltDiff'
 import { queueAsBuiltMail, summarizeAsBuilt, type AsBuiltMailContext } from './asBuilt'
+import { givenUpSummary } from './revisionSummary'
 
 export type AsBuiltJobData = AsBuiltMailContext & { asBuiltId: string }
-
-const reason = (error: unknown) => (error instanceof Error ? error.message : String(error))
 
 export async function asBuiltSummaryJob(data: AsBuiltJobData, job: JobContext) {
   const db = useDb()
@@ -40,16 +39,10 @@ export async function asBuiltSummaryJob(data: AsBuiltJobData, job: JobContext) {
     summary = await summarizeAsBuilt(row.document as unknown as ChipDocument, designed, data.labId)
   } catch (error) {
     if (job.retryCount >= job.retryLimit) {
-      const { pending: _, ...rest } = stored
+      const summary = givenUpSummary(stored, 'as-built chip', error)
       await db
         .update(asBuilts)
-        .set({
-          summary: {
-            ...rest,
-            forecastError: `No forecast or rule check for this as-built chip: ${reason(error)}`,
-            findings: { errors: 1, warnings: 0, infos: 0 },
-          },
-        })
+        .set({ summary: summary as unknown as Record<string, unknown> })
         .where(onlyPending)
     }
     throw error

@@ -17,12 +17,17 @@ async function contentOf(revisionId: string) {
   const hit = content.get(revisionId)
   if (hit) return hit
   const [row] = await useDb()
-    .select({ document: sql<string>`${revisions.document}::text`, summary: sql<string>`${revisions.summary}::text` })
+    .select({
+      document: sql<string>`${revisions.document}::text`,
+      summary: sql<string>`${revisions.summary}::text`,
+      pending: sql<boolean>`${revisions.summary} ? 'pending'`,
+    })
     .from(revisions)
     .where(eq(revisions.id, revisionId))
+  const { pending, ...kept } = row!
   // A pending summary (a large chip's, being computed by the summary job) changes once: not kept until it is final.
-  if (!row!.summary.includes('"pending": true')) content.set(revisionId, row!)
-  return row!
+  if (!pending) content.set(revisionId, kept)
+  return kept
 }
 
 // Status and names, read fresh on every request: one named prepared statement.

@@ -61,3 +61,17 @@ export function pendingSummary(doc: ChipDocument, processId: string, lab?: LabLi
     pending: true,
   }
 }
+
+/**
+ * What a pending summary becomes when its job gives up (retries spent): finished, never pending forever, with the
+ * reason where the forecast would be and one rule error so nobody reads "no errors" into a chip nobody checked.
+ */
+export function givenUpSummary(stored: RevisionSummary, what: string, error: unknown): RevisionSummary {
+  const { pending: _, ...rest } = stored
+  const reason = error instanceof Error ? error.message : String(error)
+  return {
+    ...rest,
+    forecastError: `No forecast or rule check for this ${what}: ${reason}`,
+    findings: { errors: 1, warnings: 0, infos: 0 },
+  }
+}

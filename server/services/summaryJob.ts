@@ -12,6 +12,7 @@ import { summarizeOffThread } from '../utils/summaryWorker'
 import type { ChipDocument } from '#shared/schemas/chip'
 import type { RevisionSummary } from '#shared/types/designs'
 import { labLibraryData } from './libraries'
+import { givenUpSummary } from './revisionSummary'
 
 export const SUMMARY_JOB = 'revision.summary'
 
@@ -28,8 +29,6 @@ export async function queueSummaryIfPending(
 ): Promise<void> {
   if (summary.pending) await enqueueJob(SUMMARY_JOB, data, { tx, singletonKey: data.revisionId })
 }
-
-const reason = (error: unknown) => (error instanceof Error ? error.message : String(error))
 
 export async function summaryJob(data: SummaryJobData, job: JobContext) {
   const db = useDb()
@@ -52,12 +51,7 @@ export async function summaryJob(data: SummaryJobData, job: JobContext) {
     if (job.retryCount >= job.retryLimit) {
       // Retries spent: a finished summary that says so, never one pending forever; the job still fails, so it is
       // copied to the dead-letter queue and listed for the lab's admins.
-      const { pending: _, ...rest } = stored
-      await write({
-        ...rest,
-        forecastError: `No forecast or rule check for this revision: ${reason(error)}`,
-        findings: { errors: 1, warnings: 0, infos: 0 },
-      })
+      await write(givenUpSummary(stored, 'revision', error))
     }
     throw error
   }
