@@ -18,6 +18,9 @@ export async function buildWorkers(serverDir) {
     format: 'esm',
     target: 'node20',
     logLevel: 'warning',
+    // Native or large packages stay outside the bundle; they resolve from .output/server/node_modules, where Nitro
+    // has traced them because the server imports them too.
+    external: ['sharp', '@aws-sdk/*', 'file-type', 'busboy'],
     // `#shared/...` (the server's imports of shared code) resolves through the tsconfig paths Nuxt writes.
     tsconfig: join(root, 'tsconfig.json'),
     // some bundled CommonJS packages call require(); give the ES module one

@@ -1,19 +1,49 @@
 // A 20 MB micrograph upload against the designs list: p50, p90 and p97.5 of GET /api/labs/:labId/designs at 10 connections,
-// flat out and at a steady 200 req/s, first alone, then while 20 MB uncompressed TIFF micrographs are uploaded and measured one after another. The
+// flat out and at a steady 200 req/s, alone and while 20 MB uncompressed TIFF micrographs are uploaded and measured one
+// after another, with the server's event-loop delay beside each window (DW_LOOP_DELAY_FILE). The
 // measurement runs in the imaging worker and decoding in sharp's own threads, so the list should not slow beyond
 // noise. Not a test: `npm run bench:upload`.
+import { mkdtempSync, readFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { Worker } from 'node:worker_threads'
 import autocannon from 'autocannon'
 import sharp from 'sharp'
 import { renderMicrograph, scatterDrops } from '../../shared/imaging/synthetic'
+import { deleteObject, objectKey } from '../../server/services/storage'
 import { startServer } from '../../tests/support/instance'
 
+/** Uploads the micrograph again and again until told to stop, then reports how many and how long they took. */
+const UPLOADER = `
+const { parentPort, workerData } = require('node:worker_threads')
+let stop = false
+parentPort.once('message', () => { stop = true })
+;(async () => {
+  let count = 0, ms = 0
+  const ids = []
+  while (!stop) {
+    const form = new FormData()
+    form.set('image', new Blob([workerData.tiff]), 'big.tiff')
+    form.set('umPerPx', '0.8')
+    const t = performance.now()
+    const res = await fetch(workerData.url, { method: 'POST', headers: { cookie: workerData.cookie }, body: form })
+    const json = await res.json()
+    if (res.status !== 201) throw new Error('upload answered ' + res.status)
+    ids.push(json.micrograph.id)
+    count++
+    ms += performance.now() - t
+  }
+  parentPort.postMessage({ count, ms, ids })
+})()
+`
 const DURATION_S = Number(process.env.DW_BENCH_SECONDS ?? 10)
 /** The steady load: about a tenth of what the list serves flat out here (common practice for latency, no source). */
 const STEADY_RATE = Number(process.env.DW_BENCH_RATE ?? 200)
+const loopDelayFile = join(mkdtempSync(join(tmpdir(), 'dw-upload-')), 'loop-delay.jsonl')
 const server = await startServer({
   databaseUrl: process.env.DATABASE_URL!,
   name: 'bench-upload',
-  env: { DW_MAIL_WORKER: '0' },
+  env: { DW_MAIL_WORKER: '0', DW_LOOP_DELAY_FILE: loopDelayFile },
 })
 const base = server.baseURL
 try {
@@ -49,7 +79,8 @@ try {
 
   // Flat out (10 connections, as fast as the server answers) the list shares the 2 cores with the measurement, so
   // its throughput falls whatever runs where; at a steady rate well inside capacity (other people browsing while
-  // one uploads) the latency shows whether the upload blocks anyone.
+  // one uploads) the latency shows whether the upload blocks anyone. Alone and uploading windows alternate, three
+  // of each, so a drift of the machine shows as spread among the alone windows (the noise) rather than as a cost.
   const list = (rate?: number) =>
     autocannon({
       url: `${base}/api/labs/${labId}/designs`,
@@ -58,43 +89,74 @@ try {
       headers: { cookie },
       ...(rate ? { overallRate: rate } : {}),
     })
-  const quiet = await list()
-  const quietSteady = await list(STEADY_RATE)
   let uploads = 0
   let uploadMs = 0
-  let stop = false
-  const uploading = (async () => {
-    while (!stop) {
-      const form = new FormData()
-      form.set('image', new Blob([new Uint8Array(tiff)]), 'big.tiff')
-      form.set('umPerPx', '0.8')
-      const t = performance.now()
-      const res = await fetch(`${base}/api/labs/${labId}/bench-runs/${run.id}/micrographs`, {
-        method: 'POST',
-        headers: { cookie },
-        body: form,
-      })
-      await res.text()
-      if (res.status !== 201) {
-        console.log(`[upload] upload answered ${res.status}`)
-        break
-      }
-      uploads++
-      uploadMs += performance.now() - t
+  const uploaded: string[] = []
+  // The uploads come from a thread of their own: sending 20 MB from autocannon's event loop would delay its
+  // timers and show up as list latency that the server never caused.
+  const whileUploading = async <T>(measure: () => Promise<T>): Promise<T> => {
+    const uploader = new Worker(UPLOADER, {
+      eval: true,
+      workerData: { url: `${base}/api/labs/${labId}/bench-runs/${run.id}/micrographs`, cookie, tiff },
+    })
+    const done = new Promise<{ count: number; ms: number; ids: string[] }>((resolve, reject) => {
+      uploader.on('message', resolve)
+      uploader.on('error', reject)
+    })
+    try {
+      return await measure()
+    } finally {
+      uploader.postMessage('stop')
+      const { count, ms, ids } = await done
+      await uploader.terminate()
+      uploads += count
+      uploadMs += ms
+      uploaded.push(...ids)
     }
-  })()
-  const busy = await list()
-  const busySteady = await list(STEADY_RATE)
-  stop = true
-  await uploading
-  const row = (name: string, r: autocannon.Result) =>
-    `${name}p50 ${r.latency.p50} ms, p90 ${r.latency.p90} ms, p97.5 ${r.latency.p97_5} ms (autocannon has no p95), ${r.requests.average} req/s`
-  console.log(`[upload] designs list alone       ${row('', quiet)}`)
-  console.log(`[upload] designs list, uploading  ${row('', busy)}`)
-  console.log(`[upload] at ${STEADY_RATE} req/s, alone      ${row('', quietSteady)}`)
+  }
+  const delays = () =>
+    readFileSync(loopDelayFile, 'utf8')
+      .split('\n')
+      .filter(Boolean)
+      .map(line => JSON.parse(line) as { t: number; p50: number; p99: number; max: number })
+  const windowed = async (name: string, measure: () => Promise<autocannon.Result>) => {
+    const from = Date.now()
+    const result = await measure()
+    const seconds = delays().filter(d => d.t > from + 1000 && d.t <= Date.now())
+    const p99s = seconds.map(d => d.p99).sort((a, b) => a - b)
+    return {
+      name,
+      result,
+      loopP99: p99s[Math.floor(p99s.length / 2)] ?? NaN,
+      loopMax: Math.max(...seconds.map(d => d.max)),
+    }
+  }
+  const rows: Awaited<ReturnType<typeof windowed>>[] = []
+  rows.push(await windowed('flat out, alone', () => list()))
+  rows.push(await windowed('flat out, uploading', () => whileUploading(() => list())))
+  for (let i = 1; i <= 3; i++) {
+    rows.push(await windowed(`${STEADY_RATE} req/s, alone #${i}`, () => list(STEADY_RATE)))
+    rows.push(await windowed(`${STEADY_RATE} req/s, uploading #${i}`, () => whileUploading(() => list(STEADY_RATE))))
+  }
+  for (const { name, result: r, loopP99, loopMax } of rows)
+    console.log(
+      `[upload] ${name.padEnd(26)} p50 ${r.latency.p50} ms, p90 ${r.latency.p90} ms, p97.5 ${r.latency.p97_5} ms, ` +
+        `${Math.round(r.requests.average)} req/s; event loop delay p99 ${loopP99} ms, max ${loopMax} ms`,
+    )
+  const steady = (kind: string) => rows.filter(r => r.name.startsWith(`${STEADY_RATE}`) && r.name.includes(kind))
+  const p975 = (list: typeof rows) => list.map(r => r.result.latency.p97_5)
+  const alone = p975(steady('alone'))
+  const busy = p975(steady('uploading'))
+  const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!
   console.log(
-    `[upload] at ${STEADY_RATE} req/s, uploading  ${row('', busySteady)}; ${uploads} uploads of 20 MB measured in all, ${(uploadMs / Math.max(1, uploads) / 1000).toFixed(1)} s each`,
+    `[upload] at ${STEADY_RATE} req/s, p97.5 alone ${alone.join(' / ')} ms (noise: ${Math.min(...alone)}–${Math.max(...alone)}), ` +
+      `uploading ${busy.join(' / ')} ms; median ${median(alone)} → ${median(busy)} ms, ratio ${(median(busy) / median(alone)).toFixed(2)}×; ` +
+      `${uploads} uploads of ${(tiff.length / 1e6).toFixed(1)} MB measured, ${(uploadMs / Math.max(1, uploads) / 1000).toFixed(1)} s each`,
   )
+  // The bench's own files leave storage again (20 MB each, a few hundred MB a run).
+  for (const id of uploaded)
+    for (const name of ['original', 'view.png', 'thumbnail.jpg'])
+      await deleteObject(objectKey(labId, 'micrographs', id, name))
 } finally {
   await server.stop()
 }

@@ -1,15 +1,9 @@
-// Micrograph files: the type checked on the bytes (file-type), decoded and thumbnailed with sharp, measured in a
-// worker thread (server/workers/imaging.ts) so a large image never blocks other requests.
-import { existsSync } from 'node:fs'
-import { dirname, join } from 'node:path'
-import { fileURLToPath } from 'node:url'
+// Micrograph files: the type checked on the bytes (file-type), decoded and thumbnailed with sharp. Called in the
+// imaging process (server/services/micrographWork.ts), so a large image never holds the request thread up.
 import { fileTypeFromBuffer } from 'file-type'
 import { createError } from 'h3'
 import sharp from 'sharp'
-import Tinypool from 'tinypool'
-import { measureDrops, type Measurement } from '#shared/imaging/measure'
 import { MAX_MICROGRAPH_PIXELS, MICROGRAPH_TYPES } from '#shared/schemas/bench'
-import { useConfig } from '../utils/config'
 
 // One libvips thread per image operation: decoding, thumbnailing and re-encoding a 20 MB micrograph would
 // otherwise take every core of the machine at once, and the requests answered beside it wait.
@@ -66,35 +60,4 @@ export async function thumbnail(bytes: Uint8Array): Promise<Uint8Array> {
 /** The image as PNG for the overlay view (browsers do not show TIFF). */
 export async function webImage(bytes: Uint8Array): Promise<Uint8Array> {
   return sharp(bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS }).png({ compressionLevel: 3 }).toBuffer()
-}
-
-let pool: Tinypool | null | undefined
-function imagingPool(): Tinypool | null {
-  if (pool !== undefined) return pool
-  let dir = dirname(fileURLToPath(import.meta.url))
-  let file: string | null = null
-  for (let i = 0; i < 5 && !file; i++, dir = dirname(dir))
-    if (existsSync(join(dir, 'workers', 'imaging.mjs'))) file = join(dir, 'workers', 'imaging.mjs')
-  pool =
-    file && useConfig().imaging.worker
-      ? new Tinypool({
-          filename: file,
-          minThreads: 0,
-          maxThreads: 1,
-          idleTimeout: 30_000,
-          resourceLimits: { maxOldGenerationSizeMb: 1024 },
-        })
-      : null
-  return pool
-}
-
-/** Measures in the imaging worker (in-thread without a built worker). */
-export async function measureOffThread(image: DecodedImage, umPerPx: number): Promise<Measurement> {
-  const p = imagingPool()
-  if (!p) return measureDrops({ width: image.width, height: image.height, data: image.pixels }, { umPerPx })
-  const copy = image.pixels.slice().buffer
-  return p.run(
-    { width: image.width, height: image.height, pixels: copy, umPerPx },
-    { transferList: [copy] as never, signal: AbortSignal.timeout(120_000) },
-  ) as Promise<Measurement>
 }

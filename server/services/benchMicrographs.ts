@@ -8,59 +8,43 @@ import { benchMicrographs, benchRuns } from '../db/schema'
 import type { LabCaller } from '../utils/access'
 import { useDb } from '../utils/db'
 import { enqueueJob } from '../utils/jobs'
-import sharp from 'sharp'
-import { MAX_MICROGRAPH_PIXELS } from '#shared/schemas/bench'
 import { logActivity } from './activity'
 import { findRun, micrographJson, refreshRunFromMicrographs } from './bench'
-import { decodeGrey, measureOffThread, sniffMicrograph, thumbnail, webImage } from './benchImages'
+import { runImaging } from './imagingPool'
 import { notFound } from './designGuards'
-import { getObject, objectKey, putObject } from './storage'
+import { getObject } from './storage'
 
 export const MEASURE_JOB = 'micrograph.measure'
 
 /**
- * Stores the micrograph (original, browser view, thumbnail), queues its measurement as a background job in the same
- * transaction as its row, then waits up to `waitMs` for the result: a small image answers with its drops at once
+ * Hands the upload to the imaging process, which parses the form, checks the file by its bytes and stores the
+ * original, its browser view and its thumbnail; then queues the measurement as a background job in the same
+ * transaction as the row, and waits up to `waitMs` for the result: a small image answers with its drops at once
  * (201), a large one answers 202 with the row, whose status and progress the page follows.
  */
 export async function uploadMicrograph(
   caller: LabCaller,
   runId: string,
-  file: { bytes: Uint8Array; fileName: string },
-  umPerPx: number,
+  upload: { bodyFile: string; contentType: string },
   waitMs = 25_000,
 ) {
   await findRun(caller, runId)
-  const contentType = await sniffMicrograph(file.bytes, file.fileName)
-  const meta = await sharp(file.bytes, { limitInputPixels: MAX_MICROGRAPH_PIXELS })
-    .metadata()
-    .catch(() => null)
-  if (!meta?.width || !meta.height) await decodeGrey(file.bytes) // throws the message naming the problem
   const id = randomUUID()
-  const key = objectKey(caller.lab.labId, 'micrographs', id, 'original')
-  const thumbKey = objectKey(caller.lab.labId, 'micrographs', id, 'thumbnail.jpg')
-  const viewKey = objectKey(caller.lab.labId, 'micrographs', id, 'view.png')
-  await putObject(key, file.bytes, contentType)
-  await putObject(thumbKey, await thumbnail(file.bytes), 'image/jpeg')
-  await putObject(
-    viewKey,
-    contentType === 'image/tiff' ? await webImage(file.bytes) : file.bytes,
-    contentType === 'image/tiff' ? 'image/png' : contentType,
-  )
+  const stored = await runImaging('store', { labId: caller.lab.labId, micrographId: id, ...upload }, 60_000)
   const db = useDb()
   await db.transaction(async tx => {
     await tx.insert(benchMicrographs).values({
       id,
       labId: caller.lab.labId,
       runId,
-      objectKey: key,
-      thumbnailKey: thumbKey,
-      contentType,
-      bytes: file.bytes.byteLength,
-      fileName: file.fileName.slice(0, 200),
-      width: meta?.width ?? 0,
-      height: meta?.height ?? 0,
-      umPerPx,
+      objectKey: stored.objectKey,
+      thumbnailKey: stored.thumbnailKey,
+      contentType: stored.contentType,
+      bytes: stored.bytes,
+      fileName: stored.fileName,
+      width: stored.width,
+      height: stored.height,
+      umPerPx: stored.umPerPx,
       status: 'queued',
       progress: 0,
       createdBy: caller.userId,
@@ -90,7 +74,7 @@ export async function uploadMicrograph(
   }
 }
 
-/** The job: fetch the bytes from storage, decode, measure in the imaging worker, keep the result. Idempotent. */
+/** The job: the imaging process fetches the bytes from storage, decodes and measures them; the result is kept. Idempotent. */
 export async function measureMicrographJob(data: {
   labId: string
   runId: string
@@ -107,9 +91,7 @@ export async function measureMicrographJob(data: {
     db.update(benchMicrographs).set({ status: 'measuring', progress: fraction }).where(eq(benchMicrographs.id, row.id))
   try {
     await progress(0.1)
-    const image = await decodeGrey(await getObject(row.objectKey))
-    await progress(0.3)
-    const measurement = await measureOffThread(image, row.umPerPx)
+    const { measurement, ...image } = await runImaging('measure', { objectKey: row.objectKey, umPerPx: row.umPerPx })
     await db
       .update(benchMicrographs)
       .set({

@@ -1,6 +1,8 @@
 // Request bodies, counted on the stream whatever the transfer encoding (Content-Length or chunked): what each route
 // accepts (docs/api-limits.md) and the one reader every route uses. A body over its limit answers 413 the moment the
 // limit is passed; the server never holds more than the limit of one body in memory.
+import { createWriteStream } from 'node:fs'
+import { writeFile } from 'node:fs/promises'
 import type { H3Event } from 'h3'
 import { createError, getRequestHeader } from 'h3'
 
@@ -22,6 +24,8 @@ interface BodyRule {
   pattern: RegExp
   limit: number
   types?: string[]
+  /** The route streams the body to a file itself (saveLimitedBody) instead of having it read into memory first. */
+  toFile?: true
 }
 
 /** Routes whose limit or accepted types differ from the default (64 KiB of JSON). */
@@ -43,6 +47,7 @@ export const ROUTE_BODIES: BodyRule[] = [
     pattern: /^\/api\/labs\/[^/]+\/bench-runs\/[^/]+\/micrographs$/,
     limit: MAX_UPLOAD_BYTES,
     types: ['multipart/form-data'],
+    toFile: true,
   },
   // As-built reports (issue 15): a profilometer CSV or a photo per upload, up to the micrograph limit.
   {
@@ -55,9 +60,9 @@ export const ROUTE_BODIES: BodyRule[] = [
 
 export const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
-export function bodyRule(method: string, path: string): { limit: number; types: string[] } {
+export function bodyRule(method: string, path: string): { limit: number; types: string[]; toFile: boolean } {
   const rule = ROUTE_BODIES.find(r => r.method === method && r.pattern.test(path))
-  return { limit: rule?.limit ?? MAX_SMALL_BYTES, types: rule?.types ?? [JSON_TYPE] }
+  return { limit: rule?.limit ?? MAX_SMALL_BYTES, types: rule?.types ?? [JSON_TYPE], toFile: rule?.toFile ?? false }
 }
 
 const size = (bytes: number) => (bytes >= MiB ? `${+(bytes / MiB).toFixed(1)} MiB` : `${+(bytes / KiB).toFixed(1)} KiB`)
@@ -148,33 +153,91 @@ export function readLimitedBody(
 
 function readCounted(event: H3Event, limit: number): Promise<Buffer | undefined> {
   if (!hasBody(event)) return Promise.resolve(undefined)
+  const chunks: Buffer[] = []
+  return countBody(event, limit, {
+    write: chunk => void chunks.push(chunk),
+    end: count => Promise.resolve(Buffer.concat(chunks, count)),
+    abort: () => void (chunks.length = 0),
+  })
+}
+
+/**
+ * The request body streamed into `file` with the same byte counter (413 the moment the limit passes, the file then
+ * removed by the caller's clean-up): for large uploads, which then never sit whole in the server's memory. Answers
+ * the byte count (0, and an empty file, without a body).
+ */
+export function saveLimitedBody(
+  event: H3Event,
+  file: string,
+  limit = bodyRule(event.method, event.path.split('?')[0]!).limit,
+): Promise<number> {
+  if (!hasBody(event)) return writeFile(file, '').then(() => 0)
+  const out = createWriteStream(file)
+  const { req } = event.node
+  // A file that cannot be written (disk full) lets the rest of the body flow past and answers 503 at its end.
+  let failed: Error | undefined
+  out.on('error', error => {
+    failed ??= error
+    req.resume()
+  })
+  return countBody(event, limit, {
+    write: chunk => {
+      if (failed || out.write(chunk)) return
+      req.pause()
+      out.once('drain', () => req.resume())
+    },
+    end: count =>
+      new Promise((resolve, reject) => {
+        const refuse = () =>
+          reject(
+            createError({
+              statusCode: 503,
+              statusMessage: 'Service Unavailable',
+              message: `The upload could not be kept on the server right now (${failed!.message.slice(0, 80)}); send it again in a minute`,
+            }),
+          )
+        if (failed) return refuse()
+        out.end(() => (failed ? refuse() : resolve(count)))
+      }),
+    abort: () => void out.destroy(),
+  })
+}
+
+interface BodySink<T> {
+  write: (chunk: Buffer) => void
+  end: (count: number) => Promise<T>
+  abort: () => void
+}
+
+function countBody<T>(event: H3Event, limit: number, sink: BodySink<T>): Promise<T> {
   const declared = Number.parseInt(getRequestHeader(event, 'content-length') ?? '', 10)
   if (Number.isFinite(declared) && declared > limit) {
+    sink.abort()
     discardRest(event)
     return Promise.reject(tooLarge(limit, size(declared)))
   }
   const { req } = event.node
   return new Promise((resolve, reject) => {
-    const chunks: Buffer[] = []
     let count = 0
     const onData = (chunk: Buffer) => {
       count += chunk.length
       if (count > limit) {
         cleanup()
         req.pause()
-        chunks.length = 0
+        sink.abort()
         discardRest(event)
         reject(tooLarge(limit, `over ${size(limit)}`))
         return
       }
-      chunks.push(chunk)
+      sink.write(chunk)
     }
     const onEnd = () => {
       cleanup()
-      resolve(Buffer.concat(chunks, count))
+      sink.end(count).then(resolve, reject)
     }
     const onError = (error: Error) => {
       cleanup()
+      sink.abort()
       reject(
         createError({
           statusCode: 400,

@@ -122,6 +122,8 @@ export const envSchema = z.object({
   DW_JOBS_POLL_SECONDS: decimal(2, 0.5),
   DW_JOBS_POOL: whole(3, 1, 100),
   DW_DIAGNOSTIC_JOBS: flag(false),
+  // Benchmarks only (scripts/bench/upload.ts): the event loop's delay, one JSON line per second, to this file.
+  DW_LOOP_DELAY_FILE: text(),
 
   DW_GEOMETRY_BUDGET_MS: whole(120_000, 1),
   DW_GEOMETRY_THREADS: whole(2, 1, 64),
@@ -180,6 +182,7 @@ function shape(env: Env) {
       pollSeconds: env.DW_JOBS_POLL_SECONDS,
       pool: env.DW_JOBS_POOL,
       diagnostic: env.DW_DIAGNOSTIC_JOBS,
+      loopDelayFile: env.DW_LOOP_DELAY_FILE ?? null,
     },
     geometry: {
       budgetMs: env.DW_GEOMETRY_BUDGET_MS,

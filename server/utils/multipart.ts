@@ -1,10 +1,13 @@
 // Multipart/form-data bodies (read once, counted against the route's limit by the body middleware), parsed by busboy
 // (streaming, with a Boyer–Moore–Horspool boundary search) in 1 MiB slices that yield to the event loop between
 // them: a 20 MB micrograph never holds other requests up (h3's own parser took 1–2 s of the main thread on one).
+import { mkdtemp, rm } from 'node:fs/promises'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import Busboy from 'busboy'
 import type { H3Event } from 'h3'
 import { createError, getRequestHeader } from 'h3'
-import { readLimitedBody } from './bodyLimit'
+import { readLimitedBody, saveLimitedBody } from './bodyLimit'
 
 export interface FormPart {
   name: string
@@ -63,10 +66,29 @@ async function readParts(event: H3Event): Promise<FormPart[]> {
   return parseMultipart(body, getRequestHeader(event, 'content-type') ?? '')
 }
 
-export async function readMicrographForm(
+/**
+ * The upload's body streamed into a file of its own (counted against the route's limit), for as long as `use` runs;
+ * the imaging process reads and parses it there, so the request thread never holds the bytes.
+ */
+export async function withUploadFile<T>(
   event: H3Event,
-): Promise<{ file: { bytes: Uint8Array; fileName: string }; fields: Record<string, string> }> {
-  const parts = await readParts(event)
+  use: (upload: { bodyFile: string; contentType: string }) => Promise<T>,
+): Promise<T> {
+  const dir = await mkdtemp(join(tmpdir(), 'dropwright-upload-'))
+  try {
+    const bodyFile = join(dir, 'body')
+    await saveLimitedBody(event, bodyFile)
+    return await use({ bodyFile, contentType: getRequestHeader(event, 'content-type') ?? '' })
+  } finally {
+    await rm(dir, { recursive: true, force: true })
+  }
+}
+
+/** A micrograph form's file (field "image") and its short text fields (the scale). */
+export function micrographForm(parts: FormPart[]): {
+  file: { bytes: Uint8Array; fileName: string }
+  fields: Record<string, string>
+} {
   if (!parts.length)
     throw bad(
       'Send the micrograph as multipart/form-data with a file field "image" and the scale ("umPerPx", or "barPx" and "barUm")',
@@ -75,7 +97,7 @@ export async function readMicrographForm(
   let file: { bytes: Uint8Array; fileName: string } | undefined
   for (const part of parts) {
     if (part.name === 'image' && part.filename !== undefined)
-      file = { bytes: new Uint8Array(part.data), fileName: part.filename || 'micrograph' }
+      file = { bytes: part.data, fileName: part.filename || 'micrograph' }
     else if (part.name && part.filename === undefined && part.data.length <= 200)
       fields[part.name] = part.data.toString('utf8')
   }

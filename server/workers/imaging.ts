@@ -1,25 +1,30 @@
-// Worker-thread task of the micrograph measurement (bundled to .output/server/workers/imaging.mjs by
-// scripts/build-workers.mjs): grey pixels in, detected drops out. The pixels arrive as a transferred buffer.
+// The imaging process (a tinypool child process, bundled to .output/server/workers/imaging.mjs by
+// scripts/build-workers.mjs): micrograph uploads parsed, checked and stored, and stored micrographs measured, off
+// the server's process. A process rather than a thread because everything image work starts — libvips' threads,
+// the thread pool that runs sharp, the garbage collector's helpers — then runs below the request thread too.
+import { readdirSync } from 'node:fs'
 import { setPriority } from 'node:os'
-import { measureDrops, type Measurement } from '#shared/imaging/measure'
+import {
+  measureStoredMicrograph,
+  storeMicrographUpload,
+  type MeasureMicrographTask,
+  type StoreMicrographTask,
+} from '../services/micrographWork'
 import { useConfig } from '../utils/config'
+import { settle } from '../utils/settle'
 
-// Below the request thread, like the geometry workers (a nice value is per thread on Linux): a measurement of
-// several seconds waits for the event loop that answers requests (DW_GEOMETRY_NICE, default 10).
+// A nice value is per thread on Linux: every thread that exists now gets DW_GEOMETRY_NICE (default 10), and the
+// threads started later inherit it from the thread that starts them.
+const nice = useConfig().geometry.nice
 try {
-  setPriority(useConfig().geometry.nice)
+  for (const tid of readdirSync('/proc/self/task')) setPriority(Number(tid), nice)
 } catch {
-  /* not allowed here: run at the same priority */
+  try {
+    setPriority(nice)
+  } catch {
+    /* not allowed here: run at the same priority */
+  }
 }
 
-export default function measure(job: {
-  width: number
-  height: number
-  pixels: ArrayBuffer
-  umPerPx: number
-}): Measurement {
-  return measureDrops(
-    { width: job.width, height: job.height, data: new Uint8Array(job.pixels) },
-    { umPerPx: job.umPerPx },
-  )
-}
+export const store = (task: StoreMicrographTask) => settle(() => storeMicrographUpload(task))
+export const measure = (task: MeasureMicrographTask) => settle(() => measureStoredMicrograph(task))

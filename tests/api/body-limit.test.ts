@@ -2,7 +2,8 @@
 // documents, 64 KiB everywhere else (docs/api-limits.md). A body over its limit answers 413 as soon as the limit is
 // passed — before a long upload ends — and the server never holds more than the limit in memory.
 import { randomUUID } from 'node:crypto'
-import { readFileSync } from 'node:fs'
+import { readdirSync, readFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
 import { request as httpRequest } from 'node:http'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient } from '../support/api'
@@ -13,6 +14,7 @@ import example from '../fixtures/forecast/t-junction-request.json'
 const MiB = 1024 * 1024
 const DOCUMENT_LIMIT = 8 * MiB
 const SMALL_LIMIT = 64 * 1024
+const UPLOAD_LIMIT = 25 * MiB
 
 interface Upload {
   status: number
@@ -38,11 +40,15 @@ function upload(
     chunked: boolean
     declared?: number
     hold?: boolean
+    contentType?: string
   },
 ): Promise<Upload> {
   const head = Buffer.from(opts.head ?? '')
   const tail = Buffer.from(opts.tail ?? '')
-  const headers: Record<string, string> = { 'content-type': 'application/json', cookie: opts.cookie }
+  const headers: Record<string, string> = {
+    'content-type': opts.contentType ?? 'application/json',
+    cookie: opts.cookie,
+  }
   if (!opts.chunked) headers['content-length'] = String(opts.declared ?? opts.total)
   const started = Date.now()
   return new Promise((resolve, reject) => {
@@ -157,6 +163,25 @@ describe('body limits counted on the stream', () => {
       expect(over.json.message).toMatch(/64 KiB/)
     })
   }
+
+  it('the micrograph route (25 MiB, streamed to a file) refuses one byte more either way, and keeps no file of it', async () => {
+    const uploads = () => new Set(readdirSync(tmpdir()).filter(name => name.startsWith('dropwright-upload-')))
+    const before = uploads()
+    for (const chunked of [false, true]) {
+      const over = await upload(inject('baseURL'), `/api/labs/${labId}/bench-runs/${randomUUID()}/micrographs`, {
+        cookie,
+        chunked,
+        total: UPLOAD_LIMIT + 1,
+        head: '--x\r\nContent-Disposition: form-data; name="image"; filename="big.png"\r\n\r\n',
+        tail: '\r\n--x--\r\n',
+        contentType: 'multipart/form-data; boundary=x',
+      })
+      expect(over.status, JSON.stringify(over.json)).toBe(413)
+      expect(over.json.message).toMatch(/25 MiB/)
+    }
+    // The folder each upload streamed into is removed with it (other test files may be uploading meanwhile).
+    await expect.poll(() => [...uploads()].filter(name => !before.has(name)), { timeout: 3000 }).toEqual([])
+  })
 
   it('answers 413 at once to a declared Content-Length over the limit, without waiting for the body', async () => {
     // 400 MiB announced, 1 KiB sent, then the client waits: the answer comes anyway, in well under a second.
