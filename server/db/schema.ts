@@ -175,6 +175,9 @@ export const designs = pgTable(
     index('designs_lab_updated_idx').on(t.labId, t.updatedAt, t.id),
     index('designs_lab_name_idx').on(t.labId, t.name, t.id),
     index('designs_lab_created_idx').on(t.labId, t.createdAt, t.id),
+    // The list's search (name ilike '%…%'): trigrams (pg_trgm, created by the same migration) find the matching
+    // names without reading every design of the lab.
+    index('designs_name_trgm_idx').using('gin', t.name.op('gin_trgm_ops')),
   ],
 )
 

@@ -16,27 +16,42 @@ import { summarizeWithLibrary } from './libraries'
 import { queueSummaryIfPending } from './summaryJob'
 import { starterDocument } from './starterDocument'
 
-// The list is the most read query: a named prepared statement per sort order (planned once per connection), every
-// filter a nullable placeholder, one page at a time (offset + limit) with the total counted by a second prepared
-// statement on the same filters (the join to revisions only when the status filter needs it). Indexes
-// `designs_lab_<sort>_idx` (lab, archived, sort key, id) serve every order, so a page reads its rows off the index.
+// The list is the most read query: a named prepared statement per sort order, with or without a search (planned
+// once per connection), the other filters nullable placeholders, one page at a time (offset + limit) with the total
+// counted by a second prepared statement on the same filters. The page is a deferred join: its ids come off `designs` alone, walking the index
+// `designs_lab_<sort>_idx` (lab, sort key, id) past the skipped rows, and only those 50 rows are joined to their
+// revision and author (joining first made page 100 of a 10,000-design lab hash all the lab's revisions: 28 ms
+// alone, ~280 ms p95 at 20 connections). The status filter is an EXISTS on the latest revision's primary key.
 const ORDER = { updated: designs.updatedAt, name: designs.name, created: designs.createdAt } as const
 type ListQuery = z.infer<typeof designListQuery>
 const like = sql.placeholder('like')
 const status = sql.placeholder('status')
 const kind = sql.placeholder('kind')
 
-function listFilters() {
+/** The list's filters; with `search` the name must match `like` (a statement of its own, so its plan can use the
+ * trigram index, which a `like is null or …` test in a generic plan never would). */
+function listFilters(search: boolean) {
   return [
     eq(designs.labId, sql.placeholder('labId')),
     sql`(${designs.archivedAt} is not null) = ${sql.placeholder('archived')}`,
-    sql`(${like}::text is null or ${designs.name} ilike ${like})`,
+    ...(search ? [sql`${designs.name} ilike ${like}`] : []),
     sql`(${kind}::text is null or ${kind} = any(${designs.junctionKinds}))`,
+    sql`(${status}::revision_status is null or exists (select 1 from ${revisions} where ${revisions.id} = ${designs.latestRevisionId} and ${revisions.status} = ${status}))`,
   ]
 }
 
-function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
-  return useDb()
+function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc', search: boolean) {
+  const db = useDb()
+  const by = (column: Parameters<typeof asc>[0]) => (dir === 'asc' ? asc(column) : desc(column))
+  const page = db
+    .select({ id: designs.id })
+    .from(designs)
+    .where(and(...listFilters(search)))
+    .orderBy(by(ORDER[sort]), by(designs.id))
+    .limit(sql.placeholder('limit'))
+    .offset(sql.placeholder('offset'))
+    .as('page')
+  return db
     .select({
       id: designs.id,
       name: designs.name,
@@ -51,31 +66,22 @@ function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc') {
       archived: sql<boolean>`${designs.archivedAt} is not null`,
       origin: designs.origin,
     })
-    .from(designs)
+    .from(page)
+    .innerJoin(designs, eq(designs.id, page.id))
     .leftJoin(revisions, eq(revisions.id, designs.latestRevisionId))
     .leftJoin(users, eq(users.id, revisions.authorId))
-    .where(and(...listFilters(), sql`(${status}::revision_status is null or ${revisions.status} = ${status})`))
-    .orderBy(dir === 'asc' ? asc(ORDER[sort]) : desc(ORDER[sort]), dir === 'asc' ? asc(designs.id) : desc(designs.id))
-    .limit(sql.placeholder('limit'))
-    .offset(sql.placeholder('offset'))
-    .prepare(`dw_designs_${sort}_${dir}`)
+    .orderBy(by(ORDER[sort]), by(designs.id))
+    .prepare(`dw_designs_${sort}_${dir}${search ? '_q' : ''}`)
 }
 const lists = new Map<string, ReturnType<typeof prepareList>>()
 
-const countAll = () =>
+const prepareCount = (search: boolean) =>
   useDb()
     .select({ total: sql<number>`count(*)::int` })
     .from(designs)
-    .where(and(...listFilters()))
-    .prepare('dw_designs_count')
-const countByStatus = () =>
-  useDb()
-    .select({ total: sql<number>`count(*)::int` })
-    .from(designs)
-    .innerJoin(revisions, eq(revisions.id, designs.latestRevisionId))
-    .where(and(...listFilters(), sql`${revisions.status} = ${status}`))
-    .prepare('dw_designs_count_status')
-let counts: { all: ReturnType<typeof countAll>; byStatus: ReturnType<typeof countByStatus> } | undefined
+    .where(and(...listFilters(search)))
+    .prepare(`dw_designs_count${search ? '_q' : ''}`)
+const counts = new Map<boolean, ReturnType<typeof prepareCount>>()
 
 export interface DesignPage {
   rows: DesignRow[]
@@ -86,23 +92,20 @@ export interface DesignPage {
 
 export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<DesignPage> {
   const dir = query.dir === 'asc' ? 'asc' : 'desc'
-  const key = `${query.sort}-${dir}`
-  const list = lists.get(key) ?? lists.set(key, prepareList(query.sort, dir)).get(key)!
-  counts ??= { all: countAll(), byStatus: countByStatus() }
+  const search = Boolean(query.q)
+  const key = `${query.sort}-${dir}-${search}`
+  const list = lists.get(key) ?? lists.set(key, prepareList(query.sort, dir, search)).get(key)!
+  const count = counts.get(search) ?? counts.set(search, prepareCount(search)).get(search)!
   const filters = {
     labId: caller.lab.labId,
     archived: query.archived === 'true',
     kind: query.kind ?? null,
     like: query.q ? `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%` : null,
+    status: query.status ?? null,
   }
   const [rows, [counted]] = await Promise.all([
-    list.execute({
-      ...filters,
-      status: query.status ?? null,
-      limit: query.pageSize,
-      offset: (query.page - 1) * query.pageSize,
-    }),
-    query.status ? counts.byStatus.execute({ ...filters, status: query.status }) : counts.all.execute(filters),
+    list.execute({ ...filters, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
+    count.execute(filters),
   ])
   return {
     rows: rows.map(r => ({
