@@ -1,7 +1,7 @@
 // Micrographs are parsed, stored and measured in a child process of the server whose every thread runs below the
 // request thread (server/workers/imaging.ts), so a 20 MB upload does not slow the pages others are loading. Checked
 // on an instance of its own, through /proc: the server's children, their threads and each thread's nice value.
-import { readdirSync, readFileSync } from 'node:fs'
+import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient } from '../support/api'
 import { designerWithDesign } from '../support/designs'
@@ -89,5 +89,13 @@ describe('the imaging process', () => {
     const badScale = await fetch(url, { method: 'POST', body: form, headers: { cookie } })
     expect(badScale.status).toBe(400)
     expect((await badScale.json()).message).toMatch(/Scale is invalid.*> 0 µm per pixel/)
+  })
+
+  it('does not outlive the server: stopped with it', async () => {
+    const pid = server.child.pid!
+    const children = childrenOf(pid)
+    expect(children).toHaveLength(1)
+    await server.stop()
+    await expect.poll(() => existsSync(`/proc/${children[0]}`), { timeout: 10_000 }).toBe(false)
   })
 })
