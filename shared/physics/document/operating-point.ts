@@ -1,7 +1,7 @@
 // The operating point of a document: which one, its liquids and tension at its temperature, its inlet settings.
 import type { ChipDocument, LiquidRef, OperatingPoint } from '../../schemas/chip'
 import { ForecastInputError } from '../errors'
-import { resolveLiquid, resolveTension, type LiquidSpec } from '../forecast/resolve'
+import { resolveLiquid, resolveTension, tensionTemperatureWarnings, type LiquidSpec } from '../forecast/resolve'
 import { BUILT_IN_LIBRARY, type LiquidLibrary, type LiquidProperties } from '../liquids'
 import { INPUT, quantity, type Quantity, type Warning } from '../quantity'
 import { UNIT, ZERO_CELSIUS, type Kelvin } from '../units'
@@ -120,6 +120,7 @@ export function resolveOperatingPoint(
   }
   try {
     resolved.interfacialTension = resolveTension(undefined, continuous.liquid, dispersed.liquid, surfactant, library)
+    resolved.warnings.push(...tensionTemperatureWarnings(resolved.interfacialTension, temperature))
   } catch (error) {
     if (!(error instanceof ForecastInputError)) throw error
     resolved.tensionProblem = {

@@ -5,7 +5,7 @@ import type { Warning } from '../quantity'
 import type { Kelvin } from '../units'
 import { forecastJunction } from './junction'
 import { parseOrThrow } from './issues'
-import { resolveLiquid, resolveTension } from './resolve'
+import { resolveLiquid, resolveTension, tensionTemperatureWarnings } from './resolve'
 import type { JunctionForecast, ResolvedJunction } from './types'
 
 export const DEFAULT_TEMPERATURE = 293.15 as Kelvin
@@ -38,7 +38,10 @@ export function resolveJunctionRequest(
   }
   if (request.contactAngle !== undefined) junction.contactAngle = request.contactAngle
   if (request.model?.alpha !== undefined) junction.alpha = request.model.alpha
-  return { junction, warnings: [...continuous.warnings, ...dispersed.warnings] }
+  return {
+    junction,
+    warnings: [...continuous.warnings, ...dispersed.warnings, ...tensionTemperatureWarnings(tension, temperature)],
+  }
 }
 
 export function runJunctionForecast(input: unknown, library: LiquidLibrary = BUILT_IN_LIBRARY): JunctionForecast {

@@ -51,6 +51,32 @@ export function resolveLiquid(
 }
 
 /** The given tension, else the library pair's, else an error saying how to provide it. */
+/** The built-in pairs' temperature, K: they are room-temperature figures (liquids/pairs.ts), 20–25 °C. */
+const PAIR_TEMPERATURE = { min: 293.15, max: 298.15 }
+/** How far from it a library tension goes without a note: the oils' own window, 10 K (liquids/oils.ts). */
+const PAIR_TEMPERATURE_WINDOW = 10
+
+/**
+ * The note a tension taken from the built-in pairs gets at a temperature far from theirs: tension falls as the
+ * temperature rises, by about 0.1 mN/m per K for water against an alkane without surfactant (from memory; with
+ * surfactant it depends on the surfactant and its concentration), and none of the pairs has a temperature law.
+ */
+export function tensionTemperatureWarnings(tension: Quantity, temperature: Kelvin): Warning[] {
+  if (tension.method !== 'library-pair') return []
+  const { min, max } = PAIR_TEMPERATURE
+  if (temperature >= min - PAIR_TEMPERATURE_WINDOW && temperature <= max + PAIR_TEMPERATURE_WINDOW) return []
+  const c = (k: number) => (k - 273.15).toFixed(1)
+  return [
+    {
+      code: 'tension-temperature',
+      message:
+        `The interfacial tension ${(tension.value * 1e3).toPrecision(3)} mN/m is the library's room-temperature value (${c(min)}–${c(max)} °C); ` +
+        `at ${c(temperature)} °C it is ${temperature > max ? 'lower' : 'higher'}, by about 0.1 mN/m per K for water against an alkane without surfactant ` +
+        '(from memory) and by an amount that depends on the surfactant otherwise: measure it at your temperature and give it as the interfacial tension',
+    },
+  ]
+}
+
 export function resolveTension(
   given: number | undefined,
   continuous: LiquidProperties,

@@ -17,7 +17,8 @@ export interface LiquidPair {
 
 const MEMORY = 'typical value, from memory'
 
-// All figures near room temperature; with surfactant, above its critical micelle concentration
+// All figures near room temperature (20–25 °C, no temperature law: a forecast more than 10 K away warns
+// `tension-temperature`, forecast/resolve.ts); with surfactant, above its critical micelle concentration
 // (about 1–2 wt% in the oil). Recalled typical values: a lab should override them with a pendant-drop measurement.
 export const PAIRS: readonly LiquidPair[] = [
   {

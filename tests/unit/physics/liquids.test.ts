@@ -3,6 +3,9 @@ import { glycerolWaterViscosity } from '#shared/physics/liquids/glycerolWater'
 import { iapwsViscosity, waterDensity, waterSurfaceTension, waterViscosity } from '#shared/physics/liquids/water'
 import { findLiquid, findPair, listLiquids } from '#shared/physics/liquids'
 import type { Kelvin, KilogramsPerCubicMetre } from '#shared/physics/units'
+import { forecastDocument } from '#shared/physics/document'
+import { runForecast, type JunctionForecast } from '#shared/physics/forecast'
+import { loadDocument } from './document-helpers'
 
 const K = (celsius: number) => (celsius + 273.15) as Kelvin
 const relative = (a: number, b: number) => Math.abs(a / b - 1)
@@ -86,5 +89,43 @@ describe('liquids library', () => {
     const { liquid, warnings } = findLiquid('n-hexadecane')!.properties(K(60))
     expect(liquid.viscosity.valid).toBe(false)
     expect(warnings[0]!.code).toBe('liquid-temperature-out-of-range')
+  })
+})
+
+describe("the library pairs' tension away from room temperature", () => {
+  // The pairs are room-temperature figures (shared/physics/liquids/pairs.ts) and have no temperature law, so a
+  // forecast far from 20–25 °C says so rather than using them silently (issue: the tension's temperature note).
+  const junction = (temperature: string, tension?: string) =>
+    runForecast({
+      junction: { kind: 't-junction', mainWidth: '100 um', inletWidth: '50 um', depth: '50 um' },
+      continuous: { liquid: 'n-hexadecane' },
+      dispersed: { liquid: 'water' },
+      surfactant: 'sorbitan-monooleate',
+      ...(tension ? { interfacialTension: tension } : {}),
+      temperature,
+      flow: { continuous: '10 uL/min', dispersed: '5 uL/min' },
+    }) as JunctionForecast
+  const note = (answer: { warnings: { code: string; message: string }[] }) =>
+    answer.warnings.find(w => w.code === 'tension-temperature')
+
+  it('a single junction at 37 °C with a library tension gets the note: lower there, measure it', () => {
+    const message = note(junction('37 degC'))?.message
+    expect(message).toMatch(
+      /4\.00 mN\/m is the library's room-temperature value \(20\.0–25\.0 °C\); at 37\.0 °C it is lower/,
+    )
+    expect(message).toMatch(/measure it at your temperature/)
+  })
+  it('at 30 °C (within 10 K), or with a tension the user gave, there is no note', () => {
+    expect(note(junction('30 degC'))).toBeUndefined()
+    expect(note(junction('37 degC', '4 mN/m'))).toBeUndefined()
+  })
+  it('a chip document at 37 °C gets it too, and at 4 °C it reads "higher"', () => {
+    const at = (temperatureC: number) => {
+      const doc = loadDocument('t-junction-basic')
+      return forecastDocument({ ...doc, operatingPoints: doc.operatingPoints.map(op => ({ ...op, temperatureC })) })
+    }
+    expect(note(at(37))?.message).toMatch(/at 37\.0 °C it is lower/)
+    expect(note(at(4))?.message).toMatch(/at 4\.0 °C it is higher/)
+    expect(note(at(22))).toBeUndefined()
   })
 })
