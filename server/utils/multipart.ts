@@ -1,6 +1,7 @@
-// Multipart/form-data bodies (read once, counted against the route's limit by the body middleware), parsed by busboy
-// (streaming, with a Boyer–Moore–Horspool boundary search) in 1 MiB slices that yield to the event loop between
-// them: a 20 MB micrograph never holds other requests up (h3's own parser took 1–2 s of the main thread on one).
+// Multipart/form-data bodies, parsed by busboy (streaming, with a Boyer–Moore–Horspool boundary search) in 1 MiB
+// slices that yield to the event loop between them (h3's own parser took 1–2 s of the main thread on a 20 MB file).
+// An as-built file is read once by the body middleware, counted against the route's limit; a micrograph upload is
+// streamed into a temporary file instead (withUploadFile) and parsed there by the imaging process.
 import { mkdtemp, rm } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
