@@ -43,8 +43,12 @@ function listFilters(search: boolean) {
 function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc', search: boolean) {
   const db = useDb()
   const by = (column: Parameters<typeof asc>[0]) => (dir === 'asc' ? asc(column) : desc(column))
+  // A search counts its matches in the same pass (a window count, taken before the limit): it reads them all
+  // anyway, so a second statement would read them again. Without a search the page stops at its limit and the
+  // total comes from the count statement.
+  const total = search ? sql<number>`(count(*) over ())::int` : sql<number | null>`null::int`
   const page = db
-    .select({ id: designs.id })
+    .select({ id: designs.id, total: total.as('total') })
     .from(designs)
     .where(and(...listFilters(search)))
     .orderBy(by(ORDER[sort]), by(designs.id))
@@ -65,6 +69,7 @@ function prepareList(sort: ListQuery['sort'], dir: 'asc' | 'desc', search: boole
       authorName: users.name,
       archived: sql<boolean>`${designs.archivedAt} is not null`,
       origin: designs.origin,
+      total: page.total,
     })
     .from(page)
     .innerJoin(designs, eq(designs.id, page.id))
@@ -103,12 +108,12 @@ export async function listDesigns(caller: LabCaller, query: ListQuery): Promise<
     like: query.q ? `%${query.q.replace(/[%_\\]/g, m => `\\${m}`)}%` : null,
     status: query.status ?? null,
   }
-  const [rows, [counted]] = await Promise.all([
-    list.execute({ ...filters, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
-    count.execute(filters),
-  ])
+  const page = { ...filters, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }
+  const [rows, counted] = search
+    ? await list.execute(page).then(async rows => [rows, rows[0] ?? (await count.execute(filters))[0]] as const)
+    : await Promise.all([list.execute(page), count.execute(filters).then(([c]) => c)])
   return {
-    rows: rows.map(r => ({
+    rows: rows.map(({ total: _, ...r }) => ({
       ...r,
       updatedAt: r.updatedAt.toISOString(),
       authorName: r.authorName ?? '',

@@ -50,6 +50,13 @@ describe('designs list paging (real server, real PostgreSQL)', () => {
     const search = await page('q=paging&sort=name&dir=asc&pageSize=4&page=2')
     expect(search.headers.get('x-total-count')).toBe('6')
     expect(namesOf(search)).toEqual(['Paging chip 5', 'Paging chip 6'])
+    // A search counts its matches with its page; past the last page (no rows to carry it) the total still comes.
+    const pastSearch = await page('q=paging&pageSize=4&page=3')
+    expect(pastSearch.json).toEqual([])
+    expect(pastSearch.headers.get('x-total-count')).toBe('6')
+    const searchDrafts = await page('q=chip%206&status=draft')
+    expect(namesOf(searchDrafts)).toEqual(['Paging chip 6'])
+    expect(searchDrafts.headers.get('x-total-count')).toBe('1')
     const drafts = await page('status=draft&pageSize=5')
     expect(drafts.headers.get('x-total-count')).toBe('7')
     expect(drafts.json).toHaveLength(5)
