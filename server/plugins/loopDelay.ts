@@ -6,7 +6,7 @@ import { monitorEventLoopDelay } from 'node:perf_hooks'
 import { useConfig } from '../utils/config'
 
 export default defineNitroPlugin(nitro => {
-  const file = useConfig().jobs.loopDelayFile
+  const file = useConfig().diagnostics.loopDelayFile
   if (!file) return
   const histogram = monitorEventLoopDelay({ resolution: 1 })
   histogram.enable()

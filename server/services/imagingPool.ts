@@ -1,11 +1,9 @@
 // The imaging process (server/workers/imaging.ts), one child process started on the first micrograph and stopped
 // after 30 s idle; without a built worker (tests of the sources, DW_IMAGING_WORKER=0) the same work runs here.
-import { existsSync } from 'node:fs'
-import { dirname, join } from 'node:path'
-import { fileURLToPath } from 'node:url'
 import Tinypool from 'tinypool'
 import { useConfig } from '../utils/config'
 import { settle, unsettle, type Settled } from '../utils/settle'
+import { builtWorkerFile } from '../utils/workerFile'
 import {
   measureStoredMicrograph,
   storeMicrographUpload,
@@ -19,10 +17,7 @@ type Tasks = typeof tasks
 let pool: Tinypool | null | undefined
 function imagingPool(): Tinypool | null {
   if (pool !== undefined) return pool
-  let dir = dirname(fileURLToPath(import.meta.url))
-  let file: string | null = null
-  for (let i = 0; i < 5 && !file; i++, dir = dirname(dir))
-    if (existsSync(join(dir, 'workers', 'imaging.mjs'))) file = join(dir, 'workers', 'imaging.mjs')
+  const file = builtWorkerFile('imaging')
   pool =
     file && useConfig().imaging.worker
       ? new Tinypool({

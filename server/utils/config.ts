@@ -182,7 +182,6 @@ function shape(env: Env) {
       pollSeconds: env.DW_JOBS_POLL_SECONDS,
       pool: env.DW_JOBS_POOL,
       diagnostic: env.DW_DIAGNOSTIC_JOBS,
-      loopDelayFile: env.DW_LOOP_DELAY_FILE ?? null,
     },
     geometry: {
       budgetMs: env.DW_GEOMETRY_BUDGET_MS,
@@ -204,6 +203,7 @@ function shape(env: Env) {
           : null,
     },
     imaging: { worker: env.DW_IMAGING_WORKER },
+    diagnostics: { loopDelayFile: env.DW_LOOP_DELAY_FILE ?? null },
   }
 }
 

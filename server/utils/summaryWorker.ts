@@ -6,9 +6,6 @@
 // DW_GEOMETRY_THREADS tasks run at once; the next DW_GEOMETRY_QUEUE wait, beyond that (or after waiting a
 // whole budget) the answer is 503 with Retry-After. Without the built worker (tests of the source, `nuxt dev`
 // before its first build) the work runs in-thread. DW_SUMMARY_WORKER=0 turns the pool off.
-import { existsSync } from 'node:fs'
-import { dirname, join } from 'node:path'
-import { fileURLToPath } from 'node:url'
 import { createError } from 'h3'
 import Tinypool from 'tinypool'
 import { ForecastInputError, runForecast, type ForecastAnswer } from '#shared/physics/forecast'
@@ -22,6 +19,7 @@ import { mergeLibrary, type LabLiquidsData } from '#shared/physics/liquids'
 import type { LabLibraryData } from '../services/libraries'
 import { useConfig } from './config'
 import { assertJsonDepth } from './jsonDepth'
+import { builtWorkerFile } from './workerFile'
 
 const geometry = useConfig().geometry
 /** Per-task time budget (ms), worker threads, waiting tasks, worker heap (MB). */
@@ -34,18 +32,9 @@ const HEAP_MB = geometry.heapMb
 
 let pool: Tinypool | null | undefined
 
-function workerFile(): string | null {
-  let dir = dirname(fileURLToPath(import.meta.url))
-  for (let i = 0; i < 5; i++, dir = dirname(dir)) {
-    const file = join(dir, 'workers', 'geometry.mjs')
-    if (existsSync(file)) return file
-  }
-  return null
-}
-
 function usePool(): Tinypool | null {
   if (pool !== undefined) return pool
-  const filename = geometry.worker ? workerFile() : null
+  const filename = geometry.worker ? builtWorkerFile('geometry') : null
   pool = filename
     ? new Tinypool({
         filename,

@@ -11,7 +11,7 @@ describe('configuration (server/utils/config.ts)', () => {
     expect(c.db).toEqual({ pool: 10, acquireMs: 5000, statementMs: 10_000, lockMs: 5000, idleInTransactionMs: 10_000 })
     expect(c.session).toEqual({ ttlHours: 168, deviceDays: 180 })
     expect(c.mail).toMatchObject({ smtpUrl: null, send: true, retrySeconds: 5, maxAttempts: 8, devOutbox: false })
-    expect(c.jobs).toEqual({ work: true, pollSeconds: 2, pool: 3, diagnostic: false, loopDelayFile: null })
+    expect(c.jobs).toEqual({ work: true, pollSeconds: 2, pool: 3, diagnostic: false })
     expect(c.geometry).toMatchObject({
       budgetMs: 120_000,
       threads: 2,
