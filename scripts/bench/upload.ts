@@ -2,7 +2,10 @@
 // flat out and at a steady 200 req/s, alone and while 20 MB uncompressed TIFF micrographs are uploaded and measured one
 // after another, with the server's event-loop delay beside each window (DW_LOOP_DELAY_FILE). The
 // measurement runs in the imaging worker and decoding in sharp's own threads, so the list should not slow beyond
-// noise. Not a test: `npm run bench:upload`.
+// noise. As the reference for that noise, windows with a process that only spins at the lowest CPU priority there is
+// (SCHED_IDLE, `chrt --idle`: the kernel hands the CPU to anything else first) show what any background work at
+// all costs the list on this machine. Not a test: `npm run bench:upload`.
+import { spawn, spawnSync } from 'node:child_process'
 import { mkdtempSync, readFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
@@ -114,6 +117,17 @@ try {
       uploaded.push(...ids)
     }
   }
+  // The reference: one process that spins and does nothing else, at SCHED_IDLE where chrt exists, else nice 19.
+  const idleClass = spawnSync('chrt', ['--idle', '0', 'true']).status === 0
+  const whileSpinning = async <T>(measure: () => Promise<T>): Promise<T> => {
+    const spin = [process.execPath, '-e', 'for (;;) {}']
+    const spinner = idleClass ? spawn('chrt', ['--idle', '0', ...spin]) : spawn('nice', ['-n', '19', ...spin])
+    try {
+      return await measure()
+    } finally {
+      spinner.kill('SIGKILL')
+    }
+  }
   const delays = () =>
     readFileSync(loopDelayFile, 'utf8')
       .split('\n')
@@ -136,6 +150,7 @@ try {
   rows.push(await windowed('flat out, uploading', () => whileUploading(() => list())))
   for (let i = 1; i <= 3; i++) {
     rows.push(await windowed(`${STEADY_RATE} req/s, alone #${i}`, () => list(STEADY_RATE)))
+    rows.push(await windowed(`${STEADY_RATE} req/s, idle spinner #${i}`, () => whileSpinning(() => list(STEADY_RATE))))
     rows.push(await windowed(`${STEADY_RATE} req/s, uploading #${i}`, () => whileUploading(() => list(STEADY_RATE))))
   }
   for (const { name, result: r, loopP99, loopMax } of rows)
@@ -147,10 +162,13 @@ try {
   const p975 = (list: typeof rows) => list.map(r => r.result.latency.p97_5)
   const alone = p975(steady('alone'))
   const busy = p975(steady('uploading'))
+  const spun = p975(steady('spinner'))
   const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!
+  const ratio = (a: number[], b: number[]) => (median(a) / median(b)).toFixed(2)
   console.log(
     `[upload] at ${STEADY_RATE} req/s, p97.5 alone ${alone.join(' / ')} ms (noise: ${Math.min(...alone)}–${Math.max(...alone)}), ` +
-      `uploading ${busy.join(' / ')} ms; median ${median(alone)} → ${median(busy)} ms, ratio ${(median(busy) / median(alone)).toFixed(2)}×; ` +
+      `${idleClass ? 'SCHED_IDLE' : 'nice 19'} spinner ${spun.join(' / ')} ms, uploading ${busy.join(' / ')} ms; ` +
+      `median ${median(alone)} → ${median(busy)} ms, ratio ${ratio(busy, alone)}× alone, ${ratio(busy, spun)}× the spinner; ` +
       `${uploads} uploads of ${(tiff.length / 1e6).toFixed(1)} MB measured, ${(uploadMs / Math.max(1, uploads) / 1000).toFixed(1)} s each`,
   )
   // The bench's own files leave storage again (20 MB each, a few hundred MB a run).
